@@ -1,0 +1,101 @@
+package main
+
+import (
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+)
+
+// usageError marks a mistake in the command line (exit code 2).
+type usageError struct{ msg string }
+
+func (e *usageError) Error() string { return e.msg }
+
+func usagef(format string, args ...any) error { return &usageError{fmt.Sprintf(format, args...)} }
+
+func exitCode(err error) int {
+	var u *usageError
+	if errors.As(err, &u) {
+		return 2
+	}
+	return 1
+}
+
+type command struct {
+	name, args, help string
+	run              func(args []string, stdin io.Reader, stdout, stderr io.Writer) error
+}
+
+func commands() []command {
+	return []command{
+		{"inspect", "NET", "read and check a net; print counts, bounds, valence and planarity", runInspect},
+		{"sample", "NAME -o FILE", "write a sample net as OBJ (canopy, dome, wave)", runSample},
+	}
+}
+
+// run is the whole program: it parses args and runs one command.
+func run(args []string, stdin io.Reader, stdout, stderr io.Writer) error {
+	if len(args) == 0 || args[0] == "help" || args[0] == "-h" || args[0] == "--help" {
+		printUsage(stdout)
+		if len(args) == 0 {
+			return usagef("no command given")
+		}
+		return nil
+	}
+	for _, c := range commands() {
+		if c.name == args[0] {
+			return c.run(args[1:], stdin, stdout, stderr)
+		}
+	}
+	return usagef("unknown command %q (run `pqfab help`)", args[0])
+}
+
+func printUsage(w io.Writer) {
+	fmt.Fprintln(w, "pqfab: fabrication data for planar-quad gridshells")
+	fmt.Fprintln(w, "\nUsage: pqfab COMMAND [options]")
+	fmt.Fprintln(w, "\nCommands:")
+	for _, c := range commands() {
+		fmt.Fprintf(w, "  %-10s %-22s %s\n", c.name, c.args, c.help)
+	}
+	fmt.Fprintln(w, "\nRun `pqfab COMMAND -h` for a command's options.")
+	fmt.Fprintln(w, "\n"+caution)
+}
+
+// caution is printed wherever results are shown.
+const caution = "Caution: pqfab computes geometry only. It does not check strength, stability, glass safety or\n" +
+	"connections. A qualified structural engineer must check the design; local building codes and\n" +
+	"licensed practice decide. Check every figure before cutting."
+
+// newFlags returns a flag set that reports errors instead of exiting.
+func newFlags(name, args string, stderr io.Writer) *flag.FlagSet {
+	fs := flag.NewFlagSet(name, flag.ContinueOnError)
+	fs.SetOutput(stderr)
+	fs.Usage = func() {
+		fmt.Fprintf(stderr, "Usage: pqfab %s %s [options]\n", name, args)
+		fs.PrintDefaults()
+	}
+	return fs
+}
+
+// parseFlags parses flags that may come before or after positional args.
+func parseFlags(fs *flag.FlagSet, args []string) ([]string, error) {
+	var pos []string
+	for {
+		if err := fs.Parse(args); err != nil {
+			if errors.Is(err, flag.ErrHelp) {
+				return nil, err
+			}
+			return nil, &usageError{err.Error()}
+		}
+		args = fs.Args()
+		if len(args) == 0 {
+			return pos, nil
+		}
+		if args[0] == "--" {
+			return append(pos, args[1:]...), nil
+		}
+		pos = append(pos, args[0])
+		args = args[1:]
+	}
+}

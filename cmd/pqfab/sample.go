@@ -1,0 +1,43 @@
+package main
+
+import (
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+
+	"pqfab/export"
+	"pqfab/samples"
+)
+
+func runSample(args []string, _ io.Reader, stdout, stderr io.Writer) error {
+	fs := newFlags("sample", "NAME -o FILE", stderr)
+	out := fs.String("o", "", "output OBJ file (required)")
+	count := fs.Int("panels", 1000, fmt.Sprintf("about how many panels (%d to %d)", samples.MinPanels, samples.MaxPanels))
+	pos, err := parseFlags(fs, args)
+	if errors.Is(err, flag.ErrHelp) {
+		for _, n := range samples.Names() {
+			fmt.Fprintf(stderr, "  %-8s %s\n", n, samples.Describe(n))
+		}
+		return nil
+	} else if err != nil {
+		return err
+	}
+	if len(pos) != 1 {
+		return usagef("sample takes one name (%v)", samples.Names())
+	}
+	if *out == "" {
+		return usagef("sample needs -o FILE")
+	}
+	net, err := samples.Make(pos[0], *count)
+	if err != nil {
+		return usagef("%v", err)
+	}
+	if err := export.WriteFileAtomic(*out, func(w io.Writer) error {
+		return export.WriteOBJ(w, net, fmt.Sprintf("pqfab sample %s: %s", pos[0], samples.Describe(pos[0])))
+	}); err != nil {
+		return err
+	}
+	fmt.Fprintf(stdout, "wrote %s: %d nodes, %d panels\n", *out, len(net.Nodes), len(net.Faces))
+	return nil
+}

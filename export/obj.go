@@ -1,0 +1,61 @@
+package export
+
+import (
+	"bufio"
+	"io"
+	"strconv"
+
+	"pqfab/geom"
+)
+
+// OBJDigits is the number of decimals written for OBJ coordinates (mm):
+// 1e-4 mm, far below any fabrication tolerance.
+const OBJDigits = 4
+
+// WriteOBJ writes the net as Wavefront OBJ in millimetres, one `v` line per
+// node and one `f` line per panel, in the net's order. Node and panel ids
+// go into comments only where they differ from the 1-based numbers.
+func WriteOBJ(w io.Writer, n *geom.Net, title string) error {
+	bw := bufio.NewWriterSize(w, 1<<16)
+	buf := make([]byte, 0, 128)
+	buf = append(buf, "# "...)
+	buf = append(buf, title...)
+	buf = append(buf, "\n# units: mm, z up; written by pqfab\n"...)
+	buf = strconv.AppendInt(append(buf, "# nodes: "...), int64(len(n.Nodes)), 10)
+	buf = strconv.AppendInt(append(buf, ", panels: "...), int64(len(n.Faces)), 10)
+	buf = append(buf, '\n')
+	if _, err := bw.Write(buf); err != nil {
+		return err
+	}
+	for i, nd := range n.Nodes {
+		buf = append(buf[:0], "v "...)
+		buf = strconv.AppendFloat(buf, nd.Pos.X, 'f', OBJDigits, 64)
+		buf = append(buf, ' ')
+		buf = strconv.AppendFloat(buf, nd.Pos.Y, 'f', OBJDigits, 64)
+		buf = append(buf, ' ')
+		buf = strconv.AppendFloat(buf, nd.Pos.Z, 'f', OBJDigits, 64)
+		if nd.ID != strconv.Itoa(i+1) {
+			buf = append(buf, " # node "...)
+			buf = append(buf, nd.ID...)
+		}
+		buf = append(buf, '\n')
+		if _, err := bw.Write(buf); err != nil {
+			return err
+		}
+	}
+	for i, f := range n.Faces {
+		buf = append(buf[:0], 'f')
+		for _, c := range f.Corners {
+			buf = strconv.AppendInt(append(buf, ' '), int64(c+1), 10)
+		}
+		if f.ID != strconv.Itoa(i+1) {
+			buf = append(buf, " # panel "...)
+			buf = append(buf, f.ID...)
+		}
+		buf = append(buf, '\n')
+		if _, err := bw.Write(buf); err != nil {
+			return err
+		}
+	}
+	return bw.Flush()
+}

@@ -1,0 +1,322 @@
+package geom
+
+import (
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
+	"gonum.org/v1/gonum/spatial/r3"
+)
+
+// Validation defaults.
+const (
+	// DefaultCoincidentTolMM: nodes closer than this are one node entered
+	// twice (0.01 mm, finer than any cut).
+	DefaultCoincidentTolMM = 0.01
+	// DefaultMinAreaMM2: a panel smaller than 1 mm² is degenerate.
+	DefaultMinAreaMM2 = 1.0
+)
+
+// ValidateOptions sets the tolerances of Validate.
+type ValidateOptions struct {
+	CoincidentTolMM float64
+	MinAreaMM2      float64
+}
+
+// DefaultValidateOptions returns the default tolerances.
+func DefaultValidateOptions() ValidateOptions {
+	return ValidateOptions{CoincidentTolMM: DefaultCoincidentTolMM, MinAreaMM2: DefaultMinAreaMM2}
+}
+
+// Findings is what Validate found. Errors stop the job; warnings do not.
+type Findings struct {
+	Errors   []*InputError
+	Warnings []*InputError
+	// Misoriented lists the faces whose corner order must be reversed to
+	// make the net consistently oriented and facing up or out (Reorient
+	// does it). Reported as an error when orientation is inconsistent,
+	// as a warning when whole parts face down.
+	Misoriented []int
+}
+
+// Err returns nil when there are no errors, else an error whose first line
+// is the first problem, followed by the others (up to ten).
+func (f Findings) Err() error {
+	if len(f.Errors) == 0 {
+		return nil
+	}
+	return &ValidationError{Problems: f.Errors}
+}
+
+// ValidationError lists the errors found in a net.
+type ValidationError struct{ Problems []*InputError }
+
+func (e *ValidationError) Error() string {
+	var b strings.Builder
+	b.WriteString(e.Problems[0].Error())
+	if len(e.Problems) > 1 {
+		fmt.Fprintf(&b, " (and %d more problems)", len(e.Problems)-1)
+		for i, p := range e.Problems[1:] {
+			if i == 9 {
+				b.WriteString("\n  …")
+				break
+			}
+			b.WriteString("\n  " + p.Error())
+		}
+	}
+	return b.String()
+}
+
+// Validate checks a net read from a file: zero-area panels, coincident
+// nodes, duplicate panels, edges shared by more than two panels, and
+// inconsistent orientation are errors; unused nodes, disconnected parts
+// and parts facing down are warnings. It also returns the topology.
+func Validate(n *Net, opt ValidateOptions) (*Topology, Findings) {
+	var fd Findings
+	file := n.Source
+	add := func(warn bool, line int, elem, format string, args ...any) {
+		e := inputErr(file, line, elem, format, args...)
+		if warn {
+			fd.Warnings = append(fd.Warnings, e)
+		} else {
+			fd.Errors = append(fd.Errors, e)
+		}
+	}
+	faceElem := func(f int) string { return "panel " + n.Faces[f].ID }
+
+	var pts []Vec
+	for f := range n.Faces {
+		pts = n.FacePoints(pts[:0], f)
+		if a := r3.Norm(VectorArea(pts)); a < opt.MinAreaMM2 {
+			add(false, n.Faces[f].Line, faceElem(f), "area %.3g mm² is below %.3g mm² (degenerate panel)", a, opt.MinAreaMM2)
+		}
+	}
+	for _, pair := range coincidentNodes(n, opt.CoincidentTolMM) {
+		a, b := pair[0], pair[1]
+		add(false, n.Nodes[b].Line, "node "+n.Nodes[b].ID, "coincides with node %s (line %d): %.4g mm apart, tolerance %.4g mm",
+			n.Nodes[a].ID, n.Nodes[a].Line, r3.Norm(r3.Sub(n.Nodes[a].Pos, n.Nodes[b].Pos)), opt.CoincidentTolMM)
+	}
+	seen := map[string]int{}
+	for f, face := range n.Faces {
+		key := append([]int(nil), face.Corners...)
+		sort.Ints(key)
+		k := fmt.Sprint(key)
+		if g, dup := seen[k]; dup {
+			add(false, face.Line, faceElem(f), "has the same corners as panel %s (line %d)", n.Faces[g].ID, n.Faces[g].Line)
+		} else {
+			seen[k] = f
+		}
+	}
+	t := BuildTopology(n)
+	for _, e := range t.Edges {
+		if len(e.Faces) > 2 {
+			ids := make([]string, len(e.Faces))
+			for i, f := range e.Faces {
+				ids[i] = n.Faces[f].ID
+			}
+			add(false, n.Faces[e.Faces[2]].Line, faceElem(e.Faces[2]), "edge %s–%s is shared by %d panels (%s); an edge may have at most two (non-manifold)",
+				n.Nodes[e.A].ID, n.Nodes[e.B].ID, len(e.Faces), strings.Join(ids, ", "))
+		}
+	}
+	if len(fd.Errors) == 0 {
+		checkOrientation(n, t, &fd)
+	}
+	used := make([]bool, len(n.Nodes))
+	for _, face := range n.Faces {
+		for _, c := range face.Corners {
+			used[c] = true
+		}
+	}
+	var unused []string
+	firstLine := 0
+	for i, u := range used {
+		if !u {
+			if firstLine == 0 {
+				firstLine = n.Nodes[i].Line
+			}
+			if len(unused) < 8 {
+				unused = append(unused, n.Nodes[i].ID)
+			} else if len(unused) == 8 {
+				unused = append(unused, "…")
+			}
+		}
+	}
+	if len(unused) > 0 {
+		cnt := 0
+		for _, u := range used {
+			if !u {
+				cnt++
+			}
+		}
+		add(true, firstLine, "node "+unused[0], "%d nodes belong to no panel (%s); they are ignored", cnt, strings.Join(unused, ", "))
+	}
+	if parts := t.Components(len(n.Faces)); len(parts) > 1 {
+		add(true, 0, "", "the net has %d disconnected parts (sizes %s)", len(parts), partSizes(parts))
+	}
+	return t, fd
+}
+
+func partSizes(parts [][]int) string {
+	s := make([]string, 0, len(parts))
+	for i, p := range parts {
+		if i == 6 {
+			s = append(s, "…")
+			break
+		}
+		s = append(s, fmt.Sprint(len(p)))
+	}
+	return strings.Join(s, ", ")
+}
+
+// coincidentNodes returns pairs (a, b), a < b, of nodes within tol, using
+// a hash grid of cell size tol so the work is linear in the node count.
+func coincidentNodes(n *Net, tol float64) [][2]int {
+	type cell struct{ x, y, z int64 }
+	size := tol
+	if size <= 0 {
+		size = 1e-9
+	}
+	key := func(p Vec) cell {
+		return cell{int64(math.Floor(p.X / size)), int64(math.Floor(p.Y / size)), int64(math.Floor(p.Z / size))}
+	}
+	grid := make(map[cell][]int, len(n.Nodes))
+	var out [][2]int
+	for i, nd := range n.Nodes {
+		c := key(nd.Pos)
+		found := false
+		for dx := int64(-1); dx <= 1 && !found; dx++ {
+			for dy := int64(-1); dy <= 1 && !found; dy++ {
+				for dz := int64(-1); dz <= 1 && !found; dz++ {
+					for _, j := range grid[cell{c.x + dx, c.y + dy, c.z + dz}] {
+						if r3.Norm(r3.Sub(n.Nodes[j].Pos, nd.Pos)) <= tol {
+							out = append(out, [2]int{j, i})
+							found = true
+							break
+						}
+					}
+				}
+			}
+		}
+		grid[c] = append(grid[c], i)
+	}
+	return out
+}
+
+// sameDirection reports whether faces f and g run along edge e the same
+// way (which makes them inconsistently oriented).
+func sameDirection(n *Net, t *Topology, e, f, g int) bool {
+	return edgeDir(n, t, e, f) == edgeDir(n, t, e, g)
+}
+
+// edgeDir returns +1 if face f runs along edge e from A to B, else -1.
+func edgeDir(n *Net, t *Topology, e, f int) int {
+	c := n.Faces[f].Corners
+	for k, fe := range t.FaceEdges[f] {
+		if fe == e {
+			if c[k] == t.Edges[e].A {
+				return 1
+			}
+			return -1
+		}
+	}
+	return 0
+}
+
+// checkOrientation finds, per connected part, the corner orders that make
+// the part consistent and facing up (open parts) or out (closed parts).
+func checkOrientation(n *Net, t *Topology, fd *Findings) {
+	flip := make([]int8, len(n.Faces)) // 0 unknown, 1 keep, -1 flip
+	var badPair [2]int
+	inconsistent, nonOrientable := false, false
+	for _, part := range t.Components(len(n.Faces)) {
+		start := part[0]
+		flip[start] = 1
+		queue := []int{start}
+		for len(queue) > 0 {
+			f := queue[0]
+			queue = queue[1:]
+			for _, e := range t.FaceEdges[f] {
+				if len(t.Edges[e].Faces) != 2 {
+					continue
+				}
+				g := t.Edges[e].Faces[0]
+				if g == f {
+					g = t.Edges[e].Faces[1]
+				}
+				want := flip[f]
+				if sameDirection(n, t, e, f, g) {
+					want = -want
+					if !inconsistent {
+						badPair = [2]int{f, g}
+					}
+					inconsistent = true
+				}
+				if flip[g] == 0 {
+					flip[g] = want
+					queue = append(queue, g)
+				} else if flip[g] != want {
+					nonOrientable = true
+				}
+			}
+		}
+		// Decide the part's facing with the consistent orientation.
+		closed := true
+		var area Vec
+		var vol float64
+		var pts []Vec
+		for _, f := range part {
+			pts = n.FacePoints(pts[:0], f)
+			a := VectorArea(pts)
+			if flip[f] < 0 {
+				a = r3.Scale(-1, a)
+			}
+			area = r3.Add(area, a)
+			vol += r3.Dot(a, Centroid(pts))
+			for _, e := range t.FaceEdges[f] {
+				if len(t.Edges[e].Faces) == 1 {
+					closed = false
+				}
+			}
+		}
+		down := (closed && vol < 0) || (!closed && area.Z < 0)
+		if down {
+			for _, f := range part {
+				flip[f] = -flip[f]
+			}
+		}
+		for _, f := range part {
+			if flip[f] < 0 {
+				fd.Misoriented = append(fd.Misoriented, f)
+			}
+		}
+	}
+	sort.Ints(fd.Misoriented)
+	switch {
+	case nonOrientable:
+		f := badPair[0]
+		fd.Errors = append(fd.Errors, inputErr(n.Source, n.Faces[f].Line, "panel "+n.Faces[f].ID, "the net cannot be oriented consistently (a Möbius-like twist)"))
+	case inconsistent:
+		f, g := badPair[1], badPair[0]
+		if flip[badPair[0]] < 0 {
+			f, g = g, f
+		}
+		fd.Errors = append(fd.Errors, inputErr(n.Source, n.Faces[f].Line, "panel "+n.Faces[f].ID,
+			"runs the same way as panel %s along their shared edge (flipped panel; %d panels in all): reorient fixes it", n.Faces[g].ID, len(fd.Misoriented)))
+	case len(fd.Misoriented) > 0:
+		f := fd.Misoriented[0]
+		fd.Warnings = append(fd.Warnings, inputErr(n.Source, n.Faces[f].Line, "panel "+n.Faces[f].ID,
+			"%d panels run clockwise seen from above or outside; reorient turns them", len(fd.Misoriented)))
+	}
+}
+
+// Reorient reverses the corner order of the given faces (as listed in
+// Findings.Misoriented), keeping each face's first corner first.
+func Reorient(n *Net, faces []int) {
+	for _, f := range faces {
+		c := n.Faces[f].Corners
+		for i, j := 1, len(c)-1; i < j; i, j = i+1, j-1 {
+			c[i], c[j] = c[j], c[i]
+		}
+	}
+}

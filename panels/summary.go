@@ -1,0 +1,38 @@
+package panels
+
+import (
+	"sort"
+)
+
+// Spread is the minimum, median and maximum of a set of numbers.
+type Spread struct {
+	Min, Median, Max float64
+}
+
+// SpreadOf returns the spread of xs (zero for none).
+func SpreadOf(xs []float64) Spread {
+	if len(xs) == 0 {
+		return Spread{}
+	}
+	s := append([]float64(nil), xs...)
+	sort.Float64s(s)
+	m := s[len(s)/2]
+	if len(s)%2 == 0 {
+		m = (s[len(s)/2-1] + s[len(s)/2]) / 2
+	}
+	return Spread{Min: s[0], Median: m, Max: s[len(s)-1]}
+}
+
+// Worst returns the indices of the k panels with the largest flatness
+// deviation, largest first (ties by index).
+func Worst(p []Planarity, k int) []int {
+	idx := make([]int, len(p))
+	for i := range idx {
+		idx[i] = i
+	}
+	sort.SliceStable(idx, func(a, b int) bool { return p[idx[a]].Flatness > p[idx[b]].Flatness })
+	if len(idx) > k {
+		idx = idx[:k]
+	}
+	return idx
+}
