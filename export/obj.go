@@ -29,11 +29,11 @@ func WriteOBJ(w io.Writer, n *geom.Net, title string) error {
 	}
 	for i, nd := range n.Nodes {
 		buf = append(buf[:0], "v "...)
-		buf = strconv.AppendFloat(buf, nd.Pos.X, 'f', OBJDigits, 64)
+		buf = AppendFixed(buf, nd.Pos.X, OBJDigits)
 		buf = append(buf, ' ')
-		buf = strconv.AppendFloat(buf, nd.Pos.Y, 'f', OBJDigits, 64)
+		buf = AppendFixed(buf, nd.Pos.Y, OBJDigits)
 		buf = append(buf, ' ')
-		buf = strconv.AppendFloat(buf, nd.Pos.Z, 'f', OBJDigits, 64)
+		buf = AppendFixed(buf, nd.Pos.Z, OBJDigits)
 		if nd.ID != strconv.Itoa(i+1) {
 			buf = append(buf, " # node "...)
 			buf = append(buf, nd.ID...)
@@ -58,4 +58,25 @@ func WriteOBJ(w io.Writer, n *geom.Net, title string) error {
 		}
 	}
 	return bw.Flush()
+}
+
+// AppendFixed appends x with d decimals, writing values that round to zero
+// as an unsigned zero so that the sign of a tiny residue never changes the
+// output bytes.
+func AppendFixed(buf []byte, x float64, d int) []byte {
+	n := len(buf)
+	buf = strconv.AppendFloat(buf, x, 'f', d, 64)
+	if buf[n] == '-' {
+		zero := true
+		for _, c := range buf[n+1:] {
+			if c != '0' && c != '.' {
+				zero = false
+				break
+			}
+		}
+		if zero {
+			buf = append(buf[:n], buf[n+1:]...)
+		}
+	}
+	return buf
 }

@@ -40,7 +40,7 @@ func ReadOBJ(r io.Reader, file string, unit Unit) (*Net, error) {
 				}
 				idx, err := strconv.Atoi(ref)
 				if err != nil {
-					return nil, inputErr(file, lr.line, "face "+id, "corner %d: bad node reference %q", k+1, f[k+1])
+					return nil, inputErr(file, lr.line, "panel "+id, "corner %d: bad node reference %q", k+1, f[k+1])
 				}
 				switch {
 				case idx > 0:
@@ -48,15 +48,15 @@ func ReadOBJ(r io.Reader, file string, unit Unit) (*Net, error) {
 				case idx < 0:
 					idx += len(n.Nodes)
 					if idx < 0 {
-						return nil, inputErr(file, lr.line, "face "+id, "corner %d: relative node %s reaches before the first node", k+1, ref)
+						return nil, inputErr(file, lr.line, "panel "+id, "corner %d: relative node %s reaches before the first node", k+1, ref)
 					}
 				default:
-					return nil, inputErr(file, lr.line, "face "+id, "corner %d: node 0 does not exist (OBJ counts from 1)", k+1)
+					return nil, inputErr(file, lr.line, "panel "+id, "corner %d: node 0 does not exist (OBJ counts from 1)", k+1)
 				}
 				corners = append(corners, idx)
 			}
 			if msg := checkFaceCorners(corners); msg != "" {
-				return nil, inputErr(file, lr.line, "face "+id, "%s", msg)
+				return nil, inputErr(file, lr.line, "panel "+id, "%s", msg)
 			}
 			n.Faces = append(n.Faces, Face{ID: id, Corners: corners, Line: lr.line})
 		case "vt", "vn", "vp", "g", "o", "s", "usemtl", "mtllib", "l", "p":
@@ -82,7 +82,7 @@ func finishRead(n *Net, file string) (*Net, error) {
 	for fi, face := range n.Faces {
 		for k, c := range face.Corners {
 			if c < 0 || c >= len(n.Nodes) {
-				return nil, inputErr(file, face.Line, "face "+n.Faces[fi].ID, "corner %d: node %d does not exist (the file has %d nodes)", k+1, c+1, len(n.Nodes))
+				return nil, inputErr(file, face.Line, "panel "+n.Faces[fi].ID, "corner %d: node %d does not exist (the file has %d nodes)", k+1, c+1, len(n.Nodes))
 			}
 		}
 	}

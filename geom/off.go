@@ -75,29 +75,29 @@ func ReadOFF(r io.Reader, file string, unit Unit) (*Net, error) {
 			if lr.err != nil {
 				return nil, lr.err
 			}
-			return nil, inputErr(file, lr.line, "face "+id, "file ends after %d of %d faces", i, nf)
+			return nil, inputErr(file, lr.line, "panel "+id, "file ends after %d of %d faces", i, nf)
 		}
 		f := strings.Fields(s)
 		k, err := strconv.Atoi(f[0])
 		if err != nil || k < 0 {
-			return nil, inputErr(file, lr.line, "face "+id, "bad corner count %q", f[0])
+			return nil, inputErr(file, lr.line, "panel "+id, "bad corner count %q", f[0])
 		}
 		if len(f)-1 < k {
-			return nil, inputErr(file, lr.line, "face "+id, "says %d corners but lists %d", k, len(f)-1)
+			return nil, inputErr(file, lr.line, "panel "+id, "says %d corners but lists %d", k, len(f)-1)
 		}
 		corners := make([]int, k)
 		for j := 0; j < k; j++ {
 			idx, err := strconv.Atoi(f[1+j])
 			if err != nil {
-				return nil, inputErr(file, lr.line, "face "+id, "corner %d: bad node index %q", j+1, f[1+j])
+				return nil, inputErr(file, lr.line, "panel "+id, "corner %d: bad node index %q", j+1, f[1+j])
 			}
 			if idx < 0 || idx >= nv {
-				return nil, inputErr(file, lr.line, "face "+id, "corner %d: node index %d out of range 0..%d", j+1, idx, nv-1)
+				return nil, inputErr(file, lr.line, "panel "+id, "corner %d: node index %d out of range 0..%d", j+1, idx, nv-1)
 			}
 			corners[j] = idx
 		}
 		if msg := checkFaceCorners(corners); msg != "" {
-			return nil, inputErr(file, lr.line, "face "+id, "%s", msg)
+			return nil, inputErr(file, lr.line, "panel "+id, "%s", msg)
 		}
 		n.Faces = append(n.Faces, Face{ID: id, Corners: corners, Line: lr.line})
 	}

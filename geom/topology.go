@@ -48,11 +48,20 @@ func edgeKey(a, b int) uint64 {
 // Edges are numbered in order of first appearance over the faces, so the
 // numbering follows the file. It assumes corner indices are in range.
 func BuildTopology(n *Net) *Topology {
+	total := 0
+	for _, f := range n.Faces {
+		total += len(f.Corners)
+	}
 	t := &Topology{FaceEdges: make([][]int, len(n.Faces)), NodeEdges: make([][]int, len(n.Nodes))}
-	index := make(map[uint64]int, 2*len(n.Faces)+8)
+	t.Edges = make([]Edge, 0, total/2+len(n.Nodes)/8+4)
+	sides := make([]int, total)   // backing store of FaceEdges
+	slots := make([]int, 2*total) // two face slots per edge; a third face reallocates
+	index := make(map[uint64]int, total/2+8)
+	degree := make([]int, len(n.Nodes))
 	for f, face := range n.Faces {
 		k := len(face.Corners)
-		fe := make([]int, k)
+		fe := sides[:k:k]
+		sides = sides[k:]
 		for i := 0; i < k; i++ {
 			a, b := face.Corners[i], face.Corners[(i+1)%k]
 			key := edgeKey(a, b)
@@ -60,20 +69,29 @@ func BuildTopology(n *Net) *Topology {
 			if !ok {
 				e = len(t.Edges)
 				index[key] = e
-				lo, hi := a, b
-				if lo > hi {
-					lo, hi = hi, lo
-				}
-				t.Edges = append(t.Edges, Edge{A: lo, B: hi})
+				lo, hi := min(a, b), max(a, b)
+				j := 2 * e
+				t.Edges = append(t.Edges, Edge{A: lo, B: hi, Faces: slots[j : j : j+2]})
 				if a != b {
-					t.NodeEdges[a] = append(t.NodeEdges[a], e)
-					t.NodeEdges[b] = append(t.NodeEdges[b], e)
+					degree[a]++
+					degree[b]++
 				}
 			}
 			t.Edges[e].Faces = append(t.Edges[e].Faces, f)
 			fe[i] = e
 		}
 		t.FaceEdges[f] = fe
+	}
+	adj := make([]int, 0, 2*len(t.Edges))
+	for i, d := range degree {
+		t.NodeEdges[i] = adj[len(adj) : len(adj) : len(adj)+d]
+		adj = adj[:len(adj)+d]
+	}
+	for e, ed := range t.Edges {
+		if ed.A != ed.B {
+			t.NodeEdges[ed.A] = append(t.NodeEdges[ed.A], e)
+			t.NodeEdges[ed.B] = append(t.NodeEdges[ed.B], e)
+		}
 	}
 	t.Loops = boundaryLoops(n, t)
 	return t
@@ -143,8 +161,7 @@ func (t *Topology) Components(faces int) [][]int {
 	for i := range parent {
 		parent[i] = i
 	}
-	var find func(int) int
-	find = func(x int) int {
+	find := func(x int) int {
 		for parent[x] != x {
 			parent[x] = parent[parent[x]]
 			x = parent[x]

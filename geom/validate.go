@@ -2,7 +2,6 @@ package geom
 
 import (
 	"fmt"
-	"math"
 	"sort"
 	"strings"
 
@@ -97,11 +96,16 @@ func Validate(n *Net, opt ValidateOptions) (*Topology, Findings) {
 		add(false, n.Nodes[b].Line, "node "+n.Nodes[b].ID, "coincides with node %s (line %d): %.4g mm apart, tolerance %.4g mm",
 			n.Nodes[a].ID, n.Nodes[a].Line, r3.Norm(r3.Sub(n.Nodes[a].Pos, n.Nodes[b].Pos)), opt.CoincidentTolMM)
 	}
-	seen := map[string]int{}
+	seen := make(map[[MaxCorners]int32]int, len(n.Faces))
 	for f, face := range n.Faces {
-		key := append([]int(nil), face.Corners...)
-		sort.Ints(key)
-		k := fmt.Sprint(key)
+		var k [MaxCorners]int32
+		for i := range k {
+			k[i] = -1
+		}
+		for i, c := range face.Corners {
+			k[i] = int32(c)
+		}
+		sort.Slice(k[:len(face.Corners)], func(i, j int) bool { return k[i] < k[j] })
 		if g, dup := seen[k]; dup {
 			add(false, face.Line, faceElem(f), "has the same corners as panel %s (line %d)", n.Faces[g].ID, n.Faces[g].Line)
 		} else {
@@ -169,37 +173,41 @@ func partSizes(parts [][]int) string {
 	return strings.Join(s, ", ")
 }
 
-// coincidentNodes returns pairs (a, b), a < b, of nodes within tol, using
-// a hash grid of cell size tol so the work is linear in the node count.
+// coincidentNodes returns pairs (a, b), a < b, of nodes within tol. It
+// sorts the nodes by their projection on a skew direction and compares
+// only neighbours whose projections differ by at most tol, so the work is
+// n log n for any net that is not a cloud of near-duplicates.
 func coincidentNodes(n *Net, tol float64) [][2]int {
-	type cell struct{ x, y, z int64 }
-	size := tol
-	if size <= 0 {
-		size = 1e-9
+	dir := r3.Unit(Vec{X: 0.5377, Y: 0.3112, Z: 0.7833})
+	type item struct {
+		proj float64
+		i    int
 	}
-	key := func(p Vec) cell {
-		return cell{int64(math.Floor(p.X / size)), int64(math.Floor(p.Y / size)), int64(math.Floor(p.Z / size))}
-	}
-	grid := make(map[cell][]int, len(n.Nodes))
-	var out [][2]int
+	items := make([]item, len(n.Nodes))
 	for i, nd := range n.Nodes {
-		c := key(nd.Pos)
-		found := false
-		for dx := int64(-1); dx <= 1 && !found; dx++ {
-			for dy := int64(-1); dy <= 1 && !found; dy++ {
-				for dz := int64(-1); dz <= 1 && !found; dz++ {
-					for _, j := range grid[cell{c.x + dx, c.y + dy, c.z + dz}] {
-						if r3.Norm(r3.Sub(n.Nodes[j].Pos, nd.Pos)) <= tol {
-							out = append(out, [2]int{j, i})
-							found = true
-							break
-						}
-					}
-				}
+		items[i] = item{r3.Dot(nd.Pos, dir), i}
+	}
+	sort.Slice(items, func(a, b int) bool {
+		if items[a].proj != items[b].proj {
+			return items[a].proj < items[b].proj
+		}
+		return items[a].i < items[b].i
+	})
+	var out [][2]int
+	for x, it := range items {
+		for y := x + 1; y < len(items) && items[y].proj-it.proj <= tol; y++ {
+			j := items[y].i
+			if r3.Norm(r3.Sub(n.Nodes[j].Pos, n.Nodes[it.i].Pos)) <= tol {
+				out = append(out, [2]int{min(it.i, j), max(it.i, j)})
 			}
 		}
-		grid[c] = append(grid[c], i)
 	}
+	sort.Slice(out, func(a, b int) bool {
+		if out[a][1] != out[b][1] {
+			return out[a][1] < out[b][1]
+		}
+		return out[a][0] < out[b][0]
+	})
 	return out
 }
 
@@ -302,7 +310,7 @@ func checkOrientation(n *Net, t *Topology, fd *Findings) {
 			f, g = g, f
 		}
 		fd.Errors = append(fd.Errors, inputErr(n.Source, n.Faces[f].Line, "panel "+n.Faces[f].ID,
-			"runs the same way as panel %s along their shared edge (flipped panel; %d panels in all): reorient fixes it", n.Faces[g].ID, len(fd.Misoriented)))
+			"runs the same way as panel %s along their shared edge: a flipped panel (%d to turn in all; reorienting turns them)", n.Faces[g].ID, len(fd.Misoriented)))
 	case len(fd.Misoriented) > 0:
 		f := fd.Misoriented[0]
 		fd.Warnings = append(fd.Warnings, inputErr(n.Source, n.Faces[f].Line, "panel "+n.Faces[f].ID,

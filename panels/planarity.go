@@ -57,7 +57,7 @@ func LineDistance(a, b, c, d geom.Vec) float64 {
 	u, v := r3.Sub(b, a), r3.Sub(d, c)
 	n := r3.Cross(u, v)
 	w := r3.Sub(c, a)
-	if nn := r3.Norm(n); nn > 1e-12*r3.Norm(u)*r3.Norm(v) {
+	if nn := r3.Norm(n); nn > parallelSin*r3.Norm(u)*r3.Norm(v) {
 		return math.Abs(r3.Dot(w, n)) / nn
 	}
 	return r3.Norm(r3.Cross(w, r3.Unit(u)))
@@ -77,3 +77,7 @@ func MeasureNet(n *geom.Net) ([]Planarity, error) {
 	}
 	return out, nil
 }
+
+// parallelSin is the sine of the angle below which LineDistance treats
+// two lines as parallel.
+const parallelSin = 1e-12

@@ -1,0 +1,78 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// runCmd runs the program in-process and returns stdout, stderr and error.
+func runCmd(t *testing.T, args ...string) (string, string, error) {
+	t.Helper()
+	var out, errb bytes.Buffer
+	err := run(args, strings.NewReader(""), &out, &errb)
+	return out.String(), errb.String(), err
+}
+
+func TestSampleInspect(t *testing.T) {
+	dir := t.TempDir()
+	for _, name := range []string{"canopy", "dome", "wave"} {
+		path := filepath.Join(dir, name+".obj")
+		if _, _, err := runCmd(t, "sample", name, "--panels", "500", "-o", path); err != nil {
+			t.Fatal(err)
+		}
+		out, _, err := runCmd(t, "inspect", "--json", path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var in inspection
+		if err := json.Unmarshal([]byte(out), &in); err != nil {
+			t.Fatal(err)
+		}
+		if in.Panels < 450 || in.Nodes == 0 || in.Edges == 0 || len(in.Worst) != 10 {
+			t.Errorf("%s: %+v", name, in)
+		}
+		planar := name != "wave"
+		if planar && in.FlatnessMM.Max > 1e-3 {
+			t.Errorf("%s: flatness max %g mm", name, in.FlatnessMM.Max)
+		}
+		if !planar && (in.RatioPct.Median < 0.3 || in.RatioPct.Max > 2) {
+			t.Errorf("%s: ratio %+v", name, in.RatioPct)
+		}
+		text, _, err := runCmd(t, "inspect", path)
+		if err != nil || !strings.Contains(text, "worst panels") {
+			t.Errorf("%s: text output %q %v", name, text, err)
+		}
+	}
+}
+
+func TestCommandErrors(t *testing.T) {
+	tests := []struct {
+		args []string
+		want string
+		code int
+	}{
+		{[]string{"frobnicate"}, `unknown command "frobnicate"`, 2},
+		{[]string{"inspect"}, "inspect takes one net file", 2},
+		{[]string{"inspect", "nowhere.obj"}, "nowhere.obj: file not found", 1},
+		{[]string{"inspect", "--unit", "ft", "x.obj"}, "--unit: geom: unknown unit", 2},
+		{[]string{"sample", "dome"}, "sample needs -o FILE", 2},
+		{[]string{"sample", "castle", "-o", "x.obj"}, "unknown sample", 2},
+		{[]string{"inspect", "../../geom/testdata/bad/flipped.obj"}, "flipped panel", 1},
+	}
+	for _, tc := range tests {
+		_, _, err := runCmd(t, tc.args...)
+		if err == nil || !strings.Contains(err.Error(), tc.want) {
+			t.Errorf("%v: got %v, want %q", tc.args, err, tc.want)
+			continue
+		}
+		if got := exitCode(err); got != tc.code {
+			t.Errorf("%v: exit code %d want %d", tc.args, got, tc.code)
+		}
+	}
+	if _, _, err := runCmd(t, "inspect", "--reorient", "../../geom/testdata/bad/flipped.obj"); err != nil {
+		t.Errorf("--reorient should fix the flipped panel: %v", err)
+	}
+}

@@ -1,0 +1,87 @@
+package export
+
+import (
+	"bytes"
+	"errors"
+	"flag"
+	"io"
+	"os"
+	"path/filepath"
+	"testing"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"pqfab/geom"
+)
+
+var update = flag.Bool("update", false, "rewrite golden files")
+
+func smallNet() *geom.Net {
+	return &geom.Net{Nodes: []geom.Node{
+		{ID: "1", Pos: geom.Vec{X: 0, Y: 0, Z: 0}},
+		{ID: "2", Pos: geom.Vec{X: 1500.25, Y: 0, Z: -0.00004}},
+		{ID: "N3", Pos: geom.Vec{X: 1500, Y: 1200.123456, Z: 10}},
+		{ID: "4", Pos: geom.Vec{X: 0, Y: 1200, Z: 10}},
+	}, Faces: []geom.Face{{ID: "1", Corners: []int{0, 1, 2, 3}}, {ID: "P2", Corners: []int{0, 2, 3}}}}
+}
+
+func TestWriteOBJGolden(t *testing.T) {
+	var buf bytes.Buffer
+	if err := WriteOBJ(&buf, smallNet(), "test net"); err != nil {
+		t.Fatal(err)
+	}
+	golden := "testdata/small.obj"
+	if *update {
+		if err := os.WriteFile(golden, buf.Bytes(), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	want, err := os.ReadFile(golden)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(buf.Bytes(), want) {
+		t.Errorf("got\n%s\nwant\n%s", buf.Bytes(), want)
+	}
+	// Reads back with our own reader to the written precision.
+	n, err := geom.ReadOBJ(bytes.NewReader(buf.Bytes()), golden, geom.MM)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, nd := range n.Nodes {
+		d := r3.Sub(nd.Pos, smallNet().Nodes[i].Pos)
+		if d.X*d.X+d.Y*d.Y+d.Z*d.Z > 1e-8 {
+			t.Errorf("node %d moved by %v", i, d)
+		}
+	}
+}
+
+func TestWriteFileAtomic(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "net.obj")
+	if err := os.WriteFile(path, []byte("old"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	err := WriteFileAtomic(path, func(w io.Writer) error {
+		io.WriteString(w, "half")
+		return errors.New("disk on fire")
+	})
+	if err == nil {
+		t.Fatal("want the write error")
+	}
+	if b, _ := os.ReadFile(path); string(b) != "old" {
+		t.Errorf("failed write changed the file to %q", b)
+	}
+	if err := WriteFileAtomic(path, func(w io.Writer) error { _, err := io.WriteString(w, "new"); return err }); err != nil {
+		t.Fatal(err)
+	}
+	if b, _ := os.ReadFile(path); string(b) != "new" {
+		t.Errorf("got %q", b)
+	}
+	if ents, _ := os.ReadDir(dir); len(ents) != 1 {
+		t.Errorf("leftover files: %v", ents)
+	}
+	if err := WriteFileAtomic(filepath.Join(dir, "missing", "x.obj"), func(io.Writer) error { return nil }); err == nil {
+		t.Error("missing folder: want an error")
+	}
+}

@@ -1,0 +1,77 @@
+package samples
+
+import (
+	"testing"
+
+	"pqfab/geom"
+	"pqfab/panels"
+)
+
+func measure(t *testing.T, n *geom.Net) []panels.Planarity {
+	t.Helper()
+	if _, fd := geom.Validate(n, geom.DefaultValidateOptions()); fd.Err() != nil || len(fd.Misoriented) > 0 || len(fd.Warnings) > 0 {
+		t.Fatalf("%s: %v %v %v", n.Source, fd.Err(), fd.Misoriented, fd.Warnings)
+	}
+	p, err := panels.MeasureNet(n)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p
+}
+
+// TestPlanarSamples: translational nets (canopy) and meridian/parallel nets
+// of surfaces of revolution (dome) have exactly planar quads (Liu,
+// Pottmann, Wallner, Yang, Wang, SIGGRAPH 2006), so every panel is planar
+// to 1e-9 relative to its size.
+func TestPlanarSamples(t *testing.T) {
+	for _, name := range []string{"canopy", "dome"} {
+		for _, size := range []int{10, 1000, 20000} {
+			n, err := Make(name, size)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if got := len(n.Faces); got < size*9/10 || got > size*12/10 {
+				t.Errorf("%s %d: %d panels", name, size, got)
+			}
+			for f, p := range measure(t, n) {
+				if p.Ratio > 1e-9 {
+					t.Fatalf("%s %d: panel %d ratio %g", name, size, f, p.Ratio)
+				}
+			}
+		}
+	}
+}
+
+// TestWaveBand: the wave sample's quads are 0.3–2 % off planar. A bounded
+// wavy surface has lines where the twist changes sign, so a few panels
+// straddling them are flatter: at least 93 % lie in the band, none above it.
+func TestWaveBand(t *testing.T) {
+	for _, size := range []int{100, 1000, 30000} {
+		n, err := Make("wave", size)
+		if err != nil {
+			t.Fatal(err)
+		}
+		in := 0
+		pl := measure(t, n)
+		for f, p := range pl {
+			if p.Ratio > 0.02 {
+				t.Fatalf("wave %d: panel %d ratio %.4f %% above 2 %%", size, f, p.Ratio*100)
+			}
+			if p.Ratio >= 0.003 {
+				in++
+			}
+		}
+		if frac := float64(in) / float64(len(pl)); frac < 0.93 {
+			t.Errorf("wave %d: %.3f of panels in the band", size, frac)
+		}
+	}
+}
+
+func TestMakeErrors(t *testing.T) {
+	if _, err := Make("tower", 100); err == nil {
+		t.Error("unknown sample: want an error")
+	}
+	if _, err := Make("dome", 5); err == nil {
+		t.Error("too few panels: want an error")
+	}
+}
