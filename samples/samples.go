@@ -28,7 +28,7 @@ var catalogue = map[string]struct {
 }{
 	"canopy": {Canopy, "translational canopy over the library courtyard (planar quads by construction)"},
 	"dome":   {Dome, "open dome of revolution with an oculus over the reading room (planar quads by construction)"},
-	"wave":   {Wave, "wave shell over the entrance, sampled on a skew grid (quads 0.3–2 % off planar)"},
+	"wave":   {Wave, "corrugated vault over the entrance with set-out offsets (quads 0.3–2 % off planar)"},
 }
 
 // Names returns the sample names, sorted.
@@ -129,28 +129,43 @@ func Dome(panels int) *geom.Net {
 	return n
 }
 
-// Wave is a corrugated shell: a shallow vault with waves running across
-// it, sampled on a grid turned 30° against the waves, so its quads are
-// 0.3–2 % off planar — the kind of net a planarization job starts from.
-// Edge nodes along the two long sides are supports.
+// Wave is a corrugated vault over the library entrance: in design a
+// translational surface (a wavy arch swept along a skew wavy path, so its
+// generating curves do not follow the x and y grid lines) whose quads are
+// planar, exported with alternating set-out offsets inside its edges of up to 15 mm, as a
+// form-finding run stopped at a loose tolerance leaves them. Its quads are
+// 0.3–2 % off planar — the kind of net a planarization job starts from —
+// and a planar net lies within about 20 mm of every node. The two long
+// edges are supported.
 func Wave(panels int) *geom.Net {
 	nu, nv := gridSize(panels, 1.5)
 	ly := float64(nv) * PanelPitchMM
 	const (
-		turn       = 30 * math.Pi / 180
+		skew       = 0.35 // the sweep path drifts 0.35 mm in x per mm in y
 		wavelength = 8 * PanelPitchMM
-		amplitude  = 300.0
+		amplitude  = 600.0 // wave height of the arch (mm)
+		offset     = 15.0  // largest set-out offset (mm)
 	)
-	s, c := math.Sincos(turn)
 	k := 2 * math.Pi / wavelength
 	rise := math.Min(ly/6, 6000)
 	return grid("wave", nu, nv, func(i, j int) geom.Vec {
 		u, v := float64(i)*PanelPitchMM, float64(j)*PanelPitchMM
-		// Coordinates along and across the waves.
-		a, b := c*u+s*v, -s*u+c*v
+		// a(u): the wavy arch profile along x; b(v): the sweep path, which
+		// drifts sideways and undulates as it climbs over the vault.
 		t := v / ly
-		z := 3500 + 4*rise*t*(1-t) + amplitude*squarish(k*a)*(1+0.15*math.Cos(0.5*k*b))
-		return geom.Vec{X: u, Y: v, Z: z}
+		a := geom.Vec{X: u, Z: amplitude * squarish(k*u)}
+		b := geom.Vec{X: skew * v, Y: v, Z: 3500 + 4*rise*t*(1-t) + 0.5*amplitude*math.Sin(0.7*k*v)}
+		p := geom.Vec{X: a.X + b.X, Y: a.Y + b.Y, Z: a.Z + b.Z}
+		// Alternating offsets, modulated smoothly over the shell.
+		m := 0.65 + 0.35*math.Sin(0.37*k*u)*math.Cos(0.29*k*v)
+		if (i+j)%2 == 1 {
+			m = -m
+		}
+		if i == 0 || j == 0 || i == nu || j == nv {
+			m = 0 // the edge beam is set out exactly
+		}
+		p.Z += offset * m
+		return p
 	}, func(i, j int) bool { return j == 0 || j == nv })
 }
 

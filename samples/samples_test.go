@@ -42,9 +42,9 @@ func TestPlanarSamples(t *testing.T) {
 	}
 }
 
-// TestWaveBand: the wave sample's quads are 0.3–2 % off planar. A bounded
-// wavy surface has lines where the twist changes sign, so a few panels
-// straddling them are flatter: at least 93 % lie in the band, none above it.
+// TestWaveBand: the wave sample's quads are 0.3–2 % off planar. Its
+// supports are set out exactly, so some panels in the rows beside them are
+// flatter: at least 93 % lie in the band, none above it.
 func TestWaveBand(t *testing.T) {
 	for _, size := range []int{100, 1000, 30000} {
 		n, err := Make("wave", size)

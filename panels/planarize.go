@@ -1,0 +1,264 @@
+package panels
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"pqfab/geom"
+)
+
+// Planarization defaults.
+const (
+	// DefaultFlatTolMM is the flatness deviation every panel must reach.
+	DefaultFlatTolMM = 0.5
+	// DefaultMaxMoveMM is the largest node move allowed.
+	DefaultMaxMoveMM = 25.0
+	// DefaultFairness weighs smooth moves against small moves.
+	DefaultFairness = 1.0
+	// DefaultMaxIter is the iteration budget (Gauss-Newton steps).
+	DefaultMaxIter = 200
+)
+
+// PlanarizeOptions sets up a planarization.
+type PlanarizeOptions struct {
+	TolMM     float64 // flatness deviation to reach (mm), > 0
+	MaxMoveMM float64 // largest node move allowed (mm), > 0
+	// Fairness weighs the smoothness of the moves: the squared umbrella
+	// Laplacian of the move field against the squared moves. 0 turns it off.
+	Fairness float64
+	// Fixed marks nodes that never move (supports). Nil: none.
+	Fixed []bool
+	// Vertical keeps every node on its vertical line: only z moves.
+	Vertical bool
+	MaxIter  int
+	// Progress, if set, is called after every iteration.
+	Progress func(Progress)
+}
+
+// DefaultPlanarizeOptions returns the job defaults.
+func DefaultPlanarizeOptions() PlanarizeOptions {
+	return PlanarizeOptions{TolMM: DefaultFlatTolMM, MaxMoveMM: DefaultMaxMoveMM, Fairness: DefaultFairness, MaxIter: DefaultMaxIter}
+}
+
+// Progress is reported after each iteration.
+type Progress struct {
+	Iter        int
+	MaxIter     int
+	MaxFlatMM   float64 // worst flatness deviation now
+	OverTol     int     // panels still over the tolerance
+	MaxMoveMM   float64 // largest node move so far
+	Description string
+}
+
+// PlanarizeResult is the outcome of a planarization.
+type PlanarizeResult struct {
+	Positions  []geom.Vec // new node positions
+	Moves      []geom.Vec // per node move (new - old)
+	MaxMoveMM  float64
+	RMSMoveMM  float64
+	Before     []float64 // flatness deviation per panel before (mm)
+	After      []float64 // and after
+	Iterations int
+	Converged  bool // every panel within tolerance and no move over the limit
+}
+
+// PanelFailure names a panel that could not be made flat enough.
+type PanelFailure struct {
+	Face       int
+	FlatnessMM float64 // flatness deviation reached
+	MoveMM     float64 // largest move of its corners, needed so far
+}
+
+// PlanarizeError reports a planarization that did not reach the tolerance
+// within the allowed move or the iteration budget. The result is still
+// returned beside it for diagnosis.
+type PlanarizeError struct {
+	Source   string
+	Reason   string
+	Worst    []PanelFailure // worst first, at most ten
+	Count    int            // panels over the tolerance
+	Names    []string       // panel names of Worst
+	TolMM    float64
+	MaxMove  float64
+	MoveOver int // nodes moved more than allowed
+}
+
+func (e *PlanarizeError) Error() string {
+	var b strings.Builder
+	fmt.Fprintf(&b, "%s: planarization failed: %s", e.Source, e.Reason)
+	if e.Count > 0 {
+		fmt.Fprintf(&b, "; %d panels over the %.3g mm tolerance", e.Count, e.TolMM)
+	}
+	if e.MoveOver > 0 {
+		fmt.Fprintf(&b, "; %d nodes would move more than the allowed %.3g mm", e.MoveOver, e.MaxMove)
+	}
+	if len(e.Worst) > 0 {
+		b.WriteString("; worst:")
+		for i, w := range e.Worst {
+			if i > 0 {
+				b.WriteString(",")
+			}
+			fmt.Fprintf(&b, " %s flatness %.3f mm, move %.2f mm", e.Names[i], w.FlatnessMM, w.MoveMM)
+		}
+	}
+	return b.String()
+}
+
+// Planarize moves the free nodes of n as little and as smoothly as it can
+// so that every panel's flatness deviation is within opt.TolMM.
+//
+// Method: penalty Gauss-Newton (Levenberg-Marquardt) on
+//
+//	E(x) = Σ_c w_c g_c(x)² + |x − x⁰|² + λ |L(x − x⁰)|²
+//
+// where g_c is the signed diagonal gap of each run of four consecutive
+// corners of a panel (for a quad, the one pair of diagonals; Liu et al.
+// 2006), L the umbrella Laplacian over the net's edges and λ the fairness.
+// Each step solves the sparse symmetric positive definite normal equations
+// by Jacobi-preconditioned conjugate gradients, matrix-free, so memory and
+// time per step are linear in the net's size. When the Gauss-Newton run
+// settles with panels still over the tolerance, the method of multipliers
+// (augmented Lagrangian) shifts each gap's target by its current value,
+// which drives the gaps to zero at a fixed, well-conditioned weight, so the
+// answer tends to the smallest, smoothest move that makes every panel flat.
+//
+// It returns the result and, when the tolerance or the move limit is not
+// met, a *PlanarizeError beside it.
+func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*PlanarizeResult, error) {
+	if !(opt.TolMM > 0) || !(opt.MaxMoveMM > 0) || !(opt.Fairness >= 0) || opt.MaxIter <= 0 {
+		return nil, errors.New("panels: planarize: tolerance and allowed move must be positive, fairness zero or more, iterations positive")
+	}
+	if opt.Fixed != nil && len(opt.Fixed) != len(n.Nodes) {
+		return nil, errors.New("panels: planarize: Fixed has the wrong length")
+	}
+	s := newSolver(n, topo, opt)
+	res := &PlanarizeResult{Before: s.flatness(s.x0)}
+	x := append([]float64(nil), s.x0...)
+	flat := res.Before
+	iter, lastGain := 0, 0
+	best := maxOf(flat)
+	mu := 1e-6
+	energy := s.energy(x)
+	stalled := false
+	for {
+		over := countOver(flat, opt.TolMM)
+		if opt.Progress != nil {
+			opt.Progress(Progress{Iter: iter, MaxIter: opt.MaxIter, MaxFlatMM: maxOf(flat), OverTol: over, MaxMoveMM: s.maxMove(x), Description: "planarize"})
+		}
+		if over == 0 || iter >= opt.MaxIter {
+			break
+		}
+		if iter-lastGain > stallIters || mu > maxDamping {
+			stalled = true
+			break
+		}
+		iter++
+		s.linearize(x)
+		step := s.solve(s.gradient(x), mu)
+		trial := make([]float64, len(x))
+		for i := range x {
+			trial[i] = x[i] - step[i]
+		}
+		e := s.energy(trial)
+		if e >= energy {
+			mu *= 8 // Levenberg-Marquardt: damp and retry
+			continue
+		}
+		decrease := (energy - e) / energy
+		x, energy = trial, e
+		mu = math.Max(mu/3, minDamping)
+		flat = s.flatness(x)
+		if m := maxOf(flat); m < 0.99*best {
+			best, lastGain = m, iter
+		}
+		if decrease < gnConverged {
+			s.updateMultipliers(x)
+			energy = s.energy(x)
+		}
+	}
+	res.Iterations = iter
+	res.Positions = make([]geom.Vec, len(n.Nodes))
+	res.Moves = make([]geom.Vec, len(n.Nodes))
+	var sum float64
+	for i := range n.Nodes {
+		res.Positions[i] = geom.Vec{X: x[3*i], Y: x[3*i+1], Z: x[3*i+2]}
+		res.Moves[i] = r3.Sub(res.Positions[i], n.Nodes[i].Pos)
+		m := r3.Norm(res.Moves[i])
+		sum += m * m
+		res.MaxMoveMM = math.Max(res.MaxMoveMM, m)
+	}
+	if len(n.Nodes) > 0 {
+		res.RMSMoveMM = math.Sqrt(sum / float64(len(n.Nodes)))
+	}
+	res.After = s.flatness(x)
+	over := countOver(res.After, opt.TolMM)
+	moveOver := 0
+	for _, m := range res.Moves {
+		if r3.Norm(m) > opt.MaxMoveMM {
+			moveOver++
+		}
+	}
+	res.Converged = over == 0 && moveOver == 0
+	if res.Converged {
+		return res, nil
+	}
+	reason := "the iteration budget of " + fmt.Sprint(opt.MaxIter) + " steps ran out"
+	switch {
+	case moveOver > 0:
+		reason = "the allowed node move is not enough"
+	case stalled:
+		reason = "no further progress (fixed nodes or geometry prevent flat panels)"
+	}
+	return res, failure(n, res, opt, reason, over, moveOver)
+}
+
+func failure(n *geom.Net, res *PlanarizeResult, opt PlanarizeOptions, reason string, over, moveOver int) *PlanarizeError {
+	pe := &PlanarizeError{Source: n.Source, Reason: reason, Count: over, TolMM: opt.TolMM, MaxMove: opt.MaxMoveMM, MoveOver: moveOver}
+	var fails []PanelFailure
+	for f, face := range n.Faces {
+		var mv float64
+		for _, c := range face.Corners {
+			mv = math.Max(mv, r3.Norm(res.Moves[c]))
+		}
+		if res.After[f] > opt.TolMM || mv > opt.MaxMoveMM {
+			fails = append(fails, PanelFailure{Face: f, FlatnessMM: res.After[f], MoveMM: mv})
+		}
+	}
+	sort.SliceStable(fails, func(i, j int) bool {
+		a, b := fails[i], fails[j]
+		ea := math.Max(a.FlatnessMM/opt.TolMM, a.MoveMM/opt.MaxMoveMM)
+		eb := math.Max(b.FlatnessMM/opt.TolMM, b.MoveMM/opt.MaxMoveMM)
+		return ea > eb
+	})
+	if len(fails) > 10 {
+		fails = fails[:10]
+	}
+	pe.Worst = fails
+	for _, f := range fails {
+		pe.Names = append(pe.Names, n.FaceName(f.Face))
+	}
+	return pe
+}
+
+func countOver(flat []float64, tol float64) int {
+	c := 0
+	for _, f := range flat {
+		if f > tol {
+			c++
+		}
+	}
+	return c
+}
+
+func maxOf(xs []float64) float64 {
+	m := 0.0
+	for _, x := range xs {
+		m = math.Max(m, x)
+	}
+	return m
+}
