@@ -6,7 +6,9 @@ import (
 
 // Spread is the minimum, median and maximum of a set of numbers.
 type Spread struct {
-	Min, Median, Max float64
+	Min    float64 `json:"min"`
+	Median float64 `json:"median"`
+	Max    float64 `json:"max"`
 }
 
 // SpreadOf returns the spread of xs (zero for none).

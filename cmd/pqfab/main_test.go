@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"os"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -74,5 +75,45 @@ func TestCommandErrors(t *testing.T) {
 	}
 	if _, _, err := runCmd(t, "inspect", "--reorient", "../../geom/testdata/bad/flipped.obj"); err != nil {
 		t.Errorf("--reorient should fix the flipped panel: %v", err)
+	}
+}
+
+func TestPlanarizeCommand(t *testing.T) {
+	dir := t.TempDir()
+	in := filepath.Join(dir, "wave.obj")
+	if _, _, err := runCmd(t, "sample", "wave", "--panels", "400", "-o", in); err != nil {
+		t.Fatal(err)
+	}
+	out := filepath.Join(dir, "flat.obj")
+	rep := filepath.Join(dir, "rep.json")
+	text, _, err := runCmd(t, "planarize", in, "--tol", "0.1", "-o", out, "--report", rep)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(text, "node moves   max") {
+		t.Errorf("summary %q", text)
+	}
+	js, _, err := runCmd(t, "inspect", "--json", out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var in2 inspection
+	if err := json.Unmarshal([]byte(js), &in2); err != nil {
+		t.Fatal(err)
+	}
+	if in2.FlatnessMM.Max > 0.1 {
+		t.Errorf("flatness after %g", in2.FlatnessMM.Max)
+	}
+	// Too small a move limit: non-zero exit, no OBJ written, report written.
+	out2 := filepath.Join(dir, "flat2.obj")
+	_, _, err = runCmd(t, "planarize", in, "--max-move", "1", "-o", out2, "--report", rep)
+	if err == nil || !strings.Contains(err.Error(), "allowed node move") {
+		t.Errorf("want a move-limit failure, got %v", err)
+	}
+	if _, err := os.Stat(out2); err == nil {
+		t.Error("failed planarize wrote its OBJ")
+	}
+	if _, _, err := runCmd(t, "planarize", in, "--supports", "1,2,nope", "-o", out2); err == nil || !strings.Contains(err.Error(), `node "nope"`) {
+		t.Errorf("bad support id: %v", err)
 	}
 }
