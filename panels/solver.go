@@ -15,19 +15,19 @@ const (
 	stallIters       = 25    // steps without a 1 % gain in the worst flatness
 	minDamping       = 1e-12 // Levenberg-Marquardt damping bounds
 	maxDamping       = 1e6
-	cgRelTol         = 1e-6  // conjugate gradients: relative residual
+	cgRelTol         = 1e-6 // conjugate gradients: relative residual
 	cgMaxIter        = 2000
 )
 
 // gapCon is one planarity constraint: the signed gap between the diagonal
 // lines of corners a, b, c, d (lines ac and bd).
 type gapCon struct {
-	node [4]int32
-	face int32
+	node  [4]int32
+	face  int32
 	w     float64
 	shift float64 // augmented-Lagrangian shift: multiplier / w
 	val   float64
-	grad [4]geom.Vec
+	grad  [4]geom.Vec
 }
 
 // solver holds the state of one planarization.
