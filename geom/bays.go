@@ -1,9 +1,12 @@
 package geom
 
 import (
+	"cmp"
 	"fmt"
 	"math"
-	"sort"
+	"slices"
+	"strconv"
+	"strings"
 )
 
 // DefaultBaySizeMM is the default bay size for labels: 6 m, a common
@@ -64,31 +67,30 @@ func (b Bays) Label(pts []Vec, keys []string, prefix string) []string {
 	type item struct {
 		i        int
 		col, row int
+		p        Vec
 	}
 	items := make([]item, len(pts))
 	for i, p := range pts {
 		c, r := b.Cell(Vec2{p.X, p.Y})
-		items[i] = item{i, c, r}
+		items[i] = item{i, c, r, p}
 	}
-	sort.Slice(items, func(x, y int) bool {
-		a, c := items[x], items[y]
-		if a.col != c.col {
-			return a.col < c.col
+	slices.SortFunc(items, func(a, c item) int {
+		if d := cmp.Compare(a.col, c.col); d != 0 {
+			return d
 		}
-		if a.row != c.row {
-			return a.row < c.row
+		if d := cmp.Compare(a.row, c.row); d != 0 {
+			return d
 		}
-		pa, pc := pts[a.i], pts[c.i]
-		if pa.X != pc.X {
-			return pa.X < pc.X
+		if d := cmp.Compare(a.p.X, c.p.X); d != 0 {
+			return d
 		}
-		if pa.Y != pc.Y {
-			return pa.Y < pc.Y
+		if d := cmp.Compare(a.p.Y, c.p.Y); d != 0 {
+			return d
 		}
-		if pa.Z != pc.Z {
-			return pa.Z < pc.Z
+		if d := cmp.Compare(a.p.Z, c.p.Z); d != 0 {
+			return d
 		}
-		return keys[a.i] < keys[c.i]
+		return strings.Compare(keys[a.i], keys[c.i])
 	})
 	width := 2
 	for s := 0; s < len(items); {
@@ -101,12 +103,17 @@ func (b Bays) Label(pts []Vec, keys []string, prefix string) []string {
 	}
 	labels := make([]string, len(pts))
 	k := 0
+	bay := ""
 	for j, it := range items {
 		if j == 0 || it.col != items[j-1].col || it.row != items[j-1].row {
 			k = 0
 		}
 		k++
-		labels[it.i] = fmt.Sprintf("%s-%s%0*d", b.Name(it.col, it.row), prefix, width, k)
+		if k == 1 {
+			bay = b.Name(it.col, it.row) + "-" + prefix
+		}
+		num := strconv.Itoa(k)
+		labels[it.i] = bay + strings.Repeat("0", max(0, width-len(num))) + num
 	}
 	return labels
 }

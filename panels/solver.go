@@ -270,49 +270,9 @@ func (s *solver) solve(g []float64, mu float64) []float64 {
 			diag[i] = 1
 		}
 	}
-	x := make([]float64, m)
-	r := append([]float64(nil), g...)
-	z := make([]float64, m)
-	for i := range z {
-		z[i] = r[i] / diag[i]
-	}
-	p := append([]float64(nil), z...)
-	hp := make([]float64, m)
 	tmp := make([]float64, m)
-	rz := dot(r, z)
-	r0 := math.Sqrt(dot(r, r))
-	if r0 == 0 {
-		return x
-	}
-	for it := 0; it < cgMaxIter; it++ {
-		s.mul(p, hp, tmp, mu)
-		alpha := rz / dot(p, hp)
-		for i := range x {
-			x[i] += alpha * p[i]
-			r[i] -= alpha * hp[i]
-		}
-		if math.Sqrt(dot(r, r)) <= cgRelTol*r0 {
-			break
-		}
-		for i := range z {
-			z[i] = r[i] / diag[i]
-		}
-		rz2 := dot(r, z)
-		beta := rz2 / rz
-		rz = rz2
-		for i := range p {
-			p[i] = z[i] + beta*p[i]
-		}
-	}
+	x, _ := geom.SolveCG(func(v, out []float64) { s.mul(v, out, tmp, mu) }, diag, g, cgRelTol, cgMaxIter)
 	return x
-}
-
-func dot(a, b []float64) float64 {
-	var s float64
-	for i := range a {
-		s += a[i] * b[i]
-	}
-	return s
 }
 
 // updateMultipliers takes one augmented-Lagrangian step (method of

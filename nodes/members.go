@@ -1,0 +1,156 @@
+package nodes
+
+import (
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"pqfab/geom"
+)
+
+// Section is a member's cross-section, for drawings (mm).
+type Section struct {
+	WidthMM, DepthMM float64
+}
+
+// End is the cut at one end of a member, where it meets a hub.
+type End struct {
+	Node         int     // node index
+	ElevationDeg float64 // asin(e_out · a): member above (+) or below (−) the hub's plane
+	SetbackMM    float64 // r / cos(elevation): length lost to the hub at this end
+	MitreDeg     float64 // cut-plane normal turned about the member's z axis
+	BevelDeg     float64 // cut-plane normal turned about the member's y axis
+}
+
+// Member is a structural member along an edge of the net.
+type Member struct {
+	Edge        int    // edge index in the topology
+	Label       string // such as C3-M12
+	A, B        End    // ends at the edge's first and second node
+	LengthMM    float64
+	CutLengthMM float64
+	TwistDeg    float64 // signed angle from u_A to u_B about e
+	// Frame: origin at the midpoint, X along the member (A to B), Z the top
+	// of the section (mean of the axes seen along the member), Y = Z × X.
+	Frame geom.Frame
+	// DihedralDeg is the angle between the two panels at the member,
+	// measured through the structure's inside (180° for coplanar panels);
+	// 0 on the boundary.
+	DihedralDeg float64
+	Type        int // index into the member types
+}
+
+// MemberOptions sets up member geometry.
+type MemberOptions struct {
+	HubRadiusMM float64 // 0: members run to the node point
+}
+
+// Members computes every member of the net from node axes, to the
+// definitions in the design notes: u_i = unit(a_i − (a_i·e)e), twist =
+// signed angle from u_A to u_B about e, frame x = e, z = unit(u_A + u_B),
+// y = z × x, and at each end the hub cut: the plane containing the node
+// axis, normal to the member direction projected on the plane normal to
+// the axis, at distance r from the axis; setback s = r / cos(elevation).
+// The cut-plane normal n is oriented along +x (from A to B) at both ends,
+// so a square cut reads mitre 0, bevel 0; mitre = atan2(n·y, n·x), bevel =
+// atan2(n·z, n·x).
+func Members(n *geom.Net, topo *geom.Topology, axes []geom.Vec, opt MemberOptions) ([]Member, error) {
+	if !(opt.HubRadiusMM >= 0) {
+		return nil, fmt.Errorf("nodes: hub radius %g mm must be zero or more", opt.HubRadiusMM)
+	}
+	normals := faceNormals(n)
+	ms := make([]Member, len(topo.Edges))
+	for k, ed := range topo.Edges {
+		pa, pb := n.Nodes[ed.A].Pos, n.Nodes[ed.B].Pos
+		d := r3.Sub(pb, pa)
+		L := r3.Norm(d)
+		name := fmt.Sprintf("member %s–%s", n.Nodes[ed.A].ID, n.Nodes[ed.B].ID)
+		if L == 0 {
+			return nil, fmt.Errorf("nodes: %s has zero length", name)
+		}
+		e := r3.Scale(1/L, d)
+		ua, err := across(axes[ed.A], e)
+		if err != nil {
+			return nil, fmt.Errorf("nodes: %s: axis of node %s %v", name, n.Nodes[ed.A].ID, err)
+		}
+		ub, err := across(axes[ed.B], e)
+		if err != nil {
+			return nil, fmt.Errorf("nodes: %s: axis of node %s %v", name, n.Nodes[ed.B].ID, err)
+		}
+		z := r3.Add(ua, ub)
+		if r3.Norm(z) < 1e-9 {
+			return nil, fmt.Errorf("nodes: %s: twisted half a turn, no top face", name)
+		}
+		z = r3.Unit(z)
+		fr := geom.Frame{Origin: r3.Scale(0.5, r3.Add(pa, pb)), X: e, Z: z, Y: r3.Cross(z, e)}
+		m := Member{Edge: k, LengthMM: L, Frame: fr, TwistDeg: deg(geom.SignedAngle(ua, ub, e))}
+		m.A = endCut(ed.A, axes[ed.A], e, fr, opt.HubRadiusMM)
+		m.B = endCut(ed.B, axes[ed.B], r3.Scale(-1, e), fr, opt.HubRadiusMM)
+		m.CutLengthMM = L - m.A.SetbackMM - m.B.SetbackMM
+		if m.CutLengthMM <= 0 {
+			return nil, fmt.Errorf("nodes: %s: the hubs (radius %g mm) use up its %.1f mm length", name, opt.HubRadiusMM, L)
+		}
+		if len(ed.Faces) == 2 {
+			f1, f2 := ed.Faces[0], ed.Faces[1]
+			if edgeRunsForward(n, f1, ed.A, ed.B) {
+				m.DihedralDeg = 180 - deg(geom.FoldAngle(normals[f1], normals[f2], e))
+			} else {
+				m.DihedralDeg = 180 - deg(geom.FoldAngle(normals[f2], normals[f1], e))
+			}
+		}
+		ms[k] = m
+	}
+	return ms, nil
+}
+
+// across returns unit(a − (a·e)e), the axis seen along the member.
+func across(a, e geom.Vec) (geom.Vec, error) {
+	u := r3.Sub(a, r3.Scale(r3.Dot(a, e), e))
+	if r3.Norm(u) < 1e-9 {
+		return geom.Vec{}, fmt.Errorf("runs along the member")
+	}
+	return r3.Unit(u), nil
+}
+
+// endCut computes the hub cut at a node with axis a for a member leaving
+// the node in direction out.
+func endCut(node int, a, out geom.Vec, fr geom.Frame, r float64) End {
+	// Direction of the member in the plane normal to the axis: the cut
+	// plane's normal, pointing from the axis into the member.
+	p := r3.Unit(r3.Sub(out, r3.Scale(r3.Dot(out, a), a)))
+	el := math.Asin(math.Max(-1, math.Min(1, r3.Dot(out, a))))
+	end := End{Node: node, ElevationDeg: deg(el), SetbackMM: r / math.Cos(el)}
+	nrm := p
+	if r3.Dot(nrm, fr.X) < 0 {
+		nrm = r3.Scale(-1, nrm)
+	}
+	nx, ny, nz := r3.Dot(nrm, fr.X), r3.Dot(nrm, fr.Y), r3.Dot(nrm, fr.Z)
+	end.MitreDeg = deg(math.Atan2(ny, nx))
+	end.BevelDeg = deg(math.Atan2(nz, nx))
+	return end
+}
+
+// faceNormals returns the unit Newell normal of every face.
+func faceNormals(n *geom.Net) []geom.Vec {
+	out := make([]geom.Vec, len(n.Faces))
+	var pts []geom.Vec
+	for f := range n.Faces {
+		pts = n.FacePoints(pts[:0], f)
+		out[f] = r3.Unit(geom.VectorArea(pts))
+	}
+	return out
+}
+
+// edgeRunsForward reports whether face f runs from node a to node b.
+func edgeRunsForward(n *geom.Net, f, a, b int) bool {
+	c := n.Faces[f].Corners
+	for i := range c {
+		if c[i] == a && c[(i+1)%len(c)] == b {
+			return true
+		}
+	}
+	return false
+}
+
+func deg(r float64) float64 { return r * 180 / math.Pi }

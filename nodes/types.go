@@ -1,0 +1,191 @@
+package nodes
+
+import (
+	"cmp"
+	"fmt"
+	"slices"
+	"math"
+	"sort"
+)
+
+// Type tolerances.
+const (
+	DefaultTypeLengthTolMM = 1.0 // cut lengths within 1 mm are one type
+	DefaultTypeAngleTolDeg = 0.5 // end angles within 0.5° are one type
+)
+
+// TypeOptions sets the tolerances for member and node types.
+type TypeOptions struct {
+	LengthTolMM float64
+	AngleTolDeg float64
+}
+
+// Type is a group of congruent parts.
+type Type struct {
+	Name    string // MT-001, NT-001
+	Members []int  // parts of this type (member or node indices), ascending
+	Rep     int    // the part the others were compared with
+}
+
+// memberSig is what member types compare: cut length, twist, and the end
+// angles read from either end. Reading a member from its other end turns
+// its frame half a turn about z, which keeps mitres, elevations and twist
+// but flips the sign of the bevels.
+type memberSig struct {
+	cut, twist float64
+	fwd, rev   [6]float64 // mitre, bevel, elevation of the first end, then the second
+}
+
+func signature(m Member) memberSig {
+	a, b := m.A, m.B
+	return memberSig{cut: m.CutLengthMM, twist: m.TwistDeg,
+		fwd: [6]float64{a.MitreDeg, a.BevelDeg, a.ElevationDeg, b.MitreDeg, b.BevelDeg, b.ElevationDeg},
+		rev: [6]float64{b.MitreDeg, -b.BevelDeg, b.ElevationDeg, a.MitreDeg, -a.BevelDeg, a.ElevationDeg}}
+}
+
+// sameMember reports whether two members are one type: cut lengths within
+// the length tolerance, twist and end angles within the angle tolerance,
+// with the ends in either order.
+func sameMember(p, q *memberSig, tol TypeOptions) bool {
+	if math.Abs(p.cut-q.cut) > tol.LengthTolMM || math.Abs(p.twist-q.twist) > tol.AngleTolDeg {
+		return false
+	}
+	return within(&p.fwd, &q.fwd, tol.AngleTolDeg) || within(&p.fwd, &q.rev, tol.AngleTolDeg)
+}
+
+func within(a, b *[6]float64, tol float64) bool {
+	for i := range a {
+		if math.Abs(a[i]-b[i]) > tol {
+			return false
+		}
+	}
+	return true
+}
+
+// MemberTypes groups members into types and sets each member's Type.
+// Types are numbered by cut length, shortest first (MT-001, …).
+func MemberTypes(ms []Member, tol TypeOptions) ([]Type, error) {
+	if !(tol.LengthTolMM >= 0) || !(tol.AngleTolDeg >= 0) {
+		return nil, fmt.Errorf("nodes: type tolerances must be zero or more")
+	}
+	keys := make([]float64, len(ms))
+	sigs := make([]memberSig, len(ms))
+	for i, m := range ms {
+		keys[i] = m.CutLengthMM
+		sigs[i] = signature(m)
+	}
+	groups := cluster(keys, tol.LengthTolMM, func(a, b int) bool { return sameMember(&sigs[a], &sigs[b], tol) })
+	for t, g := range groups {
+		for _, i := range g.Members {
+			ms[i].Type = t
+		}
+	}
+	name(groups, "MT")
+	return groups, nil
+}
+
+// nodeSignature returns the arms sorted by azimuth as (gap to the next
+// arm, elevation) pairs: independent of which arm is first.
+func nodeSignature(nd Node) [][2]float64 {
+	arms := append([]HubArm(nil), nd.Arms...)
+	sort.Slice(arms, func(i, j int) bool { return arms[i].AzimuthDeg < arms[j].AzimuthDeg })
+	sig := make([][2]float64, len(arms))
+	for k, a := range arms {
+		next := arms[(k+1)%len(arms)].AzimuthDeg
+		gap := next - a.AzimuthDeg
+		if gap <= 0 {
+			gap += 360
+		}
+		sig[k] = [2]float64{gap, a.ElevationDeg}
+	}
+	return sig
+}
+
+// sameNode reports whether two nodes have the same valence and hub angles
+// within tol, up to turning one about its axis.
+func sameNode(p, q [][2]float64, tol float64) bool {
+	if len(p) != len(q) {
+		return false
+	}
+	for shift := range q {
+		ok := true
+		for k := range p {
+			r := q[(k+shift)%len(q)]
+			if math.Abs(p[k][0]-r[0]) > tol || math.Abs(p[k][1]-r[1]) > tol {
+				ok = false
+				break
+			}
+		}
+		if ok {
+			return true
+		}
+	}
+	return false
+}
+
+// NodeTypes groups nodes with the same valence and hub angles within the
+// angle tolerance and sets each node's Type. Types are numbered by
+// valence, then by the lowest arm elevation.
+func NodeTypes(nds []Node, tol TypeOptions) []Type {
+	sigs := make([][][2]float64, len(nds))
+	keys := make([]float64, len(nds))
+	for i, nd := range nds {
+		sigs[i] = nodeSignature(nd)
+		lo := math.Inf(1)
+		for _, s := range sigs[i] {
+			lo = math.Min(lo, s[1])
+		}
+		// Valence dominates the key; the lowest elevation orders within it.
+		keys[i] = float64(nd.Valence)*1000 + lo
+	}
+	groups := cluster(keys, tol.AngleTolDeg, func(a, b int) bool { return sameNode(sigs[a], sigs[b], tol.AngleTolDeg) })
+	for t, g := range groups {
+		for _, i := range g.Members {
+			nds[i].Type = t
+		}
+	}
+	name(groups, "NT")
+	return groups
+}
+
+// cluster groups items greedily in the order of their keys: each item
+// joins the first existing group whose representative's key is within
+// keyTol and which same() accepts, else starts a group. Only groups whose
+// representative lies within keyTol are tried, so the work stays near
+// linear for parts with few look-alikes. Groups come out in key order.
+func cluster(keys []float64, keyTol float64, same func(a, b int) bool) []Type {
+	order := make([]int, len(keys))
+	for i := range order {
+		order[i] = i
+	}
+	slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(keys[a], keys[b]) })
+	var groups []Type
+	lo := 0 // first group whose representative may still be within keyTol
+	for _, i := range order {
+		for lo < len(groups) && keys[groups[lo].Rep] < keys[i]-keyTol {
+			lo++
+		}
+		joined := false
+		for g := lo; g < len(groups); g++ {
+			if same(groups[g].Rep, i) {
+				groups[g].Members = append(groups[g].Members, i)
+				joined = true
+				break
+			}
+		}
+		if !joined {
+			groups = append(groups, Type{Rep: i, Members: []int{i}})
+		}
+	}
+	for g := range groups {
+		sort.Ints(groups[g].Members)
+	}
+	return groups
+}
+
+func name(groups []Type, prefix string) {
+	width := max(3, len(fmt.Sprint(len(groups))))
+	for g := range groups {
+		groups[g].Name = fmt.Sprintf("%s-%0*d", prefix, width, g+1)
+	}
+}
