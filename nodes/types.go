@@ -3,8 +3,8 @@ package nodes
 import (
 	"cmp"
 	"fmt"
-	"slices"
 	"math"
+	"slices"
 	"sort"
 )
 

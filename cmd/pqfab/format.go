@@ -2,6 +2,7 @@ package main
 
 import (
 	"math"
+	"sort"
 
 	"pqfab/panels"
 )
@@ -19,4 +20,9 @@ func round(x float64, d int) float64 {
 
 func roundSpread(s panels.Spread, d int) panels.Spread {
 	return panels.Spread{Min: round(s.Min, d), Median: round(s.Median, d), Max: round(s.Max, d)}
+}
+
+// sortByCount orders indices by count, largest first, ties by index.
+func sortByCount(idx []int, count func(int) int) {
+	sort.SliceStable(idx, func(a, b int) bool { return count(idx[a]) > count(idx[b]) })
 }

@@ -117,3 +117,34 @@ func TestPlanarizeCommand(t *testing.T) {
 		t.Errorf("bad support id: %v", err)
 	}
 }
+
+func TestMembersCommand(t *testing.T) {
+	dir := t.TempDir()
+	for _, name := range []string{"canopy", "dome", "wave"} {
+		path := filepath.Join(dir, name+".obj")
+		if _, _, err := runCmd(t, "sample", name, "--panels", "300", "-o", path); err != nil {
+			t.Fatal(err)
+		}
+		out, _, err := runCmd(t, "members", "--json", "--axis", "least-twist", "--hub-radius", "50", path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var s memberSummary
+		if err := json.Unmarshal([]byte(out), &s); err != nil {
+			t.Fatal(err)
+		}
+		total := 0
+		for _, b := range s.TwistHistogram {
+			total += b.Count
+		}
+		if total != s.Members || s.MemberTypes == 0 || s.NodeTypes == 0 {
+			t.Errorf("%s: %+v", name, s)
+		}
+		if name == "dome" && s.TwistDeg.Max > 1e-6 {
+			t.Errorf("dome twist %g", s.TwistDeg.Max)
+		}
+	}
+	if _, _, err := runCmd(t, "members", "--axis", "sideways", filepath.Join(dir, "dome.obj")); err == nil || !strings.Contains(err.Error(), "unknown axis method") {
+		t.Errorf("bad axis: %v", err)
+	}
+}

@@ -31,6 +31,7 @@ func commands() []command {
 	return []command{
 		{"inspect", "NET", "read and check a net; print counts, bounds, valence and planarity", runInspect},
 		{"sample", "NAME -o FILE", "write a sample net as OBJ (canopy, dome, wave)", runSample},
+		{"members", "NET", "node axes, member lengths, twist and end cuts; twist spread and type counts", runMembers},
 		{"planarize", "NET -o OUT.obj", "make every panel flat by the smallest smooth node moves", runPlanarize},
 	}
 }
