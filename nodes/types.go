@@ -1,11 +1,12 @@
 package nodes
 
 import (
-	"cmp"
 	"fmt"
 	"math"
 	"slices"
 	"sort"
+
+	"pqfab/geom"
 )
 
 // Type tolerances.
@@ -74,7 +75,7 @@ func MemberTypes(ms []Member, tol TypeOptions) ([]Type, error) {
 		keys[i] = m.CutLengthMM
 		sigs[i] = signature(m)
 	}
-	groups := cluster(keys, tol.LengthTolMM, func(a, b int) bool { return sameMember(&sigs[a], &sigs[b], tol) })
+	groups := group(keys, tol.LengthTolMM, func(a, b int) bool { return sameMember(&sigs[a], &sigs[b], tol) })
 	for t, g := range groups {
 		for _, i := range g.Members {
 			ms[i].Type = t
@@ -138,7 +139,7 @@ func NodeTypes(nds []Node, tol TypeOptions) []Type {
 		// Valence dominates the key; the lowest elevation orders within it.
 		keys[i] = float64(nd.Valence)*1000 + lo
 	}
-	groups := cluster(keys, tol.AngleTolDeg, func(a, b int) bool { return sameNode(sigs[a], sigs[b], tol.AngleTolDeg) })
+	groups := group(keys, tol.AngleTolDeg, func(a, b int) bool { return sameNode(sigs[a], sigs[b], tol.AngleTolDeg) })
 	for t, g := range groups {
 		for _, i := range g.Members {
 			nds[i].Type = t
@@ -148,39 +149,16 @@ func NodeTypes(nds []Node, tol TypeOptions) []Type {
 	return groups
 }
 
-// cluster groups items greedily in the order of their keys: each item
-// joins the first existing group whose representative's key is within
-// keyTol and which same() accepts, else starts a group. Only groups whose
-// representative lies within keyTol are tried, so the work stays near
-// linear for parts with few look-alikes. Groups come out in key order.
-func cluster(keys []float64, keyTol float64, same func(a, b int) bool) []Type {
-	order := make([]int, len(keys))
-	for i := range order {
-		order[i] = i
+// group turns geom.GroupNear's groups into types.
+func group(keys []float64, keyTol float64, same func(a, b int) bool) []Type {
+	gs := geom.GroupNear(keys, keyTol, same)
+	out := make([]Type, len(gs))
+	for g, members := range gs {
+		sorted := slices.Clone(members)
+		slices.Sort(sorted)
+		out[g] = Type{Rep: members[0], Members: sorted}
 	}
-	slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(keys[a], keys[b]) })
-	var groups []Type
-	lo := 0 // first group whose representative may still be within keyTol
-	for _, i := range order {
-		for lo < len(groups) && keys[groups[lo].Rep] < keys[i]-keyTol {
-			lo++
-		}
-		joined := false
-		for g := lo; g < len(groups); g++ {
-			if same(groups[g].Rep, i) {
-				groups[g].Members = append(groups[g].Members, i)
-				joined = true
-				break
-			}
-		}
-		if !joined {
-			groups = append(groups, Type{Rep: i, Members: []int{i}})
-		}
-	}
-	for g := range groups {
-		sort.Ints(groups[g].Members)
-	}
-	return groups
+	return out
 }
 
 func name(groups []Type, prefix string) {
