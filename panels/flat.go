@@ -1,0 +1,227 @@
+package panels
+
+import (
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"pqfab/geom"
+)
+
+// Panel material defaults (float glass; common practice values).
+const (
+	DefaultThicknessMM    = 10.0
+	DefaultDensityKgM3    = 2500.0 // soda-lime glass, common practice
+	DefaultEdgeInsetMM    = 0.0
+	DefaultBoundaryBevelD = 0.0
+)
+
+// Material is what panels are cut from.
+type Material struct {
+	Name             string
+	ThicknessMM      float64
+	DensityKgM3      float64
+	EdgeInsetMM      float64 // each edge moved inward by this much for the cut outline
+	BoundaryBevelDeg float64 // edge bevel on the net's boundary
+}
+
+// Flat is one panel laid flat: its plane, outlines and the numbers a
+// workshop and a site need.
+type Flat struct {
+	Face  int
+	Label string
+	Plane geom.Plane
+	// Frame maps the 2D outline back to 3D: origin at the first corner
+	// projected on the plane, X along the first edge, Z the plane normal.
+	Frame   geom.Frame
+	Outline geom.Polygon // corners in the frame, counter-clockwise
+	Cut     geom.Polygon // outline with the edge inset: what is cut
+	// Per edge k (corner k to k+1):
+	EdgeMM    []float64
+	FoldDeg   []float64 // signed angle to the neighbour's normal, ridge positive; 0 on the boundary
+	BevelDeg  []float64 // fold / 2 (butt joint on the bisector plane); the job's boundary bevel outside
+	Neighbour []int     // face across the edge, -1 on the boundary
+	// Per corner k:
+	AngleDeg []float64
+	// Diagonals between every pair of non-adjacent corners: (0,2), (1,3)
+	// for a quad.
+	Diagonals []Diagonal
+	AreaM2      float64 // of the cut outline
+	PerimeterMM float64 // of the cut outline
+	WeightKg    float64
+	FlatnessMM  float64 // deviation of the 3D corners from the plane
+	Type        int
+}
+
+// Diagonal is the distance between corners I and J of the outline.
+type Diagonal struct {
+	I, J int
+	MM   float64
+}
+
+// Flatten lays every panel of n flat. labels gives each panel's label
+// (see Labels).
+func Flatten(n *geom.Net, topo *geom.Topology, mat Material, labels []string) ([]Flat, error) {
+	if !(mat.ThicknessMM > 0) || !(mat.DensityKgM3 >= 0) || !(mat.EdgeInsetMM >= 0) {
+		return nil, fmt.Errorf("panels: material %q: thickness must be positive, density and inset zero or more", mat.Name)
+	}
+	flats := make([]Flat, len(n.Faces))
+	var pts []geom.Vec
+	for f := range n.Faces {
+		pts = n.FacePoints(pts[:0], f)
+		fl, err := flatten(pts)
+		if err != nil {
+			return nil, fmt.Errorf("panels: %s: %v", n.FaceName(f), err)
+		}
+		fl.Face = f
+		fl.Label = labels[f]
+		if mat.EdgeInsetMM > 0 {
+			if fl.Cut, err = Inset(fl.Outline, mat.EdgeInsetMM); err != nil {
+				return nil, fmt.Errorf("panels: %s: %v", n.FaceName(f), err)
+			}
+		} else {
+			fl.Cut = fl.Outline
+		}
+		fl.AreaM2 = fl.Cut.Area() / 1e6
+		fl.PerimeterMM = fl.Cut.Perimeter()
+		fl.WeightKg = fl.AreaM2 * mat.ThicknessMM / 1000 * mat.DensityKgM3
+		flats[f] = fl
+	}
+	// Folds and bevels across every edge.
+	for f, face := range n.Faces {
+		k := len(face.Corners)
+		fl := &flats[f]
+		fl.FoldDeg = make([]float64, k)
+		fl.BevelDeg = make([]float64, k)
+		fl.Neighbour = make([]int, k)
+		for i, e := range topo.FaceEdges[f] {
+			fl.Neighbour[i] = -1
+			ed := topo.Edges[e]
+			if len(ed.Faces) != 2 {
+				fl.BevelDeg[i] = mat.BoundaryBevelDeg
+				continue
+			}
+			g := ed.Faces[0]
+			if g == f {
+				g = ed.Faces[1]
+			}
+			fl.Neighbour[i] = g
+			a, b := n.Nodes[face.Corners[i]].Pos, n.Nodes[face.Corners[(i+1)%k]].Pos
+			dir := r3.Unit(r3.Sub(b, a))
+			fold := geom.FoldAngle(fl.Plane.Normal, flats[g].Plane.Normal, dir) * 180 / math.Pi
+			fl.FoldDeg[i] = fold
+			fl.BevelDeg[i] = fold / 2
+		}
+	}
+	return flats, nil
+}
+
+// flatten projects a panel's corners on their least-squares plane and
+// writes them in the panel's own frame.
+func flatten(pts []geom.Vec) (Flat, error) {
+	fit, err := geom.FitPlane(pts)
+	if err != nil {
+		return Flat{}, err
+	}
+	o := fit.Project(pts[0])
+	fr, err := geom.PlaneFrame(o, fit.Normal, r3.Sub(fit.Project(pts[1]), o), 1e-12)
+	if err != nil {
+		return Flat{}, fmt.Errorf("first edge has no length in the panel plane")
+	}
+	fl := Flat{Plane: fit.Plane, Frame: fr, FlatnessMM: fit.MaxDist}
+	k := len(pts)
+	fl.Outline = make(geom.Polygon, k)
+	for i, p := range pts {
+		q := fr.ToLocal(p)
+		fl.Outline[i] = geom.Vec2{X: q.X, Y: q.Y}
+	}
+	fl.Outline[0] = geom.Vec2{} // exactly the origin
+	fl.Outline[1].Y = 0         // exactly on the x axis
+	if !fl.Outline.CCW() {
+		return Flat{}, fmt.Errorf("outline runs clockwise in its own plane (folded or bow-tie panel)")
+	}
+	if fl.Outline.SelfIntersects() {
+		return Flat{}, fmt.Errorf("outline crosses itself")
+	}
+	fl.EdgeMM = make([]float64, k)
+	fl.AngleDeg = make([]float64, k)
+	for i := range fl.Outline {
+		a, b, c := fl.Outline[(i+k-1)%k], fl.Outline[i], fl.Outline[(i+1)%k]
+		fl.EdgeMM[i] = c.Sub(b).Norm()
+		u, v := a.Sub(b), c.Sub(b)
+		ang := math.Atan2(v.Cross(u), v.Dot(u)) * 180 / math.Pi
+		if ang < 0 {
+			ang += 360
+		}
+		fl.AngleDeg[i] = ang
+	}
+	for i := 0; i < k; i++ {
+		for j := i + 2; j < k; j++ {
+			if i == 0 && j == k-1 {
+				continue
+			}
+			fl.Diagonals = append(fl.Diagonals, Diagonal{I: i, J: j, MM: fl.Outline[j].Sub(fl.Outline[i]).Norm()})
+		}
+	}
+	return fl, nil
+}
+
+// Inset moves every edge of a counter-clockwise polygon inward by d and
+// returns the polygon of the moved lines' intersections. It fails when the
+// inset swallows an edge (the result would turn or cross itself).
+func Inset(p geom.Polygon, d float64) (geom.Polygon, error) {
+	k := len(p)
+	type line struct{ o, dir geom.Vec2 }
+	lines := make([]line, k)
+	for i := range p {
+		a, b := p[i], p[(i+1)%k]
+		dir := b.Sub(a)
+		l := dir.Norm()
+		if l == 0 {
+			return nil, fmt.Errorf("edge %d has no length", i+1)
+		}
+		dir = dir.Scale(1 / l)
+		lines[i] = line{o: a.Add(dir.Perp().Scale(d)), dir: dir}
+	}
+	out := make(geom.Polygon, k)
+	for i := range p {
+		l1, l2 := lines[(i+k-1)%k], lines[i]
+		den := l1.dir.Cross(l2.dir)
+		if math.Abs(den) < 1e-12 {
+			// Straight corner: the moved point on both lines.
+			out[i] = p[i].Add(l2.dir.Perp().Scale(d))
+			continue
+		}
+		t := l2.o.Sub(l1.o).Cross(l2.dir) / den
+		out[i] = l1.o.Add(l1.dir.Scale(t))
+	}
+	for i := range p {
+		// Each inset edge must keep the direction of the original edge.
+		if out[(i+1)%k].Sub(out[i]).Dot(p[(i+1)%k].Sub(p[i])) <= 0 {
+			return nil, fmt.Errorf("edge inset %.3g mm swallows edge %d", d, i+1)
+		}
+	}
+	if !out.CCW() || out.SelfIntersects() {
+		return nil, fmt.Errorf("edge inset %.3g mm turns the outline inside out", d)
+	}
+	return out, nil
+}
+
+// Labels names every panel by the bay of its centroid (C3-P05), using the
+// same bays as nodes and members.
+func Labels(n *geom.Net, bays geom.Bays, nodeLabels []string) []string {
+	cents := make([]geom.Vec, len(n.Faces))
+	keys := make([]string, len(n.Faces))
+	var pts []geom.Vec
+	for f, face := range n.Faces {
+		pts = n.FacePoints(pts[:0], f)
+		cents[f] = geom.Centroid(pts)
+		key := ""
+		for _, c := range face.Corners {
+			key += nodeLabels[c] + "/"
+		}
+		keys[f] = key
+	}
+	return bays.Label(cents, keys, "P")
+}

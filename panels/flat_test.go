@@ -1,0 +1,138 @@
+package panels
+
+import (
+	"math"
+	"slices"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"pqfab/geom"
+	"pqfab/internal/testnets"
+	"pqfab/samples"
+)
+
+func flatsOf(t *testing.T, n *geom.Net, mat Material) []Flat {
+	t.Helper()
+	topo, fd := geom.Validate(n, geom.DefaultValidateOptions())
+	if fd.Err() != nil {
+		t.Fatal(fd.Err())
+	}
+	labels := make([]string, len(n.Faces))
+	flats, err := Flatten(n, topo, mat, labels)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return flats
+}
+
+var glass = Material{Name: "glass", ThicknessMM: 10, DensityKgM3: 2500}
+
+// TestFlattenIsometry: laying a planar panel flat keeps every edge and
+// diagonal length to 1e-9 mm.
+func TestFlattenIsometry(t *testing.T) {
+	for _, name := range []string{"canopy", "dome"} {
+		n, _ := samples.Make(name, 500)
+		for f, fl := range flatsOf(t, n, glass) {
+			c := n.Faces[f].Corners
+			k := len(c)
+			for i := 0; i < k; i++ {
+				for j := i + 1; j < k; j++ {
+					d3 := r3.Norm(r3.Sub(n.Nodes[c[j]].Pos, n.Nodes[c[i]].Pos))
+					d2 := fl.Outline[j].Sub(fl.Outline[i]).Norm()
+					if math.Abs(d3-d2) > 1e-9 {
+						t.Fatalf("%s panel %d corners %d-%d: 3D %.12f, flat %.12f", name, f, i, j, d3, d2)
+					}
+				}
+			}
+			// Back to 3D through the frame lands on the corners.
+			for i, p := range fl.Outline {
+				q := fl.Frame.ToWorld(geom.Vec{X: p.X, Y: p.Y})
+				if r3.Norm(r3.Sub(q, n.Nodes[c[i]].Pos)) > 1e-9 {
+					t.Fatalf("%s panel %d corner %d: frame round trip off", name, f, i)
+				}
+			}
+		}
+	}
+}
+
+// TestRhombicDodecahedronFaces: corner angles 109.47° and 70.53°
+// (arccos(∓1/3)), diagonal ratio √2, dihedral 120° so fold 60° and bevel
+// 30° (handbook values for the rhombic dodecahedron).
+func TestRhombicDodecahedronFaces(t *testing.T) {
+	n, err := geom.ReadOBJ(strings.NewReader(testnets.RhombicDodecahedron(500).OBJ()), "rd.obj", geom.MM)
+	if err != nil {
+		t.Fatal(err)
+	}
+	flats := flatsOf(t, n, glass)
+	obtuse, acute := math.Acos(-1.0/3)*180/math.Pi, math.Acos(1.0/3)*180/math.Pi
+	for f, fl := range flats {
+		for _, a := range fl.AngleDeg {
+			if math.Abs(a-obtuse) > 1e-9 && math.Abs(a-acute) > 1e-9 {
+				t.Errorf("panel %d: corner angle %.10f°", f, a)
+			}
+		}
+		d0, d1 := fl.Diagonals[0].MM, fl.Diagonals[1].MM
+		if r := math.Max(d0, d1) / math.Min(d0, d1); math.Abs(r-math.Sqrt2) > 1e-12 {
+			t.Errorf("panel %d: diagonal ratio %.15f", f, r)
+		}
+		for i := range fl.FoldDeg {
+			if math.Abs(fl.FoldDeg[i]-60) > 1e-9 || math.Abs(fl.BevelDeg[i]-30) > 1e-9 {
+				t.Errorf("panel %d edge %d: fold %g bevel %g", f, i, fl.FoldDeg[i], fl.BevelDeg[i])
+			}
+		}
+	}
+	types, err := PanelTypes(flats, 0.01, false)
+	if err != nil || len(types) != 1 || len(types[0].Panels) != 12 {
+		t.Errorf("all 12 faces are one type: %v %v", types, err)
+	}
+}
+
+func TestInset(t *testing.T) {
+	sq := geom.Polygon{{0, 0}, {1000, 0}, {1000, 800}, {0, 800}}
+	in, err := Inset(sq, 10)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := geom.Polygon{{10, 10}, {990, 10}, {990, 790}, {10, 790}}
+	for i := range want {
+		if in[i].Sub(want[i]).Norm() > 1e-9 {
+			t.Errorf("corner %d: %v want %v", i, in[i], want[i])
+		}
+	}
+	// A right triangle with legs a, b: the inset triangle is similar, with
+	// inradius r − d (r = (a + b − c) / 2 for a right triangle).
+	tri := geom.Polygon{{0, 0}, {3000, 0}, {0, 4000}}
+	in, err = Inset(tri, 100)
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := (3000.0 + 4000 - 5000) / 2
+	if got, want := in.Area(), tri.Area()*math.Pow((r-100)/r, 2); math.Abs(got-want) > 1e-6 {
+		t.Errorf("triangle inset area %g want %g", got, want)
+	}
+	if _, err := Inset(sq, 500); err == nil {
+		t.Error("inset past the middle: want an error")
+	}
+}
+
+// TestPanelTypesMirror: the canopy is symmetric about its mid-lines, so
+// allowing mirrored panels merges types.
+func TestPanelTypesMirror(t *testing.T) {
+	n, _ := samples.Make("canopy", 96)
+	flats := flatsOf(t, n, glass)
+	plain, _ := PanelTypes(slices.Clone(flats), 0.5, false)
+	mirrored, _ := PanelTypes(flats, 0.5, true)
+	if len(mirrored) >= len(plain) {
+		t.Errorf("mirroring should merge types: %d vs %d", len(mirrored), len(plain))
+	}
+	count := 0
+	for _, ty := range mirrored {
+		count += len(ty.Panels)
+	}
+	if count != len(flats) {
+		t.Errorf("types hold %d of %d panels", count, len(flats))
+	}
+	t.Logf("canopy 96 panels: %d types, %d with mirroring", len(plain), len(mirrored))
+}
