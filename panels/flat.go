@@ -46,7 +46,7 @@ type Flat struct {
 	AngleDeg []float64
 	// Diagonals between every pair of non-adjacent corners: (0,2), (1,3)
 	// for a quad.
-	Diagonals []Diagonal
+	Diagonals   []Diagonal
 	AreaM2      float64 // of the cut outline
 	PerimeterMM float64 // of the cut outline
 	WeightKg    float64
