@@ -90,12 +90,12 @@ func TestRhombicDodecahedronFaces(t *testing.T) {
 }
 
 func TestInset(t *testing.T) {
-	sq := geom.Polygon{{0, 0}, {1000, 0}, {1000, 800}, {0, 800}}
+	sq := geom.Polygon{{X: 0, Y: 0}, {X: 1000, Y: 0}, {X: 1000, Y: 800}, {X: 0, Y: 800}}
 	in, err := Inset(sq, 10)
 	if err != nil {
 		t.Fatal(err)
 	}
-	want := geom.Polygon{{10, 10}, {990, 10}, {990, 790}, {10, 790}}
+	want := geom.Polygon{{X: 10, Y: 10}, {X: 990, Y: 10}, {X: 990, Y: 790}, {X: 10, Y: 790}}
 	for i := range want {
 		if in[i].Sub(want[i]).Norm() > 1e-9 {
 			t.Errorf("corner %d: %v want %v", i, in[i], want[i])
@@ -103,7 +103,7 @@ func TestInset(t *testing.T) {
 	}
 	// A right triangle with legs a, b: the inset triangle is similar, with
 	// inradius r − d (r = (a + b − c) / 2 for a right triangle).
-	tri := geom.Polygon{{0, 0}, {3000, 0}, {0, 4000}}
+	tri := geom.Polygon{{X: 0, Y: 0}, {X: 3000, Y: 0}, {X: 0, Y: 4000}}
 	in, err = Inset(tri, 100)
 	if err != nil {
 		t.Fatal(err)
