@@ -100,8 +100,8 @@ type orientation struct {
 
 type partInfo struct {
 	area    float64
-	height  float64 // short side of the outline's bounding box
-	length  float64 // long side
+	height  float64         // short side of the outline's bounding box
+	length  float64         // long side
 	orients [][]orientation // per stock
 }
 

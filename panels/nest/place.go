@@ -226,7 +226,6 @@ func (st *sheetState) firstFree(o *orientation, cands []geom.Vec2, ilo, ihi geom
 	return best, bestScore, found
 }
 
-
 // score ranks positions bottom-left: the lowest band of the top edge
 // (bands of topBin of the sheet height), then the leftmost right edge,
 // then the lowest top edge. Banding lets a part sit beside its neighbour
