@@ -148,3 +148,25 @@ func TestMembersCommand(t *testing.T) {
 		t.Errorf("bad axis: %v", err)
 	}
 }
+
+func TestNestCommand(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "canopy.obj")
+	if _, _, err := runCmd(t, "sample", "canopy", "--panels", "60", "-o", path); err != nil {
+		t.Fatal(err)
+	}
+	out, _, err := runCmd(t, "nest", path, "--sheet", "3210x2250", "--inset", "3", "--rotation", "quarter")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(out, "placed on") || !strings.Contains(out, "S-01") || !strings.Contains(out, "0 unplaced") {
+		t.Errorf("output %q", out)
+	}
+	if _, _, err := runCmd(t, "nest", path, "--sheet", "big"); err == nil || !strings.Contains(err.Error(), "WIDTHxHEIGHT") {
+		t.Errorf("bad sheet: %v", err)
+	}
+	out, _, err = runCmd(t, "nest", path, "--sheet", "1000x1000")
+	if err != nil || !strings.Contains(out, "larger than every stock sheet") {
+		t.Errorf("small sheet: %v %q", err, out)
+	}
+}

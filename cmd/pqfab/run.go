@@ -32,6 +32,7 @@ func commands() []command {
 		{"inspect", "NET", "read and check a net; print counts, bounds, valence and planarity", runInspect},
 		{"sample", "NAME -o FILE", "write a sample net as OBJ (canopy, dome, wave)", runSample},
 		{"members", "NET", "node axes, member lengths, twist and end cuts; twist spread and type counts", runMembers},
+		{"nest", "NET", "lay the panels flat and nest them on stock sheets; per-sheet utilization", runNest},
 		{"planarize", "NET -o OUT.obj", "make every panel flat by the smallest smooth node moves", runPlanarize},
 	}
 }
