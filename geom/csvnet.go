@@ -4,7 +4,6 @@ import (
 	"encoding/csv"
 	"errors"
 	"io"
-	"os"
 	"path/filepath"
 	"strings"
 )
@@ -19,21 +18,6 @@ func PanelsPathFor(nodesPath string) (string, error) {
 		return "", &InputError{File: nodesPath, Msg: `a CSV net is a pair of files: name the nodes file "…nodes….csv" so its "…panels….csv" partner can be found`}
 	}
 	return dir + base[:i] + "panels" + base[i+len("nodes"):], nil
-}
-
-// ReadCSVFiles reads a CSV pair from two paths.
-func ReadCSVFiles(nodesPath, panelsPath string, unit Unit) (*Net, error) {
-	nf, err := os.Open(nodesPath)
-	if err != nil {
-		return nil, &InputError{File: nodesPath, Msg: openMsg(err)}
-	}
-	defer nf.Close()
-	pf, err := os.Open(panelsPath)
-	if err != nil {
-		return nil, &InputError{File: panelsPath, Msg: openMsg(err)}
-	}
-	defer pf.Close()
-	return ReadCSV(nf, nodesPath, pf, panelsPath, unit)
 }
 
 // ReadCSV reads a net from a CSV pair, each with a header row. Nodes:

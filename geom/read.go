@@ -2,6 +2,9 @@ package geom
 
 import (
 	"bufio"
+	"errors"
+	"io/fs"
+	"syscall"
 	"fmt"
 	"io"
 	"math"
@@ -22,27 +25,42 @@ const (
 // 0.01 mm scale the outputs are written in.
 const MaxCoordMM = 1e8
 
-// ReadFile reads a net file, choosing the format by the file name's
-// extension: .obj, .off, or .csv for a CSV pair (see ReadCSVFiles; the
+// ReadFile reads a net file from disk, choosing the format by the file
+// name's extension: .obj, .off, or .csv for a CSV pair (see ReadCSV; the
 // panels file is found by PanelsPathFor).
 func ReadFile(path string, unit Unit) (*Net, error) {
+	return ReadFrom(func(name string) (io.ReadCloser, error) { return os.Open(name) }, path, unit)
+}
+
+// ReadFrom is ReadFile with files opened by open, such as an embedded
+// file system's Open.
+func ReadFrom(open func(name string) (io.ReadCloser, error), path string, unit Unit) (*Net, error) {
+	var read func(io.Reader, string, Unit) (*Net, error)
 	switch strings.ToLower(filepath.Ext(path)) {
 	case ".obj":
-		return readPath(path, unit, ReadOBJ)
+		read = ReadOBJ
 	case ".off":
-		return readPath(path, unit, ReadOFF)
+		read = ReadOFF
 	case ".csv":
 		pp, err := PanelsPathFor(path)
 		if err != nil {
 			return nil, err
 		}
-		return ReadCSVFiles(path, pp, unit)
+		nf, err := open(path)
+		if err != nil {
+			return nil, &InputError{File: path, Msg: openMsg(err)}
+		}
+		defer nf.Close()
+		pf, err := open(pp)
+		if err != nil {
+			return nil, &InputError{File: pp, Msg: openMsg(err)}
+		}
+		defer pf.Close()
+		return ReadCSV(nf, path, pf, pp, unit)
+	default:
+		return nil, &InputError{File: path, Msg: "unknown net format (want .obj, .off or a nodes/panels .csv pair)"}
 	}
-	return nil, &InputError{File: path, Msg: "unknown net format (want .obj, .off or a nodes/panels .csv pair)"}
-}
-
-func readPath(path string, unit Unit, read func(io.Reader, string, Unit) (*Net, error)) (*Net, error) {
-	f, err := os.Open(path)
+	f, err := open(path)
 	if err != nil {
 		return nil, &InputError{File: path, Msg: openMsg(err)}
 	}
@@ -52,24 +70,19 @@ func readPath(path string, unit Unit, read func(io.Reader, string, Unit) (*Net, 
 
 func openMsg(err error) string {
 	switch {
-	case os.IsNotExist(err):
+	case errors.Is(err, fs.ErrNotExist):
 		return "file not found"
-	case os.IsPermission(err):
+	case errors.Is(err, fs.ErrPermission):
 		return "permission denied"
 	}
-	var pe *os.PathError
-	if ok := asPathError(err, &pe); ok {
+	var pe *fs.PathError
+	if errors.As(err, &pe) {
+		if errors.Is(pe.Err, syscall.EISDIR) {
+			return "is a folder, not a file"
+		}
 		return pe.Err.Error()
 	}
 	return err.Error()
-}
-
-func asPathError(err error, pe **os.PathError) bool {
-	p, ok := err.(*os.PathError)
-	if ok {
-		*pe = p
-	}
-	return ok
 }
 
 // lineReader yields trimmed lines with their numbers, skipping blank lines
