@@ -29,6 +29,8 @@ type command struct {
 
 func commands() []command {
 	return []command{
+		{"demo", "-o DIR", "run the built-in demo job (an invented library canopy) into DIR", runDemo},
+		{"build", "JOB.toml -o DIR", "run a whole job: flat panels, members, nesting, DXF, XLSX, JSON", runBuild},
 		{"inspect", "NET", "read and check a net; print counts, bounds, valence and planarity", runInspect},
 		{"sample", "NAME -o FILE", "write a sample net as OBJ (canopy, dome, wave)", runSample},
 		{"members", "NET", "node axes, member lengths, twist and end cuts; twist spread and type counts", runMembers},

@@ -1,0 +1,100 @@
+package export
+
+import (
+	"math"
+
+	"pqfab/geom"
+	"pqfab/nodes"
+	"pqfab/panels"
+	"pqfab/panels/nest"
+)
+
+// Caution is printed in every report and schedule.
+const Caution = "pqfab computes geometry only. It does not check strength, stability, glass safety or " +
+	"connections. A qualified structural engineer must check the design; local building codes and " +
+	"licensed practice decide. Check every figure before cutting."
+
+// Bundle is everything a build computed, as the writers need it.
+type Bundle struct {
+	Title    string
+	JobFile  string
+	NetFile  string
+	Settings []Setting // job settings for the summary, in order
+	Warnings []string
+
+	Net       *geom.Net // planarized
+	Topo      *geom.Topology
+	Supports  []bool
+	Planarize *panels.PlanarizeResult
+	TolMM     float64
+
+	Structure  *nodes.Structure
+	Flats      []panels.Flat // one per face
+	PanelTypes []panels.Type
+
+	Stocks  []nest.Stock
+	Nesting *nest.Result // part i is face i
+
+	Cost *Cost // nil when the job gives no rates
+}
+
+// Setting is one job setting shown in the summary.
+type Setting struct {
+	Name  string `json:"name"`
+	Value string `json:"value"`
+}
+
+// Cost is the estimator's summary.
+type Cost struct {
+	Currency string     `json:"currency"`
+	Lines    []CostLine `json:"lines"`
+	Total    float64    `json:"total"`
+}
+
+// CostLine is one line of the cost summary.
+type CostLine struct {
+	Item     string  `json:"item"`
+	Quantity float64 `json:"quantity"`
+	Unit     string  `json:"unit"`
+	Rate     float64 `json:"rate"`
+	Amount   float64 `json:"amount"`
+}
+
+// SheetName numbers sheets S-01, S-02, ….
+func SheetName(i int) string { return "S-" + pad2(i+1) }
+
+func pad2(i int) string {
+	s := itoa(i)
+	if len(s) < 2 {
+		s = "0" + s
+	}
+	return s
+}
+
+// sheetOf returns, per face, the sheet index it lies on or -1.
+func (b *Bundle) sheetOf() []int {
+	out := make([]int, len(b.Flats))
+	for i := range out {
+		out[i] = -1
+	}
+	if b.Nesting == nil {
+		return out
+	}
+	for s, sh := range b.Nesting.Sheets {
+		for _, p := range sh.Placements {
+			out[p.Part] = s
+		}
+	}
+	return out
+}
+
+// r rounds to d decimals without negative zero, so output bytes do not
+// depend on the last bits of a float.
+func r(x float64, d int) float64 {
+	p := math.Pow(10, float64(d))
+	v := math.Round(x*p) / p
+	if v == 0 {
+		return 0
+	}
+	return v
+}
