@@ -60,12 +60,17 @@ type CostLine struct {
 	Amount   float64 `json:"amount"`
 }
 
-// SheetName numbers sheets S-01, S-02, ….
-func SheetName(i int) string { return "S-" + pad2(i+1) }
+// SheetName numbers sheet i of n: S-01, S-02, … with as many digits as
+// the count needs (at least two), so names sort in order.
+func SheetName(i, n int) string { return "S-" + padNum(i+1, n) }
 
-func pad2(i int) string {
+// SheetFile returns the cut sheet file name of sheet i of n (sheet-01.dxf, …).
+func SheetFile(i, n int) string { return "sheet-" + padNum(i+1, n) + ".dxf" }
+
+func padNum(i, n int) string {
+	w := max(2, len(itoa(n)))
 	s := itoa(i)
-	if len(s) < 2 {
+	for len(s) < w {
 		s = "0" + s
 	}
 	return s

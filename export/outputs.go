@@ -1,7 +1,6 @@
 package export
 
 import (
-	"fmt"
 	"io"
 	"os"
 	"path/filepath"
@@ -15,9 +14,6 @@ const (
 	FileReport   = "report.json"
 	DirSheets    = "sheets"
 )
-
-// SheetFile returns the cut sheet file name of sheet i (sheet-01.dxf, …).
-func SheetFile(i int) string { return fmt.Sprintf("sheet-%02d.dxf", i+1) }
 
 // Progress is told how many output steps are done of how many.
 type Progress func(done, total int, what string)
@@ -56,10 +52,10 @@ func WriteBuild(dir string, b *Bundle, rep *Report, progress Progress) error {
 			return err
 		}
 		for i := range rep.Sheets {
-			if err := writeFile(filepath.Join(sheets, SheetFile(i)), func(w io.Writer) error { return WriteSheetDXF(w, rep, i) }); err != nil {
+			if err := writeFile(filepath.Join(sheets, SheetFile(i, len(rep.Sheets))), func(w io.Writer) error { return WriteSheetDXF(w, rep, i) }); err != nil {
 				return err
 			}
-			step(SheetFile(i))
+			step(SheetFile(i, len(rep.Sheets)))
 		}
 		return nil
 	})

@@ -214,7 +214,8 @@ func BuildReport(b *Bundle) *Report {
 	n := b.Net
 	rep := &Report{Title: b.Title, Caution: Caution, Job: b.JobFile, Net: b.NetFile,
 		Units:    map[string]string{"length": "mm", "angle": "degree", "area": "m2", "weight": "kg"},
-		Settings: b.Settings, Warnings: append([]string{}, b.Warnings...)}
+		Settings: b.Settings, Warnings: append([]string{}, b.Warnings...),
+		Sheets: []SheetRow{}, Unplaced: []UnplacedRow{}, Stocks: []StockRow{}}
 	nodeLabel := func(i int) string { return s.Nodes[i].Label }
 	rep.Counts = Counts{Nodes: len(n.Nodes), Members: len(s.Members), Panels: len(n.Faces),
 		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), PanelTypes: len(b.PanelTypes)}
@@ -262,7 +263,7 @@ func BuildReport(b *Bundle) *Report {
 			row.Diagonals = append(row.Diagonals, DiagonalRow{From: nodeLabel(face.Corners[d.I]), To: nodeLabel(face.Corners[d.J]), MM: r(d.MM, lenDigits)})
 		}
 		if sheetOf[f] >= 0 {
-			row.Sheet = SheetName(sheetOf[f])
+			row.Sheet = SheetName(sheetOf[f], len(b.Nesting.Sheets))
 		}
 		row.Outline = points(fl.Cut)
 		rep.Panels = append(rep.Panels, row)
@@ -291,7 +292,7 @@ func BuildReport(b *Bundle) *Report {
 	if nr := b.Nesting; nr != nil {
 		for si, sh := range nr.Sheets {
 			st := b.Stocks[sh.Stock]
-			row := SheetRow{Name: SheetName(si), Stock: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM, Utilization: r(sh.Utilization, 4)}
+			row := SheetRow{Name: SheetName(si, len(nr.Sheets)), Stock: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM, Utilization: r(sh.Utilization, 4)}
 			for _, p := range sh.Placements {
 				row.Placements = append(row.Placements, PlacementRow{Panel: b.Flats[p.Part].Label, X: r(p.X, lenDigits), Y: r(p.Y, lenDigits),
 					RotationDeg: r(p.RotationDeg, angleDigits), Mirrored: p.Mirrored, Outline: points(p.Outline)})

@@ -1,6 +1,7 @@
 package export
 
 import (
+	"bytes"
 	"fmt"
 	"io"
 	"strings"
@@ -128,7 +129,11 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 		}
 	}
 	f.SetActiveSheet(0)
-	return f.Write(w)
+	var buf bytes.Buffer
+	if err := f.Write(&buf); err != nil {
+		return err
+	}
+	return writeSortedZip(w, buf.Bytes())
 }
 
 func nth[T any](xs []T, k int, get func(T) any) any {

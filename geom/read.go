@@ -3,15 +3,15 @@ package geom
 import (
 	"bufio"
 	"errors"
-	"io/fs"
-	"syscall"
 	"fmt"
 	"io"
+	"io/fs"
 	"math"
 	"os"
 	"path/filepath"
 	"strconv"
 	"strings"
+	"syscall"
 )
 
 // MaxCorners is the largest panel pqfab takes; MinCorners the smallest.

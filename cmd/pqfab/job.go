@@ -6,6 +6,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"regexp"
+	"strconv"
 	"strings"
 
 	"github.com/BurntSushi/toml"
@@ -131,7 +133,12 @@ func ParseJob(data []byte, file string) (*Job, error) {
 			}
 			return nil, &geom.InputError{File: file, Line: pe.Position.Line, Msg: msg}
 		}
-		return nil, &geom.InputError{File: file, Msg: err.Error()}
+		// Type mismatches come as "toml: line N (last key "k"): message".
+		if m := tomlTypeErr.FindStringSubmatch(err.Error()); m != nil {
+			line, _ := strconv.Atoi(m[1])
+			return nil, &geom.InputError{File: file, Line: line, Elem: "key " + m[2], Msg: m[3]}
+		}
+		return nil, &geom.InputError{File: file, Msg: strings.TrimPrefix(err.Error(), "toml: ")}
 	}
 	if und := md.Undecoded(); len(und) > 0 {
 		k := und[0].String()
@@ -150,6 +157,8 @@ func ParseJob(data []byte, file string) (*Job, error) {
 	}
 	return j, j.check()
 }
+
+var tomlTypeErr = regexp.MustCompile(`^toml: line (\d+) \(last key "([^"]*)"\): (.*)$`)
 
 // check rejects bad values, naming the key and its line.
 func (j *Job) check() error {

@@ -8,6 +8,7 @@ import (
 	"strconv"
 	"strings"
 
+	"pqfab/export"
 	"pqfab/geom"
 	"pqfab/nodes"
 	"pqfab/panels"
@@ -113,7 +114,7 @@ func printNest(w io.Writer, res *nest.Result, stocks []nest.Stock, parts []nest.
 	fmt.Fprintf(w, "  %-6s %-24s %6s %12s\n", "sheet", "stock", "parts", "utilization")
 	var total float64
 	for i, sh := range res.Sheets {
-		fmt.Fprintf(w, "  %-6s %-24s %6d %11.1f%%\n", sheetName(i), stocks[sh.Stock].Describe(), len(sh.Placements), 100*sh.Utilization)
+		fmt.Fprintf(w, "  %-6s %-24s %6d %11.1f%%\n", export.SheetName(i, len(res.Sheets)), stocks[sh.Stock].Describe(), len(sh.Placements), 100*sh.Utilization)
 		total += sh.Utilization
 	}
 	if len(res.Sheets) > 0 {
@@ -123,6 +124,3 @@ func printNest(w io.Writer, res *nest.Result, stocks []nest.Stock, parts []nest.
 		fmt.Fprintf(w, "  unplaced %s: %s\n", parts[u.Part].Label, u.Reason)
 	}
 }
-
-// sheetName numbers sheets S-01, S-02, … for people and file names.
-func sheetName(i int) string { return fmt.Sprintf("S-%02d", i+1) }

@@ -1,0 +1,287 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"pqfab/export"
+	"pqfab/geom"
+)
+
+// debianPython is Debian's interpreter, where python3-ezdxf and
+// python3-openpyxl are installed (.ci/run installs them).
+const debianPython = "/usr/bin/python3"
+
+// readBack runs a read-back script on an output folder. A missing reader
+// is a failure, not a skip: CI installs the readers.
+func readBack(t *testing.T, script, dir string) {
+	t.Helper()
+	out, err := exec.Command(debianPython, filepath.Join("testdata", script), dir).CombinedOutput()
+	if err != nil {
+		t.Fatalf("%s: %v\n%s", script, err, tail(string(out), 2000))
+	}
+	if !strings.HasSuffix(strings.TrimSpace(string(out)), "ok") {
+		t.Fatalf("%s: no ok:\n%s", script, tail(string(out), 2000))
+	}
+}
+
+func tail(s string, n int) string {
+	if len(s) > n {
+		return "…" + s[len(s)-n:]
+	}
+	return s
+}
+
+func loadReport(t *testing.T, dir string) *export.Report {
+	t.Helper()
+	b, err := os.ReadFile(filepath.Join(dir, export.FileReport))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var rep export.Report
+	if err := json.Unmarshal(b, &rep); err != nil {
+		t.Fatal(err)
+	}
+	return &rep
+}
+
+// TestDemoReadBack builds the demo and reads every DXF back with ezdxf
+// (audit: no errors; entity counts and outline coordinates equal
+// report.json to 0.01 mm) and the schedule with openpyxl (row counts equal
+// the net's panels, members and nodes; spot values equal report.json).
+// Both are general-purpose libraries from Debian's packages.
+func TestDemoReadBack(t *testing.T) {
+	dir := filepath.Join(t.TempDir(), "out")
+	if _, _, err := runCmd(t, "demo", "-q", "-o", dir); err != nil {
+		t.Fatal(err)
+	}
+	readBack(t, "readback_dxf.py", dir)
+	readBack(t, "readback_xlsx.py", dir)
+	checkAccounting(t, dir)
+}
+
+// checkAccounting: every panel, member and node of the net appears exactly
+// once in the report, and every panel on exactly one sheet or unplaced.
+func checkAccounting(t *testing.T, dir string) {
+	t.Helper()
+	rep := loadReport(t, dir)
+	net, err := geom.ReadFile(filepath.Join(dir, export.FileNet), geom.MM)
+	if err != nil {
+		t.Fatal(err)
+	}
+	topo := geom.BuildTopology(net)
+	if len(rep.Nodes) != len(net.Nodes) || len(rep.Members) != len(topo.Edges) || len(rep.Panels) != len(net.Faces) {
+		t.Fatalf("report has %d nodes, %d members, %d panels; net %d, %d, %d",
+			len(rep.Nodes), len(rep.Members), len(rep.Panels), len(net.Nodes), len(topo.Edges), len(net.Faces))
+	}
+	unique := func(kind string, labels []string) {
+		seen := map[string]bool{}
+		for _, l := range labels {
+			if seen[l] {
+				t.Fatalf("%s label %s twice", kind, l)
+			}
+			seen[l] = true
+		}
+	}
+	var nl, ml, pl []string
+	for _, n := range rep.Nodes {
+		nl = append(nl, n.Label)
+	}
+	for _, m := range rep.Members {
+		ml = append(ml, m.Label)
+	}
+	for _, p := range rep.Panels {
+		pl = append(pl, p.Label)
+	}
+	unique("node", nl)
+	unique("member", ml)
+	unique("panel", pl)
+	onSheet := map[string]int{}
+	for _, s := range rep.Sheets {
+		for _, p := range s.Placements {
+			onSheet[p.Panel]++
+		}
+	}
+	for _, u := range rep.Unplaced {
+		onSheet[u.Panel]++
+	}
+	for _, p := range rep.Panels {
+		if onSheet[p.Label] != 1 {
+			t.Fatalf("panel %s on %d sheets or lists", p.Label, onSheet[p.Label])
+		}
+	}
+	typed := 0
+	for _, ty := range rep.MemberTypes {
+		typed += ty.Count
+	}
+	if typed != len(rep.Members) {
+		t.Errorf("member types hold %d of %d members", typed, len(rep.Members))
+	}
+}
+
+// TestBuildDeterministic: the same job twice gives byte-identical files.
+func TestBuildDeterministic(t *testing.T) {
+	base := t.TempDir()
+	a, b := filepath.Join(base, "a"), filepath.Join(base, "b")
+	for _, d := range []string{a, b} {
+		if _, _, err := runCmd(t, "demo", "-q", "-o", d); err != nil {
+			t.Fatal(err)
+		}
+	}
+	n := 0
+	err := filepath.Walk(a, func(p string, info os.FileInfo, err error) error {
+		if err != nil || info.IsDir() {
+			return err
+		}
+		rel, _ := filepath.Rel(a, p)
+		x, _ := os.ReadFile(p)
+		y, err := os.ReadFile(filepath.Join(b, rel))
+		if err != nil {
+			t.Errorf("%s missing from the second build", rel)
+			return nil
+		}
+		if !bytes.Equal(x, y) {
+			t.Errorf("%s differs between builds", rel)
+		}
+		n++
+		return nil
+	})
+	if err != nil || n < 5 {
+		t.Fatalf("compared %d files: %v", n, err)
+	}
+}
+
+// writeJob writes a small wave net and a job using it; extra is appended
+// to the [flatness] table.
+func writeJob(t *testing.T, dir, flatness string) string {
+	t.Helper()
+	if _, _, err := runCmd(t, "sample", "wave", "--panels", "120", "-o", filepath.Join(dir, "wave.obj")); err != nil {
+		t.Fatal(err)
+	}
+	job := `title = "test vault"
+[net]
+file = "wave.obj"
+[flatness]
+tolerance_mm = 0.5
+` + flatness + `
+[[stock]]
+name = "jumbo"
+width_mm = 6000
+height_mm = 3210
+margin_mm = 20
+spacing_mm = 6
+`
+	path := filepath.Join(dir, "job.toml")
+	if err := os.WriteFile(path, []byte(job), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	return path
+}
+
+// TestPlanarityFailure: when the tolerance cannot be met the build writes
+// only the diagnostic report, exits non-zero and leaves the old folder
+// alone; --continue builds anyway.
+func TestPlanarityFailure(t *testing.T) {
+	dir := t.TempDir()
+	job := writeJob(t, dir, "max_move_mm = 0.5")
+	out := filepath.Join(dir, "out")
+	if err := os.MkdirAll(out, 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(out, "old.txt"), []byte("old"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	_, _, err := runCmd(t, "build", "-q", job, "-o", out)
+	if err == nil || !strings.Contains(err.Error(), "allowed node move") || !strings.Contains(err.Error(), "nothing built") {
+		t.Fatalf("got %v", err)
+	}
+	if _, err := os.Stat(out + "-planarity.json"); err != nil {
+		t.Errorf("no diagnostic report: %v", err)
+	}
+	if b, _ := os.ReadFile(filepath.Join(out, "old.txt")); string(b) != "old" {
+		t.Error("failed build touched the old folder")
+	}
+	if _, _, err := runCmd(t, "build", "-q", "--continue", job, "-o", out); err != nil {
+		t.Fatal(err)
+	}
+	rep := loadReport(t, out)
+	if len(rep.Warnings) == 0 || rep.Planarity.Converged {
+		t.Errorf("continued build should carry the warning: %+v", rep.Planarity)
+	}
+	if _, err := os.Stat(filepath.Join(out, "old.txt")); err == nil {
+		t.Error("old folder content survived the replacement")
+	}
+	checkAccounting(t, out)
+}
+
+func TestJobErrors(t *testing.T) {
+	base := `[net]
+file = "wave.obj"
+[[stock]]
+width_mm = 6000
+height_mm = 3210
+`
+	tests := []struct {
+		name, text, want string
+	}{
+		{"unknown key", base + "colour = \"red\"\n", "job.toml:6: key stock.colour: unknown key"},
+		{"unknown table", "[nett]\nfile = \"x\"\n" + base, "job.toml:1: key nett: unknown key"},
+		{"negative tolerance", base + "[flatness]\ntolerance_mm = -1\n", "job.toml:7: key flatness.tolerance_mm: -1 must be a positive number"},
+		{"bad unit", strings.Replace(base, "file = \"wave.obj\"", "file = \"wave.obj\"\nunit = \"ft\"", 1), "job.toml:3: key net.unit: \"ft\": want mm, cm or m"},
+		{"bad axis", base + "[nodes]\naxis = \"diagonal\"\n", "job.toml:7: key nodes.axis"},
+		{"no stock", "[net]\nfile = \"wave.obj\"\n", "job.toml: no [[stock]] sheet"},
+		{"zero stock", strings.Replace(base, "width_mm = 6000", "width_mm = 0", 1), "job.toml:4: key stock[1].width_mm: 0 must be a positive number"},
+		{"margin too big", base + "margin_mm = 2000\n", "job.toml:6: key stock[1].margin_mm"},
+		{"bad rotation", base + "rotation = \"sideways\"\n", "key stock[1].rotation"},
+		{"wrong type", base + "[flatness]\ntolerance_mm = \"small\"\n", "job.toml:7"},
+		{"syntax", "[net\nfile = 1\n", "job.toml:2: expected '.' or ']'"},
+		{"empty", "", "job.toml: empty job file"},
+		{"no net", "[[stock]]\nwidth_mm = 1\nheight_mm = 1\n", "key net.file: missing"},
+		{"list without ids", base + "[supports]\nmode = \"list\"\n", "key supports.nodes"},
+		{"negative rate", base + "[rates]\nnode_each = -5\n", "key rates.node_each"},
+	}
+	for _, tc := range tests {
+		_, err := ParseJob([]byte(tc.text), "job.toml")
+		if err == nil || !strings.Contains(err.Error(), tc.want) {
+			t.Errorf("%s: got %v, want %q", tc.name, err, tc.want)
+		}
+	}
+	if _, err := ParseJob([]byte(base), "job.toml"); err != nil {
+		t.Errorf("minimal job: %v", err)
+	}
+}
+
+func TestBuildErrors(t *testing.T) {
+	dir := t.TempDir()
+	job := writeJob(t, dir, "")
+	notDir := filepath.Join(dir, "file")
+	if err := os.WriteFile(notDir, []byte("x"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	tests := []struct {
+		args []string
+		want string
+	}{
+		{[]string{"build", "-q", filepath.Join(dir, "none.toml"), "-o", filepath.Join(dir, "o")}, "none.toml: no such file"},
+		{[]string{"build", "-q", job, "-o", filepath.Join(notDir, "out")}, "cannot write there"},
+		{[]string{"build", "-q", job, "-o", notDir}, "exists and is not a folder"},
+		{[]string{"build", "-q", job}, "build needs -o DIR"},
+	}
+	for _, tc := range tests {
+		_, _, err := runCmd(t, tc.args...)
+		if err == nil || !strings.Contains(err.Error(), tc.want) {
+			t.Errorf("%v: got %v, want %q", tc.args, err, tc.want)
+		}
+	}
+	ents, _ := os.ReadDir(dir)
+	for _, e := range ents {
+		if strings.HasPrefix(e.Name(), ".") {
+			t.Errorf("leftover temporary %s", e.Name())
+		}
+	}
+}

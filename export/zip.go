@@ -1,0 +1,47 @@
+package export
+
+import (
+	"archive/zip"
+	"bytes"
+	"io"
+	"sort"
+)
+
+// writeSortedZip copies a zip archive to w with its entries in a fixed
+// order ([Content_Types].xml first, then by name) and no timestamps, so
+// that the same content always gives the same bytes. excelize writes
+// streamed sheets in map order, which varies from run to run.
+func writeSortedZip(w io.Writer, archive []byte) error {
+	zr, err := zip.NewReader(bytes.NewReader(archive), int64(len(archive)))
+	if err != nil {
+		return err
+	}
+	files := append([]*zip.File(nil), zr.File...)
+	sort.SliceStable(files, func(i, j int) bool {
+		a, b := files[i].Name, files[j].Name
+		if (a == "[Content_Types].xml") != (b == "[Content_Types].xml") {
+			return a == "[Content_Types].xml"
+		}
+		return a < b
+	})
+	zw := zip.NewWriter(w)
+	for _, f := range files {
+		hdr := &zip.FileHeader{Name: f.Name, Method: zip.Deflate}
+		dst, err := zw.CreateHeader(hdr)
+		if err != nil {
+			return err
+		}
+		src, err := f.Open()
+		if err != nil {
+			return err
+		}
+		if _, err := io.Copy(dst, src); err != nil {
+			src.Close()
+			return err
+		}
+		if err := src.Close(); err != nil {
+			return err
+		}
+	}
+	return zw.Close()
+}
