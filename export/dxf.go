@@ -105,10 +105,7 @@ func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
 		steps = append(steps, func() error { return closedPoly(d, p.Outline) })
 	}
 	steps = append(steps, func() error { return useLayer(d, LayerPartLabel) })
-	panelType := map[string]string{}
-	for _, p := range rep.Panels {
-		panelType[p.Label] = p.Type
-	}
+	panelType := rep.panelTypes()
 	for _, p := range s.Placements {
 		p := p
 		steps = append(steps, func() error {
@@ -134,6 +131,17 @@ func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
 	d.SetExt()
 	_, err = d.WriteTo(w)
 	return err
+}
+
+// panelTypes maps panel labels to type names, built once per report.
+func (rep *Report) panelTypes() map[string]string {
+	if rep.typeOf == nil {
+		rep.typeOf = make(map[string]string, len(rep.Panels))
+		for _, p := range rep.Panels {
+			rep.typeOf[p.Label] = p.Type
+		}
+	}
+	return rep.typeOf
 }
 
 // stockMargin finds the margin of a sheet's stock in the report settings

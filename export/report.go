@@ -48,6 +48,7 @@ type Report struct {
 
 	stockInfo   []StockInfo // margins for the cut sheets
 	labelHeight float64
+	typeOf      map[string]string
 	planCentre  [2]float64
 	planLow     float64
 }

@@ -128,7 +128,6 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 			return fmt.Errorf("export: schedule sheet %s: %w", t.name, err)
 		}
 	}
-	f.SetActiveSheet(0)
 	var buf bytes.Buffer
 	if err := f.Write(&buf); err != nil {
 		return err

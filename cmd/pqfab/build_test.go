@@ -6,6 +6,7 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -285,3 +286,48 @@ func TestBuildErrors(t *testing.T) {
 		}
 	}
 }
+
+func benchBuild(b *testing.B, panels int) {
+	dir := b.TempDir()
+	if _, _, err := runCmdB(b, "sample", "wave", "--panels", itoaB(panels), "-o", filepath.Join(dir, "wave.obj")); err != nil {
+		b.Fatal(err)
+	}
+	job := `title = "bench"
+[net]
+file = "wave.obj"
+[nodes]
+axis = "least-twist"
+hub_radius_mm = 60
+[panel]
+edge_inset_mm = 6
+[[stock]]
+name = "jumbo"
+width_mm = 6000
+height_mm = 3210
+margin_mm = 20
+spacing_mm = 6
+`
+	path := filepath.Join(dir, "job.toml")
+	if err := os.WriteFile(path, []byte(job), 0o644); err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, _, err := runCmdB(b, "build", "-q", path, "-o", filepath.Join(dir, "out")); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func runCmdB(b *testing.B, args ...string) (string, string, error) {
+	var out, errb bytes.Buffer
+	err := run(args, strings.NewReader(""), &out, &errb)
+	return out.String(), errb.String(), err
+}
+
+func itoaB(i int) string { return strconv.Itoa(i) }
+
+// Targets: whole build of a 10k-panel wave job ≤ 10 s and ≤ 500 MB;
+// 100k panels ≤ 120 s.
+func BenchmarkBuild10k(b *testing.B)  { benchBuild(b, 10000) }
+func BenchmarkBuild100k(b *testing.B) { benchBuild(b, 100000) }
