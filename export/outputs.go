@@ -12,6 +12,7 @@ const (
 	FileAssembly = "assembly-plan.dxf"
 	FileNet      = "net-flat.obj"
 	FileReport   = "report.json"
+	FileHTML     = "report.html"
 	DirSheets    = "sheets"
 )
 
@@ -21,7 +22,7 @@ type Progress func(done, total int, what string)
 // WriteBuild writes every output of a build into dir, atomically.
 func WriteBuild(dir string, b *Bundle, rep *Report, progress Progress) error {
 	return WriteFolder(dir, func(tmp string) error {
-		total := 4 + len(rep.Sheets)
+		total := 5 + len(rep.Sheets)
 		done := 0
 		step := func(what string) {
 			done++
@@ -47,6 +48,10 @@ func WriteBuild(dir string, b *Bundle, rep *Report, progress Progress) error {
 			return err
 		}
 		step(FileAssembly)
+		if err := writeFile(filepath.Join(tmp, FileHTML), func(w io.Writer) error { return WriteHTML(w, rep) }); err != nil {
+			return err
+		}
+		step(FileHTML)
 		sheets := filepath.Join(tmp, DirSheets)
 		if err := os.Mkdir(sheets, 0o755); err != nil {
 			return err

@@ -193,7 +193,7 @@ func build(job *Job, open func(string) (io.ReadCloser, error), netPath string, b
 		Net: flat, Topo: topo, Supports: fixed, Planarize: pres, TolMM: job.Flatness.TolMM,
 		Structure: st, Flats: flats, PanelTypes: ptypes, Stocks: stocks, Nesting: nres, Cost: job.cost(st, flats, nres, stocks)}
 	rep := export.BuildReport(b)
-	wbar := newProgress(stderr, bf.quiet, 4+len(rep.Sheets), "write")
+	wbar := newProgress(stderr, bf.quiet, 5+len(rep.Sheets), "write")
 	err = export.WriteBuild(bf.out, b, rep, func(done, total int, what string) { wbar.set(done, "write "+what) })
 	wbar.done()
 	if err != nil {
