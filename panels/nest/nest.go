@@ -87,6 +87,10 @@ type Result struct {
 // found no place on it.
 const maxMisses = 6
 
+// maxSkips ends the filling of a sheet after this many parts were passed
+// over as too large for the area left (or as large as one that failed).
+const maxSkips = 400
+
 // orientation is a part turned and maybe mirrored, ready to place.
 type orientation struct {
 	rot      float64

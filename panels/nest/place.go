@@ -101,7 +101,8 @@ type sheetState struct {
 	nfps     []geom.Polygon
 	nlo, nhi []geom.Vec2
 	cands    []geom.Vec2
-	buf      geom.Polygon // backing store for the no-fit polygons of one call
+	bufBase  geom.Polygon // backing store for the no-fit polygons of one call
+	buf      geom.Polygon // its unused tail
 }
 
 // place finds the best position (see score) for part o on the sheet over
@@ -124,10 +125,10 @@ func (st *sheetState) place(o *orientation, bound *score) (geom.Vec2, score, boo
 	for _, g := range st.grown {
 		need += len(g) + len(o.negGrown)
 	}
-	if cap(st.buf) < need {
-		st.buf = make(geom.Polygon, 0, 2*need)
+	if cap(st.bufBase) < need {
+		st.bufBase = make(geom.Polygon, 0, 2*need)
 	}
-	st.buf = st.buf[:0]
+	st.buf = st.bufBase[:0]
 	for _, g := range st.grown {
 		f := minkowskiSorted(g, o.negGrown, st.buf)
 		st.buf = f[len(f):]
@@ -254,14 +255,21 @@ func (st *sheetState) band(o *orientation, y float64) float64 {
 
 // fill places parts from order on one sheet of stock s, returning the
 // placements and the parts used.
-func fill(parts []Part, info []partInfo, s Stock, si int, order []int) (*sheetState, []bool) {
+func fill(parts []Part, info []partInfo, s Stock, si int, order []int, done []bool, start int) (*sheetState, []int) {
 	st := &sheetState{stock: s}
-	used := make([]bool, len(order))
+	var used []int // positions in order of the parts placed
 	free := (s.WidthMM - 2*s.MarginMM) * (s.HeightMM - 2*s.MarginMM)
-	misses := 0
+	misses, skips := 0, 0
 	var failed []partInfo // parts that found no place on this sheet
-	for k, p := range order {
+	for k := start; k < len(order); k++ {
+		if done[k] {
+			continue
+		}
+		p := order[k]
 		if info[p].area > free-st.area || dominated(info[p], failed) {
+			if skips++; skips >= maxSkips {
+				break
+			}
 			continue
 		}
 		var bestScore score
@@ -297,7 +305,7 @@ func fill(parts []Part, info []partInfo, s Stock, si int, order []int) (*sheetSt
 		st.glo, st.ghi = append(st.glo, glo), append(st.ghi, ghi)
 		st.placed = append(st.placed, Placement{Part: p, X: bestPos.X, Y: bestPos.Y, RotationDeg: bestO.rot, Mirrored: bestO.mirrored, Outline: placed})
 		st.area += info[p].area
-		used[k] = true
+		used = append(used, k)
 	}
 	return st, used
 }
@@ -346,7 +354,7 @@ func run(parts []Part, stocks []Stock, info []partInfo, order []int) *Result {
 			left[i] = -1 // no limit
 		}
 	}
-	var todo []int
+	var todo []int // parts that fit some stock, in order
 	for _, p := range order {
 		ok := false
 		for si, s := range stocks {
@@ -361,15 +369,20 @@ func run(parts []Part, stocks []Stock, info []partInfo, order []int) *Result {
 		}
 		todo = append(todo, p)
 	}
-	for len(todo) > 0 {
+	done := make([]bool, len(todo))
+	start, remaining := 0, len(todo)
+	for remaining > 0 {
+		for done[start] {
+			start++
+		}
 		var best *sheetState
-		var bestUsed []bool
+		var bestUsed []int
 		bestStock, bestScore := -1, math.Inf(-1)
 		for si, s := range stocks {
 			if left[si] == 0 {
 				continue
 			}
-			st, used := fill(parts, info, s, si, todo)
+			st, used := fill(parts, info, s, si, todo, done, start)
 			if len(st.placed) == 0 {
 				continue
 			}
@@ -382,8 +395,10 @@ func run(parts []Part, stocks []Stock, info []partInfo, order []int) *Result {
 			}
 		}
 		if best == nil {
-			for _, p := range todo {
-				res.Unplaced = append(res.Unplaced, Unplaced{Part: p, Reason: "no stock sheet left that it fits"})
+			for k, p := range todo {
+				if !done[k] {
+					res.Unplaced = append(res.Unplaced, Unplaced{Part: p, Reason: "no stock sheet left that it fits"})
+				}
 			}
 			break
 		}
@@ -393,13 +408,10 @@ func run(parts []Part, stocks []Stock, info []partInfo, order []int) *Result {
 		s := stocks[bestStock]
 		res.Sheets = append(res.Sheets, Sheet{Stock: bestStock, Placements: best.placed, PartAreaMM2: best.area,
 			Utilization: best.area / (s.WidthMM * s.HeightMM)})
-		next := todo[:0:0]
-		for k, p := range todo {
-			if !bestUsed[k] {
-				next = append(next, p)
-			}
+		for _, k := range bestUsed {
+			done[k] = true
 		}
-		todo = next
+		remaining -= len(bestUsed)
 	}
 	return res
 }
