@@ -51,20 +51,13 @@ func (f Findings) Err() error {
 // ValidationError lists the errors found in a net.
 type ValidationError struct{ Problems []*InputError }
 
+// Error returns one line: the first problem and how many more there are.
 func (e *ValidationError) Error() string {
-	var b strings.Builder
-	b.WriteString(e.Problems[0].Error())
+	s := e.Problems[0].Error()
 	if len(e.Problems) > 1 {
-		fmt.Fprintf(&b, " (and %d more problems)", len(e.Problems)-1)
-		for i, p := range e.Problems[1:] {
-			if i == 9 {
-				b.WriteString("\n  …")
-				break
-			}
-			b.WriteString("\n  " + p.Error())
-		}
+		s += fmt.Sprintf(" (and %d more problems)", len(e.Problems)-1)
 	}
-	return b.String()
+	return s
 }
 
 // Validate checks a net read from a file: zero-area panels, coincident

@@ -1,6 +1,7 @@
 package nodes
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -65,7 +66,7 @@ func Members(n *geom.Net, topo *geom.Topology, axes []geom.Vec, opt MemberOption
 		pa, pb := n.Nodes[ed.A].Pos, n.Nodes[ed.B].Pos
 		d := r3.Sub(pb, pa)
 		L := r3.Norm(d)
-		name := fmt.Sprintf("member %s–%s", n.Nodes[ed.A].ID, n.Nodes[ed.B].ID)
+		name := memberName(n, ed.A, ed.B)
 		if L == 0 {
 			return nil, fmt.Errorf("nodes: %s has zero length", name)
 		}
@@ -89,7 +90,7 @@ func Members(n *geom.Net, topo *geom.Topology, axes []geom.Vec, opt MemberOption
 		m.B = endCut(ed.B, axes[ed.B], r3.Scale(-1, e), fr, opt.HubRadiusMM)
 		m.CutLengthMM = L - m.A.SetbackMM - m.B.SetbackMM
 		if m.CutLengthMM <= 0 {
-			return nil, fmt.Errorf("nodes: %s: the hubs (radius %g mm) use up its %.1f mm length", name, opt.HubRadiusMM, L)
+			return nil, fmt.Errorf("nodes: %s: %w: radius %g mm, member %.1f mm long", name, ErrHubTooLarge, opt.HubRadiusMM, L)
 		}
 		if len(ed.Faces) == 2 {
 			f1, f2 := ed.Faces[0], ed.Faces[1]
@@ -102,6 +103,18 @@ func Members(n *geom.Net, topo *geom.Topology, axes []geom.Vec, opt MemberOption
 		ms[k] = m
 	}
 	return ms, nil
+}
+
+// ErrHubTooLarge is wrapped by errors for members the hubs use up.
+var ErrHubTooLarge = errors.New("the hubs use up the member")
+
+// memberName names a member by its nodes and their lines in the net file.
+func memberName(n *geom.Net, a, b int) string {
+	na, nb := n.Nodes[a], n.Nodes[b]
+	if na.Line > 0 && nb.Line > 0 {
+		return fmt.Sprintf("member %s–%s (%s lines %d, %d)", na.ID, nb.ID, n.Source, na.Line, nb.Line)
+	}
+	return fmt.Sprintf("member %s–%s", na.ID, nb.ID)
 }
 
 // across returns unit(a − (a·e)e), the axis seen along the member.

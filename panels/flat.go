@@ -1,6 +1,7 @@
 package panels
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -72,13 +73,13 @@ func Flatten(n *geom.Net, topo *geom.Topology, mat Material, labels []string) ([
 		pts = n.FacePoints(pts[:0], f)
 		fl, err := flatten(pts)
 		if err != nil {
-			return nil, fmt.Errorf("panels: %s: %v", n.FaceName(f), err)
+			return nil, fmt.Errorf("panels: %s: %v", faceName(n, f), err)
 		}
 		fl.Face = f
 		fl.Label = labels[f]
 		if mat.EdgeInsetMM > 0 {
 			if fl.Cut, err = Inset(fl.Outline, mat.EdgeInsetMM); err != nil {
-				return nil, fmt.Errorf("panels: %s: %v", n.FaceName(f), err)
+				return nil, fmt.Errorf("panels: %s: %w", faceName(n, f), err)
 			}
 		} else {
 			fl.Cut = fl.Outline
@@ -115,6 +116,14 @@ func Flatten(n *geom.Net, topo *geom.Topology, mat Material, labels []string) ([
 		}
 	}
 	return flats, nil
+}
+
+// faceName names a panel with its file and line.
+func faceName(n *geom.Net, f int) string {
+	if l := n.Faces[f].Line; l > 0 {
+		return fmt.Sprintf("panel %s (%s line %d)", n.Faces[f].ID, n.Source, l)
+	}
+	return "panel " + n.Faces[f].ID
 }
 
 // flatten projects a panel's corners on their least-squares plane and
@@ -167,6 +176,9 @@ func flatten(pts []geom.Vec) (Flat, error) {
 	return fl, nil
 }
 
+// ErrInsetTooLarge is wrapped by errors for insets a panel cannot take.
+var ErrInsetTooLarge = errors.New("edge inset too large")
+
 // Inset moves every edge of a counter-clockwise polygon inward by d and
 // returns the polygon of the moved lines' intersections. It fails when the
 // inset swallows an edge (the result would turn or cross itself).
@@ -199,11 +211,11 @@ func Inset(p geom.Polygon, d float64) (geom.Polygon, error) {
 	for i := range p {
 		// Each inset edge must keep the direction of the original edge.
 		if out[(i+1)%k].Sub(out[i]).Dot(p[(i+1)%k].Sub(p[i])) <= 0 {
-			return nil, fmt.Errorf("edge inset %.3g mm swallows edge %d", d, i+1)
+			return nil, fmt.Errorf("%w: %.3g mm swallows edge %d", ErrInsetTooLarge, d, i+1)
 		}
 	}
 	if !out.CCW() || out.SelfIntersects() {
-		return nil, fmt.Errorf("edge inset %.3g mm turns the outline inside out", d)
+		return nil, fmt.Errorf("%w: %.3g mm turns the outline inside out", ErrInsetTooLarge, d)
 	}
 	return out, nil
 }

@@ -107,6 +107,7 @@ func build(job *Job, open func(string) (io.ReadCloser, error), netPath string, b
 		warnings = append(warnings, w.Error())
 	}
 	if err := fd.Err(); err != nil {
+		printOthers(stderr, fd)
 		return err
 	}
 	for _, w := range warnings {
@@ -154,7 +155,9 @@ func build(job *Job, open func(string) (io.ReadCloser, error), netPath string, b
 	st, err := nodes.Build(flat, topo, nodes.Options{Axis: nodes.AxisMethod(job.Nodes.Axis), HubRadiusMM: job.Nodes.HubRadiusMM,
 		Section: nodes.Section{WidthMM: job.Member.WidthMM, DepthMM: job.Member.DepthMM}, Bays: bays,
 		Types: nodes.TypeOptions{LengthTolMM: job.Types.LengthTolMM, AngleTolDeg: job.Types.AngleTolDeg}})
-	if err != nil {
+	if errors.Is(err, nodes.ErrHubTooLarge) {
+		return job.errorf("nodes.hub_radius_mm", "%v", err)
+	} else if err != nil {
 		return err
 	}
 	nodeLabels := make([]string, len(st.Nodes))
@@ -164,7 +167,9 @@ func build(job *Job, open func(string) (io.ReadCloser, error), netPath string, b
 	mat := panels.Material{Name: job.Panel.Material, ThicknessMM: job.Panel.ThicknessMM, DensityKgM3: job.Panel.DensityKgM3,
 		EdgeInsetMM: job.Panel.EdgeInsetMM, BoundaryBevelDeg: job.Panel.BoundaryBevelDeg}
 	flats, err := panels.Flatten(flat, topo, mat, panels.Labels(flat, bays, nodeLabels))
-	if err != nil {
+	if errors.Is(err, panels.ErrInsetTooLarge) {
+		return job.errorf("panel.edge_inset_mm", "%v", err)
+	} else if err != nil {
 		return err
 	}
 	ptypes, err := panels.PanelTypes(flats, job.Types.PanelTolMM, job.Panel.Mirror)
@@ -185,8 +190,17 @@ func build(job *Job, open func(string) (io.ReadCloser, error), netPath string, b
 	if err != nil {
 		return err
 	}
-	for _, u := range nres.Unplaced {
-		warnings = append(warnings, fmt.Sprintf("panel %s is on no sheet: %s", flats[u.Part].Label, u.Reason))
+	if len(nres.Unplaced) > 0 {
+		u := nres.Unplaced[0]
+		face := flat.Faces[u.Part]
+		msg := fmt.Sprintf("%d panels are on no stock sheet; the first, %s (panel %s, %s line %d), is %s",
+			len(nres.Unplaced), flats[u.Part].Label, face.ID, netPath, face.Line, u.Reason)
+		if !bf.cont {
+			return job.errorf("stock", "%s; add a larger or more stock, or --continue lists them as unplaced", msg)
+		}
+		for _, u := range nres.Unplaced {
+			warnings = append(warnings, fmt.Sprintf("panel %s is on no sheet: %s", flats[u.Part].Label, u.Reason))
+		}
 	}
 
 	b := &export.Bundle{Title: job.Title, JobFile: job.file, NetFile: netPath, Settings: job.settings(), Warnings: warnings,

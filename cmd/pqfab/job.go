@@ -293,6 +293,9 @@ func (kl *keyLines) line(key string) int {
 	if n, ok := kl.lines[key]; ok {
 		return n
 	}
+	if n, ok := kl.lines[key+"[1]"]; ok {
+		return n // an array table: its first table
+	}
 	// Undecoded keys of array tables come without the index.
 	if t, k, ok := strings.Cut(key, "."); ok {
 		for i := 1; i < 1000; i++ {

@@ -46,7 +46,19 @@ func loadNet(path string, nf netFlags, stderr io.Writer) (*geom.Net, *geom.Topol
 		fmt.Fprintln(stderr, "pqfab: warning:", w)
 	}
 	if err := fd.Err(); err != nil {
+		printOthers(stderr, fd)
 		return nil, nil, err
 	}
 	return net, topo, nil
+}
+
+// printOthers lists the problems after the first, which the error names.
+func printOthers(stderr io.Writer, fd geom.Findings) {
+	for i, p := range fd.Errors[1:] {
+		if i == 20 {
+			fmt.Fprintf(stderr, "pqfab: also: … %d more\n", len(fd.Errors)-21)
+			break
+		}
+		fmt.Fprintln(stderr, "pqfab: also:", p)
+	}
 }
