@@ -1,0 +1,60 @@
+package main
+
+import (
+	"os"
+	"path/filepath"
+	"testing"
+
+	"pqfab/samples"
+)
+
+// FuzzParseJob: the job parser never panics, and whatever it accepts has
+// sane values.
+func FuzzParseJob(f *testing.F) {
+	f.Add(samples.DemoJob())
+	f.Add([]byte(jobFor("n.obj")))
+	f.Add([]byte("[net]\nfile = \"x.obj\"\n[[stock]]\nwidth_mm = 1e308\nheight_mm = 1\n[rates]\nnode_each = 1\n"))
+	f.Add([]byte("title = 5\n"))
+	f.Fuzz(func(t *testing.T, data []byte) {
+		j, err := ParseJob(data, "fuzz.toml")
+		if err != nil {
+			return
+		}
+		if j.Net.File == "" || len(j.Stock) == 0 || !(j.Flatness.TolMM > 0) || !(j.Flatness.MaxMoveMM > 0) {
+			t.Fatalf("accepted a job with bad values: %+v", j)
+		}
+		for _, s := range j.Stock {
+			if !(s.WidthMM > 0) || !(s.HeightMM > 0) || 2*s.MarginMM >= min(s.WidthMM, s.HeightMM) {
+				t.Fatalf("accepted bad stock %+v", s)
+			}
+		}
+		_ = j.stocks()
+		_ = j.settings()
+	})
+}
+
+// TestAllSamplesBuild builds every sample twice: identical bytes, and every
+// panel, member and node accounted for.
+func TestAllSamplesBuild(t *testing.T) {
+	for _, name := range samples.Names() {
+		t.Run(name, func(t *testing.T) {
+			dir := t.TempDir()
+			if _, _, err := runCmd(t, "sample", name, "--panels", "250", "-o", filepath.Join(dir, "net.obj")); err != nil {
+				t.Fatal(err)
+			}
+			job := "title = \"" + name + "\"\n[net]\nfile = \"net.obj\"\n[nodes]\nhub_radius_mm = 50\n[panel]\nedge_inset_mm = 5\n" + goodStock +
+				"\n[[stock]]\nname = \"split\"\nwidth_mm = 3210\nheight_mm = 2250\nmargin_mm = 15\nspacing_mm = 6\nprice = 1\n"
+			if err := os.WriteFile(filepath.Join(dir, "job.toml"), []byte(job), 0o644); err != nil {
+				t.Fatal(err)
+			}
+			a, b := filepath.Join(dir, "a"), filepath.Join(dir, "b")
+			for _, out := range []string{a, b} {
+				if _, _, err := runCmd(t, "build", "-q", filepath.Join(dir, "job.toml"), "-o", out); err != nil {
+					t.Fatal(err)
+				}
+			}
+			checkAccounting(t, a)
+			sameTrees(t, a, b)
+		})
+	}
+}
