@@ -4,6 +4,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"sync"
 )
 
 // Output file names inside the build folder.
@@ -16,51 +17,71 @@ const (
 	DirSheets    = "sheets"
 )
 
-// Progress is told how many output steps are done of how many.
+// Progress is told how many output files are done of how many.
 type Progress func(done, total int, what string)
 
-// WriteBuild writes every output of a build into dir, atomically.
+// WriteBuild writes every output of a build into dir, atomically. The
+// files are written side by side (the DXF drawings one after another, as
+// the DXF library needs).
 func WriteBuild(dir string, b *Bundle, rep *Report, progress Progress) error {
 	return WriteFolder(dir, func(tmp string) error {
+		if err := os.Mkdir(filepath.Join(tmp, DirSheets), 0o755); err != nil {
+			return err
+		}
 		total := 5 + len(rep.Sheets)
+		var mu sync.Mutex
 		done := 0
 		step := func(what string) {
+			mu.Lock()
+			defer mu.Unlock()
 			done++
 			if progress != nil {
 				progress(done, total, what)
 			}
 		}
-		if err := writeFile(filepath.Join(tmp, FileReport), func(w io.Writer) error { return WriteJSON(w, rep) }); err != nil {
-			return err
-		}
-		step(FileReport)
-		if err := writeFile(filepath.Join(tmp, FileNet), func(w io.Writer) error {
-			return WriteOBJ(w, b.Net, "pqfab planarized net: "+b.Title)
-		}); err != nil {
-			return err
-		}
-		step(FileNet)
-		if err := writeFile(filepath.Join(tmp, FileSchedule), func(w io.Writer) error { return WriteSchedule(w, rep) }); err != nil {
-			return err
-		}
-		step(FileSchedule)
-		if err := writeFile(filepath.Join(tmp, FileAssembly), func(w io.Writer) error { return WriteAssemblyDXF(w, rep) }); err != nil {
-			return err
-		}
-		step(FileAssembly)
-		if err := writeFile(filepath.Join(tmp, FileHTML), func(w io.Writer) error { return WriteHTML(w, rep) }); err != nil {
-			return err
-		}
-		step(FileHTML)
-		sheets := filepath.Join(tmp, DirSheets)
-		if err := os.Mkdir(sheets, 0o755); err != nil {
-			return err
-		}
-		for i := range rep.Sheets {
-			if err := writeFile(filepath.Join(sheets, SheetFile(i, len(rep.Sheets))), func(w io.Writer) error { return WriteSheetDXF(w, rep, i) }); err != nil {
-				return err
+		file := func(name string, write func(w io.Writer) error) func() error {
+			return func() error {
+				if err := writeFile(filepath.Join(tmp, name), write); err != nil {
+					return err
+				}
+				step(name)
+				return nil
 			}
-			step(SheetFile(i, len(rep.Sheets)))
+		}
+		jobs := []func() error{
+			file(FileReport, func(w io.Writer) error { return WriteJSON(w, rep) }),
+			file(FileSchedule, func(w io.Writer) error { return WriteSchedule(w, rep) }),
+			file(FileHTML, func(w io.Writer) error { return WriteHTML(w, rep) }),
+			func() error {
+				if err := file(FileNet, func(w io.Writer) error { return WriteOBJ(w, b.Net, "pqfab planarized net: "+b.Title) })(); err != nil {
+					return err
+				}
+				if err := file(FileAssembly, func(w io.Writer) error { return WriteAssemblyDXF(w, rep) })(); err != nil {
+					return err
+				}
+				for i := range rep.Sheets {
+					name := filepath.Join(DirSheets, SheetFile(i, len(rep.Sheets)))
+					if err := file(name, func(w io.Writer) error { return WriteSheetDXF(w, rep, i) })(); err != nil {
+						return err
+					}
+				}
+				return nil
+			},
+		}
+		errs := make([]error, len(jobs))
+		var wg sync.WaitGroup
+		for i, j := range jobs {
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				errs[i] = j()
+			}()
+		}
+		wg.Wait()
+		for _, err := range errs {
+			if err != nil {
+				return err // the first; the others are usually the same cause
+			}
 		}
 		return nil
 	})

@@ -325,9 +325,7 @@ func points(p geom.Polygon) [][2]float64 {
 	return out
 }
 
-// WriteJSON writes report.json.
+// WriteJSON writes report.json, compact (it is for machines).
 func WriteJSON(w io.Writer, rep *Report) error {
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", " ")
-	return enc.Encode(rep)
+	return json.NewEncoder(w).Encode(rep)
 }
