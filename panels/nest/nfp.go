@@ -2,7 +2,6 @@ package nest
 
 import (
 	"math"
-	"sort"
 
 	"pqfab/geom"
 )
@@ -18,7 +17,7 @@ func minkowski(a, b geom.Polygon) geom.Polygon {
 // lowest corner, appending the result to dst.
 func minkowskiSorted(a, b, dst geom.Polygon) geom.Polygon {
 	n, m := len(a), len(b)
-	out := dst[len(dst):len(dst)]
+	out := dst[len(dst):]
 	i, j := 0, 0
 	for i < n || j < m {
 		out = append(out, a[i%n].Add(b[j%m]))
@@ -116,14 +115,4 @@ func lineHits(dst []geom.Vec2, p, q, a, b geom.Vec2) []geom.Vec2 {
 		dst = append(dst, p.Add(r.Scale(t)))
 	}
 	return dst
-}
-
-// sortCandidates orders positions bottom-left: lowest y, then lowest x.
-func sortCandidates(c []geom.Vec2) {
-	sort.Slice(c, func(i, j int) bool {
-		if c[i].Y != c[j].Y {
-			return c[i].Y < c[j].Y
-		}
-		return c[i].X < c[j].X
-	})
 }
