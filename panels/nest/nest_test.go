@@ -216,3 +216,22 @@ func TestMinkowski(t *testing.T) {
 		t.Errorf("triangle ⊕ square area %g", got)
 	}
 }
+
+// TestNonConvex: L-shaped parts are nested by their hulls, so they never
+// come closer than the spacing (checked exactly).
+func TestNonConvex(t *testing.T) {
+	l := geom.Polygon{{X: 0, Y: 0}, {X: 800, Y: 0}, {X: 800, Y: 300}, {X: 300, Y: 300}, {X: 300, Y: 700}, {X: 0, Y: 700}}
+	var parts []Part
+	for i := 0; i < 20; i++ {
+		parts = append(parts, Part{Label: "L", Outline: l})
+	}
+	stocks := []Stock{{Name: "ply", WidthMM: 2440, HeightMM: 1220, MarginMM: 10, SpacingMM: 4, Rotation: Quarter, Mirror: true}}
+	r, err := Nest(parts, stocks)
+	if err != nil {
+		t.Fatal(err)
+	}
+	checkResult(t, parts, stocks, r)
+	if len(r.Unplaced) != 0 {
+		t.Errorf("unplaced %v", r.Unplaced)
+	}
+}

@@ -1,0 +1,24 @@
+package nodes_test
+
+import (
+	"fmt"
+
+	"pqfab/geom"
+	"pqfab/nodes"
+	"pqfab/samples"
+)
+
+func ExampleBuild() {
+	net, _ := samples.Make("dome", 300)
+	topo := geom.BuildTopology(net)
+	bays, _ := geom.NewBays(net.Positions(), 6000, 6000)
+	s, err := nodes.Build(net, topo, nodes.Options{Axis: nodes.AxisLeastTwist, HubRadiusMM: 60, Bays: bays,
+		Types: nodes.TypeOptions{LengthTolMM: 1, AngleTolDeg: 0.5}})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("%d members, largest twist below 1e-6°: %v\n", len(s.Members), nodes.MaxAbsTwist(s.Members) < 1e-6)
+	// Output:
+	// 646 members, largest twist below 1e-6°: true
+}

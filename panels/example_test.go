@@ -1,0 +1,25 @@
+package panels_test
+
+import (
+	"fmt"
+
+	"pqfab/geom"
+	"pqfab/panels"
+	"pqfab/samples"
+)
+
+func ExamplePlanarize() {
+	net, _ := samples.Make("wave", 200)
+	topo := geom.BuildTopology(net)
+	opt := panels.DefaultPlanarizeOptions()
+	opt.TolMM = 0.1
+	res, err := panels.Planarize(net, topo, opt)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	before, after := panels.SpreadOf(res.Before), panels.SpreadOf(res.After)
+	fmt.Println("flat before:", before.Max > 5, "after:", after.Max <= 0.1, "converged:", res.Converged)
+	// Output:
+	// flat before: true after: true converged: true
+}
