@@ -36,14 +36,11 @@ func runBuild(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	fs := newFlags("build", "JOB.toml -o DIR", stderr)
 	var bf buildFlags
 	bf.register(fs)
-	pos, err := parseFlags(fs, args)
-	if errors.Is(err, flag.ErrHelp) {
+	pos, err := parseCommand(fs, args, 1, "one job file")
+	if errors.Is(err, errHelp) {
 		return nil
 	} else if err != nil {
 		return err
-	}
-	if len(pos) != 1 {
-		return usagef("build takes one job file, got %d arguments", len(pos))
 	}
 	if bf.out == "" {
 		return usagef("build needs -o DIR")
@@ -68,14 +65,11 @@ func runDemo(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	fs := newFlags("demo", "-o DIR", stderr)
 	var bf buildFlags
 	bf.register(fs)
-	pos, err := parseFlags(fs, args)
-	if errors.Is(err, flag.ErrHelp) {
+	_, err := parseCommand(fs, args, 0, "no arguments, only -o DIR")
+	if errors.Is(err, errHelp) {
 		return nil
 	} else if err != nil {
 		return err
-	}
-	if len(pos) != 0 {
-		return usagef("demo takes no arguments, only -o DIR")
 	}
 	if bf.out == "" {
 		return usagef("demo needs -o DIR")

@@ -1,9 +1,7 @@
 package main
 
 import (
-	"encoding/json"
 	"errors"
-	"flag"
 	"fmt"
 	"io"
 	"sort"
@@ -47,14 +45,11 @@ func runInspect(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	var nf netFlags
 	nf.register(fs)
 	asJSON := fs.Bool("json", false, "print JSON for machines")
-	pos, err := parseFlags(fs, args)
-	if errors.Is(err, flag.ErrHelp) {
+	pos, err := parseCommand(fs, args, 1, "one net file")
+	if errors.Is(err, errHelp) {
 		return nil
 	} else if err != nil {
 		return err
-	}
-	if len(pos) != 1 {
-		return usagef("inspect takes one net file, got %d arguments", len(pos))
 	}
 	net, topo, err := loadNet(pos[0], nf, stderr)
 	if err != nil {
@@ -65,9 +60,7 @@ func runInspect(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 		return err
 	}
 	if *asJSON {
-		enc := json.NewEncoder(stdout)
-		enc.SetIndent("", "  ")
-		return enc.Encode(in)
+		return writeJSON(stdout, in)
 	}
 	printInspection(stdout, in)
 	return nil

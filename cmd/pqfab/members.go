@@ -1,7 +1,6 @@
 package main
 
 import (
-	"encoding/json"
 	"errors"
 	"flag"
 	"fmt"
@@ -136,14 +135,11 @@ func runMembers(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	nf.register(fs)
 	sf.register(fs)
 	asJSON := fs.Bool("json", false, "print JSON for machines")
-	pos, err := parseFlags(fs, args)
-	if errors.Is(err, flag.ErrHelp) {
+	pos, err := parseCommand(fs, args, 1, "one net file")
+	if errors.Is(err, errHelp) {
 		return nil
 	} else if err != nil {
 		return err
-	}
-	if len(pos) != 1 {
-		return usagef("members takes one net file, got %d arguments", len(pos))
 	}
 	net, topo, err := loadNet(pos[0], nf, stderr)
 	if err != nil {
@@ -159,9 +155,7 @@ func runMembers(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	}
 	sum := summarizeMembers(pos[0], sf.axis, s)
 	if *asJSON {
-		enc := json.NewEncoder(stdout)
-		enc.SetIndent("", "  ")
-		return enc.Encode(sum)
+		return writeJSON(stdout, sum)
 	}
 	printMemberSummary(stdout, sum)
 	return nil

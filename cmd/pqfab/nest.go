@@ -2,7 +2,6 @@ package main
 
 import (
 	"errors"
-	"flag"
 	"fmt"
 	"io"
 	"strconv"
@@ -55,14 +54,11 @@ func runNest(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	mirror := fs.Bool("mirror", false, "parts may be turned over")
 	inset := fs.Float64("inset", 0, "edge inset of the cut outline (mm)")
 	bay := fs.Float64("bay", geom.DefaultBaySizeMM, "bay size for labels (mm)")
-	pos, err := parseFlags(fs, args)
-	if errors.Is(err, flag.ErrHelp) {
+	pos, err := parseCommand(fs, args, 1, "one net file")
+	if errors.Is(err, errHelp) {
 		return nil
 	} else if err != nil {
 		return err
-	}
-	if len(pos) != 1 {
-		return usagef("nest takes one net file, got %d arguments", len(pos))
 	}
 	w, h, err := parseSheet(*sheet)
 	if err != nil {

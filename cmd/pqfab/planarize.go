@@ -1,7 +1,6 @@
 package main
 
 import (
-	"encoding/json"
 	"errors"
 	"flag"
 	"fmt"
@@ -154,14 +153,11 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	out := fs.String("o", "", "planarized net, OBJ in mm (required)")
 	report := fs.String("report", "", "also write the full report (per node moves, per panel flatness) as JSON")
 	quiet := fs.Bool("q", false, "no progress bar")
-	pos, err := parseFlags(fs, args)
-	if errors.Is(err, flag.ErrHelp) {
+	pos, err := parseCommand(fs, args, 1, "one net file")
+	if errors.Is(err, errHelp) {
 		return nil
 	} else if err != nil {
 		return err
-	}
-	if len(pos) != 1 {
-		return usagef("planarize takes one net file, got %d arguments", len(pos))
 	}
 	if *out == "" {
 		return usagef("planarize needs -o OUT.obj")
@@ -189,9 +185,7 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	printPlanarizeSummary(stdout, rep, supports)
 	if *report != "" {
 		if err := export.WriteFileAtomic(*report, func(w io.Writer) error {
-			enc := json.NewEncoder(w)
-			enc.SetIndent("", " ")
-			return enc.Encode(rep)
+			return writeJSON(w, rep)
 		}); err != nil {
 			return err
 		}

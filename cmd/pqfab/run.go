@@ -83,6 +83,23 @@ func newFlags(name, args string, stderr io.Writer) *flag.FlagSet {
 	return fs
 }
 
+// errHelp is returned by parseCommand when the user asked for help, which
+// the flag set has printed: the command ends without an error.
+var errHelp = flag.ErrHelp
+
+// parseCommand parses a command's flags and checks it got want positional
+// arguments, described by what ("one net file").
+func parseCommand(fs *flag.FlagSet, args []string, want int, what string) ([]string, error) {
+	pos, err := parseFlags(fs, args)
+	if err != nil {
+		return nil, err
+	}
+	if len(pos) != want {
+		return nil, usagef("%s takes %s, got %d arguments", fs.Name(), what, len(pos))
+	}
+	return pos, nil
+}
+
 // parseFlags parses flags that may come before or after positional args.
 func parseFlags(fs *flag.FlagSet, args []string) ([]string, error) {
 	var pos []string
