@@ -75,3 +75,35 @@ func TestMakeErrors(t *testing.T) {
 		t.Error("too few panels: want an error")
 	}
 }
+
+// TestDemoNetCurrent: the embedded demo net is what the generator makes
+// now (regenerate it as DEVELOPERS.md says when the generator changes).
+func TestDemoNetCurrent(t *testing.T) {
+	f, err := OpenDemo("demo/wave.obj")
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	got, err := geom.ReadOBJ(f, "demo/wave.obj", geom.MM)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := Wave(600)
+	if len(got.Nodes) != len(want.Nodes) || len(got.Faces) != len(want.Faces) {
+		t.Fatalf("demo net has %d nodes, %d panels; generator %d, %d", len(got.Nodes), len(got.Faces), len(want.Nodes), len(want.Faces))
+	}
+	for i := range want.Nodes {
+		d := want.Nodes[i].Pos
+		g := got.Nodes[i].Pos
+		if abs(d.X-g.X) > 1e-4 || abs(d.Y-g.Y) > 1e-4 || abs(d.Z-g.Z) > 1e-4 {
+			t.Fatalf("node %d: embedded %v, generator %v", i+1, g, d)
+		}
+	}
+}
+
+func abs(x float64) float64 {
+	if x < 0 {
+		return -x
+	}
+	return x
+}
