@@ -1,0 +1,81 @@
+package main
+
+import (
+	"flag"
+	"os"
+	"path/filepath"
+	"testing"
+
+	"pqfab/export"
+)
+
+var update = flag.Bool("update", false, "rewrite golden files")
+
+// TestGoldenBuild builds a two-panel job and compares every writer's
+// output with the golden files in testdata/golden (go test -update
+// rewrites them; read the diff before committing).
+func TestGoldenBuild(t *testing.T) {
+	dir := t.TempDir()
+	net := "v 0 0 0\nv 1500 0 0\nv 1500 1200 30\nv 0 1200 0\nv 3000 0 0\nv 3000 1200 0\nf 1 2 3 4\nf 2 5 6 3\n"
+	job := `title = "golden"
+[net]
+file = "n.obj"
+[supports]
+mode = "none"
+[nodes]
+hub_radius_mm = 40
+[panel]
+edge_inset_mm = 5
+[[stock]]
+name = "board"
+width_mm = 3210
+height_mm = 2250
+margin_mm = 15
+spacing_mm = 6
+rotation = "quarter"
+price = 100
+[rates]
+currency = "EUR"
+member_per_m = 10
+node_each = 5
+panel_per_m2 = 50
+`
+	for name, body := range map[string]string{"n.obj": net, "job.toml": job} {
+		if err := os.WriteFile(filepath.Join(dir, name), []byte(body), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	goldenDir, err := filepath.Abs(filepath.Join("testdata", "golden"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	// Relative names, so the report does not carry the temporary folder.
+	t.Chdir(dir)
+	out := filepath.Join(dir, "out")
+	if _, _, err := runCmd(t, "build", "-q", "job.toml", "-o", "out"); err != nil {
+		t.Fatal(err)
+	}
+	for _, name := range []string{export.FileReport, export.FileNet, export.FileAssembly, filepath.Join(export.DirSheets, "sheet-01.dxf"), export.FileHTML} {
+		got, err := os.ReadFile(filepath.Join(out, name))
+		if err != nil {
+			t.Fatal(err)
+		}
+		golden := filepath.Join(goldenDir, filepath.Base(name))
+		if *update {
+			if err := os.MkdirAll(filepath.Dir(golden), 0o755); err != nil {
+				t.Fatal(err)
+			}
+			if err := os.WriteFile(golden, got, 0o644); err != nil {
+				t.Fatal(err)
+			}
+			continue
+		}
+		want, err := os.ReadFile(golden)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if string(got) != string(want) {
+			t.Errorf("%s differs from %s (go test -update rewrites it)", name, golden)
+		}
+	}
+}
