@@ -217,6 +217,7 @@ th{background:#eee}.num{text-align:right}
 .legend span{display:inline-block;margin-right:14px}.legend i{display:inline-block;width:14px;height:14px;border:1px solid #555;vertical-align:middle;margin-right:4px}
 .plots svg{margin:6px}.sheets{display:flex;flex-wrap:wrap}.sheet{margin:6px}figcaption{font-size:0.85em}
 .plan{border:1px solid #ddd;background:#fff}
+summary{cursor:pointer;margin:6px 0;font-weight:bold}
 </style></head><body>
 <h1>{{.R.Title}}</h1>
 <p class="caution">Caution: {{.R.Caution}}</p>
@@ -240,12 +241,13 @@ th{background:#eee}.num{text-align:right}
 {{range .Plans}}<h3>{{.Title}}</h3><div class="legend">{{range .Legend}}<span><i style="background:{{.Colour}}"></i>{{.Text}}</span>{{end}}</div>{{.SVG}}{{end}}
 <h2>Distributions</h2>
 <div class="plots">{{range .Plots}}{{.}}{{end}}</div>
-<h2>Member types</h2>
-<table><tr><th>Type</th><th>Count</th><th>Cut length (mm)</th></tr>{{range .R.MemberTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table>
-<h2>Node types</h2>
-<table><tr><th>Type</th><th>Count</th><th>Valence</th></tr>{{range .R.NodeTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table>
-<h2>Panel types</h2>
-<table><tr><th>Type</th><th>Count</th><th>Area (m²)</th></tr>{{range .R.PanelTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table>
+<h2>Types</h2>
+<details><summary>Member types: {{len .R.MemberTypes}} for {{.R.Counts.Members}} members</summary>
+<table><tr><th>Type</th><th>Count</th><th>Cut length (mm)</th></tr>{{range .R.MemberTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
+<details><summary>Node types: {{len .R.NodeTypes}} for {{.R.Counts.Nodes}} nodes</summary>
+<table><tr><th>Type</th><th>Count</th><th>Valence</th></tr>{{range .R.NodeTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
+<details><summary>Panel types: {{len .R.PanelTypes}} for {{.R.Counts.Panels}} panels</summary>
+<table><tr><th>Type</th><th>Count</th><th>Area (m²)</th></tr>{{range .R.PanelTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
 <h2>Stock sheets</h2>
 <table><tr><th>Stock</th><th>Sheets</th><th>Area bound</th><th>Cost</th></tr>{{range .R.Stocks}}<tr><td>{{.Name}}</td><td class="num">{{.Sheets}}</td><td class="num">{{.AreaBound}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
 {{with .R.Unplaced}}<h3>Unplaced panels</h3><ul>{{range .}}<li>{{.Panel}}: {{.Reason}}</li>{{end}}</ul>{{end}}
