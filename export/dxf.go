@@ -26,6 +26,7 @@ const (
 	LayerMemberLabel = "PQ-MEMBER-LABEL"
 	LayerPanelLabel  = "PQ-PANEL-LABEL"
 	Layer3DMember    = "PQ-3D-MEMBER" // member lines in space
+	LayerPlanBar     = "PQ-PLAN-BAR"  // top face of each member between its hub cuts, seen from above
 	LayerTitle       = "PQ-TITLE"     // title and caution
 )
 
@@ -182,7 +183,7 @@ func WriteAssemblyDXF(w io.Writer, rep *Report) error {
 	defer dxfMu.Unlock()
 	d, err := newDrawing([]dxfLayer{{LayerPlanMember, color.White}, {LayerPlanPanel, color.Grey128},
 		{LayerNodeLabel, color.Red}, {LayerMemberLabel, color.Yellow}, {LayerPanelLabel, color.Green},
-		{Layer3DMember, color.Blue}, {LayerTitle, color.White}})
+		{Layer3DMember, color.Blue}, {LayerPlanBar, color.Cyan}, {LayerTitle, color.White}})
 	if err != nil {
 		return err
 	}
@@ -207,6 +208,12 @@ func WriteAssemblyDXF(w io.Writer, rep *Report) error {
 			pts[i] = [2]float64{pos[c][0], pos[c][1]}
 		}
 		add(func() error { return closedPoly(d, pts) })
+	}
+	if rep.Section.Width > 0 {
+		add(func() error { return useLayer(d, LayerPlanBar) })
+		for _, m := range rep.Members {
+			add(func() error { return closedPoly(d, barOutline(m, pos[m.NodeA], pos[m.NodeB], rep.Section.Width)) })
+		}
 	}
 	add(func() error { return useLayer(d, Layer3DMember) })
 	for _, m := range rep.Members {
@@ -255,6 +262,20 @@ func WriteAssemblyDXF(w io.Writer, rep *Report) error {
 	d.SetExt()
 	_, err = d.WriteTo(w)
 	return err
+}
+
+// barOutline returns the plan outline of a member's top face: the
+// section width across the member (along its frame's Y axis) and the cut
+// length between the hub setbacks.
+func barOutline(m MemberRow, a, b [3]float64, width float64) [][2]float64 {
+	d := [3]float64{b[0] - a[0], b[1] - a[1], b[2] - a[2]}
+	l := math.Sqrt(d[0]*d[0] + d[1]*d[1] + d[2]*d[2])
+	at := func(t, side float64) [2]float64 {
+		return [2]float64{a[0] + d[0]*t/l + m.FrameY[0]*side, a[1] + d[1]*t/l + m.FrameY[1]*side}
+	}
+	s0, s1 := m.Ends[0].SetbackMM, l-m.Ends[1].SetbackMM
+	h := width / 2
+	return [][2]float64{at(s0, -h), at(s1, -h), at(s1, h), at(s0, h)}
 }
 
 // planLayout sets the label height and title position of the plan from

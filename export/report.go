@@ -41,6 +41,7 @@ type Report struct {
 	MemberTypes []TypeRow         `json:"member_types"`
 	NodeTypes   []TypeRow         `json:"node_types"`
 	PanelTypes  []TypeRow         `json:"panel_types"`
+	Section     Section           `json:"member_section_mm"`
 	Sheets      []SheetRow        `json:"sheets"`
 	Unplaced    []UnplacedRow     `json:"unplaced"`
 	Stocks      []StockRow        `json:"stocks"`
@@ -51,6 +52,12 @@ type Report struct {
 	typeOf      map[string]string
 	planCentre  [2]float64
 	planLow     float64
+}
+
+// Section is the members' cross-section (mm).
+type Section struct {
+	Width float64 `json:"width"`
+	Depth float64 `json:"depth"`
 }
 
 // StockInfo is what the cut sheets need of a stock size.
@@ -116,6 +123,10 @@ type MemberRow struct {
 	DihedralDeg float64   `json:"dihedral_deg"`
 	Type        string    `json:"type"`
 	Ends        [2]EndRow `json:"ends"`
+	// Frame axes of the member: X along it (A to B), Z the top of the
+	// section, Y = Z × X.
+	FrameY [3]float64 `json:"frame_y"`
+	FrameZ [3]float64 `json:"frame_z"`
 }
 
 // EndRow is one end cut.
@@ -218,6 +229,7 @@ func BuildReport(b *Bundle) *Report {
 		Settings: b.Settings, Warnings: append([]string{}, b.Warnings...),
 		Sheets: []SheetRow{}, Unplaced: []UnplacedRow{}, Stocks: []StockRow{}}
 	nodeLabel := func(i int) string { return s.Nodes[i].Label }
+	rep.Section = Section{Width: s.Section.WidthMM, Depth: s.Section.DepthMM}
 	rep.Counts = Counts{Nodes: len(n.Nodes), Members: len(s.Members), Panels: len(n.Faces),
 		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), PanelTypes: len(b.PanelTypes)}
 	pl := b.Planarize
@@ -241,7 +253,7 @@ func BuildReport(b *Bundle) *Report {
 		rep.Members = append(rep.Members, MemberRow{Label: m.Label, NodeA: nodeLabel(m.A.Node), NodeB: nodeLabel(m.B.Node),
 			LengthMM: r(m.LengthMM, lenDigits), CutLengthMM: r(m.CutLengthMM, lenDigits), TwistDeg: r(m.TwistDeg, angleDigits),
 			DihedralDeg: r(m.DihedralDeg, angleDigits), Type: s.MemberTypes[m.Type].Name,
-			Ends: [2]EndRow{end(m.A), end(m.B)}})
+			Ends: [2]EndRow{end(m.A), end(m.B)}, FrameY: vec(m.Frame.Y, 6), FrameZ: vec(m.Frame.Z, 6)})
 	}
 	sheetOf := b.sheetOf()
 	for f, fl := range b.Flats {
