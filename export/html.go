@@ -120,7 +120,7 @@ func planViews(rep *Report) []planView {
 		for _, c := range p.Corners {
 			m = math.Max(m, moveOf[c])
 		}
-		poly(&mv, p.Corners, mix(moveLow, moveHigh, m/math.Max(maxMove, 1e-9)))
+		poly(&mv, p.Corners, mix(moveLow, moveHigh, m/math.Max(maxMove, minScale)))
 	}
 	mv.WriteString(`</svg>`)
 	views = append(views, planView{Title: "Node moves of planarization (largest corner move per panel)", SVG: template.HTML(mv.String()),
@@ -128,7 +128,7 @@ func planViews(rep *Report) []planView {
 
 	var tw strings.Builder
 	open(&tw)
-	maxTwist := 1e-9
+	maxTwist := minScale
 	for _, m := range rep.Members {
 		maxTwist = math.Max(maxTwist, math.Abs(m.TwistDeg))
 	}
@@ -256,3 +256,6 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 <p class="caution">Caution: {{.R.Caution}}</p>
 </body></html>
 `))
+
+// minScale keeps colour scales finite when every value is zero.
+const minScale = 1e-9

@@ -66,7 +66,7 @@ func (p Polygon) Convex() bool {
 		}
 		turn += math.Atan2(b.Sub(a).Cross(c.Sub(b)), b.Sub(a).Dot(c.Sub(b)))
 	}
-	return sign != 0 && math.Abs(math.Abs(turn)-2*math.Pi) < 1e-6
+	return sign != 0 && math.Abs(math.Abs(turn)-2*math.Pi) < windingTol
 }
 
 // Bounds returns the lower-left and upper-right corners of the bounding box.
@@ -231,3 +231,6 @@ func ConvexHull(pts []Vec2) Polygon {
 	}
 	return Polygon(h[:len(h)-1])
 }
+
+// windingTol: total turning (radians) within this of ±2π winds once.
+const windingTol = 1e-6

@@ -46,7 +46,7 @@ func NormalAxes(n *geom.Net) ([]geom.Vec, error) {
 		}
 	}
 	for i, s := range sum {
-		if r3.Norm(s) < 1e-9 {
+		if r3.Norm(s) < degenerateUnit {
 			return nil, fmt.Errorf("nodes: %s: its panels' normals cancel or it has no panel, so it has no axis", n.NodeName(i))
 		}
 		sum[i] = r3.Unit(s)

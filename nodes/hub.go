@@ -44,7 +44,7 @@ func Hubs(n *geom.Net, topo *geom.Topology, axes []geom.Vec, ms []Member, labels
 		for k, e := range es {
 			dirs[k] = r3.Unit(r3.Sub(n.Nodes[topo.Other(e, i)].Pos, n.Nodes[i].Pos))
 		}
-		fr, err := geom.PlaneFrame(n.Nodes[i].Pos, axes[i], dirs[0], 1e-9)
+		fr, err := geom.PlaneFrame(n.Nodes[i].Pos, axes[i], dirs[0], degenerateUnit)
 		if err != nil {
 			return nil, fmt.Errorf("nodes: %s: its first member runs along its axis", n.NodeName(i))
 		}

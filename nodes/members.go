@@ -80,7 +80,7 @@ func Members(n *geom.Net, topo *geom.Topology, axes []geom.Vec, opt MemberOption
 			return nil, fmt.Errorf("nodes: %s: axis of node %s %v", name, n.Nodes[ed.B].ID, err)
 		}
 		z := r3.Add(ua, ub)
-		if r3.Norm(z) < 1e-9 {
+		if r3.Norm(z) < degenerateUnit {
 			return nil, fmt.Errorf("nodes: %s: twisted half a turn, no top face", name)
 		}
 		z = r3.Unit(z)
@@ -120,7 +120,7 @@ func memberName(n *geom.Net, a, b int) string {
 // across returns unit(a − (a·e)e), the axis seen along the member.
 func across(a, e geom.Vec) (geom.Vec, error) {
 	u := r3.Sub(a, r3.Scale(r3.Dot(a, e), e))
-	if r3.Norm(u) < 1e-9 {
+	if r3.Norm(u) < degenerateUnit {
 		return geom.Vec{}, fmt.Errorf("runs along the member")
 	}
 	return r3.Unit(u), nil
@@ -167,3 +167,8 @@ func edgeRunsForward(n *geom.Net, f, a, b int) bool {
 }
 
 func deg(r float64) float64 { return r * 180 / math.Pi }
+
+// degenerateUnit: a sum or projection of unit vectors shorter than this
+// has no usable direction (the vectors cancel or are parallel to within
+// about 1e-9 rad).
+const degenerateUnit = 1e-9

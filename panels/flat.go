@@ -134,7 +134,7 @@ func flatten(pts []geom.Vec) (Flat, error) {
 		return Flat{}, err
 	}
 	o := fit.Project(pts[0])
-	fr, err := geom.PlaneFrame(o, fit.Normal, r3.Sub(fit.Project(pts[1]), o), 1e-12)
+	fr, err := geom.PlaneFrame(o, fit.Normal, r3.Sub(fit.Project(pts[1]), o), parallelSin)
 	if err != nil {
 		return Flat{}, fmt.Errorf("first edge has no length in the panel plane")
 	}
@@ -200,7 +200,7 @@ func Inset(p geom.Polygon, d float64) (geom.Polygon, error) {
 	for i := range p {
 		l1, l2 := lines[(i+k-1)%k], lines[i]
 		den := l1.dir.Cross(l2.dir)
-		if math.Abs(den) < 1e-12 {
+		if math.Abs(den) < parallelSin {
 			// Straight corner: the moved point on both lines.
 			out[i] = p[i].Add(l2.dir.Perp().Scale(d))
 			continue

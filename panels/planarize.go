@@ -142,7 +142,7 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 	flat := res.Before
 	iter, lastGain := 0, 0
 	best := maxOf(flat)
-	mu := 1e-6
+	mu := initialDamping
 	energy := s.energy(x)
 	stalled := false
 	for {

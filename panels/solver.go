@@ -13,7 +13,8 @@ const (
 	initialGapWeight = 100.0 // w_c at the start, against a closeness weight of 1
 	gnConverged      = 1e-3  // relative energy decrease that ends a Gauss-Newton run
 	stallIters       = 25    // steps without a 1 % gain in the worst flatness
-	minDamping       = 1e-12 // Levenberg-Marquardt damping bounds
+	initialDamping   = 1e-6  // Levenberg-Marquardt damping: start and bounds
+	minDamping       = 1e-12
 	maxDamping       = 1e6
 	cgRelTol         = 1e-6 // conjugate gradients: relative residual
 	cgMaxIter        = 2000

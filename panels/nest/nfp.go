@@ -106,7 +106,7 @@ func strictlyInside(p geom.Polygon, lo, hi geom.Vec2, v geom.Vec2, tol float64) 
 func lineHits(dst []geom.Vec2, p, q, a, b geom.Vec2) []geom.Vec2 {
 	r, s := q.Sub(p), b.Sub(a)
 	den := r.Cross(s)
-	if math.Abs(den) < 1e-12 {
+	if math.Abs(den) < parallelCross {
 		return dst
 	}
 	t := a.Sub(p).Cross(s) / den
@@ -116,3 +116,8 @@ func lineHits(dst []geom.Vec2, p, q, a, b geom.Vec2) []geom.Vec2 {
 	}
 	return dst
 }
+
+// parallelCross: unit-free cross product of two edges below which lineHits
+// treats them as parallel (they meet nowhere or along a stretch, and the
+// stretch's ends are candidates already).
+const parallelCross = 1e-12
