@@ -162,17 +162,21 @@ var tomlTypeErr = regexp.MustCompile(`^toml: line (\d+) \(last key "([^"]*)"\): 
 
 // check rejects bad values, naming the key and its line.
 func (j *Job) check() error {
-	positive := func(key string, v float64) error {
-		if !(v > 0) || math.IsInf(v, 0) {
-			return j.errorf(key, "%g must be a positive number", v)
+	var first error // only the first problem is reported (and computed)
+	fail := func(key, format string, args ...any) {
+		if first == nil {
+			first = j.errorf(key, format, args...)
 		}
-		return nil
 	}
-	nonNeg := func(key string, v float64) error {
-		if !(v >= 0) || math.IsInf(v, 0) {
-			return j.errorf(key, "%g must be zero or more", v)
+	positive := func(key string, v float64) {
+		if !(v > 0) || math.IsInf(v, 0) {
+			fail(key, "%g must be a positive number", v)
 		}
-		return nil
+	}
+	nonNeg := func(key string, v float64) {
+		if !(v >= 0) || math.IsInf(v, 0) {
+			fail(key, "%g must be zero or more", v)
+		}
 	}
 	if j.Net.File == "" {
 		return j.errorf("net.file", "missing: name the net file (OBJ, OFF or nodes CSV), relative to the job file")
@@ -197,53 +201,51 @@ func (j *Job) check() error {
 	default:
 		return j.errorf("nodes.axis", "%q: want normal or least-twist", j.Nodes.Axis)
 	}
-	checks := []error{
-		nonNeg("net.merge_tol_mm", j.Net.MergeTolMM),
-		positive("flatness.tolerance_mm", j.Flatness.TolMM),
-		positive("flatness.max_move_mm", j.Flatness.MaxMoveMM),
-		nonNeg("flatness.fairness", j.Flatness.Fairness),
-		positive("flatness.max_iterations", float64(j.Flatness.MaxIter)),
-		nonNeg("nodes.hub_radius_mm", j.Nodes.HubRadiusMM),
-		positive("nodes.bay_mm", j.Nodes.BayMM),
-		positive("member.width_mm", j.Member.WidthMM),
-		positive("member.depth_mm", j.Member.DepthMM),
-		positive("panel.thickness_mm", j.Panel.ThicknessMM),
-		nonNeg("panel.density_kg_m3", j.Panel.DensityKgM3),
-		nonNeg("panel.edge_inset_mm", j.Panel.EdgeInsetMM),
-		nonNeg("types.length_tol_mm", j.Types.LengthTolMM),
-		nonNeg("types.angle_tol_deg", j.Types.AngleTolDeg),
-		nonNeg("types.panel_tol_mm", j.Types.PanelTolMM),
-	}
+	nonNeg("net.merge_tol_mm", j.Net.MergeTolMM)
+	positive("flatness.tolerance_mm", j.Flatness.TolMM)
+	positive("flatness.max_move_mm", j.Flatness.MaxMoveMM)
+	nonNeg("flatness.fairness", j.Flatness.Fairness)
+	positive("flatness.max_iterations", float64(j.Flatness.MaxIter))
+	nonNeg("nodes.hub_radius_mm", j.Nodes.HubRadiusMM)
+	positive("nodes.bay_mm", j.Nodes.BayMM)
+	positive("member.width_mm", j.Member.WidthMM)
+	positive("member.depth_mm", j.Member.DepthMM)
+	positive("panel.thickness_mm", j.Panel.ThicknessMM)
+	nonNeg("panel.density_kg_m3", j.Panel.DensityKgM3)
+	nonNeg("panel.edge_inset_mm", j.Panel.EdgeInsetMM)
+	nonNeg("types.length_tol_mm", j.Types.LengthTolMM)
+	nonNeg("types.angle_tol_deg", j.Types.AngleTolDeg)
+	nonNeg("types.panel_tol_mm", j.Types.PanelTolMM)
 	if math.Abs(j.Panel.BoundaryBevelDeg) >= 90 || math.IsNaN(j.Panel.BoundaryBevelDeg) {
-		checks = append(checks, j.errorf("panel.boundary_bevel_deg", "%g must lie between -90 and 90", j.Panel.BoundaryBevelDeg))
+		fail("panel.boundary_bevel_deg", "%g must lie between -90 and 90", j.Panel.BoundaryBevelDeg)
 	}
 	for i, s := range j.Stock {
+		if first != nil {
+			break
+		}
 		k := func(name string) string { return fmt.Sprintf("stock[%d].%s", i+1, name) }
-		checks = append(checks, positive(k("width_mm"), s.WidthMM), positive(k("height_mm"), s.HeightMM),
-			nonNeg(k("margin_mm"), s.MarginMM), nonNeg(k("spacing_mm"), s.SpacingMM), nonNeg(k("count"), float64(s.Count)), nonNeg(k("price"), s.Price))
+		positive(k("width_mm"), s.WidthMM)
+		positive(k("height_mm"), s.HeightMM)
+		nonNeg(k("margin_mm"), s.MarginMM)
+		nonNeg(k("spacing_mm"), s.SpacingMM)
+		nonNeg(k("count"), float64(s.Count))
+		nonNeg(k("price"), s.Price)
 		switch nest.Rotation(s.Rotation) {
 		case nest.Free, nest.Quarter, nest.Grain:
 		default:
-			checks = append(checks, j.errorf(k("rotation"), "%q: want free, quarter or grain", s.Rotation))
+			fail(k("rotation"), "%q: want free, quarter or grain", s.Rotation)
 		}
 		if s.WidthMM > 0 && s.HeightMM > 0 && 2*s.MarginMM >= math.Min(s.WidthMM, s.HeightMM) {
-			checks = append(checks, j.errorf(k("margin_mm"), "%g mm leaves no room on a %g × %g mm sheet", s.MarginMM, s.WidthMM, s.HeightMM))
+			fail(k("margin_mm"), "%g mm leaves no room on a %g × %g mm sheet", s.MarginMM, s.WidthMM, s.HeightMM)
 		}
 	}
 	if r := j.Rates; r != nil {
-		checks = append(checks, nonNeg("rates.member_per_m", r.MemberPerM), nonNeg("rates.node_each", r.NodeEach),
-			nonNeg("rates.panel_per_m2", r.PanelPerM2), nonNeg("rates.sheet_each", r.SheetEach))
+		nonNeg("rates.member_per_m", r.MemberPerM)
+		nonNeg("rates.node_each", r.NodeEach)
+		nonNeg("rates.panel_per_m2", r.PanelPerM2)
+		nonNeg("rates.sheet_each", r.SheetEach)
 	}
-	return firstErr(checks)
-}
-
-func firstErr(errs []error) error {
-	for _, e := range errs {
-		if e != nil {
-			return e
-		}
-	}
-	return nil
+	return first
 }
 
 // keyLines finds the line of each key in a TOML text: "table.key" for
@@ -271,9 +273,15 @@ func indexKeys(data []byte) *keyLines {
 			if k, _, ok := strings.Cut(s, "="); ok && !strings.HasPrefix(s, "#") {
 				key := strings.Trim(strings.TrimSpace(k), `"`)
 				if table != "" {
-					key = table + "." + key
+					kl.set(table+"."+key, n)
+					// Undecoded keys of array tables come without the index:
+					// remember the first line under the plain name too.
+					if i := strings.IndexByte(table, '['); i >= 0 {
+						kl.set(table[:i]+"."+key, n)
+					}
+				} else {
+					kl.set(key, n)
 				}
-				kl.set(key, n)
 			}
 		}
 	}
@@ -286,23 +294,15 @@ func (kl *keyLines) set(key string, n int) {
 	}
 }
 
-// line returns the line of a key such as "net.unit", "stock[1].width_mm"
-// or, for an undecoded key in an array table, "stock.colour" (the first
-// such key); 0 if not found.
+// line returns the line of a key such as "net.unit", "stock[1].width_mm",
+// "stock" (the first [[stock]]) or, for an undecoded key in an array
+// table, "stock.colour" (the first such key); 0 if not found.
 func (kl *keyLines) line(key string) int {
 	if n, ok := kl.lines[key]; ok {
 		return n
 	}
 	if n, ok := kl.lines[key+"[1]"]; ok {
 		return n // an array table: its first table
-	}
-	// Undecoded keys of array tables come without the index.
-	if t, k, ok := strings.Cut(key, "."); ok {
-		for i := 1; i < 1000; i++ {
-			if n, ok := kl.lines[fmt.Sprintf("%s[%d].%s", t, i, k)]; ok {
-				return n
-			}
-		}
 	}
 	return 0
 }
