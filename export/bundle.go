@@ -23,7 +23,6 @@ type Bundle struct {
 	Warnings []string
 
 	Net       *geom.Net // planarized
-	Topo      *geom.Topology
 	Supports  []bool
 	Planarize *panels.PlanarizeResult
 	TolMM     float64
@@ -93,9 +92,10 @@ func (b *Bundle) sheetOf() []int {
 	return out
 }
 
-// r rounds to d decimals without negative zero, so output bytes do not
-// depend on the last bits of a float.
-func r(x float64, d int) float64 {
+// Round rounds x to d decimals without negative zero, so output bytes do
+// not depend on the last bits of a float. Every writer and the command's
+// printed numbers use it.
+func Round(x float64, d int) float64 {
 	p := math.Pow(10, float64(d))
 	v := math.Round(x*p) / p
 	if v == 0 {
@@ -103,3 +103,14 @@ func r(x float64, d int) float64 {
 	}
 	return v
 }
+
+// RoundSpread rounds a spread's three numbers to d decimals.
+func RoundSpread(s panels.Spread, d int) panels.Spread {
+	return panels.Spread{Min: Round(s.Min, d), Median: Round(s.Median, d), Max: Round(s.Max, d)}
+}
+
+// r and spread are the short names used throughout this package.
+var (
+	r      = Round
+	spread = RoundSpread
+)

@@ -147,7 +147,7 @@ func planViews(rep *Report) []planView {
 	}
 	tw.WriteString(`</svg>`)
 	views = append(views, planView{Title: "Member twist", SVG: template.HTML(tw.String()),
-		Legend: []legendItem{{mix(twistZero, twistNeg, 1), fmt.Sprintf("%.2f°", -maxTwist)}, {twistZeroHex(), "0°"}, {mix(twistZero, twistPos, 1), fmt.Sprintf("+%.2f°", maxTwist)}}})
+		Legend: []legendItem{{mix(twistZero, twistNeg, 1), fmt.Sprintf("%.2f°", -maxTwist)}, {mix(twistZero, twistPos, 0), "0°"}, {mix(twistZero, twistPos, 1), fmt.Sprintf("+%.2f°", maxTwist)}}})
 
 	var ty strings.Builder
 	open(&ty)
@@ -170,8 +170,6 @@ func planViews(rep *Report) []planView {
 	views = append(views, planView{Title: "Panel types", SVG: template.HTML(ty.String()), Legend: leg})
 	return views
 }
-
-func twistZeroHex() string { return mix(twistZero, twistZero, 0) }
 
 // sheetSVG draws one stock sheet with its parts and labels.
 func sheetSVG(rep *Report, s SheetRow) string {

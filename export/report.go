@@ -215,10 +215,6 @@ type StockRow struct {
 
 func vec(v r3.Vec, d int) [3]float64 { return [3]float64{r(v.X, d), r(v.Y, d), r(v.Z, d)} }
 
-func spread(s panels.Spread, d int) panels.Spread {
-	return panels.Spread{Min: r(s.Min, d), Median: r(s.Median, d), Max: r(s.Max, d)}
-}
-
 // BuildReport turns a bundle into the report model that report.json, the
 // schedule and the HTML page share.
 func BuildReport(b *Bundle) *Report {

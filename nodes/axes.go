@@ -32,17 +32,14 @@ const (
 // (Newell) of the panels around it. A node on no panel, or whose panel
 // normals cancel, is an error naming it.
 func NormalAxes(n *geom.Net) ([]geom.Vec, error) {
+	normals := faceNormals(n)
 	sum := make([]geom.Vec, len(n.Nodes))
-	var pts []geom.Vec
 	for f, face := range n.Faces {
-		pts = n.FacePoints(pts[:0], f)
-		a := geom.VectorArea(pts)
-		if r3.Norm(a) == 0 {
+		if !geom.Finite(normals[f]) {
 			return nil, fmt.Errorf("nodes: %s has no area, so no normal", n.FaceName(f))
 		}
-		u := r3.Unit(a)
 		for _, c := range face.Corners {
-			sum[c] = r3.Add(sum[c], u)
+			sum[c] = r3.Add(sum[c], normals[f])
 		}
 	}
 	for i, s := range sum {

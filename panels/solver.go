@@ -86,7 +86,7 @@ func newSolver(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) *solver {
 	for i := range s.ltlDg {
 		s.ltlDg[i] = 1
 	}
-	for j, nb := range s.nbr {
+	for _, nb := range s.nbr {
 		if len(nb) == 0 {
 			continue
 		}
@@ -94,7 +94,6 @@ func newSolver(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) *solver {
 		for _, i := range nb {
 			s.ltlDg[i] += inv * inv
 		}
-		_ = j
 	}
 	return s
 }

@@ -88,24 +88,9 @@ func build(job *Job, open func(string) (io.ReadCloser, error), netPath string, b
 	if err != nil {
 		return err
 	}
-	vopt := geom.DefaultValidateOptions()
-	vopt.CoincidentTolMM = job.Net.MergeTolMM
-	topo, fd := geom.Validate(net, vopt)
-	var warnings []string
-	if job.Net.Reorient && len(fd.Misoriented) > 0 {
-		geom.Reorient(net, fd.Misoriented)
-		warnings = append(warnings, fmt.Sprintf("turned %d panels to a consistent orientation", len(fd.Misoriented)))
-		topo, fd = geom.Validate(net, vopt)
-	}
-	for _, w := range fd.Warnings {
-		warnings = append(warnings, w.Error())
-	}
-	if err := fd.Err(); err != nil {
-		printOthers(stderr, fd)
+	topo, warnings, err := checkNet(net, job.Net.MergeTolMM, job.Net.Reorient, stderr)
+	if err != nil {
 		return err
-	}
-	for _, w := range warnings {
-		fmt.Fprintln(stderr, "pqfab: warning:", w)
 	}
 
 	// Supports and planarization.
@@ -160,7 +145,7 @@ func build(job *Job, open func(string) (io.ReadCloser, error), netPath string, b
 	}
 	mat := panels.Material{Name: job.Panel.Material, ThicknessMM: job.Panel.ThicknessMM, DensityKgM3: job.Panel.DensityKgM3,
 		EdgeInsetMM: job.Panel.EdgeInsetMM, BoundaryBevelDeg: job.Panel.BoundaryBevelDeg}
-	flats, err := panels.Flatten(flat, topo, mat, panels.Labels(flat, bays, nodeLabels))
+	flats, parts, err := flatParts(flat, topo, mat, bays, nodeLabels)
 	if errors.Is(err, panels.ErrInsetTooLarge) {
 		return job.errorf("panel.edge_inset_mm", "%v", err)
 	} else if err != nil {
@@ -172,10 +157,6 @@ func build(job *Job, open func(string) (io.ReadCloser, error), netPath string, b
 	}
 
 	// Nesting.
-	parts := make([]nest.Part, len(flats))
-	for i, f := range flats {
-		parts[i] = nest.Part{Label: f.Label, Outline: f.Cut}
-	}
 	stocks := job.stocks()
 	bar := newProgress(stderr, bf.quiet, 1, "nest")
 	bar.set(0, fmt.Sprintf("nest: %d panels on %d stock sizes", len(parts), len(stocks)))
@@ -198,7 +179,7 @@ func build(job *Job, open func(string) (io.ReadCloser, error), netPath string, b
 	}
 
 	b := &export.Bundle{Title: job.Title, JobFile: job.file, NetFile: netPath, Settings: job.settings(), Warnings: warnings,
-		Net: flat, Topo: topo, Supports: fixed, Planarize: pres, TolMM: job.Flatness.TolMM,
+		Net: flat, Supports: fixed, Planarize: pres, TolMM: job.Flatness.TolMM,
 		Structure: st, Flats: flats, PanelTypes: ptypes, Stocks: stocks, Nesting: nres, Cost: job.cost(st, flats, nres, stocks)}
 	rep := export.BuildReport(b)
 	wbar := newProgress(stderr, bf.quiet, 5+len(rep.Sheets), "write")

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"pqfab/export"
 	"sort"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -82,12 +83,12 @@ func inspectNet(file string, net *geom.Net, topo *geom.Topology) (*inspection, e
 			in.BoundaryEdges++
 		}
 	}
-	in.BoundaryLengthM = round(topo.BoundaryLength(net)/1000, 3)
+	in.BoundaryLengthM = export.Round(topo.BoundaryLength(net)/1000, 3)
 	lo, hi := net.Bounds()
 	size := r3.Sub(hi, lo)
-	in.BoundsMinMM = [3]float64{round(lo.X, 1), round(lo.Y, 1), round(lo.Z, 1)}
-	in.BoundsMaxMM = [3]float64{round(hi.X, 1), round(hi.Y, 1), round(hi.Z, 1)}
-	in.SizeMM = [3]float64{round(size.X, 1), round(size.Y, 1), round(size.Z, 1)}
+	in.BoundsMinMM = [3]float64{export.Round(lo.X, 1), export.Round(lo.Y, 1), export.Round(lo.Z, 1)}
+	in.BoundsMaxMM = [3]float64{export.Round(hi.X, 1), export.Round(hi.Y, 1), export.Round(hi.Z, 1)}
+	in.SizeMM = [3]float64{export.Round(size.X, 1), export.Round(size.Y, 1), export.Round(size.Z, 1)}
 	for v, c := range topo.ValenceHistogram() {
 		if c > 0 {
 			in.Valence[fmt.Sprint(v)] = c
@@ -103,11 +104,11 @@ func inspectNet(file string, net *geom.Net, topo *geom.Topology) (*inspection, e
 		ratios[i] = p.Ratio * 100
 		flat[i] = p.Flatness
 	}
-	in.RatioPct = roundSpread(panels.SpreadOf(ratios), 4)
-	in.FlatnessMM = roundSpread(panels.SpreadOf(flat), 3)
+	in.RatioPct = export.RoundSpread(panels.SpreadOf(ratios), 4)
+	in.FlatnessMM = export.RoundSpread(panels.SpreadOf(flat), 3)
 	for _, f := range panels.Worst(pl, 10) {
 		in.Worst = append(in.Worst, worstPanel{Panel: net.Faces[f].ID, Line: net.Faces[f].Line,
-			FlatnessMM: round(pl[f].Flatness, 3), RatioPct: round(pl[f].Ratio*100, 4), GapMM: round(pl[f].DiagonalGap, 3)})
+			FlatnessMM: export.Round(pl[f].Flatness, 3), RatioPct: export.Round(pl[f].Ratio*100, 4), GapMM: export.Round(pl[f].DiagonalGap, 3)})
 	}
 	return in, nil
 }

@@ -34,22 +34,37 @@ func loadNet(path string, nf netFlags, stderr io.Writer) (*geom.Net, *geom.Topol
 	if err != nil {
 		return nil, nil, err
 	}
+	topo, _, err := checkNet(net, nf.tol, nf.reorient, stderr)
+	if err != nil {
+		return nil, nil, err
+	}
+	return net, topo, nil
+}
+
+// checkNet validates a net read from a file, turning flipped panels when
+// asked. It prints the warnings to stderr and returns them for reports;
+// on error it prints the problems after the first, which the error names.
+func checkNet(net *geom.Net, mergeTolMM float64, reorient bool, stderr io.Writer) (*geom.Topology, []string, error) {
 	opt := geom.DefaultValidateOptions()
-	opt.CoincidentTolMM = nf.tol
+	opt.CoincidentTolMM = mergeTolMM
 	topo, fd := geom.Validate(net, opt)
-	if nf.reorient && len(fd.Misoriented) > 0 {
+	var warnings []string
+	if reorient && len(fd.Misoriented) > 0 {
 		geom.Reorient(net, fd.Misoriented)
-		fmt.Fprintf(stderr, "pqfab: %s: turned %d panels to a consistent orientation\n", path, len(fd.Misoriented))
+		warnings = append(warnings, fmt.Sprintf("%s: turned %d panels to a consistent orientation", net.Source, len(fd.Misoriented)))
 		topo, fd = geom.Validate(net, opt)
 	}
 	for _, w := range fd.Warnings {
-		fmt.Fprintln(stderr, "pqfab: warning:", w)
+		warnings = append(warnings, w.Error())
 	}
 	if err := fd.Err(); err != nil {
 		printOthers(stderr, fd)
 		return nil, nil, err
 	}
-	return net, topo, nil
+	for _, w := range warnings {
+		fmt.Fprintln(stderr, "pqfab: warning:", w)
+	}
+	return topo, warnings, nil
 }
 
 // printOthers lists the problems after the first, which the error names.

@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"pqfab/export"
 
 	"pqfab/geom"
 	"pqfab/nodes"
@@ -72,7 +73,7 @@ type typeCount struct {
 
 func summarizeMembers(file string, axis string, s *nodes.Structure) *memberSummary {
 	sum := &memberSummary{Net: file, Axis: axis, Members: len(s.Members), Nodes: len(s.Nodes),
-		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), TwistNormalMax: round(s.TwistNormalDeg, 6)}
+		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), TwistNormalMax: export.Round(s.TwistNormalDeg, 6)}
 	tw := make([]float64, len(s.Members))
 	cut := make([]float64, len(s.Members))
 	counts := make([]int, len(twistBins))
@@ -92,8 +93,8 @@ func summarizeMembers(file string, axis string, s *nodes.Structure) *memberSumma
 		}
 		sum.TwistHistogram = append(sum.TwistHistogram, binCount{UpToDeg: up, Count: counts[b]})
 	}
-	sum.TwistDeg = roundSpread(panels.SpreadOf(tw), 6)
-	sum.CutLengthMM = roundSpread(panels.SpreadOf(cut), 1)
+	sum.TwistDeg = export.RoundSpread(panels.SpreadOf(tw), 6)
+	sum.CutLengthMM = export.RoundSpread(panels.SpreadOf(cut), 1)
 	order := make([]int, len(s.MemberTypes))
 	for i := range order {
 		order[i] = i
@@ -101,7 +102,7 @@ func summarizeMembers(file string, axis string, s *nodes.Structure) *memberSumma
 	sortByCount(order, func(i int) int { return len(s.MemberTypes[i].Members) })
 	for _, t := range order[:min(10, len(order))] {
 		ty := s.MemberTypes[t]
-		sum.TopTypes = append(sum.TopTypes, typeCount{Type: ty.Name, Count: len(ty.Members), CutLengthMM: round(s.Members[ty.Rep].CutLengthMM, 1)})
+		sum.TopTypes = append(sum.TopTypes, typeCount{Type: ty.Name, Count: len(ty.Members), CutLengthMM: export.Round(s.Members[ty.Rep].CutLengthMM, 1)})
 	}
 	return sum
 }

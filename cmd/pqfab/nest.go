@@ -28,9 +28,9 @@ func parseSheet(s string) (float64, float64, error) {
 	return wf, hf, nil
 }
 
-// flatParts lays the panels of a net flat and labels them.
-func flatParts(net *geom.Net, topo *geom.Topology, mat panels.Material, bays geom.Bays) ([]panels.Flat, []nest.Part, error) {
-	nodeLabels, _ := nodes.Labels(net, topo, bays)
+// flatParts lays the panels of a net flat, labels them by their bays and
+// returns them as parts to nest.
+func flatParts(net *geom.Net, topo *geom.Topology, mat panels.Material, bays geom.Bays, nodeLabels []string) ([]panels.Flat, []nest.Part, error) {
 	labels := panels.Labels(net, bays, nodeLabels)
 	flats, err := panels.Flatten(net, topo, mat, labels)
 	if err != nil {
@@ -73,7 +73,8 @@ func runNest(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 		return usagef("--bay: %v", err)
 	}
 	mat := panels.Material{Name: "panel", ThicknessMM: panels.DefaultThicknessMM, DensityKgM3: panels.DefaultDensityKgM3, EdgeInsetMM: *inset}
-	flats, parts, err := flatParts(net, topo, mat, bays)
+	nodeLabels, _ := nodes.Labels(net, topo, bays)
+	flats, parts, err := flatParts(net, topo, mat, bays, nodeLabels)
 	if err != nil {
 		return err
 	}

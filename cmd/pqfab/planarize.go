@@ -111,16 +111,16 @@ type panelFlatRow struct {
 
 func newPlanarizeReport(net *geom.Net, opt panels.PlanarizeOptions, res *panels.PlanarizeResult, secs float64) *planarizeReport {
 	r := &planarizeReport{Net: net.Source, TolMM: opt.TolMM, Converged: res.Converged, Iterations: res.Iterations,
-		Seconds: round(secs, 3), MaxMoveMM: round(res.MaxMoveMM, 3), RMSMoveMM: round(res.RMSMoveMM, 3),
-		FlatBefore: roundSpread(panels.SpreadOf(res.Before), 3), FlatAfter: roundSpread(panels.SpreadOf(res.After), 4),
+		Seconds: export.Round(secs, 3), MaxMoveMM: export.Round(res.MaxMoveMM, 3), RMSMoveMM: export.Round(res.RMSMoveMM, 3),
+		FlatBefore: export.RoundSpread(panels.SpreadOf(res.Before), 3), FlatAfter: export.RoundSpread(panels.SpreadOf(res.After), 4),
 		Caution: strings.ReplaceAll(caution, "\n", " ")}
 	for i, nd := range net.Nodes {
 		m := res.Moves[i]
-		r.Nodes = append(r.Nodes, nodeMove{ID: nd.ID, Support: opt.Fixed != nil && opt.Fixed[i], MoveMM: round(r3.Norm(m), 3),
-			Vector: [3]float64{round(m.X, 3), round(m.Y, 3), round(m.Z, 3)}})
+		r.Nodes = append(r.Nodes, nodeMove{ID: nd.ID, Support: opt.Fixed != nil && opt.Fixed[i], MoveMM: export.Round(r3.Norm(m), 3),
+			Vector: [3]float64{export.Round(m.X, 3), export.Round(m.Y, 3), export.Round(m.Z, 3)}})
 	}
 	for f, face := range net.Faces {
-		r.Panels = append(r.Panels, panelFlatRow{ID: face.ID, BeforeMM: round(res.Before[f], 3), AfterMM: round(res.After[f], 4)})
+		r.Panels = append(r.Panels, panelFlatRow{ID: face.ID, BeforeMM: export.Round(res.Before[f], 3), AfterMM: export.Round(res.After[f], 4)})
 	}
 	return r
 }

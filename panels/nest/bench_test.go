@@ -1,7 +1,6 @@
 package nest
 
 import (
-	"math"
 	"testing"
 
 	"pqfab/geom"
@@ -49,7 +48,6 @@ func TestWaveNestQuality(t *testing.T) {
 	if ratio > 1.5 {
 		t.Errorf("sheets/area bound %.3f", ratio)
 	}
-	_ = math.Inf
 }
 
 // BenchmarkNestWave10k: target ≤ 4 s; reports sheets/area bound.

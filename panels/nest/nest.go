@@ -95,8 +95,6 @@ const maxSkips = 400
 type orientation struct {
 	rot      float64
 	mirrored bool
-	shape    geom.Polygon // outline, turned
-	hull     geom.Polygon // its convex hull
 	grown    geom.Polygon // hull grown by half the spacing, from its lowest corner
 	negGrown geom.Polygon // −grown, from its lowest corner
 	lo, hi   geom.Vec2    // hull bounds

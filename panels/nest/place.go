@@ -64,7 +64,7 @@ func orientations(p geom.Polygon, s Stock) []orientation {
 			for i, v := range grown {
 				neg[i] = v.Scale(-1)
 			}
-			out = append(out, orientation{rot: a, mirrored: m, shape: shape, hull: hull,
+			out = append(out, orientation{rot: a, mirrored: m,
 				grown: grown, negGrown: startLowest(neg), lo: lo, hi: hi})
 		}
 	}
