@@ -2,6 +2,7 @@ package geom
 
 import (
 	"math"
+	"strconv"
 
 	"gonum.org/v1/gonum/spatial/r3"
 )
@@ -79,7 +80,7 @@ func (n *Net) FaceName(f int) string { return elemName("panel", n.Faces[f].ID, n
 
 func elemName(kind, id string, line int) string {
 	if line > 0 {
-		return kind + " " + id + " (line " + itoa(line) + ")"
+		return kind + " " + id + " (line " + strconv.Itoa(line) + ")"
 	}
 	return kind + " " + id
 }
