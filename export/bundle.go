@@ -2,6 +2,7 @@ package export
 
 import (
 	"math"
+	"strconv"
 
 	"pqfab/geom"
 	"pqfab/nodes"
@@ -67,8 +68,8 @@ func SheetName(i, n int) string { return "S-" + padNum(i+1, n) }
 func SheetFile(i, n int) string { return "sheet-" + padNum(i+1, n) + ".dxf" }
 
 func padNum(i, n int) string {
-	w := max(2, len(itoa(n)))
-	s := itoa(i)
+	w := max(2, len(strconv.Itoa(n)))
+	s := strconv.Itoa(i)
 	for len(s) < w {
 		s = "0" + s
 	}

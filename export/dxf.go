@@ -209,10 +209,10 @@ func WriteAssemblyDXF(w io.Writer, rep *Report) error {
 		}
 		add(func() error { return closedPoly(d, pts) })
 	}
-	if rep.Section.Width > 0 {
+	if rep.Section.WidthMM > 0 {
 		add(func() error { return useLayer(d, LayerPlanBar) })
 		for _, m := range rep.Members {
-			add(func() error { return closedPoly(d, barOutline(m, pos[m.NodeA], pos[m.NodeB], rep.Section.Width)) })
+			add(func() error { return closedPoly(d, barOutline(m, pos[m.NodeA], pos[m.NodeB], rep.Section.WidthMM)) })
 		}
 	}
 	add(func() error { return useLayer(d, Layer3DMember) })

@@ -229,7 +229,7 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 <tr><th>Stock sheets</th><td class="num">{{.R.Counts.Sheets}} ({{.R.Counts.Unplaced}} panels unplaced)</td></tr>
 <tr><th>Flatness before / after (max, mm)</th><td class="num">{{.R.Planarity.FlatBeforeMM.Max}} / {{.R.Planarity.FlatAfterMM.Max}} (tolerance {{.R.Planarity.ToleranceMM}})</td></tr>
 <tr><th>Largest / RMS node move (mm)</th><td class="num">{{.R.Planarity.MaxMoveMM}} / {{.R.Planarity.RMSMoveMM}}</td></tr>
-<tr><th>Largest member twist (°)</th><td class="num">{{.R.Planarity.MaxTwistDeg}} (normal axes: {{.R.Planarity.MaxTwistNormD}})</td></tr>
+<tr><th>Largest member twist (°)</th><td class="num">{{.R.Planarity.MaxTwistDeg}} (normal axes: {{.R.Planarity.MaxTwistNormalDeg}})</td></tr>
 </table>
 {{with .R.Warnings}}<h2>Warnings</h2><ul>{{range .}}<li>{{.}}</li>{{end}}</ul>{{end}}
 {{with .R.Cost}}<h2>Cost estimate ({{.Currency}})</h2><table><tr><th>Item</th><th>Quantity</th><th>Unit</th><th>Rate</th><th>Amount</th></tr>

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"fmt"
 	"image/color"
+	"math"
 	"strings"
 
 	"gonum.org/v1/plot"
@@ -71,13 +72,13 @@ func mix(a, b [3]float64, t float64) string {
 // angle, so neighbouring type numbers look different.
 func typeColour(i int) string {
 	h := float64(i) * 137.508
-	h -= 360 * float64(int(h/360))
+	h = math.Mod(h, 360)
 	return hsl(h, 0.55, 0.62)
 }
 
 func hsl(h, s, l float64) string {
-	c := (1 - abs(2*l-1)) * s
-	x := c * (1 - abs(modf(h/60, 2)-1))
+	c := (1 - math.Abs(2*l-1)) * s
+	x := c * (1 - math.Abs(math.Mod(h/60, 2)-1))
 	m := l - c/2
 	var r, g, b float64
 	switch {
@@ -96,12 +97,3 @@ func hsl(h, s, l float64) string {
 	}
 	return fmt.Sprintf("#%02x%02x%02x", int((r+m)*255+0.5), int((g+m)*255+0.5), int((b+m)*255+0.5))
 }
-
-func abs(x float64) float64 {
-	if x < 0 {
-		return -x
-	}
-	return x
-}
-
-func modf(x, m float64) float64 { return x - m*float64(int(x/m)) }

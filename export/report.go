@@ -3,7 +3,6 @@ package export
 import (
 	"encoding/json"
 	"io"
-	"strconv"
 
 	"gonum.org/v1/gonum/spatial/r3"
 
@@ -20,8 +19,6 @@ const (
 	areaDigits   = 4
 	weightDigits = 2
 )
-
-func itoa(i int) string { return strconv.Itoa(i) }
 
 // Report is report.json: everything, machine-readable. Lengths mm, angles
 // degrees, areas m², weights kg.
@@ -56,8 +53,8 @@ type Report struct {
 
 // Section is the members' cross-section (mm).
 type Section struct {
-	Width float64 `json:"width"`
-	Depth float64 `json:"depth"`
+	WidthMM float64 `json:"width"`
+	DepthMM float64 `json:"depth"`
 }
 
 // StockInfo is what the cut sheets need of a stock size.
@@ -80,15 +77,15 @@ type Counts struct {
 
 // Planarity sums up the planarization.
 type Planarity struct {
-	ToleranceMM   float64       `json:"tolerance_mm"`
-	Converged     bool          `json:"converged"`
-	Iterations    int           `json:"iterations"`
-	MaxMoveMM     float64       `json:"max_move_mm"`
-	RMSMoveMM     float64       `json:"rms_move_mm"`
-	FlatBeforeMM  panels.Spread `json:"flatness_before_mm"`
-	FlatAfterMM   panels.Spread `json:"flatness_after_mm"`
-	MaxTwistDeg   float64       `json:"max_abs_twist_deg"`
-	MaxTwistNormD float64       `json:"max_abs_twist_normal_axes_deg"`
+	ToleranceMM       float64       `json:"tolerance_mm"`
+	Converged         bool          `json:"converged"`
+	Iterations        int           `json:"iterations"`
+	MaxMoveMM         float64       `json:"max_move_mm"`
+	RMSMoveMM         float64       `json:"rms_move_mm"`
+	FlatBeforeMM      panels.Spread `json:"flatness_before_mm"`
+	FlatAfterMM       panels.Spread `json:"flatness_after_mm"`
+	MaxTwistDeg       float64       `json:"max_abs_twist_deg"`
+	MaxTwistNormalDeg float64       `json:"max_abs_twist_normal_axes_deg"`
 }
 
 // NodeRow is one node.
@@ -225,14 +222,14 @@ func BuildReport(b *Bundle) *Report {
 		Settings: b.Settings, Warnings: append([]string{}, b.Warnings...),
 		Sheets: []SheetRow{}, Unplaced: []UnplacedRow{}, Stocks: []StockRow{}}
 	nodeLabel := func(i int) string { return s.Nodes[i].Label }
-	rep.Section = Section{Width: s.Section.WidthMM, Depth: s.Section.DepthMM}
+	rep.Section = Section{WidthMM: s.Section.WidthMM, DepthMM: s.Section.DepthMM}
 	rep.Counts = Counts{Nodes: len(n.Nodes), Members: len(s.Members), Panels: len(n.Faces),
 		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), PanelTypes: len(b.PanelTypes)}
 	pl := b.Planarize
 	rep.Planarity = Planarity{ToleranceMM: b.TolMM, Converged: pl.Converged, Iterations: pl.Iterations,
 		MaxMoveMM: r(pl.MaxMoveMM, 3), RMSMoveMM: r(pl.RMSMoveMM, 3),
 		FlatBeforeMM: spread(panels.SpreadOf(pl.Before), 3), FlatAfterMM: spread(panels.SpreadOf(pl.After), 4),
-		MaxTwistDeg: r(nodes.MaxAbsTwist(s.Members), angleDigits), MaxTwistNormD: r(s.TwistNormalDeg, angleDigits)}
+		MaxTwistDeg: r(nodes.MaxAbsTwist(s.Members), angleDigits), MaxTwistNormalDeg: r(s.TwistNormalDeg, angleDigits)}
 	for i, nd := range s.Nodes {
 		row := NodeRow{Label: nd.Label, ID: n.Nodes[i].ID, Pos: vec(n.Nodes[i].Pos, lenDigits), Axis: vec(nd.Axis, 6),
 			Valence: nd.Valence, Type: s.NodeTypes[nd.Type].Name, Support: b.Supports[i],
@@ -278,15 +275,15 @@ func BuildReport(b *Bundle) *Report {
 		rep.Panels = append(rep.Panels, row)
 	}
 	for _, t := range s.MemberTypes {
-		row := TypeRow{Name: t.Name, Count: len(t.Members), Size: r(s.Members[t.Rep].CutLengthMM, lenDigits)}
-		for _, i := range t.Members {
+		row := TypeRow{Name: t.Name, Count: len(t.Parts), Size: r(s.Members[t.Rep].CutLengthMM, lenDigits)}
+		for _, i := range t.Parts {
 			row.Parts = append(row.Parts, s.Members[i].Label)
 		}
 		rep.MemberTypes = append(rep.MemberTypes, row)
 	}
 	for _, t := range s.NodeTypes {
-		row := TypeRow{Name: t.Name, Count: len(t.Members), Size: float64(s.Nodes[t.Rep].Valence)}
-		for _, i := range t.Members {
+		row := TypeRow{Name: t.Name, Count: len(t.Parts), Size: float64(s.Nodes[t.Rep].Valence)}
+		for _, i := range t.Parts {
 			row.Parts = append(row.Parts, s.Nodes[i].Label)
 		}
 		rep.NodeTypes = append(rep.NodeTypes, row)

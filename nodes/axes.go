@@ -1,8 +1,6 @@
 package nodes
 
 import (
-	"fmt"
-
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
@@ -36,7 +34,7 @@ func NormalAxes(n *geom.Net) ([]geom.Vec, error) {
 	sum := make([]geom.Vec, len(n.Nodes))
 	for f, face := range n.Faces {
 		if !geom.Finite(normals[f]) {
-			return nil, fmt.Errorf("nodes: %s has no area, so no normal", n.FaceName(f))
+			return nil, faceErr(n, f, "has no area, so no normal")
 		}
 		for _, c := range face.Corners {
 			sum[c] = r3.Add(sum[c], normals[f])
@@ -44,7 +42,7 @@ func NormalAxes(n *geom.Net) ([]geom.Vec, error) {
 	}
 	for i, s := range sum {
 		if r3.Norm(s) < degenerateUnit {
-			return nil, fmt.Errorf("nodes: %s: its panels' normals cancel or it has no panel, so it has no axis", n.NodeName(i))
+			return nil, nodeErr(n, i, "its panels' normals cancel or it has no panel, so it has no axis")
 		}
 		sum[i] = r3.Unit(s)
 	}
@@ -64,7 +62,7 @@ func NormalAxes(n *geom.Net) ([]geom.Vec, error) {
 // and the linearization renewed a few times.
 func LeastTwistAxes(n *geom.Net, topo *geom.Topology, normals []geom.Vec, stiffness float64) ([]geom.Vec, error) {
 	if !(stiffness > 0) {
-		return nil, fmt.Errorf("nodes: least-twist stiffness %g must be positive", stiffness)
+		return nil, geom.FieldErrorf("AxisStiffness", "%g must be more than 0", stiffness)
 	}
 	axes := append([]geom.Vec(nil), normals...)
 	m := make([]geom.Vec, len(topo.Edges))
@@ -118,7 +116,7 @@ func LeastTwistAxes(n *geom.Net, topo *geom.Topology, normals []geom.Vec, stiffn
 		for i := range axes {
 			a := geom.Vec{X: cur[3*i] + dx[3*i], Y: cur[3*i+1] + dx[3*i+1], Z: cur[3*i+2] + dx[3*i+2]}
 			if r3.Norm(a) == 0 {
-				return nil, fmt.Errorf("nodes: %s: least-twist axis vanished", n.NodeName(i))
+				return nil, nodeErr(n, i, "its least-twist axis vanished")
 			}
 			axes[i] = r3.Unit(a)
 		}

@@ -12,8 +12,9 @@ func ExampleBuild() {
 	net, _ := samples.Make("dome", 300)
 	topo := geom.BuildTopology(net)
 	bays, _ := geom.NewBays(net.Positions(), 6000, 6000)
-	s, err := nodes.Build(net, topo, nodes.Options{Axis: nodes.AxisLeastTwist, HubRadiusMM: 60, Bays: bays,
-		Types: nodes.TypeOptions{LengthTolMM: 1, AngleTolDeg: 0.5}})
+	opt := nodes.DefaultOptions()
+	opt.Axis, opt.HubRadiusMM, opt.Bays = nodes.AxisLeastTwist, 60, bays
+	s, err := nodes.Build(net, topo, opt)
 	if err != nil {
 		fmt.Println(err)
 		return

@@ -1,7 +1,6 @@
 package nodes
 
 import (
-	"fmt"
 	"math"
 	"sort"
 
@@ -38,7 +37,7 @@ func Hubs(n *geom.Net, topo *geom.Topology, axes []geom.Vec, ms []Member, labels
 		sort.Slice(es, func(a, b int) bool { return ms[es[a]].Label < ms[es[b]].Label })
 		nd := Node{Label: labels[i], Axis: axes[i], Valence: len(es)}
 		if len(es) == 0 {
-			return nil, fmt.Errorf("nodes: %s belongs to no member", n.NodeName(i))
+			return nil, nodeErr(n, i, "belongs to no member")
 		}
 		dirs := make([]geom.Vec, len(es))
 		for k, e := range es {
@@ -46,7 +45,7 @@ func Hubs(n *geom.Net, topo *geom.Topology, axes []geom.Vec, ms []Member, labels
 		}
 		fr, err := geom.PlaneFrame(n.Nodes[i].Pos, axes[i], dirs[0], degenerateUnit)
 		if err != nil {
-			return nil, fmt.Errorf("nodes: %s: its first member runs along its axis", n.NodeName(i))
+			return nil, nodeErr(n, i, "its first member runs along its axis")
 		}
 		nd.Frame = fr
 		for k, d := range dirs {

@@ -1,7 +1,6 @@
 package nodes
 
 import (
-	"errors"
 	"fmt"
 	"math"
 
@@ -47,6 +46,14 @@ type MemberOptions struct {
 	HubRadiusMM float64 // 0: members run to the node point
 }
 
+// Validate checks the hub radius's range.
+func (o MemberOptions) Validate() error {
+	if !(o.HubRadiusMM >= 0) || o.HubRadiusMM > MaxHubRadiusMM {
+		return geom.FieldErrorf("HubRadiusMM", "%g must be between 0 and %g mm", o.HubRadiusMM, MaxHubRadiusMM)
+	}
+	return nil
+}
+
 // Members computes every member of the net from node axes, to the
 // definitions in the design notes: u_i = unit(a_i − (a_i·e)e), twist =
 // signed angle from u_A to u_B about e, frame x = e, z = unit(u_A + u_B),
@@ -57,8 +64,8 @@ type MemberOptions struct {
 // so a square cut reads mitre 0, bevel 0; mitre = atan2(n·y, n·x), bevel =
 // atan2(n·z, n·x).
 func Members(n *geom.Net, topo *geom.Topology, axes []geom.Vec, opt MemberOptions) ([]Member, error) {
-	if !(opt.HubRadiusMM >= 0) {
-		return nil, fmt.Errorf("nodes: hub radius %g mm must be zero or more", opt.HubRadiusMM)
+	if err := opt.Validate(); err != nil {
+		return nil, err
 	}
 	normals := faceNormals(n)
 	ms := make([]Member, len(topo.Edges))
@@ -66,22 +73,21 @@ func Members(n *geom.Net, topo *geom.Topology, axes []geom.Vec, opt MemberOption
 		pa, pb := n.Nodes[ed.A].Pos, n.Nodes[ed.B].Pos
 		d := r3.Sub(pb, pa)
 		L := r3.Norm(d)
-		name := memberName(n, ed.A, ed.B)
 		if L == 0 {
-			return nil, fmt.Errorf("nodes: %s has zero length", name)
+			return nil, memberErr(n, topo, k, nil, "has zero length")
 		}
 		e := r3.Scale(1/L, d)
 		ua, err := across(axes[ed.A], e)
 		if err != nil {
-			return nil, fmt.Errorf("nodes: %s: axis of node %s %v", name, n.Nodes[ed.A].ID, err)
+			return nil, memberErr(n, topo, k, nil, "the axis of node %s %v", n.Nodes[ed.A].ID, err)
 		}
 		ub, err := across(axes[ed.B], e)
 		if err != nil {
-			return nil, fmt.Errorf("nodes: %s: axis of node %s %v", name, n.Nodes[ed.B].ID, err)
+			return nil, memberErr(n, topo, k, nil, "the axis of node %s %v", n.Nodes[ed.B].ID, err)
 		}
 		z := r3.Add(ua, ub)
 		if r3.Norm(z) < degenerateUnit {
-			return nil, fmt.Errorf("nodes: %s: twisted half a turn, no top face", name)
+			return nil, memberErr(n, topo, k, nil, "twisted half a turn: no top face")
 		}
 		z = r3.Unit(z)
 		fr := geom.Frame{Origin: r3.Scale(0.5, r3.Add(pa, pb)), X: e, Z: z, Y: r3.Cross(z, e)}
@@ -90,7 +96,7 @@ func Members(n *geom.Net, topo *geom.Topology, axes []geom.Vec, opt MemberOption
 		m.B = endCut(ed.B, axes[ed.B], r3.Scale(-1, e), fr, opt.HubRadiusMM)
 		m.CutLengthMM = L - m.A.SetbackMM - m.B.SetbackMM
 		if m.CutLengthMM <= 0 {
-			return nil, fmt.Errorf("nodes: %s: %w: radius %g mm, member %.1f mm long", name, ErrHubTooLarge, opt.HubRadiusMM, L)
+			return nil, memberErr(n, topo, k, ErrHubTooLarge, "%v: hub radius %g mm, member %.1f mm long", ErrHubTooLarge, opt.HubRadiusMM, L)
 		}
 		if len(ed.Faces) == 2 {
 			f1, f2 := ed.Faces[0], ed.Faces[1]
@@ -103,18 +109,6 @@ func Members(n *geom.Net, topo *geom.Topology, axes []geom.Vec, opt MemberOption
 		ms[k] = m
 	}
 	return ms, nil
-}
-
-// ErrHubTooLarge is wrapped by errors for members the hubs use up.
-var ErrHubTooLarge = errors.New("the hubs use up the member")
-
-// memberName names a member by its nodes and their lines in the net file.
-func memberName(n *geom.Net, a, b int) string {
-	na, nb := n.Nodes[a], n.Nodes[b]
-	if na.Line > 0 && nb.Line > 0 {
-		return fmt.Sprintf("member %s–%s (%s lines %d, %d)", na.ID, nb.ID, n.Source, na.Line, nb.Line)
-	}
-	return fmt.Sprintf("member %s–%s", na.ID, nb.ID)
 }
 
 // across returns unit(a − (a·e)e), the axis seen along the member.

@@ -3,6 +3,7 @@ package nodes
 import (
 	"math"
 	"math/rand/v2"
+	"slices"
 	"strings"
 	"testing"
 
@@ -94,45 +95,59 @@ func TestPolyhedraDihedral(t *testing.T) {
 }
 
 // TestHyparTwist: a strip of the hyperbolic paraboloid z = xy/c along its
-// rulings x = x0, with the surface normals N = (−y/c, −x0/c, 1) as axes.
-// Along the ruling e ∝ (0, 1, x0/c) and N·e = 0, so u = N/|N|. Writing
-// N = b − (y/c) x̂ with b = (0, −x0/c, 1) ⊥ x̂, |b| = β = √(1 + x0²/c²), the
-// normal turns about e by θ(y) = −atan(y/(cβ)) (the sign of the turn about
-// e = b̂ × x̂ direction). So the twist of the member from y0 to y1 is
-// atan(y0/(cβ)) − atan(y1/(cβ)) about e ∝ +y, up to the orientation
-// of (b̂, x̂, ê): we check the magnitude and that the sign flips with c.
+// ruling x = x0, with the surface normals N = (−y/c, −x0/c, 1) as axes.
+// Along the ruling e = unit(0, 1, x0/c) and N·e = 0, so u = N/|N|. Write
+// N = b − s x̂ with s = y/c, b = (0, −x0/c, 1) ⊥ x̂ and |b| = β =
+// √(1 + x0²/c²). Then b × x̂ = (0, 1, x0/c) = β e, so b̂ × x̂ = e and the
+// frame (b̂, x̂, e) is right-handed: u(y) makes the angle atan(s/β) with b̂
+// turning towards −x̂, which is a turn of −atan(s/β) about e. The twist of
+// the member from y0 to y1 (the signed angle from u(y0) to u(y1) about e)
+// is therefore exactly atan(y0/(cβ)) − atan(y1/(cβ)). Reading the member
+// from its other end changes both the direction of e and the order of
+// the axes, so the twist has no sign ambiguity.
 func TestHyparTwist(t *testing.T) {
-	for _, c := range []float64{20000, -35000} {
-		for _, x0 := range []float64{0, 3000, -4500} {
-			y0, y1 := 1000.0, 2500.0
-			z := func(x, y float64) float64 { return x * y / c }
-			n := &geom.Net{Source: "hypar"}
-			for _, p := range [][2]float64{{x0, y0}, {x0 + 1500, y0}, {x0 + 1500, y1}, {x0, y1}} {
-				n.Nodes = append(n.Nodes, geom.Node{ID: "n", Pos: geom.Vec{X: p[0], Y: p[1], Z: z(p[0], p[1])}})
-			}
-			n.Faces = []geom.Face{{ID: "f", Corners: []int{0, 1, 2, 3}}}
-			topo := geom.BuildTopology(n)
-			axes := make([]geom.Vec, 4)
-			for i, nd := range n.Nodes {
-				axes[i] = r3.Unit(geom.Vec{X: -nd.Pos.Y / c, Y: -nd.Pos.X / c, Z: 1})
-			}
-			ms, err := Members(n, topo, axes, MemberOptions{})
-			if err != nil {
-				t.Fatal(err)
-			}
-			beta := math.Sqrt(1 + x0*x0/(c*c))
-			want := deg(math.Atan(y1/(c*beta)) - math.Atan(y0/(c*beta)))
-			for _, m := range ms {
-				e := topo.Edges[m.Edge]
-				if n.Nodes[e.A].Pos.X != x0 || n.Nodes[e.B].Pos.X != x0 {
-					continue // only the ruling at x0
+	for _, reversed := range []bool{false, true} {
+		for _, c := range []float64{20000, -35000} {
+			for _, x0 := range []float64{0, 3000, -4500} {
+				y0, y1 := 1000.0, 2500.0
+				z := func(x, y float64) float64 { return x * y / c }
+				n := &geom.Net{Source: "hypar"}
+				corners := [][2]float64{{x0, y0}, {x0 + 1500, y0}, {x0 + 1500, y1}, {x0, y1}}
+				face := []int{0, 1, 2, 3}
+				if reversed {
+					// Nodes stored in the opposite order: the member on the
+					// ruling then runs from y1 to y0.
+					slices.Reverse(corners)
+					face = []int{3, 2, 1, 0}
 				}
-				got := m.TwistDeg
-				if n.Nodes[e.A].Pos.Y > n.Nodes[e.B].Pos.Y {
-					got = -got // member runs from y1 to y0
+				for _, p := range corners {
+					n.Nodes = append(n.Nodes, geom.Node{ID: "n", Pos: geom.Vec{X: p[0], Y: p[1], Z: z(p[0], p[1])}})
 				}
-				if math.Abs(math.Abs(got)-math.Abs(want)) > 1e-9 || math.Signbit(got) == math.Signbit(want) {
-					t.Errorf("c=%g x0=%g: twist %.12f° want %.12f° (opposite sign by the orientation of e)", c, x0, got, -want)
+				n.Faces = []geom.Face{{ID: "f", Corners: face}}
+				topo := geom.BuildTopology(n)
+				axes := make([]geom.Vec, 4)
+				for i, nd := range n.Nodes {
+					axes[i] = r3.Unit(geom.Vec{X: -nd.Pos.Y / c, Y: -nd.Pos.X / c, Z: 1})
+				}
+				ms, err := Members(n, topo, axes, MemberOptions{})
+				if err != nil {
+					t.Fatal(err)
+				}
+				beta := math.Sqrt(1 + x0*x0/(c*c))
+				want := deg(math.Atan(y0/(c*beta)) - math.Atan(y1/(c*beta)))
+				checked := 0
+				for _, m := range ms {
+					e := topo.Edges[m.Edge]
+					if n.Nodes[e.A].Pos.X != x0 || n.Nodes[e.B].Pos.X != x0 {
+						continue // only the ruling at x0
+					}
+					checked++
+					if got := m.TwistDeg; math.Abs(got-want) > 1e-9 {
+						t.Errorf("c=%g x0=%g: twist %.12f° want %.12f°", c, x0, got, want)
+					}
+				}
+				if checked != 1 {
+					t.Errorf("c=%g x0=%g: %d members on the ruling, want 1", c, x0, checked)
 				}
 			}
 		}
@@ -180,15 +195,15 @@ func TestHubSetback(t *testing.T) {
 func TestLabelsStable(t *testing.T) {
 	n, _ := samples.Make("wave", 800)
 	bays, _ := geom.NewBays(n.Positions(), 6000, 6000)
-	s1, err := Build(n, topoOf(t, n), Options{Bays: bays, Types: TypeOptions{1, 0.5}})
+	s1, err := Build(n, topoOf(t, n), testOptions(AxisNormal, 0, bays))
 	if err != nil {
 		t.Fatal(err)
 	}
-	s2, _ := Build(n, topoOf(t, n), Options{Bays: bays, Types: TypeOptions{1, 0.5}})
+	s2, _ := Build(n, topoOf(t, n), testOptions(AxisNormal, 0, bays))
 	m := n.Clone()
 	rng := rand.New(rand.NewPCG(9, 9))
 	rng.Shuffle(len(m.Faces), func(i, j int) { m.Faces[i], m.Faces[j] = m.Faces[j], m.Faces[i] })
-	s3, err := Build(m, topoOf(t, m), Options{Bays: bays, Types: TypeOptions{1, 0.5}})
+	s3, err := Build(m, topoOf(t, m), testOptions(AxisNormal, 0, bays))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -225,14 +240,14 @@ func TestLabelsStable(t *testing.T) {
 func TestTypes(t *testing.T) {
 	n, _ := samples.Make("canopy", 96) // 12 × 8 panels
 	bays, _ := geom.NewBays(n.Positions(), 6000, 6000)
-	s, err := Build(n, topoOf(t, n), Options{Axis: AxisLeastTwist, HubRadiusMM: 50, Bays: bays, Types: TypeOptions{1, 0.5}})
+	s, err := Build(n, topoOf(t, n), testOptions(AxisLeastTwist, 50, bays))
 	if err != nil {
 		t.Fatal(err)
 	}
 	seen := make([]int, len(s.Members))
 	prev := 0.0
 	for ti, ty := range s.MemberTypes {
-		for _, i := range ty.Members {
+		for _, i := range ty.Parts {
 			seen[i]++
 			if s.Members[i].Type != ti {
 				t.Fatalf("member %d type %d, listed in %d", i, s.Members[i].Type, ti)
@@ -264,7 +279,7 @@ func benchBuild(b *testing.B, axis AxisMethod) {
 	bays, _ := geom.NewBays(n.Positions(), 6000, 6000)
 	b.ReportAllocs()
 	for b.Loop() {
-		if _, err := Build(n, topo, Options{Axis: axis, HubRadiusMM: 50, Bays: bays, Types: TypeOptions{1, 0.5}}); err != nil {
+		if _, err := Build(n, topo, testOptions(axis, 50, bays)); err != nil {
 			b.Fatal(err)
 		}
 	}
@@ -274,3 +289,10 @@ func benchBuild(b *testing.B, axis AxisMethod) {
 // least-twist ≤ 2 s; ≤ 300 MB.
 func BenchmarkStructure100kNormal(b *testing.B)     { benchBuild(b, AxisNormal) }
 func BenchmarkStructure100kLeastTwist(b *testing.B) { benchBuild(b, AxisLeastTwist) }
+
+// testOptions returns the default options with the given axes, hub and bays.
+func testOptions(axis AxisMethod, hubMM float64, bays geom.Bays) Options {
+	o := DefaultOptions()
+	o.Axis, o.HubRadiusMM, o.Bays = axis, hubMM, bays
+	return o
+}

@@ -1,7 +1,6 @@
 package nodes
 
 import (
-	"fmt"
 	"math"
 
 	"pqfab/geom"
@@ -17,6 +16,20 @@ type Options struct {
 	Types         TypeOptions
 }
 
+// Member section defaults (mm): a common timber gridshell lath size,
+// for drawings only.
+const (
+	DefaultSectionWidthMM = 60.0
+	DefaultSectionDepthMM = 120.0
+)
+
+// DefaultOptions returns normal axes, no hub, the default section, no
+// bays and the default type tolerances.
+func DefaultOptions() Options {
+	return Options{Axis: AxisNormal, Section: Section{WidthMM: DefaultSectionWidthMM, DepthMM: DefaultSectionDepthMM},
+		Types: TypeOptions{LengthTolMM: DefaultTypeLengthTolMM, AngleTolDeg: DefaultTypeAngleTolDeg}}
+}
+
 // Structure is the result: nodes, members and their types.
 type Structure struct {
 	Nodes       []Node
@@ -29,8 +42,61 @@ type Structure struct {
 	Section        Section
 }
 
-// Build computes axes, members, hubs, labels and types for a net.
+// MaxHubRadiusMM and MaxSectionMM bound the sizes an option may take
+// (10 m): larger values are a unit mistake.
+const (
+	MaxHubRadiusMM = 1e4
+	MaxSectionMM   = 1e4
+)
+
+// Validate checks every option's range and returns a *geom.FieldError
+// naming the first bad field.
+func (o Options) Validate() error {
+	switch o.Axis {
+	case AxisNormal, AxisLeastTwist, "":
+	default:
+		return geom.FieldErrorf("Axis", "%q: want normal or least-twist", quote(string(o.Axis)))
+	}
+	if !(o.AxisStiffness >= 0) || math.IsInf(o.AxisStiffness, 0) {
+		return geom.FieldErrorf("AxisStiffness", "%g must be zero or more", o.AxisStiffness)
+	}
+	if err := (MemberOptions{HubRadiusMM: o.HubRadiusMM}).Validate(); err != nil {
+		return err
+	}
+	if !(o.Section.WidthMM > 0) || o.Section.WidthMM > MaxSectionMM {
+		return geom.FieldErrorf("Section.WidthMM", "%g must be more than 0 and at most %g mm", o.Section.WidthMM, MaxSectionMM)
+	}
+	if !(o.Section.DepthMM > 0) || o.Section.DepthMM > MaxSectionMM {
+		return geom.FieldErrorf("Section.DepthMM", "%g must be more than 0 and at most %g mm", o.Section.DepthMM, MaxSectionMM)
+	}
+	return o.Types.Validate()
+}
+
+// Validate checks the type tolerances.
+func (t TypeOptions) Validate() error {
+	if !(t.LengthTolMM >= 0) || t.LengthTolMM > MaxTypeLengthTolMM {
+		return geom.FieldErrorf("Types.LengthTolMM", "%g must be between 0 and %g mm", t.LengthTolMM, MaxTypeLengthTolMM)
+	}
+	if !(t.AngleTolDeg >= 0) || t.AngleTolDeg > MaxTypeAngleTolDeg {
+		return geom.FieldErrorf("Types.AngleTolDeg", "%g must be between 0 and %g°", t.AngleTolDeg, MaxTypeAngleTolDeg)
+	}
+	return nil
+}
+
+// quote shortens a value for a message: at most 32 characters.
+func quote(s string) string {
+	if r := []rune(s); len(r) > 32 {
+		return string(r[:32]) + "…"
+	}
+	return s
+}
+
+// Build computes axes, members, hubs, labels and types for a net. It
+// checks opt first (Options.Validate).
 func Build(n *geom.Net, topo *geom.Topology, opt Options) (*Structure, error) {
+	if err := opt.Validate(); err != nil {
+		return nil, err
+	}
 	normals, err := NormalAxes(n)
 	if err != nil {
 		return nil, err
@@ -46,8 +112,6 @@ func Build(n *geom.Net, topo *geom.Topology, opt Options) (*Structure, error) {
 		if axes, err = LeastTwistAxes(n, topo, normals, k); err != nil {
 			return nil, err
 		}
-	default:
-		return nil, fmt.Errorf("nodes: unknown axis method %q (want normal or least-twist)", opt.Axis)
 	}
 	mopt := MemberOptions{HubRadiusMM: opt.HubRadiusMM}
 	ms, err := Members(n, topo, axes, mopt)
@@ -71,10 +135,10 @@ func Build(n *geom.Net, topo *geom.Topology, opt Options) (*Structure, error) {
 	if s.Nodes, err = Hubs(n, topo, axes, ms, nodeLabels); err != nil {
 		return nil, err
 	}
-	if s.MemberTypes, err = MemberTypes(ms, opt.Types); err != nil {
+	if s.MemberTypes, err = GroupMembers(ms, opt.Types); err != nil {
 		return nil, err
 	}
-	s.NodeTypes = NodeTypes(s.Nodes, opt.Types)
+	s.NodeTypes = GroupNodes(s.Nodes, opt.Types)
 	return s, nil
 }
 

@@ -9,10 +9,13 @@ import (
 	"pqfab/geom"
 )
 
-// Type tolerances.
+// Type tolerances: defaults, and the largest values accepted (beyond
+// them "one type" would mean nothing).
 const (
 	DefaultTypeLengthTolMM = 1.0 // cut lengths within 1 mm are one type
 	DefaultTypeAngleTolDeg = 0.5 // end angles within 0.5° are one type
+	MaxTypeLengthTolMM     = 1000.0
+	MaxTypeAngleTolDeg     = 45.0
 )
 
 // TypeOptions sets the tolerances for member and node types.
@@ -23,9 +26,9 @@ type TypeOptions struct {
 
 // Type is a group of congruent parts.
 type Type struct {
-	Name    string // MT-001, NT-001
-	Members []int  // parts of this type (member or node indices), ascending
-	Rep     int    // the part the others were compared with
+	Name  string // MT-001, NT-001
+	Parts []int  // member or node indices of the parts of this type, ascending
+	Rep   int    // the part the others were compared with
 }
 
 // memberSig is what member types compare: cut length, twist, and the end
@@ -63,11 +66,11 @@ func within(a, b *[6]float64, tol float64) bool {
 	return true
 }
 
-// MemberTypes groups members into types and sets each member's Type.
+// GroupMembers groups members into types and sets each member's Type.
 // Types are numbered by cut length, shortest first (MT-001, …).
-func MemberTypes(ms []Member, tol TypeOptions) ([]Type, error) {
-	if !(tol.LengthTolMM >= 0) || !(tol.AngleTolDeg >= 0) {
-		return nil, fmt.Errorf("nodes: type tolerances must be zero or more")
+func GroupMembers(ms []Member, tol TypeOptions) ([]Type, error) {
+	if err := tol.Validate(); err != nil {
+		return nil, err
 	}
 	keys := make([]float64, len(ms))
 	sigs := make([]memberSig, len(ms))
@@ -77,7 +80,7 @@ func MemberTypes(ms []Member, tol TypeOptions) ([]Type, error) {
 	}
 	groups := group(keys, tol.LengthTolMM, func(a, b int) bool { return sameMember(&sigs[a], &sigs[b], tol) })
 	for t, g := range groups {
-		for _, i := range g.Members {
+		for _, i := range g.Parts {
 			ms[i].Type = t
 		}
 	}
@@ -124,10 +127,10 @@ func sameNode(p, q [][2]float64, tol float64) bool {
 	return false
 }
 
-// NodeTypes groups nodes with the same valence and hub angles within the
+// GroupNodes groups nodes with the same valence and hub angles within the
 // angle tolerance and sets each node's Type. Types are numbered by
 // valence, then by the lowest arm elevation.
-func NodeTypes(nds []Node, tol TypeOptions) []Type {
+func GroupNodes(nds []Node, tol TypeOptions) []Type {
 	sigs := make([][][2]float64, len(nds))
 	keys := make([]float64, len(nds))
 	for i, nd := range nds {
@@ -141,7 +144,7 @@ func NodeTypes(nds []Node, tol TypeOptions) []Type {
 	}
 	groups := group(keys, tol.AngleTolDeg, func(a, b int) bool { return sameNode(sigs[a], sigs[b], tol.AngleTolDeg) })
 	for t, g := range groups {
-		for _, i := range g.Members {
+		for _, i := range g.Parts {
 			nds[i].Type = t
 		}
 	}
@@ -156,7 +159,7 @@ func group(keys []float64, keyTol float64, same func(a, b int) bool) []Type {
 	for g, members := range gs {
 		sorted := slices.Clone(members)
 		slices.Sort(sorted)
-		out[g] = Type{Rep: members[0], Members: sorted}
+		out[g] = Type{Rep: members[0], Parts: sorted}
 	}
 	return out
 }

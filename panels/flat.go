@@ -10,23 +10,6 @@ import (
 	"pqfab/geom"
 )
 
-// Panel material defaults (float glass; common practice values).
-const (
-	DefaultThicknessMM    = 10.0
-	DefaultDensityKgM3    = 2500.0 // soda-lime glass, common practice
-	DefaultEdgeInsetMM    = 0.0
-	DefaultBoundaryBevelD = 0.0
-)
-
-// Material is what panels are cut from.
-type Material struct {
-	Name             string
-	ThicknessMM      float64
-	DensityKgM3      float64
-	EdgeInsetMM      float64 // each edge moved inward by this much for the cut outline
-	BoundaryBevelDeg float64 // edge bevel on the net's boundary
-}
-
 // Flat is one panel laid flat: its plane, outlines and the numbers a
 // workshop and a site need.
 type Flat struct {
@@ -64,8 +47,8 @@ type Diagonal struct {
 // Flatten lays every panel of n flat. labels gives each panel's label
 // (see Labels).
 func Flatten(n *geom.Net, topo *geom.Topology, mat Material, labels []string) ([]Flat, error) {
-	if !(mat.ThicknessMM > 0) || !(mat.DensityKgM3 >= 0) || !(mat.EdgeInsetMM >= 0) {
-		return nil, fmt.Errorf("panels: material %q: thickness must be positive, density and inset zero or more", mat.Name)
+	if err := mat.Validate(); err != nil {
+		return nil, err
 	}
 	flats := make([]Flat, len(n.Faces))
 	var pts []geom.Vec
@@ -73,13 +56,13 @@ func Flatten(n *geom.Net, topo *geom.Topology, mat Material, labels []string) ([
 		pts = n.FacePoints(pts[:0], f)
 		fl, err := flatten(pts)
 		if err != nil {
-			return nil, fmt.Errorf("panels: %s: %v", faceName(n, f), err)
+			return nil, faceErr(n, f, nil, "%v", err)
 		}
 		fl.Face = f
 		fl.Label = labels[f]
 		if mat.EdgeInsetMM > 0 {
 			if fl.Cut, err = Inset(fl.Outline, mat.EdgeInsetMM); err != nil {
-				return nil, fmt.Errorf("panels: %s: %w", faceName(n, f), err)
+				return nil, faceErr(n, f, ErrInsetTooLarge, "%v", err)
 			}
 		} else {
 			fl.Cut = fl.Outline
@@ -118,12 +101,10 @@ func Flatten(n *geom.Net, topo *geom.Topology, mat Material, labels []string) ([
 	return flats, nil
 }
 
-// faceName names a panel with its file and line.
-func faceName(n *geom.Net, f int) string {
-	if l := n.Faces[f].Line; l > 0 {
-		return fmt.Sprintf("panel %s (%s line %d)", n.Faces[f].ID, n.Source, l)
-	}
-	return "panel " + n.Faces[f].ID
+// faceErr names panel f of n by file, line and id, wrapping cause (may be
+// nil).
+func faceErr(n *geom.Net, f int, cause error, format string, args ...any) *geom.InputError {
+	return &geom.InputError{File: n.Source, Line: n.Faces[f].Line, Elem: "panel " + n.Faces[f].ID, Msg: fmt.Sprintf(format, args...), Err: cause}
 }
 
 // flatten projects a panel's corners on their least-squares plane and
@@ -136,7 +117,7 @@ func flatten(pts []geom.Vec) (Flat, error) {
 	o := fit.Project(pts[0])
 	fr, err := geom.PlaneFrame(o, fit.Normal, r3.Sub(fit.Project(pts[1]), o), parallelSin)
 	if err != nil {
-		return Flat{}, fmt.Errorf("first edge has no length in the panel plane")
+		return Flat{}, errors.New("first edge has no length in the panel plane")
 	}
 	fl := Flat{Plane: fit.Plane, Frame: fr, FlatnessMM: fit.MaxDist}
 	k := len(pts)
@@ -148,10 +129,10 @@ func flatten(pts []geom.Vec) (Flat, error) {
 	fl.Outline[0] = geom.Vec2{} // exactly the origin
 	fl.Outline[1].Y = 0         // exactly on the x axis
 	if !fl.Outline.CCW() {
-		return Flat{}, fmt.Errorf("outline runs clockwise in its own plane (folded or bow-tie panel)")
+		return Flat{}, errors.New("outline runs clockwise in its own plane (folded or bow-tie panel)")
 	}
 	if fl.Outline.SelfIntersects() {
-		return Flat{}, fmt.Errorf("outline crosses itself")
+		return Flat{}, errors.New("outline crosses itself")
 	}
 	fl.EdgeMM = make([]float64, k)
 	fl.AngleDeg = make([]float64, k)
@@ -174,66 +155,4 @@ func flatten(pts []geom.Vec) (Flat, error) {
 		}
 	}
 	return fl, nil
-}
-
-// ErrInsetTooLarge is wrapped by errors for insets a panel cannot take.
-var ErrInsetTooLarge = errors.New("edge inset too large")
-
-// Inset moves every edge of a counter-clockwise polygon inward by d and
-// returns the polygon of the moved lines' intersections. It fails when the
-// inset swallows an edge (the result would turn or cross itself).
-func Inset(p geom.Polygon, d float64) (geom.Polygon, error) {
-	k := len(p)
-	type line struct{ o, dir geom.Vec2 }
-	lines := make([]line, k)
-	for i := range p {
-		a, b := p[i], p[(i+1)%k]
-		dir := b.Sub(a)
-		l := dir.Norm()
-		if l == 0 {
-			return nil, fmt.Errorf("edge %d has no length", i+1)
-		}
-		dir = dir.Scale(1 / l)
-		lines[i] = line{o: a.Add(dir.Perp().Scale(d)), dir: dir}
-	}
-	out := make(geom.Polygon, k)
-	for i := range p {
-		l1, l2 := lines[(i+k-1)%k], lines[i]
-		den := l1.dir.Cross(l2.dir)
-		if math.Abs(den) < parallelSin {
-			// Straight corner: the moved point on both lines.
-			out[i] = p[i].Add(l2.dir.Perp().Scale(d))
-			continue
-		}
-		t := l2.o.Sub(l1.o).Cross(l2.dir) / den
-		out[i] = l1.o.Add(l1.dir.Scale(t))
-	}
-	for i := range p {
-		// Each inset edge must keep the direction of the original edge.
-		if out[(i+1)%k].Sub(out[i]).Dot(p[(i+1)%k].Sub(p[i])) <= 0 {
-			return nil, fmt.Errorf("%w: %.3g mm swallows edge %d", ErrInsetTooLarge, d, i+1)
-		}
-	}
-	if !out.CCW() || out.SelfIntersects() {
-		return nil, fmt.Errorf("%w: %.3g mm turns the outline inside out", ErrInsetTooLarge, d)
-	}
-	return out, nil
-}
-
-// Labels names every panel by the bay of its centroid (C3-P05), using the
-// same bays as nodes and members.
-func Labels(n *geom.Net, bays geom.Bays, nodeLabels []string) []string {
-	cents := make([]geom.Vec, len(n.Faces))
-	keys := make([]string, len(n.Faces))
-	var pts []geom.Vec
-	for f, face := range n.Faces {
-		pts = n.FacePoints(pts[:0], f)
-		cents[f] = geom.Centroid(pts)
-		key := ""
-		for _, c := range face.Corners {
-			key += nodeLabels[c] + "/"
-		}
-		keys[f] = key
-	}
-	return bays.Label(cents, keys, "P")
 }

@@ -1,7 +1,6 @@
 package panels
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"sort"
@@ -38,6 +37,30 @@ type PlanarizeOptions struct {
 	MaxIter  int
 	// Progress, if set, is called after every iteration.
 	Progress func(Progress)
+}
+
+// Largest values accepted: beyond them a setting is a unit mistake.
+const (
+	MaxFlatTolMM = 1000.0
+	MaxMoveMM    = 1e5
+	MaxFairness  = 1e6
+	MaxIter      = 100000
+)
+
+// Validate checks every option's range and returns a *geom.FieldError
+// naming the first bad field.
+func (o PlanarizeOptions) Validate() error {
+	switch {
+	case !(o.TolMM > 0) || o.TolMM > MaxFlatTolMM:
+		return geom.FieldErrorf("TolMM", "%g must be more than 0 and at most %g mm", o.TolMM, MaxFlatTolMM)
+	case !(o.MaxMoveMM > 0) || o.MaxMoveMM > MaxMoveMM:
+		return geom.FieldErrorf("MaxMoveMM", "%g must be more than 0 and at most %g mm", o.MaxMoveMM, MaxMoveMM)
+	case !(o.Fairness >= 0) || o.Fairness > MaxFairness:
+		return geom.FieldErrorf("Fairness", "%g must be between 0 and %g", o.Fairness, MaxFairness)
+	case o.MaxIter <= 0 || o.MaxIter > MaxIter:
+		return geom.FieldErrorf("MaxIter", "%d must be between 1 and %d", o.MaxIter, MaxIter)
+	}
+	return nil
 }
 
 // DefaultPlanarizeOptions returns the job defaults.
@@ -78,14 +101,14 @@ type PanelFailure struct {
 // within the allowed move or the iteration budget. The result is still
 // returned beside it for diagnosis.
 type PlanarizeError struct {
-	Source   string
-	Reason   string
-	Worst    []PanelFailure // worst first, at most ten
-	Count    int            // panels over the tolerance
-	Names    []string       // panel names of Worst
-	TolMM    float64
-	MaxMove  float64
-	MoveOver int // nodes moved more than allowed
+	Source    string
+	Reason    string
+	Worst     []PanelFailure // worst first, at most ten
+	Count     int            // panels over the tolerance
+	Names     []string       // panel names of Worst
+	TolMM     float64
+	MaxMoveMM float64
+	MoveOver  int // nodes moved more than allowed
 }
 
 func (e *PlanarizeError) Error() string {
@@ -95,7 +118,7 @@ func (e *PlanarizeError) Error() string {
 		fmt.Fprintf(&b, "; %d panels over the %.3g mm tolerance", e.Count, e.TolMM)
 	}
 	if e.MoveOver > 0 {
-		fmt.Fprintf(&b, "; %d nodes would move more than the allowed %.3g mm", e.MoveOver, e.MaxMove)
+		fmt.Fprintf(&b, "; %d nodes would move more than the allowed %.3g mm", e.MoveOver, e.MaxMoveMM)
 	}
 	if len(e.Worst) > 0 {
 		b.WriteString("; worst:")
@@ -130,11 +153,11 @@ func (e *PlanarizeError) Error() string {
 // It returns the result and, when the tolerance or the move limit is not
 // met, a *PlanarizeError beside it.
 func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*PlanarizeResult, error) {
-	if !(opt.TolMM > 0) || !(opt.MaxMoveMM > 0) || !(opt.Fairness >= 0) || opt.MaxIter <= 0 {
-		return nil, errors.New("panels: planarize: tolerance and allowed move must be positive, fairness zero or more, iterations positive")
+	if err := opt.Validate(); err != nil {
+		return nil, err
 	}
 	if opt.Fixed != nil && len(opt.Fixed) != len(n.Nodes) {
-		return nil, errors.New("panels: planarize: Fixed has the wrong length")
+		return nil, geom.FieldErrorf("Fixed", "has %d entries for %d nodes", len(opt.Fixed), len(n.Nodes))
 	}
 	s := newSolver(n, topo, opt)
 	res := &PlanarizeResult{Before: s.flatness(s.x0)}
@@ -218,7 +241,7 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 }
 
 func failure(n *geom.Net, res *PlanarizeResult, opt PlanarizeOptions, reason string, over, moveOver int) *PlanarizeError {
-	pe := &PlanarizeError{Source: n.Source, Reason: reason, Count: over, TolMM: opt.TolMM, MaxMove: opt.MaxMoveMM, MoveOver: moveOver}
+	pe := &PlanarizeError{Source: n.Source, Reason: reason, Count: over, TolMM: opt.TolMM, MaxMoveMM: opt.MaxMoveMM, MoveOver: moveOver}
 	var fails []PanelFailure
 	for f, face := range n.Faces {
 		var mv float64

@@ -1,6 +1,7 @@
 package panels
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 	"slices"
@@ -9,8 +10,25 @@ import (
 )
 
 // DefaultTypeTolMM: panels whose edges and diagonals agree within 1 mm are
-// one type.
-const DefaultTypeTolMM = 1.0
+// one type. MaxTypeTolMM is the largest tolerance accepted.
+const (
+	DefaultTypeTolMM = 1.0
+	MaxTypeTolMM     = 1000.0
+)
+
+// TypeOptions says when two panels are one type.
+type TypeOptions struct {
+	TolMM  float64 // edges and diagonals agree within this (mm)
+	Mirror bool    // a panel and its mirror image may be one type
+}
+
+// Validate checks the tolerance's range.
+func (o TypeOptions) Validate() error {
+	if !(o.TolMM >= 0) || o.TolMM > MaxTypeTolMM {
+		return geom.FieldErrorf("TolMM", "%g must be between 0 and %g mm", o.TolMM, MaxTypeTolMM)
+	}
+	return nil
+}
 
 // Type is a group of congruent panels.
 type Type struct {
@@ -72,14 +90,15 @@ func congruent(p, q [][]float64, tol float64, mirror bool) (ok, mirrored bool) {
 	return false, false
 }
 
-// PanelTypes groups flat panels into congruent types by their cut outlines
-// and sets each panel's Type: edge lengths and diagonals within tol, up to
-// cyclic order, and mirrored only when mirror is true. Types are numbered
-// by area, smallest first.
-func PanelTypes(flats []Flat, tol float64, mirror bool) ([]Type, error) {
-	if !(tol >= 0) {
-		return nil, fmt.Errorf("panels: type tolerance %g must be zero or more", tol)
+// Group groups flat panels into congruent types by their cut outlines
+// and sets each panel's Type: edge lengths and diagonals within opt.TolMM,
+// up to cyclic order, and mirrored only when opt.Mirror is true. Types are
+// numbered by area, smallest first.
+func Group(flats []Flat, opt TypeOptions) ([]Type, error) {
+	if err := opt.Validate(); err != nil {
+		return nil, err
 	}
+	tol, mirror := opt.TolMM, opt.Mirror
 	d := make([][][]float64, len(flats))
 	keys := make([]float64, len(flats))
 	for i, fl := range flats {
@@ -93,7 +112,7 @@ func PanelTypes(flats []Flat, tol float64, mirror bool) ([]Type, error) {
 		return ok
 	})
 	slices.SortStableFunc(groups, func(a, b []int) int {
-		return cmpFloat(flats[a[0]].AreaM2, flats[b[0]].AreaM2)
+		return cmp.Compare(flats[a[0]].AreaM2, flats[b[0]].AreaM2)
 	})
 	width := max(3, len(fmt.Sprint(len(groups))))
 	types := make([]Type, len(groups))
@@ -107,14 +126,4 @@ func PanelTypes(flats []Flat, tol float64, mirror bool) ([]Type, error) {
 		types[t] = ty
 	}
 	return types, nil
-}
-
-func cmpFloat(a, b float64) int {
-	switch {
-	case a < b:
-		return -1
-	case a > b:
-		return 1
-	}
-	return 0
 }

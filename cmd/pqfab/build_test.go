@@ -227,43 +227,6 @@ func TestPlanarityFailure(t *testing.T) {
 	checkAccounting(t, out)
 }
 
-func TestJobErrors(t *testing.T) {
-	base := `[net]
-file = "wave.obj"
-[[stock]]
-width_mm = 6000
-height_mm = 3210
-`
-	tests := []struct {
-		name, text, want string
-	}{
-		{"unknown key", base + "colour = \"red\"\n", "job.toml:6: key stock.colour: unknown key"},
-		{"unknown table", "[nett]\nfile = \"x\"\n" + base, "job.toml:1: key nett: unknown key"},
-		{"negative tolerance", base + "[flatness]\ntolerance_mm = -1\n", "job.toml:7: key flatness.tolerance_mm: -1 must be a positive number"},
-		{"bad unit", strings.Replace(base, "file = \"wave.obj\"", "file = \"wave.obj\"\nunit = \"ft\"", 1), "job.toml:3: key net.unit: \"ft\": want mm, cm or m"},
-		{"bad axis", base + "[nodes]\naxis = \"diagonal\"\n", "job.toml:7: key nodes.axis"},
-		{"no stock", "[net]\nfile = \"wave.obj\"\n", "job.toml: no [[stock]] sheet"},
-		{"zero stock", strings.Replace(base, "width_mm = 6000", "width_mm = 0", 1), "job.toml:4: key stock[1].width_mm: 0 must be a positive number"},
-		{"margin too big", base + "margin_mm = 2000\n", "job.toml:6: key stock[1].margin_mm"},
-		{"bad rotation", base + "rotation = \"sideways\"\n", "key stock[1].rotation"},
-		{"wrong type", base + "[flatness]\ntolerance_mm = \"small\"\n", "job.toml:7"},
-		{"syntax", "[net\nfile = 1\n", "job.toml:2: expected '.' or ']'"},
-		{"empty", "", "job.toml: empty job file"},
-		{"no net", "[[stock]]\nwidth_mm = 1\nheight_mm = 1\n", "key net.file: missing"},
-		{"list without ids", base + "[supports]\nmode = \"list\"\n", "key supports.nodes"},
-		{"negative rate", base + "[rates]\nnode_each = -5\n", "key rates.node_each"},
-	}
-	for _, tc := range tests {
-		_, err := ParseJob([]byte(tc.text), "job.toml")
-		if err == nil || !strings.Contains(err.Error(), tc.want) {
-			t.Errorf("%s: got %v, want %q", tc.name, err, tc.want)
-		}
-	}
-	if _, err := ParseJob([]byte(base), "job.toml"); err != nil {
-		t.Errorf("minimal job: %v", err)
-	}
-}
-
 func TestBuildErrors(t *testing.T) {
 	dir := t.TempDir()
 	job := writeJob(t, dir, "")

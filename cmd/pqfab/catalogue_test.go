@@ -49,16 +49,16 @@ func TestBadInputCatalogue(t *testing.T) {
 		{"empty job", map[string]string{"job.toml": "\n\n"}, "", []string{"job.toml", "empty job file"}},
 		{"binary job", map[string]string{"job.toml": "\x00\x01PK\x03\x04"}, "", []string{"job.toml:1"}},
 		{"unknown key", map[string]string{"job.toml": jobFor("n.obj") + "colour = \"blue\"\n", "n.obj": goodQuad}, "", []string{"job.toml:10", "key stock.colour", "unknown key"}},
-		{"negative tolerance", map[string]string{"job.toml": jobFor("n.obj") + "[flatness]\ntolerance_mm = -0.5\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key flatness.tolerance_mm", "positive"}},
-		{"zero stock", map[string]string{"job.toml": strings.Replace(jobFor("n.obj"), "width_mm = 6000", "width_mm = 0", 1), "n.obj": goodQuad}, "", []string{"job.toml:6", "key stock[1].width_mm", "positive"}},
+		{"negative tolerance", map[string]string{"job.toml": jobFor("n.obj") + "[flatness]\ntolerance_mm = -0.5\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key flatness.tolerance_mm", "must be more than 0"}},
+		{"zero stock", map[string]string{"job.toml": strings.Replace(jobFor("n.obj"), "width_mm = 6000", "width_mm = 0", 1), "n.obj": goodQuad}, "", []string{"job.toml:6", "key stock[1].width_mm", "must be more than 0"}},
 		{"no stock", map[string]string{"job.toml": "[net]\nfile = \"n.obj\"\n", "n.obj": goodQuad}, "", []string{"job.toml", "no [[stock]]"}},
 		{"bad rotation", map[string]string{"job.toml": jobFor("n.obj") + "rotation = \"any\"\n", "n.obj": goodQuad}, "", []string{"job.toml:10", "key stock[1].rotation"}},
 		{"syntax error", map[string]string{"job.toml": "[net\nfile = \"n.obj\"\n"}, "", []string{"job.toml:2"}},
 		{"wrong type", map[string]string{"job.toml": jobFor("n.obj") + "[nodes]\nhub_radius_mm = \"big\"\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key nodes.hub_radius_mm"}},
 		{"unknown support node", map[string]string{"job.toml": jobFor("n.obj") + "[supports]\nmode = \"list\"\nnodes = [\"1\", \"99\"]\n", "n.obj": goodQuad}, "", []string{"job.toml:12", "key supports.nodes", `node "99"`}},
 		{"panel bigger than every sheet", map[string]string{"job.toml": strings.Replace(jobFor("n.obj"), "height_mm = 3210", "height_mm = 1000", 1), "n.obj": goodQuad}, "", []string{"job.toml:4", "key stock", "n.obj line 7", "larger than every stock sheet"}},
-		{"hub larger than members", map[string]string{"job.toml": jobFor("n.obj") + "[nodes]\nhub_radius_mm = 800\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key nodes.hub_radius_mm", "n.obj lines", "use up"}},
-		{"inset too large", map[string]string{"job.toml": jobFor("n.obj") + "[panel]\nedge_inset_mm = 700\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key panel.edge_inset_mm", "n.obj line 7", "swallows"}},
+		{"hub larger than members", map[string]string{"job.toml": jobFor("n.obj") + "[nodes]\nhub_radius_mm = 800\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key nodes.hub_radius_mm", "n.obj:7: member 1–2", "use up"}},
+		{"inset too large", map[string]string{"job.toml": jobFor("n.obj") + "[panel]\nedge_inset_mm = 700\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key panel.edge_inset_mm", "n.obj:7: panel 1", "swallows"}},
 		{"flatness not reachable", map[string]string{"job.toml": jobFor("n.obj") + "[supports]\nmode = \"none\"\n[flatness]\nmax_move_mm = 0.001\n", "n.obj": strings.Replace(goodQuad, "v 1500 1200 0", "v 1500 1200 40", 1)}, "", []string{"planarization failed", "panel 1 (line 7)", "nothing built"}},
 		// Output folder.
 		{"output under a file", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": goodQuad, "afile": "x"}, "afile/out", []string{"afile/out", "cannot write there"}},
@@ -92,8 +92,9 @@ func TestBadInputCatalogue(t *testing.T) {
 					t.Errorf("error %q does not contain %q", msg, w)
 				}
 			}
-			if exitCode(err) == 0 {
-				t.Error("exit code 0")
+			// Bad input is not a command-line mistake: exit code 1, not 2.
+			if got := exitCode(err); got != 1 {
+				t.Errorf("exit code %d, want 1", got)
 			}
 			if tc.out == "" {
 				if _, err := os.Stat(out); err == nil {

@@ -8,31 +8,6 @@ import (
 	"pqfab/samples"
 )
 
-// FuzzParseJob: the job parser never panics, and whatever it accepts has
-// sane values.
-func FuzzParseJob(f *testing.F) {
-	f.Add(samples.DemoJob())
-	f.Add([]byte(jobFor("n.obj")))
-	f.Add([]byte("[net]\nfile = \"x.obj\"\n[[stock]]\nwidth_mm = 1e308\nheight_mm = 1\n[rates]\nnode_each = 1\n"))
-	f.Add([]byte("title = 5\n"))
-	f.Fuzz(func(t *testing.T, data []byte) {
-		j, err := ParseJob(data, "fuzz.toml")
-		if err != nil {
-			return
-		}
-		if j.Net.File == "" || len(j.Stock) == 0 || !(j.Flatness.TolMM > 0) || !(j.Flatness.MaxMoveMM > 0) {
-			t.Fatalf("accepted a job with bad values: %+v", j)
-		}
-		for _, s := range j.Stock {
-			if !(s.WidthMM > 0) || !(s.HeightMM > 0) || 2*s.MarginMM >= min(s.WidthMM, s.HeightMM) {
-				t.Fatalf("accepted bad stock %+v", s)
-			}
-		}
-		_ = j.stocks()
-		_ = j.settings()
-	})
-}
-
 // TestAllSamplesBuild builds every sample twice: identical bytes, and every
 // panel, member and node accounted for.
 func TestAllSamplesBuild(t *testing.T) {

@@ -1,11 +1,13 @@
 package main
 
 import (
+	"errors"
 	"flag"
 	"fmt"
 	"io"
 
 	"pqfab/geom"
+	"pqfab/internal/pipeline"
 )
 
 // netFlags are the options every command that reads a net takes.
@@ -21,59 +23,51 @@ func (nf *netFlags) register(fs *flag.FlagSet) {
 	fs.Float64Var(&nf.tol, "merge-tol", geom.DefaultCoincidentTolMM, "nodes closer than this (mm) are reported as coincident")
 }
 
-// loadNet reads and validates a net, printing warnings to stderr.
-func loadNet(path string, nf netFlags, stderr io.Writer) (*geom.Net, *geom.Topology, error) {
+// loadNet reads and checks a net with the build's own stage, printing
+// warnings, and the problems after the first, to stderr.
+func loadNet(path string, nf netFlags, stderr io.Writer) (*pipeline.Loaded, error) {
 	unit, err := geom.ParseUnit(nf.unit)
 	if err != nil {
-		return nil, nil, usagef("--unit: %v", err)
+		return nil, usagef("--unit: %v", err)
 	}
-	if !(nf.tol >= 0) {
-		return nil, nil, usagef("--merge-tol %g: must be zero or more", nf.tol)
-	}
-	net, err := geom.ReadFile(path, unit)
-	if err != nil {
-		return nil, nil, err
-	}
-	topo, _, err := checkNet(net, nf.tol, nf.reorient, stderr)
-	if err != nil {
-		return nil, nil, err
-	}
-	return net, topo, nil
-}
-
-// checkNet validates a net read from a file, turning flipped panels when
-// asked. It prints the warnings to stderr and returns them for reports;
-// on error it prints the problems after the first, which the error names.
-func checkNet(net *geom.Net, mergeTolMM float64, reorient bool, stderr io.Writer) (*geom.Topology, []string, error) {
 	opt := geom.DefaultValidateOptions()
-	opt.CoincidentTolMM = mergeTolMM
-	topo, fd := geom.Validate(net, opt)
-	var warnings []string
-	if reorient && len(fd.Misoriented) > 0 {
-		geom.Reorient(net, fd.Misoriented)
-		warnings = append(warnings, fmt.Sprintf("%s: turned %d panels to a consistent orientation", net.Source, len(fd.Misoriented)))
-		topo, fd = geom.Validate(net, opt)
+	opt.CoincidentTolMM = nf.tol
+	if err := opt.Validate(); err != nil {
+		return nil, flagError(err, map[string]string{"CoincidentTolMM": "merge-tol"})
 	}
-	for _, w := range fd.Warnings {
-		warnings = append(warnings, w.Error())
+	in, err := pipeline.LoadNet(pipeline.OpenFile, path, unit, opt, nf.reorient)
+	if err != nil {
+		return nil, err
 	}
-	if err := fd.Err(); err != nil {
-		printOthers(stderr, fd)
-		return nil, nil, err
-	}
-	for _, w := range warnings {
+	for _, w := range in.Warnings {
 		fmt.Fprintln(stderr, "pqfab: warning:", w)
 	}
-	return topo, warnings, nil
+	return in, nil
 }
 
-// printOthers lists the problems after the first, which the error names.
-func printOthers(stderr io.Writer, fd geom.Findings) {
-	for i, p := range fd.Errors[1:] {
-		if i == 20 {
-			fmt.Fprintf(stderr, "pqfab: also: … %d more\n", len(fd.Errors)-21)
-			break
+// printOthers lists the problems after the first, which the error names;
+// main calls it after printing the error, so the error is the first line.
+func printOthers(stderr io.Writer, err error) {
+	var ve *geom.ValidationError
+	if errors.As(err, &ve) {
+		for _, p := range ve.Problems[1:min(len(ve.Problems), 21)] {
+			fmt.Fprintln(stderr, "pqfab: also:", p)
 		}
-		fmt.Fprintln(stderr, "pqfab: also:", p)
+		if n := len(ve.Problems) - 21; n > 0 {
+			fmt.Fprintf(stderr, "pqfab: also: … %d more\n", n)
+		}
 	}
+}
+
+// flagError turns a *geom.FieldError from an options Validate into a usage
+// error naming the flag (flags maps field names to flag names); other
+// errors pass through.
+func flagError(err error, flags map[string]string) error {
+	var fe *geom.FieldError
+	if errors.As(err, &fe) {
+		if name, ok := flags[fe.Field]; ok {
+			return usagef("--%s: %s", name, fe.Msg)
+		}
+	}
+	return err
 }

@@ -10,6 +10,7 @@ import (
 func main() {
 	if err := run(os.Args[1:], os.Stdin, os.Stdout, os.Stderr); err != nil {
 		fmt.Fprintln(os.Stderr, "pqfab:", err)
+		printOthers(os.Stderr, err)
 		os.Exit(exitCode(err))
 	}
 }

@@ -7,6 +7,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"pqfab/internal/pipeline"
 )
 
 // runCmd runs the program in-process and returns stdout, stderr and error.
@@ -28,7 +30,7 @@ func TestSampleInspect(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		var in inspection
+		var in pipeline.Inspection
 		if err := json.Unmarshal([]byte(out), &in); err != nil {
 			t.Fatal(err)
 		}
@@ -97,7 +99,7 @@ func TestPlanarizeCommand(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	var in2 inspection
+	var in2 pipeline.Inspection
 	if err := json.Unmarshal([]byte(js), &in2); err != nil {
 		t.Fatal(err)
 	}
@@ -129,7 +131,7 @@ func TestMembersCommand(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		var s memberSummary
+		var s pipeline.MemberSummary
 		if err := json.Unmarshal([]byte(out), &s); err != nil {
 			t.Fatal(err)
 		}
@@ -144,7 +146,7 @@ func TestMembersCommand(t *testing.T) {
 			t.Errorf("dome twist %g", s.TwistDeg.Max)
 		}
 	}
-	if _, _, err := runCmd(t, "members", "--axis", "sideways", filepath.Join(dir, "dome.obj")); err == nil || !strings.Contains(err.Error(), "unknown axis method") {
+	if _, _, err := runCmd(t, "members", "--axis", "sideways", filepath.Join(dir, "dome.obj")); err == nil || !strings.Contains(err.Error(), "--axis: \"sideways\": want normal or least-twist") || exitCode(err) != 2 {
 		t.Errorf("bad axis: %v", err)
 	}
 }
@@ -165,8 +167,9 @@ func TestNestCommand(t *testing.T) {
 	if _, _, err := runCmd(t, "nest", path, "--sheet", "big"); err == nil || !strings.Contains(err.Error(), "WIDTHxHEIGHT") {
 		t.Errorf("bad sheet: %v", err)
 	}
+	// Panels on no sheet are listed and make the command fail.
 	out, _, err = runCmd(t, "nest", path, "--sheet", "1000x1000")
-	if err != nil || !strings.Contains(out, "larger than every stock sheet") {
+	if err == nil || !strings.Contains(err.Error(), "60 of 60 panels fit no sheet") || !strings.Contains(out, "larger than every stock sheet") {
 		t.Errorf("small sheet: %v %q", err, out)
 	}
 }

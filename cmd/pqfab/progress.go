@@ -1,6 +1,7 @@
 package main
 
 import (
+	"fmt"
 	"io"
 	"os"
 
@@ -8,37 +9,44 @@ import (
 	"golang.org/x/term"
 )
 
-// progress draws a bar on stderr for a long step, or nothing when stderr
-// is not a terminal or the user asked for quiet.
-type progress struct {
-	bar *progressbar.ProgressBar
+// observer shows the pipeline's stages as progress bars on stderr, one at
+// a time (none when stderr is not a terminal or the user asked for quiet),
+// and prints warnings.
+type observer struct {
+	stderr io.Writer
+	quiet  bool
+	stage  string
+	bar    *progressbar.ProgressBar
 }
 
-func newProgress(stderr io.Writer, quiet bool, max int, what string) *progress {
-	f, ok := stderr.(*os.File)
-	if quiet || !ok || !term.IsTerminal(int(f.Fd())) {
-		return &progress{}
+func (o *observer) Step(stage string, done, total int, note string) {
+	total = max(total, 1)
+	if stage != o.stage {
+		o.finish()
+		o.stage = stage
+		if f, ok := o.stderr.(*os.File); ok && !o.quiet && term.IsTerminal(int(f.Fd())) {
+			o.bar = progressbar.NewOptions(total, progressbar.OptionSetWriter(o.stderr), progressbar.OptionSetDescription(stage),
+				progressbar.OptionShowCount(), progressbar.OptionClearOnFinish(), progressbar.OptionThrottle(100_000_000))
+		}
 	}
-	return &progress{bar: progressbar.NewOptions(max,
-		progressbar.OptionSetWriter(stderr),
-		progressbar.OptionSetDescription(what),
-		progressbar.OptionShowCount(),
-		progressbar.OptionClearOnFinish(),
-		progressbar.OptionThrottle(100_000_000))}
+	if o.bar != nil {
+		if total != o.bar.GetMax() {
+			o.bar.ChangeMax(total)
+		}
+		o.bar.Describe(note)
+		_ = o.bar.Set(done)
+	}
 }
 
-// set moves the bar to n and changes its description.
-func (p *progress) set(n int, desc string) {
-	if p.bar == nil {
-		return
-	}
-	p.bar.Describe(desc)
-	_ = p.bar.Set(n)
+func (o *observer) Warn(msg string) {
+	o.finish()
+	fmt.Fprintln(o.stderr, "pqfab: warning:", msg)
 }
 
-// done removes the bar.
-func (p *progress) done() {
-	if p.bar != nil {
-		_ = p.bar.Finish()
+// finish removes the current bar.
+func (o *observer) finish() {
+	if o.bar != nil {
+		_ = o.bar.Finish()
 	}
+	o.bar, o.stage = nil, ""
 }

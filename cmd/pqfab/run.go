@@ -5,6 +5,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"pqfab/export"
 )
 
 // usageError marks a mistake in the command line (exit code 2).
@@ -31,7 +32,7 @@ func commands() []command {
 	return []command{
 		{"demo", "-o DIR", "run the built-in demo job (an invented library canopy) into DIR", runDemo},
 		{"build", "JOB.toml -o DIR", "run a whole job: flat panels, members, nesting, DXF, XLSX, JSON", runBuild},
-		{"inspect", "NET", "read and check a net; print counts, bounds, valence and planarity", runInspect},
+		{"inspect", "NET", "read and check a net; print counts, bounds, members at node and planarity", runInspect},
 		{"sample", "NAME -o FILE", "write a sample net as OBJ (canopy, dome, wave)", runSample},
 		{"members", "NET", "node axes, member lengths, twist and end cuts; twist spread and type counts", runMembers},
 		{"nest", "NET", "lay the panels flat and nest them on stock sheets; per-sheet utilization", runNest},
@@ -50,7 +51,10 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) error {
 	}
 	for _, c := range commands() {
 		if c.name == args[0] {
-			return c.run(args[1:], stdin, stdout, stderr)
+			if err := c.run(args[1:], stdin, stdout, stderr); !errors.Is(err, flag.ErrHelp) {
+				return err
+			}
+			return nil // the flag set printed the help asked for
 		}
 	}
 	return usagef("unknown command %q (run `pqfab help`)", args[0])
@@ -64,13 +68,8 @@ func printUsage(w io.Writer) {
 		fmt.Fprintf(w, "  %-10s %-22s %s\n", c.name, c.args, c.help)
 	}
 	fmt.Fprintln(w, "\nRun `pqfab COMMAND -h` for a command's options.")
-	fmt.Fprintln(w, "\n"+caution)
+	fmt.Fprintln(w, "\nCaution: "+export.Caution)
 }
-
-// caution is printed wherever results are shown.
-const caution = "Caution: pqfab computes geometry only. It does not check strength, stability, glass safety or\n" +
-	"connections. A qualified structural engineer must check the design; local building codes and\n" +
-	"licensed practice decide. Check every figure before cutting."
 
 // newFlags returns a flag set that reports errors instead of exiting.
 func newFlags(name, args string, stderr io.Writer) *flag.FlagSet {
@@ -82,10 +81,6 @@ func newFlags(name, args string, stderr io.Writer) *flag.FlagSet {
 	}
 	return fs
 }
-
-// errHelp is returned by parseCommand when the user asked for help, which
-// the flag set has printed: the command ends without an error.
-var errHelp = flag.ErrHelp
 
 // parseCommand parses a command's flags and checks it got want positional
 // arguments, described by what ("one net file").

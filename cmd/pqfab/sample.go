@@ -1,10 +1,9 @@
 package main
 
 import (
-	"errors"
-	"flag"
 	"fmt"
 	"io"
+	"strings"
 
 	"pqfab/export"
 	"pqfab/samples"
@@ -14,17 +13,9 @@ func runSample(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	fs := newFlags("sample", "NAME -o FILE", stderr)
 	out := fs.String("o", "", "output OBJ file (required)")
 	count := fs.Int("panels", 1000, fmt.Sprintf("about how many panels (%d to %d)", samples.MinPanels, samples.MaxPanels))
-	pos, err := parseFlags(fs, args)
-	if errors.Is(err, flag.ErrHelp) {
-		for _, n := range samples.Names() {
-			fmt.Fprintf(stderr, "  %-8s %s\n", n, samples.Describe(n))
-		}
-		return nil
-	} else if err != nil {
+	pos, err := parseCommand(fs, args, 1, "one name ("+strings.Join(samples.Names(), ", ")+")")
+	if err != nil {
 		return err
-	}
-	if len(pos) != 1 {
-		return usagef("sample takes one name (%v)", samples.Names())
 	}
 	if *out == "" {
 		return usagef("sample needs -o FILE")

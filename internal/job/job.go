@@ -1,0 +1,359 @@
+package job
+
+import (
+	"fmt"
+	"path/filepath"
+
+	"pqfab/geom"
+	"pqfab/nodes"
+	"pqfab/panels"
+	"pqfab/panels/nest"
+)
+
+// Job is a build job file (TOML). Every key is optional except net.file
+// and at least one stock sheet; defaults are the library defaults.
+type Job struct {
+	Title    string    `toml:"title"`
+	Net      Net       `toml:"net"`
+	Supports Supports  `toml:"supports"`
+	Flatness Flatness  `toml:"flatness"`
+	Nodes    Nodes     `toml:"nodes"`
+	Member   Member    `toml:"member"`
+	Panel    Panel     `toml:"panel"`
+	Types    Types     `toml:"types"`
+	Stock    []Stock   `toml:"stock"`
+	Rates    *Rates    `toml:"rates"`
+	File     string    `toml:"-"` // the job file's name, for messages
+	lines    *keyLines // where each key is, for messages
+}
+
+// Net is the [net] table.
+type Net struct {
+	File       string  `toml:"file"`
+	Unit       string  `toml:"unit"`
+	Reorient   bool    `toml:"reorient"`
+	MergeTolMM float64 `toml:"merge_tol_mm"`
+}
+
+// Supports is the [supports] table.
+type Supports struct {
+	Mode  string   `toml:"mode"`  // boundary, none, file, list
+	Nodes []string `toml:"nodes"` // node ids for mode = "list"
+}
+
+// Flatness is the [flatness] table.
+type Flatness struct {
+	TolMM        float64 `toml:"tolerance_mm"`
+	MaxMoveMM    float64 `toml:"max_move_mm"`
+	Fairness     float64 `toml:"fairness"`
+	VerticalOnly bool    `toml:"vertical_only"`
+	MaxIter      int     `toml:"max_iterations"`
+}
+
+// Nodes is the [nodes] table.
+type Nodes struct {
+	Axis        string  `toml:"axis"`
+	HubRadiusMM float64 `toml:"hub_radius_mm"`
+	BayMM       float64 `toml:"bay_mm"`
+}
+
+// Member is the [member] table: the member section.
+type Member struct {
+	WidthMM float64 `toml:"width_mm"`
+	DepthMM float64 `toml:"depth_mm"`
+}
+
+// Panel is the [panel] table.
+type Panel struct {
+	Material         string  `toml:"material"`
+	ThicknessMM      float64 `toml:"thickness_mm"`
+	DensityKgM3      float64 `toml:"density_kg_m3"`
+	EdgeInsetMM      float64 `toml:"edge_inset_mm"`
+	BoundaryBevelDeg float64 `toml:"boundary_bevel_deg"`
+	Mirror           bool    `toml:"mirror"`
+}
+
+// Types is the [types] table.
+type Types struct {
+	LengthTolMM float64 `toml:"length_tol_mm"`
+	AngleTolDeg float64 `toml:"angle_tol_deg"`
+	PanelTolMM  float64 `toml:"panel_tol_mm"`
+}
+
+// Stock is one [[stock]] table.
+type Stock struct {
+	Name      string  `toml:"name"`
+	WidthMM   float64 `toml:"width_mm"`
+	HeightMM  float64 `toml:"height_mm"`
+	MarginMM  float64 `toml:"margin_mm"`
+	SpacingMM float64 `toml:"spacing_mm"`
+	Rotation  string  `toml:"rotation"`
+	Mirror    bool    `toml:"mirror"`
+	Count     int     `toml:"count"`
+	Price     float64 `toml:"price"`
+}
+
+// Rates is the optional [rates] table.
+type Rates struct {
+	Currency   string  `toml:"currency"`
+	MemberPerM float64 `toml:"member_per_m"`
+	NodeEach   float64 `toml:"node_each"`
+	PanelPerM2 float64 `toml:"panel_per_m2"`
+	SheetEach  float64 `toml:"sheet_each"` // for stock without a price
+}
+
+// Support modes of the [supports] table.
+const (
+	SupportsBoundary = "boundary"
+	SupportsNone     = "none"
+	SupportsFile     = "file"
+	SupportsList     = "list"
+)
+
+// Limits on what a job may ask for: beyond them a value is a mistake and
+// the outputs would overflow.
+const (
+	MaxStocks   = 100  // [[stock]] tables
+	MaxRate     = 1e9  // any rate or price
+	MaxTextLen  = 1000 // title, names, material (characters)
+	MaxSupports = 1e6  // node ids in supports.nodes
+)
+
+// defaults returns a job with every default set.
+func defaults(file string) *Job {
+	return &Job{
+		File:     file,
+		Net:      Net{Unit: "mm", MergeTolMM: geom.DefaultCoincidentTolMM},
+		Supports: Supports{Mode: SupportsBoundary},
+		Flatness: Flatness{TolMM: panels.DefaultFlatTolMM, MaxMoveMM: panels.DefaultMaxMoveMM, Fairness: panels.DefaultFairness, MaxIter: panels.DefaultMaxIter},
+		Nodes:    Nodes{Axis: string(nodes.AxisLeastTwist), BayMM: geom.DefaultBaySizeMM},
+		Member:   Member{WidthMM: nodes.DefaultSectionWidthMM, DepthMM: nodes.DefaultSectionDepthMM},
+		Panel:    Panel{Material: "float glass", ThicknessMM: panels.DefaultThicknessMM, DensityKgM3: panels.DefaultDensityKgM3},
+		Types:    Types{LengthTolMM: nodes.DefaultTypeLengthTolMM, AngleTolDeg: nodes.DefaultTypeAngleTolDeg, PanelTolMM: panels.DefaultTypeTolMM},
+	}
+}
+
+// Errorf returns an error naming the job file, the line of key and the key.
+func (j *Job) Errorf(key string, format string, args ...any) error {
+	return &geom.InputError{File: j.File, Line: j.lines.line(key), Elem: "key " + key, Msg: fmt.Sprintf(format, args...)}
+}
+
+// KeyError wraps err (a problem found while running the job) as an error
+// naming key and its line.
+func (j *Job) KeyError(key string, err error) error {
+	return &geom.InputError{File: j.File, Line: j.lines.line(key), Elem: "key " + key, Msg: err.Error(), Err: err}
+}
+
+// NetPath returns the net file's path: net.file relative to the job file.
+func (j *Job) NetPath() string {
+	if filepath.IsAbs(j.Net.File) {
+		return j.Net.File
+	}
+	return filepath.Join(filepath.Dir(j.File), j.Net.File)
+}
+
+// Unit returns the net file's unit.
+func (j *Job) Unit() geom.Unit {
+	u, _ := geom.ParseUnit(j.Net.Unit) // checked by Parse
+	return u
+}
+
+// ValidateOptions returns the net checks of the job.
+func (j *Job) ValidateOptions() geom.ValidateOptions {
+	o := geom.DefaultValidateOptions()
+	o.CoincidentTolMM = j.Net.MergeTolMM
+	return o
+}
+
+// PlanarizeOptions returns the [flatness] settings (supports are set by the
+// build, once the net is read).
+func (j *Job) PlanarizeOptions() panels.PlanarizeOptions {
+	f := j.Flatness
+	return panels.PlanarizeOptions{TolMM: f.TolMM, MaxMoveMM: f.MaxMoveMM, Fairness: f.Fairness, Vertical: f.VerticalOnly, MaxIter: f.MaxIter}
+}
+
+// NodeOptions returns the [nodes], [member] and [types] settings (bays are
+// set by the build from the net).
+func (j *Job) NodeOptions() nodes.Options {
+	return nodes.Options{Axis: nodes.AxisMethod(j.Nodes.Axis), HubRadiusMM: j.Nodes.HubRadiusMM,
+		Section: nodes.Section{WidthMM: j.Member.WidthMM, DepthMM: j.Member.DepthMM},
+		Types:   nodes.TypeOptions{LengthTolMM: j.Types.LengthTolMM, AngleTolDeg: j.Types.AngleTolDeg}}
+}
+
+// Material returns the [panel] material.
+func (j *Job) Material() panels.Material {
+	p := j.Panel
+	return panels.Material{Name: p.Material, ThicknessMM: p.ThicknessMM, DensityKgM3: p.DensityKgM3,
+		EdgeInsetMM: p.EdgeInsetMM, BoundaryBevelDeg: p.BoundaryBevelDeg}
+}
+
+// PanelTypeOptions returns when two panels are one type.
+func (j *Job) PanelTypeOptions() panels.TypeOptions {
+	return panels.TypeOptions{TolMM: j.Types.PanelTolMM, Mirror: j.Panel.Mirror}
+}
+
+// Stocks returns the job's stock sheets for nesting.
+func (j *Job) Stocks() []nest.Stock {
+	out := make([]nest.Stock, len(j.Stock))
+	for i, s := range j.Stock {
+		out[i] = nest.Stock{Name: s.Name, WidthMM: s.WidthMM, HeightMM: s.HeightMM, MarginMM: s.MarginMM, SpacingMM: s.SpacingMM,
+			Rotation: nest.Rotation(s.Rotation), Mirror: s.Mirror, Count: s.Count, Price: s.Price}
+	}
+	return out
+}
+
+// Keys of the job for each options field: a *geom.FieldError from a
+// library's Validate names a field; these name the key the user wrote.
+var (
+	planarizeKeys = map[string]string{"TolMM": "flatness.tolerance_mm", "MaxMoveMM": "flatness.max_move_mm",
+		"Fairness": "flatness.fairness", "MaxIter": "flatness.max_iterations"}
+	nodeKeys = map[string]string{"Axis": "nodes.axis", "HubRadiusMM": "nodes.hub_radius_mm",
+		"Section.WidthMM": "member.width_mm", "Section.DepthMM": "member.depth_mm",
+		"Types.LengthTolMM": "types.length_tol_mm", "Types.AngleTolDeg": "types.angle_tol_deg"}
+	materialKeys = map[string]string{"ThicknessMM": "panel.thickness_mm", "DensityKgM3": "panel.density_kg_m3",
+		"EdgeInsetMM": "panel.edge_inset_mm", "BoundaryBevelDeg": "panel.boundary_bevel_deg"}
+	panelTypeKeys = map[string]string{"TolMM": "types.panel_tol_mm"}
+	validateKeys  = map[string]string{"CoincidentTolMM": "net.merge_tol_mm"}
+	stockKeys     = map[string]string{"Name": "name", "WidthMM": "width_mm", "HeightMM": "height_mm", "MarginMM": "margin_mm",
+		"SpacingMM": "spacing_mm", "Rotation": "rotation", "Mirror": "mirror", "Count": "count", "Price": "price"}
+)
+
+// fieldErr turns a *geom.FieldError into an error naming the job key
+// (prefix + keys[field]); other errors pass through.
+func (j *Job) fieldErr(err error, keys map[string]string, prefix string) error {
+	if err == nil {
+		return nil
+	}
+	fe, ok := err.(*geom.FieldError)
+	if !ok {
+		return err
+	}
+	key, ok := keys[fe.Field]
+	if !ok {
+		return err
+	}
+	return j.Errorf(prefix+key, "%s", fe.Msg)
+}
+
+// check rejects bad values, naming the key and its line. Ranges of the
+// library options are checked by the libraries' Validate methods; only the
+// job's own settings are checked here.
+func (j *Job) check() error {
+	if j.Net.File == "" {
+		return j.Errorf("net.file", "missing: name the net file (OBJ, OFF or nodes CSV), relative to the job file")
+	}
+	if _, err := geom.ParseUnit(j.Net.Unit); err != nil {
+		return j.Errorf("net.unit", "%q: want mm, cm or m", short(j.Net.Unit))
+	}
+	if err := j.fieldErr(j.ValidateOptions().Validate(), validateKeys, ""); err != nil {
+		return err
+	}
+	if err := j.checkSupports(); err != nil {
+		return err
+	}
+	if _, err := geom.NewBays(nil, j.Nodes.BayMM, j.Nodes.BayMM); err != nil {
+		return j.Errorf("nodes.bay_mm", "%g must be a positive number of millimetres", j.Nodes.BayMM)
+	}
+	for _, t := range []struct{ key, text string }{{"title", j.Title}, {"panel.material", j.Panel.Material}} {
+		if err := j.checkText(t.key, t.text); err != nil {
+			return err
+		}
+	}
+	if err := j.fieldErr(j.PlanarizeOptions().Validate(), planarizeKeys, ""); err != nil {
+		return err
+	}
+	if err := j.fieldErr(j.NodeOptions().Validate(), nodeKeys, ""); err != nil {
+		return err
+	}
+	if err := j.fieldErr(j.Material().Validate(), materialKeys, ""); err != nil {
+		return err
+	}
+	if err := j.fieldErr(j.PanelTypeOptions().Validate(), panelTypeKeys, ""); err != nil {
+		return err
+	}
+	if err := j.checkStocks(); err != nil {
+		return err
+	}
+	return j.checkRates()
+}
+
+func (j *Job) checkSupports() error {
+	switch j.Supports.Mode {
+	case SupportsBoundary, SupportsNone, SupportsFile:
+		if len(j.Supports.Nodes) > 0 {
+			return j.Errorf("supports.nodes", "node ids need mode = \"list\"")
+		}
+	case SupportsList:
+		if len(j.Supports.Nodes) == 0 {
+			return j.Errorf("supports.nodes", "mode = \"list\" needs node ids")
+		}
+		if len(j.Supports.Nodes) > MaxSupports {
+			return j.Errorf("supports.nodes", "%d ids: at most %d", len(j.Supports.Nodes), int(MaxSupports))
+		}
+	default:
+		return j.Errorf("supports.mode", "%q: want boundary, none, file or list", short(j.Supports.Mode))
+	}
+	return nil
+}
+
+func (j *Job) checkStocks() error {
+	if len(j.Stock) > MaxStocks {
+		return j.Errorf("stock", "%d [[stock]] tables: at most %d", len(j.Stock), MaxStocks)
+	}
+	names := map[string]int{}
+	for i, s := range j.Stock {
+		prefix := fmt.Sprintf("stock[%d].", i+1)
+		if err := j.checkText(prefix+"name", s.Name); err != nil {
+			return err
+		}
+		if k, dup := names[s.Name]; dup {
+			return j.Errorf(prefix+"name", "%q is the name of stock %d too: give each stock its own name", short(s.Name), k+1)
+		}
+		names[s.Name] = i
+		if err := j.fieldErr(j.Stocks()[i].Validate(), stockKeys, prefix); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+func (j *Job) checkRates() error {
+	r := j.Rates
+	if r == nil {
+		return nil
+	}
+	if err := j.checkText("rates.currency", r.Currency); err != nil {
+		return err
+	}
+	for _, v := range []struct {
+		key string
+		v   float64
+	}{{"rates.member_per_m", r.MemberPerM}, {"rates.node_each", r.NodeEach}, {"rates.panel_per_m2", r.PanelPerM2}, {"rates.sheet_each", r.SheetEach}} {
+		if !(v.v >= 0) || v.v > MaxRate {
+			return j.Errorf(v.key, "%g must be between 0 and %g", v.v, MaxRate)
+		}
+	}
+	return nil
+}
+
+// checkText refuses text that no output can carry: control characters
+// (a newline in a title would break a DXF or an OBJ) and very long text.
+func (j *Job) checkText(key, s string) error {
+	if n := len([]rune(s)); n > MaxTextLen {
+		return j.Errorf(key, "%d characters: at most %d", n, MaxTextLen)
+	}
+	for _, r := range s {
+		if r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0) || r == 0xfffd {
+			return j.Errorf(key, "%q holds a control character (%U): write it on one line without tabs", short(s), r)
+		}
+	}
+	return nil
+}
+
+// short cuts a value for a message to at most 32 characters.
+func short(s string) string {
+	if r := []rune(s); len(r) > 32 {
+		return string(r[:32]) + "…"
+	}
+	return s
+}

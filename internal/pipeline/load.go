@@ -1,0 +1,81 @@
+package pipeline
+
+import (
+	"fmt"
+	"strings"
+
+	"pqfab/geom"
+)
+
+// Loaded is a net read from a file and checked.
+type Loaded struct {
+	Net      *geom.Net
+	Topo     *geom.Topology
+	Warnings []string // what the checks found that the job goes on with
+}
+
+// LoadNet reads the net at path (OBJ, OFF or the nodes file of a CSV pair,
+// in unit), checks it (geom.Validate with opt) and, when reorient is set,
+// turns flipped panels to a consistent orientation. On failure the error is
+// a *geom.ValidationError listing every problem found, or the reader's
+// *geom.InputError.
+func LoadNet(open Opener, path string, unit geom.Unit, opt geom.ValidateOptions, reorient bool) (*Loaded, error) {
+	net, err := geom.ReadFrom(open, path, unit)
+	if err != nil {
+		return nil, err
+	}
+	topo, fd := geom.Validate(net, opt)
+	var warnings []string
+	if reorient && len(fd.Misoriented) > 0 {
+		geom.Reorient(net, fd.Misoriented)
+		warnings = append(warnings, fmt.Sprintf("%s: turned %d panels to a consistent orientation", net.Source, len(fd.Misoriented)))
+		topo, fd = geom.Validate(net, opt)
+	}
+	for _, w := range fd.Warnings {
+		warnings = append(warnings, w.Error())
+	}
+	if err := fd.Err(); err != nil {
+		return nil, err
+	}
+	return &Loaded{Net: net, Topo: topo, Warnings: warnings}, nil
+}
+
+// Supports returns a flag per node: true for nodes that never move. mode
+// is "boundary" (nodes on the net's boundary), "none", "file" (the support
+// column of a CSV net) or "list" with the node ids in ids.
+func Supports(mode string, ids []string, net *geom.Net, topo *geom.Topology) ([]bool, error) {
+	fixed := make([]bool, len(net.Nodes))
+	switch mode {
+	case "none":
+	case "boundary":
+		copy(fixed, topo.BoundaryNodes(len(net.Nodes)))
+	case "file":
+		for i, nd := range net.Nodes {
+			fixed[i] = nd.Support
+		}
+	case "list":
+		byID := make(map[string]int, len(net.Nodes))
+		for i, nd := range net.Nodes {
+			byID[nd.ID] = i
+		}
+		for _, id := range ids {
+			id = strings.TrimSpace(id)
+			i, ok := byID[id]
+			if !ok {
+				return nil, fmt.Errorf("node %q is not in %s", short(id), net.Source)
+			}
+			fixed[i] = true
+		}
+	default:
+		return nil, fmt.Errorf("%q: want boundary, none, file or list", short(mode))
+	}
+	return fixed, nil
+}
+
+// short cuts a value for a message to at most 32 characters.
+func short(s string) string {
+	if r := []rune(s); len(r) > 32 {
+		return string(r[:32]) + "…"
+	}
+	return s
+}

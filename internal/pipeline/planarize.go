@@ -1,0 +1,81 @@
+package pipeline
+
+import (
+	"fmt"
+
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"pqfab/export"
+	"pqfab/geom"
+	"pqfab/panels"
+)
+
+// Planarize runs the planarization of net with opt, reporting each
+// iteration to obs as stage "planarize". It returns the result (nil only
+// when opt is bad) and, when the tolerance or the move limit is not met,
+// a *panels.PlanarizeError beside it.
+func Planarize(net *geom.Net, topo *geom.Topology, opt panels.PlanarizeOptions, obs Observer) (*panels.PlanarizeResult, error) {
+	opt.Progress = func(p panels.Progress) {
+		obs.Step("planarize", p.Iter, p.MaxIter, fmt.Sprintf("planarize: worst %.3f mm, %d over", p.MaxFlatMM, p.OverTol))
+	}
+	return panels.Planarize(net, topo, opt)
+}
+
+// Moved returns a copy of net with the planarized positions.
+func Moved(net *geom.Net, res *panels.PlanarizeResult) *geom.Net {
+	flat := net.Clone()
+	for i := range flat.Nodes {
+		flat.Nodes[i].Pos = res.Positions[i]
+	}
+	return flat
+}
+
+// PlanarizeReport is the JSON report of a planarization: `planarize
+// --report`, and the diagnostic report a failed build writes.
+type PlanarizeReport struct {
+	Net        string          `json:"net"`
+	TolMM      float64         `json:"tolerance_mm"`
+	Converged  bool            `json:"converged"`
+	Iterations int             `json:"iterations"`
+	Seconds    float64         `json:"seconds"`
+	MaxMoveMM  float64         `json:"max_move_mm"`
+	RMSMoveMM  float64         `json:"rms_move_mm"`
+	FlatBefore panels.Spread   `json:"flatness_before_mm"`
+	FlatAfter  panels.Spread   `json:"flatness_after_mm"`
+	Nodes      []NodeMoveRow   `json:"nodes"`
+	Panels     []PanelFlatness `json:"panels"`
+	Caution    string          `json:"caution"`
+}
+
+// NodeMoveRow is one node's move.
+type NodeMoveRow struct {
+	ID      string     `json:"id"`
+	Support bool       `json:"support"`
+	MoveMM  float64    `json:"move_mm"`
+	Vector  [3]float64 `json:"vector_mm"`
+}
+
+// PanelFlatness is one panel's flatness before and after.
+type PanelFlatness struct {
+	ID       string  `json:"id"`
+	BeforeMM float64 `json:"flatness_before_mm"`
+	AfterMM  float64 `json:"flatness_after_mm"`
+}
+
+// NewPlanarizeReport builds the report of a planarization that took secs
+// seconds (0 when the time must not reach a file).
+func NewPlanarizeReport(net *geom.Net, opt panels.PlanarizeOptions, res *panels.PlanarizeResult, secs float64) *PlanarizeReport {
+	r := &PlanarizeReport{Net: net.Source, TolMM: opt.TolMM, Converged: res.Converged, Iterations: res.Iterations,
+		Seconds: export.Round(secs, 3), MaxMoveMM: export.Round(res.MaxMoveMM, 3), RMSMoveMM: export.Round(res.RMSMoveMM, 3),
+		FlatBefore: export.RoundSpread(panels.SpreadOf(res.Before), 3), FlatAfter: export.RoundSpread(panels.SpreadOf(res.After), 4),
+		Caution: "Caution: " + export.Caution}
+	for i, nd := range net.Nodes {
+		m := res.Moves[i]
+		r.Nodes = append(r.Nodes, NodeMoveRow{ID: nd.ID, Support: opt.Fixed != nil && opt.Fixed[i], MoveMM: export.Round(r3.Norm(m), 3),
+			Vector: [3]float64{export.Round(m.X, 3), export.Round(m.Y, 3), export.Round(m.Z, 3)}})
+	}
+	for f, face := range net.Faces {
+		r.Panels = append(r.Panels, PanelFlatness{ID: face.ID, BeforeMM: export.Round(res.Before[f], 3), AfterMM: export.Round(res.After[f], 4)})
+	}
+	return r
+}

@@ -1,0 +1,217 @@
+package pipeline
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"pqfab/export"
+	"pqfab/geom"
+	"pqfab/internal/job"
+	"pqfab/nodes"
+	"pqfab/panels"
+	"pqfab/panels/nest"
+)
+
+// Policy says what a build does when the job cannot be met in full.
+type Policy struct {
+	// Continue builds from the best state reached when panels miss the
+	// flatness tolerance or fit no stock sheet, listing them in warnings.
+	Continue bool
+}
+
+// Result is everything a job computed.
+type Result struct {
+	Job       *job.Job
+	NetPath   string
+	Net       *geom.Net // planarized
+	Topo      *geom.Topology
+	Supports  []bool
+	Warnings  []string
+	Planarize *panels.PlanarizeResult
+	Bays      geom.Bays
+
+	Structure  *nodes.Structure
+	Flats      []panels.Flat
+	PanelTypes []panels.Type
+
+	Stocks  []nest.Stock
+	Nesting *nest.Result
+	Cost    *export.Cost // nil without rates
+}
+
+// PlanarityFailure is returned by Run when the flatness tolerance cannot be
+// met within the allowed move and the policy does not continue. Report is
+// the diagnostic report to hand to the user.
+type PlanarityFailure struct {
+	Err    *panels.PlanarizeError
+	Report *PlanarizeReport
+}
+
+func (e *PlanarityFailure) Error() string { return e.Err.Error() }
+
+// Unwrap returns the planarization error.
+func (e *PlanarityFailure) Unwrap() error { return e.Err }
+
+// ErrUnplaced is wrapped by the error Run returns when panels fit no stock
+// sheet and the policy does not continue.
+var ErrUnplaced = errors.New("panels are on no stock sheet")
+
+// Run runs job j: it reads the net through open, checks and planarizes it,
+// computes nodes, members, panels and types, and nests the panels. Errors
+// name the file, the line and the element or job key.
+func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
+	res := &Result{Job: j, NetPath: j.NetPath(), Stocks: j.Stocks()}
+	warn := func(msg string) {
+		res.Warnings = append(res.Warnings, msg)
+		obs.Warn(msg)
+	}
+	in, err := LoadNet(open, res.NetPath, j.Unit(), j.ValidateOptions(), j.Net.Reorient)
+	if err != nil {
+		return nil, err
+	}
+	for _, w := range in.Warnings {
+		warn(w)
+	}
+	net, topo := in.Net, in.Topo
+	res.Topo = topo
+	if res.Supports, err = Supports(j.Supports.Mode, j.Supports.Nodes, net, topo); err != nil {
+		return nil, j.KeyError("supports.nodes", err)
+	}
+	popt := j.PlanarizeOptions()
+	popt.Fixed = res.Supports
+	pres, perr := Planarize(net, topo, popt, obs)
+	if pres == nil {
+		return nil, perr
+	}
+	if perr != nil {
+		var pe *panels.PlanarizeError
+		if !errors.As(perr, &pe) {
+			return nil, perr
+		}
+		if !pol.Continue {
+			return nil, &PlanarityFailure{Err: pe, Report: NewPlanarizeReport(net, popt, pres, 0)}
+		}
+		warn("built with panels over the flatness tolerance: " + perr.Error())
+	}
+	res.Planarize = pres
+	res.Net = Moved(net, pres)
+
+	st, bays, err := Structure(res.Net, topo, j.NodeOptions(), j.Nodes.BayMM)
+	switch {
+	case errors.Is(err, nodes.ErrHubTooLarge):
+		return nil, j.KeyError("nodes.hub_radius_mm", err)
+	case err != nil:
+		return nil, err
+	}
+	res.Structure, res.Bays = st, bays
+	res.Flats, err = Panels(res.Net, topo, j.Material(), bays, NodeLabels(st))
+	switch {
+	case errors.Is(err, panels.ErrInsetTooLarge):
+		return nil, j.KeyError("panel.edge_inset_mm", err)
+	case err != nil:
+		return nil, err
+	}
+	if res.PanelTypes, err = panels.Group(res.Flats, j.PanelTypeOptions()); err != nil {
+		return nil, err
+	}
+
+	res.Nesting, err = Nest(Parts(res.Flats), res.Stocks, obs)
+	if err != nil {
+		return nil, err
+	}
+	if un := res.Nesting.Unplaced; len(un) > 0 {
+		u := un[0]
+		face := res.Net.Faces[u.Part]
+		if !pol.Continue {
+			return nil, j.KeyError("stock", fmt.Errorf("%d %w; the first, %s (panel %s, %s line %d), is %s",
+				len(un), ErrUnplaced, res.Flats[u.Part].Label, face.ID, res.NetPath, face.Line, u.Reason))
+		}
+		for _, u := range un {
+			warn(fmt.Sprintf("panel %s is on no sheet: %s", res.Flats[u.Part].Label, u.Reason))
+		}
+	}
+	res.Cost = cost(j, st, res.Flats, res.Nesting, res.Stocks)
+	return res, nil
+}
+
+// Bundle returns what the writers need.
+func (r *Result) Bundle() *export.Bundle {
+	return &export.Bundle{Title: r.Job.Title, JobFile: r.Job.File, NetFile: r.NetPath, Settings: settings(r.Job), Warnings: r.Warnings,
+		Net: r.Net, Supports: r.Supports, Planarize: r.Planarize, TolMM: r.Job.Flatness.TolMM,
+		Structure: r.Structure, Flats: r.Flats, PanelTypes: r.PanelTypes, Stocks: r.Stocks, Nesting: r.Nesting, Cost: r.Cost}
+}
+
+// Write writes every output of the result into the folder dir, atomically,
+// reporting each file to obs as stage "write", and returns the report.
+func Write(dir string, r *Result, obs Observer) (*export.Report, error) {
+	b := r.Bundle()
+	rep := export.BuildReport(b)
+	err := export.WriteBuild(dir, b, rep, func(done, total int, what string) { obs.Step("write", done, total, "write "+what) })
+	if err != nil {
+		return nil, err
+	}
+	return rep, nil
+}
+
+// settings lists the job's settings for the summary sheet.
+func settings(j *job.Job) []export.Setting {
+	f := func(v float64) string { return fmt.Sprintf("%g", v) }
+	s := []export.Setting{
+		{Name: "Net unit", Value: j.Net.Unit},
+		{Name: "Supports", Value: j.Supports.Mode},
+		{Name: "Flatness tolerance (mm)", Value: f(j.Flatness.TolMM)},
+		{Name: "Allowed node move (mm)", Value: f(j.Flatness.MaxMoveMM)},
+		{Name: "Fairness", Value: f(j.Flatness.Fairness)},
+		{Name: "Node axes", Value: j.Nodes.Axis},
+		{Name: "Hub radius (mm)", Value: f(j.Nodes.HubRadiusMM)},
+		{Name: "Member section (mm)", Value: f(j.Member.WidthMM) + " x " + f(j.Member.DepthMM)},
+		{Name: "Panel material", Value: j.Panel.Material},
+		{Name: "Panel thickness (mm)", Value: f(j.Panel.ThicknessMM)},
+		{Name: "Panel edge inset (mm)", Value: f(j.Panel.EdgeInsetMM)},
+		{Name: "Mirrored panels allowed", Value: fmt.Sprint(j.Panel.Mirror)},
+		{Name: "Bay size (mm)", Value: f(j.Nodes.BayMM)},
+		{Name: "Type tolerances", Value: fmt.Sprintf("%g mm, %g°, panels %g mm", j.Types.LengthTolMM, j.Types.AngleTolDeg, j.Types.PanelTolMM)},
+	}
+	for _, st := range j.Stock {
+		s = append(s, export.Setting{Name: "Stock " + st.Name, Value: fmt.Sprintf("%g x %g mm, margin %g, spacing %g, rotation %s, mirror %v, count %d, price %g",
+			st.WidthMM, st.HeightMM, st.MarginMM, st.SpacingMM, st.Rotation, st.Mirror, st.Count, st.Price)})
+	}
+	return s
+}
+
+// cost turns the job's unit rates into a cost summary (nil without rates).
+func cost(j *job.Job, st *nodes.Structure, flats []panels.Flat, nres *nest.Result, stocks []nest.Stock) *export.Cost {
+	rt := j.Rates
+	if rt == nil {
+		return nil
+	}
+	c := &export.Cost{Currency: rt.Currency}
+	add := func(item string, q float64, unit string, rate float64) {
+		amount := math.Round(q*rate*100) / 100
+		c.Lines = append(c.Lines, export.CostLine{Item: item, Quantity: math.Round(q*1000) / 1000, Unit: unit, Rate: rate, Amount: amount})
+		c.Total += amount
+	}
+	var metres, area float64
+	for _, m := range st.Members {
+		metres += m.CutLengthMM / 1000
+	}
+	for _, f := range flats {
+		area += f.AreaM2
+	}
+	add("Members (cut length)", metres, "m", rt.MemberPerM)
+	add("Nodes", float64(len(st.Nodes)), "each", rt.NodeEach)
+	add("Panels (cut area)", area, "m²", rt.PanelPerM2)
+	for _, u := range nres.Stocks {
+		if u.Sheets == 0 {
+			continue
+		}
+		price := stocks[u.Stock].Price
+		if price == 0 {
+			price = rt.SheetEach
+		}
+		add("Stock sheets "+stocks[u.Stock].Name, float64(u.Sheets), "sheet", price)
+	}
+	c.Total = math.Round(c.Total*100) / 100
+	return c
+}
