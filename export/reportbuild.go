@@ -1,0 +1,129 @@
+package export
+
+import (
+	"gonum.org/v1/gonum/spatial/r3"
+
+	"pqfab/geom"
+	"pqfab/nodes"
+	"pqfab/panels"
+)
+
+func vec(v r3.Vec, d int) [3]float64 { return [3]float64{r(v.X, d), r(v.Y, d), r(v.Z, d)} }
+
+// BuildReport turns a bundle into the report model that report.json, the
+// schedule and the HTML page share.
+func BuildReport(b *Bundle) *Report {
+	s := b.Structure
+	n := b.Net
+	rep := &Report{Title: b.Title, Caution: Caution, Job: b.JobFile, Net: b.NetFile,
+		Units:    map[string]string{"length": "mm", "angle": "degree", "area": "m2", "weight": "kg"},
+		Settings: b.Settings, Warnings: append([]string{}, b.Warnings...),
+		Sheets: []SheetRow{}, Unplaced: []UnplacedRow{}, Stocks: []StockRow{}}
+	nodeLabel := func(i int) string { return s.Nodes[i].Label }
+	rep.Section = Section{WidthMM: s.Section.WidthMM, DepthMM: s.Section.DepthMM}
+	rep.Counts = Counts{Nodes: len(n.Nodes), Members: len(s.Members), Panels: len(n.Faces),
+		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), PanelTypes: len(b.PanelTypes)}
+	pl := b.Planarize
+	rep.Planarity = Planarity{ToleranceMM: b.TolMM, Converged: pl.Converged, Iterations: pl.Iterations,
+		MaxMoveMM: r(pl.MaxMoveMM, 3), RMSMoveMM: r(pl.RMSMoveMM, 3),
+		FlatBeforeMM: spread(panels.SpreadOf(pl.Before), 3), FlatAfterMM: spread(panels.SpreadOf(pl.After), 4),
+		MaxTwistDeg: r(nodes.MaxAbsTwist(s.Members), angleDigits), MaxTwistNormalDeg: r(s.TwistNormalDeg, angleDigits)}
+	for i, nd := range s.Nodes {
+		row := NodeRow{Label: nd.Label, ID: n.Nodes[i].ID, Pos: vec(n.Nodes[i].Pos, lenDigits), Axis: vec(nd.Axis, 6),
+			Valence: nd.Valence, Type: s.NodeTypes[nd.Type].Name, Support: b.Supports[i],
+			MoveMM: r(r3.Norm(pl.Moves[i]), lenDigits), Move: vec(pl.Moves[i], lenDigits)}
+		for _, a := range nd.Arms {
+			row.Arms = append(row.Arms, ArmRow{Member: s.Members[a.Member].Label, AzimuthDeg: r(a.AzimuthDeg, angleDigits), ElevationDeg: r(a.ElevationDeg, angleDigits)})
+		}
+		rep.Nodes = append(rep.Nodes, row)
+	}
+	for _, m := range s.Members {
+		end := func(e nodes.End) EndRow {
+			return EndRow{Node: nodeLabel(e.Node), ElevationDeg: r(e.ElevationDeg, angleDigits), SetbackMM: r(e.SetbackMM, lenDigits), MitreDeg: r(e.MitreDeg, angleDigits), BevelDeg: r(e.BevelDeg, angleDigits)}
+		}
+		rep.Members = append(rep.Members, MemberRow{Label: m.Label, NodeA: nodeLabel(m.A.Node), NodeB: nodeLabel(m.B.Node),
+			LengthMM: r(m.LengthMM, lenDigits), CutLengthMM: r(m.CutLengthMM, lenDigits), TwistDeg: r(m.TwistDeg, angleDigits),
+			DihedralDeg: r(m.DihedralDeg, angleDigits), Type: s.MemberTypes[m.Type].Name,
+			Ends: [2]EndRow{end(m.A), end(m.B)}, FrameY: vec(m.Frame.Y, 6), FrameZ: vec(m.Frame.Z, 6)})
+	}
+	sheetOf := b.sheetOf()
+	for f, fl := range b.Flats {
+		face := n.Faces[f]
+		row := PanelRow{Label: fl.Label, ID: face.ID, AreaM2: r(fl.AreaM2, areaDigits), PerimeterMM: r(fl.PerimeterMM, lenDigits),
+			WeightKg: r(fl.WeightKg, weightDigits), FlatnessBeforeMM: r(pl.Before[f], 3), FlatnessMM: r(pl.After[f], 4),
+			Type: b.PanelTypes[fl.Type].Name}
+		for _, c := range face.Corners {
+			row.Corners = append(row.Corners, nodeLabel(c))
+		}
+		for k := range face.Corners {
+			nb := ""
+			if g := fl.Neighbour[k]; g >= 0 {
+				nb = b.Flats[g].Label
+			}
+			row.Edges = append(row.Edges, EdgeRow{LengthMM: r(fl.EdgeMM[k], lenDigits), FoldDeg: r(fl.FoldDeg[k], angleDigits), BevelDeg: r(fl.BevelDeg[k], angleDigits), Neighbour: nb})
+			row.AnglesDeg = append(row.AnglesDeg, r(fl.AngleDeg[k], angleDigits))
+		}
+		for _, d := range fl.Diagonals {
+			row.Diagonals = append(row.Diagonals, DiagonalRow{From: nodeLabel(face.Corners[d.I]), To: nodeLabel(face.Corners[d.J]), MM: r(d.MM, lenDigits)})
+		}
+		if sheetOf[f] >= 0 {
+			row.Sheet = SheetName(sheetOf[f], len(b.Nesting.Sheets))
+		}
+		row.Outline = points(fl.Cut)
+		rep.Panels = append(rep.Panels, row)
+	}
+	for _, t := range s.MemberTypes {
+		row := TypeRow{Name: t.Name, Count: len(t.Parts), Size: r(s.Members[t.Rep].CutLengthMM, lenDigits)}
+		for _, i := range t.Parts {
+			row.Parts = append(row.Parts, s.Members[i].Label)
+		}
+		rep.MemberTypes = append(rep.MemberTypes, row)
+	}
+	for _, t := range s.NodeTypes {
+		row := TypeRow{Name: t.Name, Count: len(t.Parts), Size: float64(s.Nodes[t.Rep].Valence)}
+		for _, i := range t.Parts {
+			row.Parts = append(row.Parts, s.Nodes[i].Label)
+		}
+		rep.NodeTypes = append(rep.NodeTypes, row)
+	}
+	for _, t := range b.PanelTypes {
+		row := TypeRow{Name: t.Name, Count: len(t.Panels), Size: r(b.Flats[t.Rep].AreaM2, areaDigits)}
+		for _, i := range t.Panels {
+			row.Parts = append(row.Parts, b.Flats[i].Label)
+		}
+		rep.PanelTypes = append(rep.PanelTypes, row)
+	}
+	if nr := b.Nesting; nr != nil {
+		for si, sh := range nr.Sheets {
+			st := b.Stocks[sh.Stock]
+			row := SheetRow{Name: SheetName(si, len(nr.Sheets)), Stock: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM, Utilization: r(sh.Utilization, 4)}
+			for _, p := range sh.Placements {
+				row.Placements = append(row.Placements, PlacementRow{Panel: b.Flats[p.Part].Label, X: r(p.X, lenDigits), Y: r(p.Y, lenDigits),
+					RotationDeg: r(p.RotationDeg, angleDigits), Mirrored: p.Mirrored, Outline: points(p.Outline)})
+			}
+			rep.Sheets = append(rep.Sheets, row)
+		}
+		for _, u := range nr.Unplaced {
+			rep.Unplaced = append(rep.Unplaced, UnplacedRow{Panel: b.Flats[u.Part].Label, Reason: u.Reason})
+		}
+		for _, u := range nr.Stocks {
+			rep.Stocks = append(rep.Stocks, StockRow{Name: b.Stocks[u.Stock].Name, Sheets: u.Sheets, AreaBound: u.AreaBound, Cost: r(u.Cost, 2)})
+		}
+		rep.Counts.Sheets = len(nr.Sheets)
+		rep.Counts.Unplaced = len(nr.Unplaced)
+	}
+	rep.Cost = b.Cost
+	for _, st := range b.Stocks {
+		rep.stockInfo = append(rep.stockInfo, StockInfo{Name: st.Name, MarginMM: st.MarginMM})
+	}
+	rep.planLayout()
+	return rep
+}
+
+func points(p geom.Polygon) [][2]float64 {
+	out := make([][2]float64, len(p))
+	for i, v := range p {
+		out[i] = [2]float64{r(v.X, lenDigits), r(v.Y, lenDigits)}
+	}
+	return out
+}
