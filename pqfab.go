@@ -42,7 +42,10 @@ func Run(j *Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 }
 
 // Write writes every output of a result into the folder dir, atomically,
-// and returns the report model.
-func Write(dir string, r *Result, obs Observer) (*export.Report, error) {
-	return pipeline.Write(dir, r, obs)
+// and returns the report model. It replaces an existing folder only when
+// pqfab wrote it, it is empty, or opt.Force is set, and never a folder
+// holding the job's input files.
+func Write(dir string, r *Result, opt export.WriteOptions, obs Observer) (*export.Report, error) {
+	opt.Keep = append(opt.Keep, r.InputFiles()...)
+	return pipeline.Write(dir, r, opt, obs)
 }

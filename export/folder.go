@@ -6,72 +6,130 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"strings"
 )
 
 // WriteFolder builds an output folder atomically: fill writes every file
-// into a new temporary sibling of dir, which then takes dir's place. A
-// failed fill removes the temporary folder and leaves any old dir intact;
-// no reader ever sees a half-written folder under dir's name.
-func WriteFolder(dir string, fill func(tmp string) error) (err error) {
+// into a new temporary sibling of dir (".DIR.pqfab-tmp-ID", marked as
+// pqfab's from its first moment), the marker file is written last, and
+// the folder then takes dir's place. A failed fill removes the temporary
+// folder and leaves any old dir intact; no reader ever sees a half-written
+// folder under dir's name.
+//
+// Safety: an existing dir is replaced only when it is empty, when pqfab
+// wrote it (its MarkerFile) or with opt.Force; never when it is the root,
+// the home or current folder or one above them, or holds a file listed in
+// opt.Keep. A lock beside dir keeps two builds from writing it at once.
+// The swap renames dir to ".DIR.pqfab-old-ID" and the new folder to dir;
+// a run killed between the two renames leaves both, and the next run
+// puts the old folder back before it starts (recoverLeftovers), so no run
+// ever loses the previous folder.
+func WriteFolder(dir string, opt WriteOptions, fill func(tmp string) error) (err error) {
 	dir = filepath.Clean(dir)
-	parent := filepath.Dir(dir)
-	if st, err := os.Stat(dir); err == nil && !st.IsDir() {
-		return fmt.Errorf("export: %s exists and is not a folder", dir)
+	if err := CheckFolder(dir, opt); err != nil {
+		return err
 	}
-	tmp, err := os.MkdirTemp(parent, "."+filepath.Base(dir)+".tmp-")
+	parent, base := filepath.Dir(dir), filepath.Base(dir)
+	lock, err := lockFolder(dir)
 	if err != nil {
-		return fmt.Errorf("export: %s: cannot write there: %w", dir, unwrapPath(err))
+		return err
+	}
+	defer lock.unlock()
+	if err := recoverLeftovers(dir); err != nil {
+		return err
+	}
+	if _, err := os.Stat(dir); err == nil {
+		if err := replaceable(dir, opt.Force); err != nil {
+			return err
+		}
+	}
+	tmp, err := os.MkdirTemp(parent, tmpPrefix(base))
+	if err != nil {
+		return fmt.Errorf("%s: cannot write there: %w", dir, unwrapPath(err))
 	}
 	defer func() {
 		if err != nil {
 			os.RemoveAll(tmp)
 		}
 	}()
+	marker := filepath.Join(tmp, MarkerFile)
+	if err = os.WriteFile(marker, []byte(buildingText), 0o644); err != nil {
+		return fmt.Errorf("%s: %w", dir, unwrapPath(err))
+	}
+	if opt.OnTemp != nil {
+		opt.OnTemp(tmp)
+	}
 	if err = os.Chmod(tmp, 0o755); err != nil {
 		return err
 	}
 	if err = fill(tmp); err != nil {
 		return err
 	}
+	if err = writeFile(marker, func(w io.Writer) error { _, err := io.WriteString(w, markerText); return err }); err != nil {
+		return err
+	}
 	old := ""
-	if _, serr := os.Stat(dir); serr == nil {
-		old = tmp + ".old"
+	if _, serr := os.Lstat(dir); serr == nil {
+		old = filepath.Join(parent, oldPrefix(base)+strings.TrimPrefix(filepath.Base(tmp), tmpPrefix(base)))
 		if err = os.Rename(dir, old); err != nil {
-			return fmt.Errorf("export: %s: cannot replace it: %w", dir, unwrapPath(err))
+			return fmt.Errorf("%s: cannot replace it: %w", dir, unwrapPath(err))
 		}
 	}
 	if err = os.Rename(tmp, dir); err != nil {
 		if old != "" {
 			os.Rename(old, dir) // put the old folder back
 		}
-		return fmt.Errorf("export: %s: %w", dir, unwrapPath(err))
+		return fmt.Errorf("%s: %w", dir, unwrapPath(err))
 	}
 	if old != "" {
 		if rerr := os.RemoveAll(old); rerr != nil {
-			return fmt.Errorf("export: %s written, but the previous copy %s could not be removed: %w", dir, old, rerr)
+			return fmt.Errorf("%s written, but the previous copy %s could not be removed: %w", dir, old, rerr)
 		}
 	}
 	return nil
 }
+
+// CheckFolder reports, before any work is done, whether WriteFolder could
+// write dir with opt: the same checks, without taking the lock.
+func CheckFolder(dir string, opt WriteOptions) error {
+	dir = filepath.Clean(dir)
+	if err := guard(dir, true, opt); err != nil {
+		return err
+	}
+	if st, err := os.Stat(dir); err == nil && !st.IsDir() {
+		return fmt.Errorf("%s exists and is not a folder", dir)
+	} else if err == nil {
+		if err := replaceable(dir, opt.Force); err != nil {
+			return err
+		}
+	}
+	if st, err := os.Stat(filepath.Dir(dir)); err != nil || !st.IsDir() {
+		return fmt.Errorf("%s: cannot write there: %s is not a folder", dir, filepath.Dir(dir))
+	}
+	return nil
+}
+
+// CheckFile reports whether WriteFileAtomic could write path with opt.
+func CheckFile(path string, opt WriteOptions) error { return checkFile(path, opt) }
 
 // writeFile writes one file (inside a folder being built), checking the
 // flush and close errors.
 func writeFile(path string, write func(w io.Writer) error) error {
 	f, err := os.Create(path)
 	if err != nil {
-		return fmt.Errorf("export: %s: %w", path, unwrapPath(err))
+		return fmt.Errorf("%s: %w", path, unwrapPath(err))
 	}
 	bw := bufio.NewWriterSize(f, 1<<16)
 	if err := write(bw); err != nil {
 		f.Close()
-		return fmt.Errorf("export: %s: %w", filepath.Base(path), err)
+		return fmt.Errorf("%s: %w", filepath.Base(path), err)
 	}
 	if err := bw.Flush(); err != nil {
 		f.Close()
-		return fmt.Errorf("export: %s: %w", filepath.Base(path), err)
+		return fmt.Errorf("%s: %w", filepath.Base(path), err)
 	}
 	if err := f.Close(); err != nil {
-		return fmt.Errorf("export: %s: %w", filepath.Base(path), err)
+		return fmt.Errorf("%s: %w", filepath.Base(path), err)
 	}
 	return nil
 }

@@ -2,11 +2,8 @@ package export
 
 import (
 	"bytes"
-	"errors"
 	"flag"
-	"io"
 	"os"
-	"path/filepath"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -53,35 +50,5 @@ func TestWriteOBJGolden(t *testing.T) {
 		if d.X*d.X+d.Y*d.Y+d.Z*d.Z > 1e-8 {
 			t.Errorf("node %d moved by %v", i, d)
 		}
-	}
-}
-
-func TestWriteFileAtomic(t *testing.T) {
-	dir := t.TempDir()
-	path := filepath.Join(dir, "net.obj")
-	if err := os.WriteFile(path, []byte("old"), 0o644); err != nil {
-		t.Fatal(err)
-	}
-	err := WriteFileAtomic(path, func(w io.Writer) error {
-		io.WriteString(w, "half")
-		return errors.New("disk on fire")
-	})
-	if err == nil {
-		t.Fatal("want the write error")
-	}
-	if b, _ := os.ReadFile(path); string(b) != "old" {
-		t.Errorf("failed write changed the file to %q", b)
-	}
-	if err := WriteFileAtomic(path, func(w io.Writer) error { _, err := io.WriteString(w, "new"); return err }); err != nil {
-		t.Fatal(err)
-	}
-	if b, _ := os.ReadFile(path); string(b) != "new" {
-		t.Errorf("got %q", b)
-	}
-	if ents, _ := os.ReadDir(dir); len(ents) != 1 {
-		t.Errorf("leftover files: %v", ents)
-	}
-	if err := WriteFileAtomic(filepath.Join(dir, "missing", "x.obj"), func(io.Writer) error { return nil }); err == nil {
-		t.Error("missing folder: want an error")
 	}
 }

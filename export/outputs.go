@@ -20,11 +20,11 @@ const (
 // Progress is told how many output files are done of how many.
 type Progress func(done, total int, what string)
 
-// WriteBuild writes every output of a build into dir, atomically. The
-// files are written side by side (the DXF drawings one after another, as
-// the DXF library needs).
-func WriteBuild(dir string, b *Bundle, rep *Report, progress Progress) error {
-	return WriteFolder(dir, func(tmp string) error {
+// WriteBuild writes every output of a build into dir, atomically and only
+// where opt allows (see WriteFolder). The files are written side by side
+// (the DXF drawings one after another, as the DXF library needs).
+func WriteBuild(dir string, opt WriteOptions, b *Bundle, rep *Report, progress Progress) error {
+	return WriteFolder(dir, opt, func(tmp string) error {
 		if err := os.Mkdir(filepath.Join(tmp, DirSheets), 0o755); err != nil {
 			return err
 		}

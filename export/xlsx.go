@@ -125,7 +125,7 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 			return err
 		}
 		if err := writeTable(f, t.name, fmt.Sprintf("t%d", i+1), t.header, bold, t.rows); err != nil {
-			return fmt.Errorf("export: schedule sheet %s: %w", t.name, err)
+			return fmt.Errorf("schedule sheet %s: %w", t.name, err)
 		}
 	}
 	var buf bytes.Buffer

@@ -8,6 +8,7 @@ import (
 	"io/fs"
 	"os"
 	"path/filepath"
+	"sync"
 
 	"pqfab/export"
 	"pqfab/geom"
@@ -18,15 +19,15 @@ import (
 
 // buildFlags are the options of build and demo.
 type buildFlags struct {
-	out   string
-	quiet bool
-	cont  bool
+	out                string
+	quiet, cont, force bool
 }
 
 func (bf *buildFlags) register(fs *flag.FlagSet) {
 	fs.StringVar(&bf.out, "o", "", "output folder (required); written whole or not at all")
 	fs.BoolVar(&bf.quiet, "q", false, "no progress bars")
 	fs.BoolVar(&bf.cont, "continue", false, "build even when some panels miss the flatness tolerance or fit no sheet")
+	fs.BoolVar(&bf.force, "force", false, "replace an existing output folder that pqfab did not write")
 }
 
 // parseBuild parses the flags of build or demo.
@@ -46,19 +47,15 @@ func runBuild(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err // flag.ErrHelp after -h: run ends without an error
 	}
-	data, err := os.ReadFile(pos[0])
+	data, err := readJobFile(pos[0])
 	if err != nil {
-		var pe *fs.PathError
-		if errors.As(err, &pe) {
-			err = pe.Err
-		}
-		return &geom.InputError{File: pos[0], Msg: err.Error()}
+		return err
 	}
 	j, err := job.Parse(data, pos[0])
 	if err != nil {
 		return err
 	}
-	return build(j, pipeline.OpenFile, bf, stdout, stderr)
+	return build(j, pipeline.OpenFile, (&pipeline.Result{Job: j, NetPath: j.NetPath()}).InputFiles(), bf, stdout, stderr)
 }
 
 func runDemo(args []string, _ io.Reader, stdout, stderr io.Writer) error {
@@ -70,33 +67,83 @@ func runDemo(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	return build(j, samples.OpenDemo, bf, stdout, stderr)
+	return build(j, samples.OpenDemo, nil, bf, stdout, stderr)
 }
 
 // build runs the job and writes the output folder; a planarization that
-// misses the tolerance writes only the diagnostic report beside it.
-func build(j *job.Job, open pipeline.Opener, bf buildFlags, stdout, stderr io.Writer) error {
-	obs := &observer{stderr: stderr, quiet: bf.quiet}
+// misses the tolerance writes only the diagnostic report beside it. The
+// output folder is checked before the work starts; SIGINT and SIGTERM
+// remove the temporary folder before pqfab ends.
+func build(j *job.Job, open pipeline.Opener, keep []string, bf buildFlags, stdout, stderr io.Writer) error {
+	obs := &observer{stderr: stderr, quiet: bf.quiet, hold: true}
 	defer obs.finish()
+	var mu sync.Mutex
+	tmp := ""
+	opt := export.WriteOptions{Force: bf.force, Keep: keep, OnTemp: func(p string) { mu.Lock(); tmp = p; mu.Unlock() }}
+	stop := onSignal(func() {
+		mu.Lock()
+		if tmp != "" {
+			os.RemoveAll(tmp)
+		}
+		fmt.Fprintln(stderr, "pqfab: interrupted; nothing written")
+		os.Exit(130)
+	})
+	defer stop()
+	diag := filepath.Clean(bf.out) + "-planarity.json"
+	diagOpt := export.WriteOptions{Force: bf.force, Keep: keep}
+	if err := export.CheckFolder(bf.out, opt); err != nil {
+		return err
+	}
+	if err := export.CheckFile(diag, diagOpt); err != nil {
+		return err
+	}
 	res, err := pipeline.Run(j, open, obs, pipeline.Policy{Continue: bf.cont})
 	var pf *pipeline.PlanarityFailure
 	switch {
 	case errors.As(err, &pf):
-		diag := filepath.Clean(bf.out) + "-planarity.json"
-		if werr := export.WriteFileAtomic(diag, func(w io.Writer) error { return writeJSON(w, pf.Report) }); werr != nil {
-			return fmt.Errorf("%v (and the diagnostic report could not be written: %v)", err, werr)
+		if werr := export.WriteFileAtomic(diag, diagOpt, func(w io.Writer) error { return writeJSON(w, pf.Report) }); werr != nil {
+			return obs.attach(fmt.Errorf("%v (and the diagnostic report could not be written: %v)", err, werr))
 		}
-		return fmt.Errorf("%v; nothing built (diagnostic report: %s; --continue builds anyway)", err, diag)
+		return obs.attach(fmt.Errorf("%v; nothing built (diagnostic report: %s; --continue builds anyway)", err, diag))
 	case errors.Is(err, pipeline.ErrUnplaced):
-		return fmt.Errorf("%w; add a larger or more stock, or --continue lists them as unplaced", err)
+		return obs.attach(fmt.Errorf("%w; add a larger or more stock, or --continue lists them as unplaced", err))
 	case err != nil:
-		return err
+		return obs.attach(err)
 	}
-	rep, err := pipeline.Write(bf.out, res, obs)
+	rep, err := pipeline.Write(bf.out, res, opt, obs)
 	if err != nil {
-		return err
+		return obs.attach(err)
 	}
 	obs.finish()
+	if err := export.RemoveOwnFile(diag); err != nil {
+		obs.Warn(fmt.Sprintf("the stale diagnostic report %s could not be removed: %v", diag, err))
+	}
 	pipeline.WriteBuildText(stdout, bf.out, rep)
+	obs.flush()
 	return nil
+}
+
+// readJobFile reads a job file: a regular file of at most job.MaxFileBytes.
+func readJobFile(path string) ([]byte, error) {
+	st, err := os.Stat(path)
+	if err != nil {
+		var pe *fs.PathError
+		if errors.As(err, &pe) {
+			err = pe.Err
+		}
+		return nil, &geom.InputError{File: path, Msg: err.Error()}
+	}
+	if !st.Mode().IsRegular() {
+		return nil, &geom.InputError{File: path, Msg: "is not a regular file (a folder, FIFO, device or socket)"}
+	}
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, &geom.InputError{File: path, Msg: errors.Unwrap(err).Error()}
+	}
+	defer f.Close()
+	data, err := io.ReadAll(io.LimitReader(f, job.MaxFileBytes+1))
+	if err != nil {
+		return nil, &geom.InputError{File: path, Msg: "read failed: " + err.Error()}
+	}
+	return data, nil
 }

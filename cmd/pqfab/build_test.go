@@ -204,7 +204,11 @@ func TestPlanarityFailure(t *testing.T) {
 	if err := os.WriteFile(filepath.Join(out, "old.txt"), []byte("old"), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	_, _, err := runCmd(t, "build", "-q", job, "-o", out)
+	// The folder was not written by pqfab: only --force may replace it.
+	if _, _, err := runCmd(t, "build", "-q", job, "-o", out); err == nil || !strings.Contains(err.Error(), "did not write it") {
+		t.Fatalf("foreign folder: got %v", err)
+	}
+	_, _, err := runCmd(t, "build", "-q", "--force", job, "-o", out)
 	if err == nil || !strings.Contains(err.Error(), "allowed node move") || !strings.Contains(err.Error(), "nothing built") {
 		t.Fatalf("got %v", err)
 	}
@@ -214,7 +218,7 @@ func TestPlanarityFailure(t *testing.T) {
 	if b, _ := os.ReadFile(filepath.Join(out, "old.txt")); string(b) != "old" {
 		t.Error("failed build touched the old folder")
 	}
-	if _, _, err := runCmd(t, "build", "-q", "--continue", job, "-o", out); err != nil {
+	if _, _, err := runCmd(t, "build", "-q", "--continue", "--force", job, "-o", out); err != nil {
 		t.Fatal(err)
 	}
 	rep := loadReport(t, out)
@@ -223,6 +227,9 @@ func TestPlanarityFailure(t *testing.T) {
 	}
 	if _, err := os.Stat(filepath.Join(out, "old.txt")); err == nil {
 		t.Error("old folder content survived the replacement")
+	}
+	if _, err := os.Stat(out + "-planarity.json"); err == nil {
+		t.Error("the stale diagnostic report survived a successful build")
 	}
 	checkAccounting(t, out)
 }

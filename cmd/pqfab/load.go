@@ -48,6 +48,12 @@ func loadNet(path string, nf netFlags, stderr io.Writer) (*pipeline.Loaded, erro
 // printOthers lists the problems after the first, which the error names;
 // main calls it after printing the error, so the error is the first line.
 func printOthers(stderr io.Writer, err error) {
+	var we *warnedError
+	if errors.As(err, &we) {
+		for _, w := range we.warnings {
+			fmt.Fprintln(stderr, "pqfab: warning:", w)
+		}
+	}
 	var ve *geom.ValidationError
 	if errors.As(err, &ve) {
 		for _, p := range ve.Problems[1:min(len(ve.Problems), 21)] {

@@ -3,10 +3,12 @@ package main
 import (
 	"flag"
 	"io"
+	"path/filepath"
 	"strings"
 	"time"
 
 	"pqfab/export"
+	"pqfab/geom"
 	"pqfab/internal/pipeline"
 	"pqfab/panels"
 )
@@ -59,12 +61,17 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	out := fs.String("o", "", "planarized net, OBJ in mm (required)")
 	report := fs.String("report", "", "also write the full report (per node moves, per panel flatness) as JSON")
 	quiet := fs.Bool("q", false, "no progress bar")
+	force := fs.Bool("force", false, "replace output files that pqfab did not write")
 	pos, err := parseCommand(fs, args, 1, "one net file")
 	if err != nil {
 		return err // flag.ErrHelp after -h: run ends without an error
 	}
 	if *out == "" {
 		return usagef("planarize needs -o OUT.obj")
+	}
+	wopt := export.WriteOptions{Force: *force, Keep: inputFiles(pos[0])}
+	if err := checkOutputs(wopt, *out, *report); err != nil {
+		return err
 	}
 	in, err := loadNet(pos[0], nf, stderr)
 	if err != nil {
@@ -90,14 +97,43 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	}
 	rep.WriteText(stdout, supports)
 	if *report != "" {
-		if err := export.WriteFileAtomic(*report, func(w io.Writer) error { return writeJSON(w, rep) }); err != nil {
+		if err := export.WriteFileAtomic(*report, wopt, func(w io.Writer) error { return writeJSON(w, rep) }); err != nil {
 			return err
 		}
 	}
 	if perr != nil {
 		return perr // nothing written but the diagnostic report
 	}
-	return export.WriteFileAtomic(*out, func(w io.Writer) error {
+	return export.WriteFileAtomic(*out, wopt, func(w io.Writer) error {
 		return export.WriteOBJ(w, pipeline.Moved(in.Net, res), "pqfab planarized net from "+in.Net.Source)
 	})
+}
+
+// inputFiles lists the files a net path reads: the file, and the panels
+// file of a CSV pair.
+func inputFiles(net string) []string {
+	if pp, err := geom.PanelsPathFor(net); err == nil && strings.EqualFold(filepath.Ext(net), ".csv") {
+		return []string{net, pp}
+	}
+	return []string{net}
+}
+
+// checkOutputs checks, before any work, that each output file may be
+// written and that no two outputs are the same file.
+func checkOutputs(opt export.WriteOptions, paths ...string) error {
+	seen := map[string]string{}
+	for _, p := range paths {
+		if p == "" {
+			continue
+		}
+		abs, _ := filepath.Abs(p)
+		if q, dup := seen[abs]; dup {
+			return usagef("%s and %s are the same file: give each output its own name", q, p)
+		}
+		seen[abs] = p
+		if err := export.CheckFile(p, opt); err != nil {
+			return err
+		}
+	}
+	return nil
 }

@@ -12,6 +12,7 @@ import (
 func runSample(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	fs := newFlags("sample", "NAME -o FILE", stderr)
 	out := fs.String("o", "", "output OBJ file (required)")
+	force := fs.Bool("force", false, "replace an existing file that pqfab did not write")
 	count := fs.Int("panels", 1000, fmt.Sprintf("about how many panels (%d to %d)", samples.MinPanels, samples.MaxPanels))
 	pos, err := parseCommand(fs, args, 1, "one name ("+strings.Join(samples.Names(), ", ")+")")
 	if err != nil {
@@ -24,7 +25,7 @@ func runSample(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return usagef("%v", err)
 	}
-	if err := export.WriteFileAtomic(*out, func(w io.Writer) error {
+	if err := export.WriteFileAtomic(*out, export.WriteOptions{Force: *force}, func(w io.Writer) error {
 		return export.WriteOBJ(w, net, fmt.Sprintf("pqfab sample %s: %s", pos[0], samples.Describe(pos[0])))
 	}); err != nil {
 		return err

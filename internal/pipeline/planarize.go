@@ -33,6 +33,7 @@ func Moved(net *geom.Net, res *panels.PlanarizeResult) *geom.Net {
 // PlanarizeReport is the JSON report of a planarization: `planarize
 // --report`, and the diagnostic report a failed build writes.
 type PlanarizeReport struct {
+	WrittenBy  string          `json:"written_by"` // "pqfab": marks the file as pqfab's own
 	Net        string          `json:"net"`
 	TolMM      float64         `json:"tolerance_mm"`
 	Converged  bool            `json:"converged"`
@@ -65,7 +66,7 @@ type PanelFlatness struct {
 // NewPlanarizeReport builds the report of a planarization that took secs
 // seconds (0 when the time must not reach a file).
 func NewPlanarizeReport(net *geom.Net, opt panels.PlanarizeOptions, res *panels.PlanarizeResult, secs float64) *PlanarizeReport {
-	r := &PlanarizeReport{Net: net.Source, TolMM: opt.TolMM, Converged: res.Converged, Iterations: res.Iterations,
+	r := &PlanarizeReport{WrittenBy: "pqfab", Net: net.Source, TolMM: opt.TolMM, Converged: res.Converged, Iterations: res.Iterations,
 		Seconds: export.Round(secs, 3), MaxMoveMM: export.Round(res.MaxMoveMM, 3), RMSMoveMM: export.Round(res.RMSMoveMM, 3),
 		FlatBefore: export.RoundSpread(panels.SpreadOf(res.Before), 3), FlatAfter: export.RoundSpread(panels.SpreadOf(res.After), 4),
 		Caution: "Caution: " + export.Caution}

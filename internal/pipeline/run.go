@@ -4,6 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"path/filepath"
+	"strings"
 
 	"pqfab/export"
 	"pqfab/geom"
@@ -142,16 +144,28 @@ func (r *Result) Bundle() *export.Bundle {
 		Structure: r.Structure, Flats: r.Flats, PanelTypes: r.PanelTypes, Stocks: r.Stocks, Nesting: r.Nesting, Cost: r.Cost}
 }
 
-// Write writes every output of the result into the folder dir, atomically,
-// reporting each file to obs as stage "write", and returns the report.
-func Write(dir string, r *Result, obs Observer) (*export.Report, error) {
+// Write writes every output of the result into the folder dir, atomically
+// and only where opt allows (export.WriteFolder; list the job's files on
+// disk in opt.Keep, see InputFiles), reporting each file to obs as stage
+// "write", and returns the report.
+func Write(dir string, r *Result, opt export.WriteOptions, obs Observer) (*export.Report, error) {
 	b := r.Bundle()
 	rep := export.BuildReport(b)
-	err := export.WriteBuild(dir, b, rep, func(done, total int, what string) { obs.Step("write", done, total, "write "+what) })
+	err := export.WriteBuild(dir, opt, b, rep, func(done, total int, what string) { obs.Step("write", done, total, "write "+what) })
 	if err != nil {
 		return nil, err
 	}
 	return rep, nil
+}
+
+// InputFiles lists the files the job reads: the job file and the net
+// (both files of a CSV pair). Outputs never replace them.
+func (r *Result) InputFiles() []string {
+	files := []string{r.Job.File, r.NetPath}
+	if pp, err := geom.PanelsPathFor(r.NetPath); err == nil && strings.EqualFold(filepath.Ext(r.NetPath), ".csv") {
+		files = append(files, pp)
+	}
+	return files
 }
 
 // settings lists the job's settings for the summary sheet.
