@@ -2,10 +2,14 @@ package export
 
 import (
 	"bufio"
+	"errors"
 	"fmt"
 	"io"
+	"io/fs"
+	"math/rand/v2"
 	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
 )
 
@@ -43,7 +47,7 @@ func WriteFolder(dir string, opt WriteOptions, fill func(tmp string) error) (err
 			return err
 		}
 	}
-	tmp, err := os.MkdirTemp(parent, tmpPrefix(base))
+	tmp, err := makeTemp(parent, tmpPrefix(base), opt.OnTemp)
 	if err != nil {
 		return fmt.Errorf("%s: cannot write there: %w", dir, unwrapPath(err))
 	}
@@ -55,12 +59,6 @@ func WriteFolder(dir string, opt WriteOptions, fill func(tmp string) error) (err
 	marker := filepath.Join(tmp, MarkerFile)
 	if err = os.WriteFile(marker, []byte(buildingText), 0o644); err != nil {
 		return fmt.Errorf("%s: %w", dir, unwrapPath(err))
-	}
-	if opt.OnTemp != nil {
-		opt.OnTemp(tmp)
-	}
-	if err = os.Chmod(tmp, 0o755); err != nil {
-		return err
 	}
 	if err = fill(tmp); err != nil {
 		return err
@@ -87,6 +85,21 @@ func WriteFolder(dir string, opt WriteOptions, fill func(tmp string) error) (err
 		}
 	}
 	return nil
+}
+
+// makeTemp makes a new folder prefix+ID in parent, telling onTemp its
+// path before it exists (so a signal handler never misses it).
+func makeTemp(parent, prefix string, onTemp func(string)) (string, error) {
+	for try := 0; ; try++ {
+		p := filepath.Join(parent, prefix+strconv.FormatUint(uint64(rand.Uint32()), 10))
+		if onTemp != nil {
+			onTemp(p)
+		}
+		err := os.Mkdir(p, 0o755)
+		if err == nil || !errors.Is(err, fs.ErrExist) || try == 100 {
+			return p, err
+		}
+	}
 }
 
 // CheckFolder reports, before any work is done, whether WriteFolder could

@@ -65,16 +65,6 @@ func guard(path string, dir bool, opt WriteOptions) error {
 	if abs == string(filepath.Separator) {
 		return refuse("the root folder")
 	}
-	if home, err := os.UserHomeDir(); err == nil && home != "" {
-		if h, err := realAbs(home); err == nil && dir && within(h, abs) {
-			return refuse("the home folder or a folder above it")
-		}
-	}
-	if cwd, err := os.Getwd(); err == nil && dir {
-		if c, err := realAbs(cwd); err == nil && within(c, abs) {
-			return refuse("the current folder or a folder above it")
-		}
-	}
 	for _, k := range opt.Keep {
 		if k == "" {
 			continue
@@ -88,6 +78,16 @@ func guard(path string, dir bool, opt WriteOptions) error {
 		}
 		if dir && within(ka, abs) {
 			return refuse("a folder holding an input file of this job (" + k + ")")
+		}
+	}
+	if home, err := os.UserHomeDir(); err == nil && home != "" {
+		if h, err := realAbs(home); err == nil && dir && within(h, abs) {
+			return refuse("the home folder or a folder above it")
+		}
+	}
+	if cwd, err := os.Getwd(); err == nil && dir {
+		if c, err := realAbs(cwd); err == nil && within(c, abs) {
+			return refuse("the current folder or a folder above it")
 		}
 	}
 	return nil
@@ -190,6 +190,23 @@ func checkFile(path string, opt WriteOptions) error {
 		return nil
 	}
 	return fmt.Errorf("%s exists and pqfab did not write it: %w; choose another name, or add --force to replace it", path, ErrNotOurs)
+}
+
+// RemoveTemp removes a temporary output folder at once, such as when the
+// process is told to stop: it first renames the folder so that writers
+// still running can add nothing more to it, then removes it.
+func RemoveTemp(tmp string) error {
+	dead := tmp + "-stopped"
+	if os.Rename(tmp, dead) == nil {
+		tmp = dead
+	}
+	var err error
+	for try := 0; try < 3; try++ {
+		if err = os.RemoveAll(tmp); err == nil {
+			return nil
+		}
+	}
+	return err
 }
 
 // RemoveOwnFile removes the file at path if pqfab wrote it, such as a

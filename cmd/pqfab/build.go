@@ -81,14 +81,19 @@ func build(j *job.Job, open pipeline.Opener, keep []string, bf buildFlags, stdou
 	tmp := ""
 	opt := export.WriteOptions{Force: bf.force, Keep: keep, OnTemp: func(p string) { mu.Lock(); tmp = p; mu.Unlock() }}
 	stop := onSignal(func() {
-		mu.Lock()
+		mu.Lock() // held until the exit: build cannot return meanwhile
 		if tmp != "" {
-			os.RemoveAll(tmp)
+			export.RemoveTemp(tmp)
 		}
 		fmt.Fprintln(stderr, "pqfab: interrupted; nothing written")
 		os.Exit(130)
 	})
 	defer stop()
+	defer func() {
+		mu.Lock() // wait for a signal handler that has begun: it exits
+		tmp = ""
+		mu.Unlock()
+	}()
 	diag := filepath.Clean(bf.out) + "-planarity.json"
 	diagOpt := export.WriteOptions{Force: bf.force, Keep: keep}
 	if err := export.CheckFolder(bf.out, opt); err != nil {
