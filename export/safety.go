@@ -259,8 +259,9 @@ func (l *folderLock) unlock() {
 // recoverLeftovers finishes or undoes what an interrupted run of pqfab
 // left beside dir: an old copy whose swap was cut short goes back to dir's
 // name when dir is missing (else it is removed), and temporary folders
-// holding pqfab's marker are removed. Entries without the marker are left
-// alone: they are not pqfab's.
+// holding pqfab's marker are removed, and so are empty ones (a run stopped
+// before it wrote the marker). Other entries are left alone: they are not
+// pqfab's.
 func recoverLeftovers(dir string) error {
 	parent, base := filepath.Dir(dir), filepath.Base(dir)
 	ents, err := os.ReadDir(parent)
@@ -284,6 +285,8 @@ func recoverLeftovers(dir string) error {
 				if err := os.RemoveAll(p); err != nil {
 					return fmt.Errorf("%s: cannot remove the leftover %s: %w", dir, name, unwrapPath(err))
 				}
+			} else {
+				os.Remove(p) // an empty one, stopped before its marker; a full one is not ours
 			}
 		}
 	}

@@ -152,7 +152,7 @@ func TestFolderNeverReplaced(t *testing.T) {
 	force := WriteOptions{Force: true, Keep: []string{job}}
 	for _, tc := range []struct{ dir, want string }{
 		{proj, "a folder holding an input file"},
-		{base, "the home folder"},
+		{base, "a folder holding an input file"},
 		{".", "the current folder"},
 		{"..", "the current folder or a folder above it"},
 		{home, "the home folder"},
@@ -181,7 +181,10 @@ func TestInterruptedSwap(t *testing.T) {
 	writeText(t, filepath.Join(old, MarkerFile), markerText)
 	writeText(t, filepath.Join(tmp, "a.txt"), "half")
 	writeText(t, filepath.Join(tmp, MarkerFile), buildingText)
-	foreign := filepath.Join(base, ".out.pqfab-tmp-999") // no marker: not pqfab's
+	foreign := filepath.Join(base, ".out.pqfab-tmp-999")                             // no marker: not pqfab's
+	if err := os.Mkdir(filepath.Join(base, ".out.pqfab-tmp-7"), 0o755); err != nil { // empty: stopped before its marker
+		t.Fatal(err)
+	}
 	writeText(t, filepath.Join(foreign, "keep.txt"), "mine")
 	err := WriteFolder(out, WriteOptions{}, func(string) error { return errors.New("fails") })
 	if err == nil {
