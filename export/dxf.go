@@ -59,7 +59,7 @@ func newDrawing(layers []dxfLayer) (*drawing.Drawing, error) {
 func useLayer(d *drawing.Drawing, name string) error { return d.ChangeLayer(name) }
 
 func text(d *drawing.Drawing, s string, x, y, z, h, rot float64) error {
-	t, err := d.Text(s, r(x, dxfDigits), r(y, dxfDigits), r(z, dxfDigits), h)
+	t, err := d.Text(dxfText(s), r(x, dxfDigits), r(y, dxfDigits), r(z, dxfDigits), h)
 	if err != nil {
 		return err
 	}
@@ -124,6 +124,9 @@ func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
 				s.WidthMM/2, -60, 0, 30, 0)
 		},
 		func() error { return text(d, "CAUTION: "+Caution, s.WidthMM/2, -110, 0, 14, 0) })
+	for i, w := range warningLines(rep.Warnings) {
+		steps = append(steps, func() error { return text(d, w, s.WidthMM/2, -150-30*float64(i), 0, 14, 0) })
+	}
 	for _, st := range steps {
 		if err := st(); err != nil {
 			return err
@@ -132,6 +135,23 @@ func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
 	d.SetExt()
 	_, err = d.WriteTo(w)
 	return err
+}
+
+// maxWarningLines is the most warnings a drawing's title block lists;
+// report.json and the schedule list them all.
+const maxWarningLines = 5
+
+// warningLines returns the lines a title block shows for the warnings.
+func warningLines(ws []string) []string {
+	var out []string
+	for i, w := range ws {
+		if i == maxWarningLines {
+			out = append(out, fmt.Sprintf("WARNING: … and %d more (see report.json)", len(ws)-i))
+			break
+		}
+		out = append(out, "WARNING: "+w)
+	}
+	return out
 }
 
 // panelTypes maps panel labels to type names, built once per report.

@@ -122,8 +122,29 @@ func CheckFolder(dir string, opt WriteOptions) error {
 	return nil
 }
 
-// CheckFile reports whether WriteFileAtomic could write path with opt.
-func CheckFile(path string, opt WriteOptions) error { return checkFile(path, opt) }
+// CheckFiles reports, before any work is done, whether WriteFileAtomic
+// could write each of paths with opt, and refuses two outputs that are
+// the same file. Empty paths are skipped.
+func CheckFiles(opt WriteOptions, paths ...string) error {
+	seen := map[string]string{}
+	for _, p := range paths {
+		if p == "" {
+			continue
+		}
+		abs, err := realAbs(p)
+		if err != nil {
+			return fmt.Errorf("%s: %w", p, err)
+		}
+		if q, dup := seen[abs]; dup {
+			return fmt.Errorf("%s and %s are the same file: give each output its own name", q, p)
+		}
+		seen[abs] = p
+		if err := checkFile(p, opt); err != nil {
+			return err
+		}
+	}
+	return nil
+}
 
 // writeFile writes one file (inside a folder being built), checking the
 // flush and close errors.

@@ -14,13 +14,19 @@ const OBJDigits = 4
 
 // WriteOBJ writes the net as Wavefront OBJ in millimetres, one `v` line per
 // node and one `f` line per panel, in the net's order. Node and panel ids
-// go into comments only where they differ from the 1-based numbers.
-func WriteOBJ(w io.Writer, n *geom.Net, title string) error {
+// go into comments only where they differ from the 1-based numbers; each
+// warning becomes a comment line after the title. Text from the job and
+// the net is kept to one line (oneLine), so it cannot add statements.
+func WriteOBJ(w io.Writer, n *geom.Net, title string, warnings ...string) error {
 	bw := bufio.NewWriterSize(w, 1<<16)
 	buf := make([]byte, 0, 128)
 	buf = append(buf, "# "...)
-	buf = append(buf, title...)
-	buf = append(buf, "\n# units: mm, z up; written by pqfab\n"...)
+	buf = append(buf, oneLine(title)...)
+	buf = append(buf, '\n')
+	for _, wn := range warnings {
+		buf = append(append(append(buf, "# WARNING: "...), oneLine(wn)...), '\n')
+	}
+	buf = append(buf, "# units: mm, z up; written by pqfab\n"...)
 	buf = strconv.AppendInt(append(buf, "# nodes: "...), int64(len(n.Nodes)), 10)
 	buf = strconv.AppendInt(append(buf, ", panels: "...), int64(len(n.Faces)), 10)
 	buf = append(buf, '\n')
@@ -36,7 +42,7 @@ func WriteOBJ(w io.Writer, n *geom.Net, title string) error {
 		buf = AppendFixed(buf, nd.Pos.Z, OBJDigits)
 		if nd.ID != strconv.Itoa(i+1) {
 			buf = append(buf, " # node "...)
-			buf = append(buf, nd.ID...)
+			buf = append(buf, oneLine(nd.ID)...)
 		}
 		buf = append(buf, '\n')
 		if _, err := bw.Write(buf); err != nil {
@@ -50,7 +56,7 @@ func WriteOBJ(w io.Writer, n *geom.Net, title string) error {
 		}
 		if f.ID != strconv.Itoa(i+1) {
 			buf = append(buf, " # panel "...)
-			buf = append(buf, f.ID...)
+			buf = append(buf, oneLine(f.ID)...)
 		}
 		buf = append(buf, '\n')
 		if _, err := bw.Write(buf); err != nil {

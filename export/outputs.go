@@ -53,7 +53,7 @@ func WriteBuild(dir string, opt WriteOptions, b *Bundle, rep *Report, progress P
 			file(FileSchedule, func(w io.Writer) error { return WriteSchedule(w, rep) }),
 			file(FileHTML, func(w io.Writer) error { return WriteHTML(w, rep) }),
 			func() error {
-				if err := file(FileNet, func(w io.Writer) error { return WriteOBJ(w, b.Net, "pqfab planarized net: "+b.Title) })(); err != nil {
+				if err := file(FileNet, func(w io.Writer) error { return WriteOBJ(w, b.Net, "pqfab planarized net: "+b.Title, b.Warnings...) })(); err != nil {
 					return err
 				}
 				if err := file(FileAssembly, func(w io.Writer) error { return WriteAssemblyDXF(w, rep) })(); err != nil {

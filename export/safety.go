@@ -9,6 +9,7 @@ import (
 	"os"
 	"path/filepath"
 	"strings"
+	"sync"
 	"syscall"
 )
 
@@ -191,6 +192,30 @@ func checkFile(path string, opt WriteOptions) error {
 	}
 	return fmt.Errorf("%s exists and pqfab did not write it: %w; choose another name, or add --force to replace it", path, ErrNotOurs)
 }
+
+// TempFolder tracks the temporary folder of a write for a signal handler:
+// WriteOptions.OnTemp = t.Set, and on a signal t.Remove. Its methods are
+// safe to call from several goroutines.
+type TempFolder struct {
+	mu   sync.Mutex
+	path string
+}
+
+// Set records the temporary folder's path.
+func (t *TempFolder) Set(path string) { t.mu.Lock(); t.path = path; t.mu.Unlock() }
+
+// Remove removes the temporary folder, if any, and keeps t locked, so that
+// Done blocks until the process ends: call it only on the way out.
+func (t *TempFolder) Remove() {
+	t.mu.Lock()
+	if t.path != "" {
+		RemoveTemp(t.path)
+	}
+}
+
+// Done forgets the folder once the write is over; it waits for a Remove
+// that has begun.
+func (t *TempFolder) Done() { t.Set("") }
 
 // RemoveTemp removes a temporary output folder at once, such as when the
 // process is told to stop: it first renames the folder so that writers

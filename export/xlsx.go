@@ -99,8 +99,8 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				}
 				return nil
 			}},
-		{SheetMemberTypes, []string{"Type", "Count", "Cut length (mm)", "Members"}, typeRows(rep.MemberTypes)},
-		{SheetPanelTypes, []string{"Type", "Count", "Area (m²)", "Panels"}, typeRows(rep.PanelTypes)},
+		{SheetMemberTypes, []string{"Type", "Count", "Cut length (mm)", "Members"}, typeRows(rep.MemberTypes, SheetMembers)},
+		{SheetPanelTypes, []string{"Type", "Count", "Area (m²)", "Panels"}, typeRows(rep.PanelTypes, SheetPanels)},
 		{SheetSheets, []string{"Sheet", "Stock", "Width (mm)", "Height (mm)", "Parts", "Utilization (%)", "Panels"},
 			func(add func(row ...any) error) error {
 				for _, s := range rep.Sheets {
@@ -142,15 +142,40 @@ func nth[T any](xs []T, k int, get func(T) any) any {
 	return nil
 }
 
-func typeRows(ts []TypeRow) func(add func(row ...any) error) error {
+func typeRows(ts []TypeRow, partsSheet string) func(add func(row ...any) error) error {
 	return func(add func(row ...any) error) error {
 		for _, t := range ts {
-			if err := add(t.Name, t.Count, t.Size, strings.Join(t.Parts, " ")); err != nil {
+			if err := add(t.Name, t.Count, t.Size, partList(t.Parts, partsSheet)); err != nil {
 				return err
 			}
 		}
 		return nil
 	}
+}
+
+// partList joins part labels for one cell; a list too long for a cell is
+// named by where it stands in full instead.
+func partList(labels []string, sheet string) string {
+	s := strings.Join(labels, " ")
+	if len(s) > MaxCellChars {
+		return fmt.Sprintf("%d parts: too many for one cell; the %s sheet gives each part's type", len(labels), sheet)
+	}
+	return s
+}
+
+// safeCells makes every text value of a row safe for a cell (cellText),
+// refusing text too long for one.
+func safeCells(row []any) error {
+	for i, v := range row {
+		if s, ok := v.(string); ok {
+			t, err := cellText(s)
+			if err != nil {
+				return err
+			}
+			row[i] = t
+		}
+	}
+	return nil
 }
 
 // writeTable streams a header and rows into a sheet, freezes the header
@@ -180,6 +205,9 @@ func writeTable(f *excelize.File, sheet, table string, header []string, bold int
 		if err != nil {
 			return err
 		}
+		if err := safeCells(row); err != nil {
+			return fmt.Errorf("row %d: %w", n, err)
+		}
 		return sw.SetRow(cell, row)
 	})
 	if err != nil {
@@ -207,6 +235,9 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		cell, err := excelize.CoordinatesToCellName(1, row)
 		if err != nil {
 			return err
+		}
+		if err := safeCells(vals); err != nil {
+			return fmt.Errorf("summary row %d: %w", row, err)
 		}
 		return f.SetSheetRow(sh, cell, &vals)
 	}

@@ -93,32 +93,54 @@ type PlanarizeResult struct {
 // PanelFailure names a panel that could not be made flat enough.
 type PanelFailure struct {
 	Face       int
-	FlatnessMM float64 // flatness deviation reached
-	MoveMM     float64 // largest move of its corners, needed so far
+	InputMM    float64 // flatness deviation in the input
+	FlatnessMM float64 // flatness deviation reached (the best state)
+	// NeedMM is the least node move that makes the panel flat on its own:
+	// its corners' distance from their least-squares plane, or from the
+	// plane of its fixed corners when three or more are fixed. +Inf when
+	// its fixed corners are not coplanar (no move can flatten it).
+	NeedMM float64
+	Fixed  int // corners that are supports
 }
 
+// Why a planarization stopped short of the tolerance.
+const (
+	StopMoveLimit = "the allowed node move"
+	StopBudget    = "the iteration budget"
+	StopSupports  = "the supports"
+	StopStalled   = "no further progress"
+)
+
 // PlanarizeError reports a planarization that did not reach the tolerance
-// within the allowed move or the iteration budget. The result is still
-// returned beside it for diagnosis.
+// within the allowed move or the iteration budget. The best state reached
+// (never the input's worse) is returned beside it, and Worst names the
+// panels still over the tolerance there.
 type PlanarizeError struct {
 	Source    string
-	Reason    string
+	Stop      string         // which limit stopped it: StopMoveLimit, StopBudget, StopSupports or StopStalled
 	Worst     []PanelFailure // worst first, at most ten
 	Count     int            // panels over the tolerance
 	Names     []string       // panel names of Worst
 	TolMM     float64
 	MaxMoveMM float64
-	MoveOver  int // nodes moved more than allowed
+	MaxIter   int
+	BestMM    float64 // largest flatness deviation reached
+	InputMM   float64 // largest flatness deviation in the input
 }
 
 func (e *PlanarizeError) Error() string {
 	var b strings.Builder
-	fmt.Fprintf(&b, "%s: planarization failed: %s", e.Source, e.Reason)
-	if e.Count > 0 {
-		fmt.Fprintf(&b, "; %d panels over the %.3g mm tolerance", e.Count, e.TolMM)
-	}
-	if e.MoveOver > 0 {
-		fmt.Fprintf(&b, "; %d nodes would move more than the allowed %.3g mm", e.MoveOver, e.MaxMoveMM)
+	fmt.Fprintf(&b, "%s: planarization failed: %d panels stay over the %.3g mm flatness tolerance (at most %.3f mm, from %.3f mm in the input)",
+		e.Source, e.Count, e.TolMM, e.BestMM, e.InputMM)
+	switch e.Stop {
+	case StopMoveLimit:
+		fmt.Fprintf(&b, "; stopped by the allowed node move of %.3g mm", e.MaxMoveMM)
+	case StopBudget:
+		fmt.Fprintf(&b, "; stopped by the iteration budget of %d steps", e.MaxIter)
+	case StopSupports:
+		b.WriteString("; stopped by the supports, which hold the corners of these panels")
+	default:
+		b.WriteString("; stopped making progress")
 	}
 	if len(e.Worst) > 0 {
 		b.WriteString("; worst:")
@@ -126,7 +148,11 @@ func (e *PlanarizeError) Error() string {
 			if i > 0 {
 				b.WriteString(",")
 			}
-			fmt.Fprintf(&b, " %s flatness %.3f mm, move %.2f mm", e.Names[i], w.FlatnessMM, w.MoveMM)
+			need := "cannot be flattened: its fixed corners are not in one plane"
+			if !math.IsInf(w.NeedMM, 1) {
+				need = fmt.Sprintf("needs a move of at least %.2f mm", w.NeedMM)
+			}
+			fmt.Fprintf(&b, " %s %.3f mm off flat (input %.3f mm; %s)", e.Names[i], w.FlatnessMM, w.InputMM, need)
 		}
 	}
 	return b.String()
@@ -165,9 +191,12 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 	flat := res.Before
 	iter, lastGain := 0, 0
 	best := maxOf(flat)
+	// The best state so far: fewest panels over the tolerance, then the
+	// smallest largest deviation. Every iterate keeps within the allowed
+	// move, so the best state is never worse than the input.
+	bestX, bestOver, bestMax := x, countOver(flat, opt.TolMM), best
 	mu := initialDamping
 	energy := s.energy(x)
-	stalled := false
 	for {
 		over := countOver(flat, opt.TolMM)
 		if opt.Progress != nil {
@@ -177,8 +206,7 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 			break
 		}
 		if iter-lastGain > stallIters || mu > maxDamping {
-			stalled = true
-			break
+			break // no further progress
 		}
 		iter++
 		s.linearize(x)
@@ -187,6 +215,7 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 		for i := range x {
 			trial[i] = x[i] - step[i]
 		}
+		s.clamp(trial, opt.MaxMoveMM)
 		e := s.energy(trial)
 		if e >= energy {
 			mu *= 8 // Levenberg-Marquardt: damp and retry
@@ -196,8 +225,12 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 		x, energy = trial, e
 		mu = math.Max(mu/3, minDamping)
 		flat = s.flatness(x)
-		if m := maxOf(flat); m < 0.99*best {
+		m := maxOf(flat)
+		if m < 0.99*best {
 			best, lastGain = m, iter
+		}
+		if o := countOver(flat, opt.TolMM); o < bestOver || (o == bestOver && m < bestMax) {
+			bestX, bestOver, bestMax = x, o, m
 		}
 		if decrease < gnConverged {
 			s.updateMultipliers(x)
@@ -205,6 +238,7 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 		}
 	}
 	res.Iterations = iter
+	x = bestX
 	res.Positions = make([]geom.Vec, len(n.Nodes))
 	res.Moves = make([]geom.Vec, len(n.Nodes))
 	var sum float64
@@ -220,44 +254,54 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 	}
 	res.After = s.flatness(x)
 	over := countOver(res.After, opt.TolMM)
-	moveOver := 0
-	for _, m := range res.Moves {
-		if r3.Norm(m) > opt.MaxMoveMM {
-			moveOver++
-		}
-	}
-	res.Converged = over == 0 && moveOver == 0
+	res.Converged = over == 0
 	if res.Converged {
 		return res, nil
 	}
-	reason := "the iteration budget of " + fmt.Sprint(opt.MaxIter) + " steps ran out"
-	switch {
-	case moveOver > 0:
-		reason = "the allowed node move is not enough"
-	case stalled:
-		reason = "no further progress (fixed nodes or geometry prevent flat panels)"
-	}
-	return res, failure(n, res, opt, reason, over, moveOver)
+	return res, failure(n, res, opt, iter)
 }
 
-func failure(n *geom.Net, res *PlanarizeResult, opt PlanarizeOptions, reason string, over, moveOver int) *PlanarizeError {
-	pe := &PlanarizeError{Source: n.Source, Reason: reason, Count: over, TolMM: opt.TolMM, MaxMoveMM: opt.MaxMoveMM, MoveOver: moveOver}
+// failure explains a planarization that stopped short: which limit
+// stopped it, and the panels still over the tolerance with the move each
+// needs.
+func failure(n *geom.Net, res *PlanarizeResult, opt PlanarizeOptions, iter int) *PlanarizeError {
+	pe := &PlanarizeError{Source: n.Source, Count: countOver(res.After, opt.TolMM), TolMM: opt.TolMM, MaxMoveMM: opt.MaxMoveMM,
+		MaxIter: opt.MaxIter, BestMM: maxOf(res.After), InputMM: maxOf(res.Before)}
 	var fails []PanelFailure
+	atLimit, allFixed := false, true
+	var pts []geom.Vec
 	for f, face := range n.Faces {
-		var mv float64
+		if res.After[f] <= opt.TolMM {
+			continue
+		}
+		pts = n.FacePoints(pts[:0], f)
+		pf := PanelFailure{Face: f, InputMM: res.Before[f], FlatnessMM: res.After[f]}
+		var fixed []geom.Vec
 		for _, c := range face.Corners {
-			mv = math.Max(mv, r3.Norm(res.Moves[c]))
+			if opt.Fixed != nil && opt.Fixed[c] {
+				fixed = append(fixed, n.Nodes[c].Pos)
+			} else if r3.Norm(res.Moves[c]) >= atLimitShare*opt.MaxMoveMM {
+				atLimit = true
+			}
 		}
-		if res.After[f] > opt.TolMM || mv > opt.MaxMoveMM {
-			fails = append(fails, PanelFailure{Face: f, FlatnessMM: res.After[f], MoveMM: mv})
+		pf.Fixed = len(fixed)
+		pf.NeedMM = needMove(pts, fixed)
+		if pf.Fixed < len(face.Corners) {
+			allFixed = false
 		}
+		fails = append(fails, pf)
 	}
-	sort.SliceStable(fails, func(i, j int) bool {
-		a, b := fails[i], fails[j]
-		ea := math.Max(a.FlatnessMM/opt.TolMM, a.MoveMM/opt.MaxMoveMM)
-		eb := math.Max(b.FlatnessMM/opt.TolMM, b.MoveMM/opt.MaxMoveMM)
-		return ea > eb
-	})
+	switch {
+	case atLimit || anyNeedsMore(fails, opt.MaxMoveMM):
+		pe.Stop = StopMoveLimit
+	case iter >= opt.MaxIter:
+		pe.Stop = StopBudget
+	case allFixed:
+		pe.Stop = StopSupports
+	default:
+		pe.Stop = StopStalled
+	}
+	sort.SliceStable(fails, func(i, j int) bool { return fails[i].FlatnessMM > fails[j].FlatnessMM })
 	if len(fails) > 10 {
 		fails = fails[:10]
 	}
@@ -267,6 +311,46 @@ func failure(n *geom.Net, res *PlanarizeResult, opt PlanarizeOptions, reason str
 	}
 	return pe
 }
+
+// atLimitShare: a node moved this share of the allowed move or more counts
+// as held back by the limit.
+const atLimitShare = 0.999
+
+// anyNeedsMore reports whether a failing panel needs more than the
+// allowed move on its own.
+func anyNeedsMore(fails []PanelFailure, maxMove float64) bool {
+	for _, f := range fails {
+		if f.NeedMM > maxMove && !math.IsInf(f.NeedMM, 1) {
+			return true
+		}
+	}
+	return false
+}
+
+// needMove returns the least node move that makes a panel with corners
+// pts flat on its own (see PanelFailure.NeedMM); fixed lists the corners
+// that are supports.
+func needMove(pts, fixed []geom.Vec) float64 {
+	if len(fixed) < 3 {
+		fit, err := geom.FitPlane(pts)
+		if err != nil {
+			return math.Inf(1)
+		}
+		return fit.MaxDist
+	}
+	fit, err := geom.FitPlane(fixed)
+	if err != nil || fit.MaxDist > fixedPlaneTolMM {
+		return math.Inf(1)
+	}
+	var m float64
+	for _, p := range pts {
+		m = math.Max(m, math.Abs(fit.Dist(p)))
+	}
+	return m
+}
+
+// fixedPlaneTolMM: fixed corners this close to one plane count as coplanar.
+const fixedPlaneTolMM = 1e-6
 
 func countOver(flat []float64, tol float64) int {
 	c := 0

@@ -166,7 +166,8 @@ func TestPlanarizeFailures(t *testing.T) {
 	opt.Fixed = []bool{true, true, true, true}
 	_, err := Planarize(n, geom.BuildTopology(n), opt)
 	var pe *PlanarizeError
-	if !errors.As(err, &pe) || pe.Count != 1 || !strings.Contains(err.Error(), "panel Q flatness 5.000 mm") {
+	if !errors.As(err, &pe) || pe.Count != 1 || pe.Stop != StopSupports ||
+		!strings.Contains(err.Error(), "panel Q 5.000 mm off flat (input 5.000 mm; cannot be flattened: its fixed corners are not in one plane)") {
 		t.Errorf("all fixed: %v", err)
 	}
 	// The wave needs moves of about 15 mm; allow 2 mm.
@@ -174,14 +175,14 @@ func TestPlanarizeFailures(t *testing.T) {
 	opt = DefaultPlanarizeOptions()
 	opt.MaxMoveMM = 2
 	_, err = Planarize(w, geom.BuildTopology(w), opt)
-	if !errors.As(err, &pe) || pe.MoveOver == 0 || !strings.Contains(err.Error(), "allowed node move is not enough") {
+	if !errors.As(err, &pe) || pe.Stop != StopMoveLimit || !strings.Contains(err.Error(), "stopped by the allowed node move of 2 mm") {
 		t.Errorf("move limit: %v", err)
 	}
 	// An iteration budget of one step is not enough for 0.01 mm.
 	opt = DefaultPlanarizeOptions()
 	opt.TolMM, opt.MaxIter = 0.01, 1
 	_, err = Planarize(w, geom.BuildTopology(w), opt)
-	if err == nil || !strings.Contains(err.Error(), "iteration budget") {
+	if err == nil || !strings.Contains(err.Error(), "stopped by the iteration budget of 1 steps") {
 		t.Errorf("budget: %v", err)
 	}
 	if _, err := Planarize(w, geom.BuildTopology(w), PlanarizeOptions{}); err == nil {

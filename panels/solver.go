@@ -305,6 +305,18 @@ func (s *solver) flatness(x []float64) []float64 {
 	return out
 }
 
+// clamp shortens every node's move from its input position to at most
+// limit (mm), so that every iterate keeps within the allowed move.
+func (s *solver) clamp(x []float64, limit float64) {
+	for i := 0; i < len(x); i += 3 {
+		dx, dy, dz := x[i]-s.x0[i], x[i+1]-s.x0[i+1], x[i+2]-s.x0[i+2]
+		if m := math.Sqrt(dx*dx + dy*dy + dz*dz); m > limit {
+			f := limit / m
+			x[i], x[i+1], x[i+2] = s.x0[i]+f*dx, s.x0[i+1]+f*dy, s.x0[i+2]+f*dz
+		}
+	}
+}
+
 // maxMove returns the largest node move at x.
 func (s *solver) maxMove(x []float64) float64 {
 	var m float64

@@ -5,13 +5,9 @@ import (
 	"flag"
 	"fmt"
 	"io"
-	"io/fs"
 	"os"
-	"path/filepath"
-	"sync"
 
 	"pqfab/export"
-	"pqfab/geom"
 	"pqfab/internal/job"
 	"pqfab/internal/pipeline"
 	"pqfab/samples"
@@ -47,15 +43,11 @@ func runBuild(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err // flag.ErrHelp after -h: run ends without an error
 	}
-	data, err := readJobFile(pos[0])
+	j, err := job.ReadFile(pos[0])
 	if err != nil {
 		return err
 	}
-	j, err := job.Parse(data, pos[0])
-	if err != nil {
-		return err
-	}
-	return build(j, pipeline.OpenFile, (&pipeline.Result{Job: j, NetPath: j.NetPath()}).InputFiles(), bf, stdout, stderr)
+	return build(j, pipeline.OpenFile, append([]string{j.File}, pipeline.NetFiles(j.NetPath())...), bf, stdout, stderr)
 }
 
 func runDemo(args []string, _ io.Reader, stdout, stderr io.Writer) error {
@@ -70,85 +62,32 @@ func runDemo(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	return build(j, samples.OpenDemo, nil, bf, stdout, stderr)
 }
 
-// build runs the job and writes the output folder; a planarization that
-// misses the tolerance writes only the diagnostic report beside it. The
-// output folder is checked before the work starts; SIGINT and SIGTERM
-// remove the temporary folder before pqfab ends.
+// build runs the job and writes the output folder (pipeline.Build). SIGINT
+// and SIGTERM remove the temporary folder before pqfab ends.
 func build(j *job.Job, open pipeline.Opener, keep []string, bf buildFlags, stdout, stderr io.Writer) error {
-	obs := &observer{stderr: stderr, quiet: bf.quiet, hold: true}
+	obs := &observer{stderr: stderr, quiet: bf.quiet}
 	defer obs.finish()
-	var mu sync.Mutex
-	tmp := ""
-	opt := export.WriteOptions{Force: bf.force, Keep: keep, OnTemp: func(p string) { mu.Lock(); tmp = p; mu.Unlock() }}
+	var tmp export.TempFolder
 	stop := onSignal(func() {
-		mu.Lock() // held until the exit: build cannot return meanwhile
-		if tmp != "" {
-			export.RemoveTemp(tmp)
-		}
+		tmp.Remove() // holds tmp's lock until the exit: build cannot return meanwhile
 		fmt.Fprintln(stderr, "pqfab: interrupted; nothing written")
 		os.Exit(130)
 	})
 	defer stop()
-	defer func() {
-		mu.Lock() // wait for a signal handler that has begun: it exits
-		tmp = ""
-		mu.Unlock()
-	}()
-	diag := filepath.Clean(bf.out) + "-planarity.json"
-	diagOpt := export.WriteOptions{Force: bf.force, Keep: keep}
-	if err := export.CheckFolder(bf.out, opt); err != nil {
-		return err
-	}
-	if err := export.CheckFile(diag, diagOpt); err != nil {
-		return err
-	}
-	res, err := pipeline.Run(j, open, obs, pipeline.Policy{Continue: bf.cont})
+	defer tmp.Done() // waits for a signal handler that has begun: it exits
+	opt := export.WriteOptions{Force: bf.force, Keep: keep, OnTemp: tmp.Set}
+	rep, err := pipeline.Build(j, open, bf.out, opt, pipeline.Policy{Continue: bf.cont}, obs)
 	var pf *pipeline.PlanarityFailure
 	switch {
 	case errors.As(err, &pf):
-		if werr := export.WriteFileAtomic(diag, diagOpt, func(w io.Writer) error { return writeJSON(w, pf.Report) }); werr != nil {
-			return obs.attach(fmt.Errorf("%v (and the diagnostic report could not be written: %v)", err, werr))
-		}
-		return obs.attach(fmt.Errorf("%v; nothing built (diagnostic report: %s; --continue builds anyway)", err, diag))
+		return obs.attach(fmt.Errorf("%v; nothing built (diagnostic report: %s; --continue builds anyway)", err, pf.Path))
 	case errors.Is(err, pipeline.ErrUnplaced):
 		return obs.attach(fmt.Errorf("%w; add a larger or more stock, or --continue lists them as unplaced", err))
 	case err != nil:
 		return obs.attach(err)
 	}
-	rep, err := pipeline.Write(bf.out, res, opt, obs)
-	if err != nil {
-		return obs.attach(err)
-	}
 	obs.finish()
-	if err := export.RemoveOwnFile(diag); err != nil {
-		obs.Warn(fmt.Sprintf("the stale diagnostic report %s could not be removed: %v", diag, err))
-	}
 	pipeline.WriteBuildText(stdout, bf.out, rep)
 	obs.flush()
 	return nil
-}
-
-// readJobFile reads a job file: a regular file of at most job.MaxFileBytes.
-func readJobFile(path string) ([]byte, error) {
-	st, err := os.Stat(path)
-	if err != nil {
-		var pe *fs.PathError
-		if errors.As(err, &pe) {
-			err = pe.Err
-		}
-		return nil, &geom.InputError{File: path, Msg: err.Error()}
-	}
-	if !st.Mode().IsRegular() {
-		return nil, &geom.InputError{File: path, Msg: "is not a regular file (a folder, FIFO, device or socket)"}
-	}
-	f, err := os.Open(path)
-	if err != nil {
-		return nil, &geom.InputError{File: path, Msg: errors.Unwrap(err).Error()}
-	}
-	defer f.Close()
-	data, err := io.ReadAll(io.LimitReader(f, job.MaxFileBytes+1))
-	if err != nil {
-		return nil, &geom.InputError{File: path, Msg: "read failed: " + err.Error()}
-	}
-	return data, nil
 }

@@ -60,6 +60,13 @@ func TestBadInputCatalogue(t *testing.T) {
 		{"hub larger than members", map[string]string{"job.toml": jobFor("n.obj") + "[nodes]\nhub_radius_mm = 800\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key nodes.hub_radius_mm", "n.obj:7: member 1–2", "use up"}},
 		{"inset too large", map[string]string{"job.toml": jobFor("n.obj") + "[panel]\nedge_inset_mm = 700\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key panel.edge_inset_mm", "n.obj:7: panel 1", "swallows"}},
 		{"flatness not reachable", map[string]string{"job.toml": jobFor("n.obj") + "[supports]\nmode = \"none\"\n[flatness]\nmax_move_mm = 0.001\n", "n.obj": strings.Replace(goodQuad, "v 1500 1200 0", "v 1500 1200 40", 1)}, "", []string{"planarization failed", "panel 1 (line 7)", "nothing built"}},
+		{"supports from a file that has none", map[string]string{"job.toml": jobFor("n.obj") + "[supports]\nmode = \"file\"\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key supports.mode", "marks no node as a support"}},
+		{"title with a newline", map[string]string{"job.toml": "title = \"a\\nb\"\n" + jobFor("n.obj"), "n.obj": goodQuad}, "", []string{"job.toml:1", "key title", "control character"}},
+		{"duplicate stock names", map[string]string{"job.toml": jobFor("n.obj") + "[[stock]]\nname = \"jumbo\"\nwidth_mm = 3000\nheight_mm = 2000\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key stock[2].name", "the name of stock 1 too"}},
+		{"price beyond every budget", map[string]string{"job.toml": jobFor("n.obj") + "price = 1e308\n", "n.obj": goodQuad}, "", []string{"job.toml:10", "key stock[1].price", "must be between 0 and 1e+09"}},
+		{"near-miss key", map[string]string{"job.toml": jobFor("n.obj") + "[flatness]\ntolerance = 0.5\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key flatness.tolerance", "did you mean flatness.tolerance_mm?"}},
+		{"text where a number goes", map[string]string{"job.toml": jobFor("n.obj") + "[nodes]\nbay_mm = \"six metres\"\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key nodes.bay_mm", "want a number, got text"}},
+		{"job file is a folder", map[string]string{"job.toml/x": ""}, "", []string{"job.toml", "not a regular file"}},
 		// Output folder.
 		{"output under a file", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": goodQuad, "afile": "x"}, "afile/out", []string{"afile/out", "cannot write there"}},
 		{"output is a file", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": goodQuad, "afile": "x"}, "afile", []string{"afile", "not a folder"}},
@@ -71,6 +78,9 @@ func TestBadInputCatalogue(t *testing.T) {
 		t.Run(tc.name, func(t *testing.T) {
 			dir := t.TempDir()
 			for name, body := range tc.files {
+				if err := os.MkdirAll(filepath.Dir(filepath.Join(dir, name)), 0o755); err != nil {
+					t.Fatal(err)
+				}
 				if err := os.WriteFile(filepath.Join(dir, name), []byte(body), 0o644); err != nil {
 					t.Fatal(err)
 				}

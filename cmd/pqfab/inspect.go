@@ -23,9 +23,5 @@ func runInspect(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	if *asJSON {
-		return writeJSON(stdout, ins)
-	}
-	ins.WriteText(stdout)
-	return nil
+	return show(stdout, *asJSON, ins)
 }

@@ -32,8 +32,8 @@ func loadNet(path string, nf netFlags, stderr io.Writer) (*pipeline.Loaded, erro
 	}
 	opt := geom.DefaultValidateOptions()
 	opt.CoincidentTolMM = nf.tol
-	if err := opt.Validate(); err != nil {
-		return nil, flagError(err, map[string]string{"CoincidentTolMM": "merge-tol"})
+	if err := (fieldFlags{"CoincidentTolMM": "merge-tol"}).check(opt.Validate()); err != nil {
+		return nil, err
 	}
 	in, err := pipeline.LoadNet(pipeline.OpenFile, path, unit, opt, nf.reorient)
 	if err != nil {
@@ -63,17 +63,4 @@ func printOthers(stderr io.Writer, err error) {
 			fmt.Fprintf(stderr, "pqfab: also: … %d more\n", n)
 		}
 	}
-}
-
-// flagError turns a *geom.FieldError from an options Validate into a usage
-// error naming the flag (flags maps field names to flag names); other
-// errors pass through.
-func flagError(err error, flags map[string]string) error {
-	var fe *geom.FieldError
-	if errors.As(err, &fe) {
-		if name, ok := flags[fe.Field]; ok {
-			return usagef("--%s: %s", name, fe.Msg)
-		}
-	}
-	return err
 }

@@ -1,7 +1,6 @@
 package main
 
 import (
-	"fmt"
 	"io"
 	"os"
 
@@ -11,12 +10,11 @@ import (
 
 // observer shows the pipeline's stages as progress bars on stderr, one at
 // a time (none when stderr is not a terminal or the user asked for quiet),
-// and prints warnings; with hold it keeps them until flush, or attaches
-// them to the error that ends the command, so the error comes first.
+// and keeps warnings until flush, or attaches them to the error that ends
+// the command, so that the error is the first line printed.
 type observer struct {
 	stderr   io.Writer
 	quiet    bool
-	hold     bool
 	stage    string
 	bar      *progressbar.ProgressBar
 	warnings []string
@@ -41,29 +39,14 @@ func (o *observer) Step(stage string, done, total int, note string) {
 	}
 }
 
-func (o *observer) Warn(msg string) {
-	o.finish()
-	if o.hold {
-		o.warnings = append(o.warnings, msg)
-		return
-	}
-	fmt.Fprintln(o.stderr, "pqfab: warning:", msg)
-}
+func (o *observer) Warn(msg string) { o.warnings = append(o.warnings, msg) }
 
 // flush prints the warnings held.
-func (o *observer) flush() {
-	for _, w := range o.warnings {
-		fmt.Fprintln(o.stderr, "pqfab: warning:", w)
-	}
-	o.warnings = nil
-}
+func (o *observer) flush() { printOthers(o.stderr, o.attach(nil)) }
 
 // attach returns err carrying the warnings held, which main prints after
-// the error.
+// the error (printOthers).
 func (o *observer) attach(err error) error {
-	if len(o.warnings) == 0 {
-		return err
-	}
 	w := o.warnings
 	o.warnings = nil
 	return &warnedError{err, w}

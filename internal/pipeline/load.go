@@ -50,8 +50,15 @@ func Supports(mode string, ids []string, net *geom.Net, topo *geom.Topology) ([]
 	case "boundary":
 		copy(fixed, topo.BoundaryNodes(len(net.Nodes)))
 	case "file":
+		n := 0
 		for i, nd := range net.Nodes {
 			fixed[i] = nd.Support
+			if nd.Support {
+				n++
+			}
+		}
+		if n == 0 {
+			return nil, fmt.Errorf("\"file\" takes the supports from the net, but %s marks no node as a support (a support column of 1, true or yes in the nodes CSV)", net.Source)
 		}
 	case "list":
 		byID := make(map[string]int, len(net.Nodes))

@@ -38,7 +38,7 @@ type PlanarizeReport struct {
 	TolMM      float64         `json:"tolerance_mm"`
 	Converged  bool            `json:"converged"`
 	Iterations int             `json:"iterations"`
-	Seconds    float64         `json:"seconds"`
+	Supports   int             `json:"supports"` // nodes held fixed
 	MaxMoveMM  float64         `json:"max_move_mm"`
 	RMSMoveMM  float64         `json:"rms_move_mm"`
 	FlatBefore panels.Spread   `json:"flatness_before_mm"`
@@ -63,14 +63,16 @@ type PanelFlatness struct {
 	AfterMM  float64 `json:"flatness_after_mm"`
 }
 
-// NewPlanarizeReport builds the report of a planarization that took secs
-// seconds (0 when the time must not reach a file).
-func NewPlanarizeReport(net *geom.Net, opt panels.PlanarizeOptions, res *panels.PlanarizeResult, secs float64) *PlanarizeReport {
+// NewPlanarizeReport builds the report of a planarization.
+func NewPlanarizeReport(net *geom.Net, opt panels.PlanarizeOptions, res *panels.PlanarizeResult) *PlanarizeReport {
 	r := &PlanarizeReport{WrittenBy: "pqfab", Net: net.Source, TolMM: opt.TolMM, Converged: res.Converged, Iterations: res.Iterations,
-		Seconds: export.Round(secs, 3), MaxMoveMM: export.Round(res.MaxMoveMM, 3), RMSMoveMM: export.Round(res.RMSMoveMM, 3),
+		MaxMoveMM: export.Round(res.MaxMoveMM, 3), RMSMoveMM: export.Round(res.RMSMoveMM, 3),
 		FlatBefore: export.RoundSpread(panels.SpreadOf(res.Before), 3), FlatAfter: export.RoundSpread(panels.SpreadOf(res.After), 4),
 		Caution: "Caution: " + export.Caution}
 	for i, nd := range net.Nodes {
+		if opt.Fixed != nil && opt.Fixed[i] {
+			r.Supports++
+		}
 		m := res.Moves[i]
 		r.Nodes = append(r.Nodes, NodeMoveRow{ID: nd.ID, Support: opt.Fixed != nil && opt.Fixed[i], MoveMM: export.Round(r3.Norm(m), 3),
 			Vector: [3]float64{export.Round(m.X, 3), export.Round(m.Y, 3), export.Round(m.Z, 3)}})

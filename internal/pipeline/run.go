@@ -48,6 +48,7 @@ type Result struct {
 type PlanarityFailure struct {
 	Err    *panels.PlanarizeError
 	Report *PlanarizeReport
+	Path   string // where Build wrote Report, if it did
 }
 
 func (e *PlanarityFailure) Error() string { return e.Err.Error() }
@@ -78,7 +79,11 @@ func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 	net, topo := in.Net, in.Topo
 	res.Topo = topo
 	if res.Supports, err = Supports(j.Supports.Mode, j.Supports.Nodes, net, topo); err != nil {
-		return nil, j.KeyError("supports.nodes", err)
+		key := "supports.nodes"
+		if j.Supports.Mode != "list" {
+			key = "supports.mode"
+		}
+		return nil, j.KeyError(key, err)
 	}
 	popt := j.PlanarizeOptions()
 	popt.Fixed = res.Supports
@@ -92,7 +97,7 @@ func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 			return nil, perr
 		}
 		if !pol.Continue {
-			return nil, &PlanarityFailure{Err: pe, Report: NewPlanarizeReport(net, popt, pres, 0)}
+			return nil, &PlanarityFailure{Err: pe, Report: NewPlanarizeReport(net, popt, pres)}
 		}
 		warn("built with panels over the flatness tolerance: " + perr.Error())
 	}
@@ -161,11 +166,16 @@ func Write(dir string, r *Result, opt export.WriteOptions, obs Observer) (*expor
 // InputFiles lists the files the job reads: the job file and the net
 // (both files of a CSV pair). Outputs never replace them.
 func (r *Result) InputFiles() []string {
-	files := []string{r.Job.File, r.NetPath}
-	if pp, err := geom.PanelsPathFor(r.NetPath); err == nil && strings.EqualFold(filepath.Ext(r.NetPath), ".csv") {
-		files = append(files, pp)
+	return append([]string{r.Job.File}, NetFiles(r.NetPath)...)
+}
+
+// NetFiles lists the files a net path reads: the file, and the panels
+// file of a CSV pair.
+func NetFiles(path string) []string {
+	if pp, err := geom.PanelsPathFor(path); err == nil && strings.EqualFold(filepath.Ext(path), ".csv") {
+		return []string{path, pp}
 	}
-	return files
+	return []string{path}
 }
 
 // settings lists the job's settings for the summary sheet.

@@ -11,6 +11,7 @@ import (
 	"pqfab/geom"
 	"pqfab/nodes"
 	"pqfab/panels"
+	"pqfab/panels/nest"
 )
 
 // Inspection sums up a net as read: counts, bounds, members at each node,
@@ -157,4 +158,86 @@ func SummarizeMembers(file string, axis nodes.AxisMethod, s *nodes.Structure) *M
 		sum.TopTypes = append(sum.TopTypes, TypeCount{Type: ty.Name, Count: len(ty.Parts), CutLengthMM: export.Round(s.Members[ty.Rep].CutLengthMM, 1)})
 	}
 	return sum
+}
+
+// NestSummary sums up a nesting: sheets with their parts and use, the
+// fewest sheets by area per stock, and the parts on no sheet.
+type NestSummary struct {
+	Parts    int               `json:"parts"`
+	AreaM2   float64           `json:"part_area_m2"`
+	Placed   int               `json:"placed"`
+	Ordering string            `json:"ordering"`
+	Sheets   []NestSheetRow    `json:"sheets"`
+	Stocks   []NestStockRow    `json:"stocks"`
+	Unplaced []NestUnplacedRow `json:"unplaced"`
+}
+
+// NestSheetRow is one sheet of a nesting.
+type NestSheetRow struct {
+	Name        string   `json:"name"`
+	Stock       string   `json:"stock"`
+	Utilization float64  `json:"utilization"`
+	Panels      []string `json:"panels"`
+}
+
+// NestStockRow sums up one stock size.
+type NestStockRow struct {
+	Name      string  `json:"name"`
+	WidthMM   float64 `json:"width_mm"`
+	HeightMM  float64 `json:"height_mm"`
+	Sheets    int     `json:"sheets"`
+	AreaBound int     `json:"fewest_sheets_by_area"`
+}
+
+// NestUnplacedRow is a part on no sheet.
+type NestUnplacedRow struct {
+	Panel  string `json:"panel"`
+	Reason string `json:"reason"`
+}
+
+// SummarizeNest sums up a nesting of parts on stocks.
+func SummarizeNest(res *nest.Result, stocks []nest.Stock, parts []nest.Part) *NestSummary {
+	s := &NestSummary{Parts: len(parts), AreaM2: export.Round(res.PartAreaMM2/1e6, 4), Ordering: res.Ordering,
+		Sheets: []NestSheetRow{}, Unplaced: []NestUnplacedRow{}}
+	for i, sh := range res.Sheets {
+		row := NestSheetRow{Name: export.SheetName(i, len(res.Sheets)), Stock: stocks[sh.Stock].Name, Utilization: export.Round(sh.Utilization, 4)}
+		for _, p := range sh.Placements {
+			row.Panels = append(row.Panels, parts[p.Part].Label)
+		}
+		s.Placed += len(sh.Placements)
+		s.Sheets = append(s.Sheets, row)
+	}
+	for _, u := range res.Stocks {
+		st := stocks[u.Stock]
+		s.Stocks = append(s.Stocks, NestStockRow{Name: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM, Sheets: u.Sheets, AreaBound: u.AreaBound})
+	}
+	for _, u := range res.Unplaced {
+		s.Unplaced = append(s.Unplaced, NestUnplacedRow{Panel: parts[u.Part].Label, Reason: u.Reason})
+	}
+	return s
+}
+
+// NestNet is the nest command's job on a checked net: it labels the
+// panels by bays of bayMM, lays them flat in material mat and nests them
+// on stocks. worstMM is the panels' largest flatness deviation: above the
+// flatness tolerance the outlines are only projections of warped panels.
+func NestNet(in *Loaded, mat panels.Material, stocks []nest.Stock, bayMM float64) (sum *NestSummary, worstMM float64, err error) {
+	bays, err := geom.NewBays(in.Net.Positions(), bayMM, bayMM)
+	if err != nil {
+		return nil, 0, err
+	}
+	nodeLabels, _ := nodes.Labels(in.Net, in.Topo, bays)
+	flats, err := Panels(in.Net, in.Topo, mat, bays, nodeLabels)
+	if err != nil {
+		return nil, 0, err
+	}
+	for _, f := range flats {
+		worstMM = math.Max(worstMM, f.FlatnessMM)
+	}
+	parts := Parts(flats)
+	res, err := Nest(parts, stocks, Quiet{})
+	if err != nil {
+		return nil, 0, err
+	}
+	return SummarizeNest(res, stocks, parts), worstMM, nil
 }

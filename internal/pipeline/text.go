@@ -6,7 +6,6 @@ import (
 	"sort"
 
 	"pqfab/export"
-	"pqfab/panels/nest"
 )
 
 // WriteText writes the inspection as a table for a terminal.
@@ -75,42 +74,37 @@ func (s *MemberSummary) WriteText(w io.Writer) {
 	}
 }
 
-// WriteText writes the report's summary for a terminal; supports is
-// the number of nodes held fixed.
-func (r *PlanarizeReport) WriteText(w io.Writer, supports int) {
-	fmt.Fprintf(w, "planarized %s: %d iterations, %.2f s\n", r.Net, r.Iterations, r.Seconds)
-	fmt.Fprintf(w, "  supports     %d nodes held fixed\n", supports)
+// WriteText writes the report's summary for a terminal.
+func (r *PlanarizeReport) WriteText(w io.Writer) {
+	fmt.Fprintf(w, "planarized %s: %d iterations\n", r.Net, r.Iterations)
+	fmt.Fprintf(w, "  supports     %d nodes held fixed\n", r.Supports)
 	fmt.Fprintf(w, "  node moves   max %.3f mm, RMS %.3f mm\n", r.MaxMoveMM, r.RMSMoveMM)
 	fmt.Fprintf(w, "  flatness     before min %.3f  median %.3f  max %.3f mm\n", r.FlatBefore.Min, r.FlatBefore.Median, r.FlatBefore.Max)
 	fmt.Fprintf(w, "               after  min %.4f median %.4f max %.4f mm (tolerance %.3g mm)\n", r.FlatAfter.Min, r.FlatAfter.Median, r.FlatAfter.Max, r.TolMM)
 }
 
-// WriteNestText writes a nesting's sheets and utilization for a terminal.
-func WriteNestText(w io.Writer, res *nest.Result, stocks []nest.Stock, parts []nest.Part) {
-	placed := 0
-	for _, sh := range res.Sheets {
-		placed += len(sh.Placements)
-	}
+// WriteText writes the nesting's sheets and utilization for a terminal.
+func (s *NestSummary) WriteText(w io.Writer) {
 	fmt.Fprintf(w, "%d parts, %.2f m² in all; %d placed on %d sheets (%s ordering), %d unplaced\n",
-		len(parts), res.PartAreaMM2/1e6, placed, len(res.Sheets), res.Ordering, len(res.Unplaced))
-	for _, u := range res.Stocks {
-		s := stocks[u.Stock]
-		if u.Sheets == 0 {
-			continue
+		s.Parts, s.AreaM2, s.Placed, len(s.Sheets), s.Ordering, len(s.Unplaced))
+	size := map[string]string{}
+	for _, st := range s.Stocks {
+		size[st.Name] = fmt.Sprintf("%s %g × %g mm", st.Name, st.WidthMM, st.HeightMM)
+		if st.Sheets > 0 {
+			fmt.Fprintf(w, "stock %s: %d sheets, fewest sheets by area %d (ratio %.3f)\n", size[st.Name], st.Sheets, st.AreaBound, float64(st.Sheets)/float64(st.AreaBound))
 		}
-		fmt.Fprintf(w, "stock %s: %d sheets, fewest sheets by area %d (ratio %.3f)\n", s.Describe(), u.Sheets, u.AreaBound, float64(u.Sheets)/float64(u.AreaBound))
 	}
 	fmt.Fprintf(w, "  %-6s %-24s %6s %12s\n", "sheet", "stock", "parts", "utilization")
 	var total float64
-	for i, sh := range res.Sheets {
-		fmt.Fprintf(w, "  %-6s %-24s %6d %11.1f%%\n", export.SheetName(i, len(res.Sheets)), stocks[sh.Stock].Describe(), len(sh.Placements), 100*sh.Utilization)
+	for _, sh := range s.Sheets {
+		fmt.Fprintf(w, "  %-6s %-24s %6d %11.1f%%\n", sh.Name, size[sh.Stock], len(sh.Panels), 100*sh.Utilization)
 		total += sh.Utilization
 	}
-	if len(res.Sheets) > 0 {
-		fmt.Fprintf(w, "  mean utilization %.1f%%\n", 100*total/float64(len(res.Sheets)))
+	if len(s.Sheets) > 0 {
+		fmt.Fprintf(w, "  mean utilization %.1f%%\n", 100*total/float64(len(s.Sheets)))
 	}
-	for _, u := range res.Unplaced {
-		fmt.Fprintf(w, "  unplaced %s: %s\n", parts[u.Part].Label, u.Reason)
+	for _, u := range s.Unplaced {
+		fmt.Fprintf(w, "  unplaced %s: %s\n", u.Panel, u.Reason)
 	}
 }
 
