@@ -1,0 +1,88 @@
+// Package bars makes cutting plans for member blanks: which bar of stock
+// each blank is cut from (one-dimensional cutting stock).
+//
+// # Units and rounding
+//
+// Lengths are millimetres (float64); angles are degrees in every exported
+// name ending in Deg. Inside, the solver counts whole micrometres: a length
+// whose shortest decimal form has at most three decimals (such as 36.6) is
+// taken exactly; any other is rounded against the plan (blanks, kerfs and
+// trims up, bar lengths down), so a plan that fits in micrometres fits in
+// the exact values too. Ties between pieces are decided on these
+// micrometres, then on the label.
+//
+// # Kerf and trim
+//
+// A bar of length L loses the trim T at each end (the trim includes the
+// saw cut that removes it), which leaves the usable length U = L − 2·T.
+// Every cut between two pieces costs one kerf K. A bar holding the blanks
+// b1 … bk fits when
+//
+//	2·T + b1 + … + bk + (k−1)·K ≤ L
+//
+// and that left side is the bar's used length. After the last piece a cut
+// frees the rest of the bar as an offcut, and that cut costs a kerf too:
+// the offcut is L − used − K when that is more than zero. When it is not,
+// the last piece ends at (or within a kerf of) the trimmed end, no offcut
+// remains and no further kerf is needed: the feasibility rule above has no
+// kerf after the last piece. Waste is the rest: L − blanks − offcut (trims,
+// kerfs and any sliver narrower than a kerf). The solver packs sizes b + K
+// into a capacity U + K, which is the same rule.
+//
+// # Blank allowance
+//
+// A blank is the member's cut length (on its axis) plus an allowance at
+// each end for the end cut (MemberBlankMM). In the member frame (x along the
+// member, z the top of the section, y = z × x) an end cut is a plane
+// through the axis point with normal n, mitre = atan2(n·y, n·x), bevel =
+// atan2(n·z, n·x). The member's edge through the section corner (y, z)
+// meets the plane at x = −y·tan(mitre) − z·tan(bevel), so on a w × d
+// section the plane reaches past the axis point by
+//
+//	allowance = (w/2)·|tan(mitre)| + (d/2)·|tan(bevel)|
+//
+// (EndAllowanceMM has the derivation).
+//
+// # Lower bounds
+//
+// For a stock, the fewest bars by length is ceil(Σ (b + K) / (U + K)); the
+// bound L2 of Martello and Toth (Knapsack Problems, 1990) is at least that
+// and counts pieces too long to share a bar. Plans report both per stock,
+// and a lower bound on the cost.
+//
+// # The solver and what it guarantees
+//
+// One stock, fewest bars: the better of first-fit and best-fit decreasing
+// (Johnson 1973), then a consistent-neighbourhood tabu search after
+// Buljubašić and Vasquez (Computers & Operations Research 76, 2016) that
+// removes one bar at a time until it reaches the bound L2 or spends its
+// effort (Options.Effort, counted in work units, never in time). When the
+// bars equal L2 the plan is proven to use the fewest bars (Plan.Proven);
+// otherwise it is a heuristic plan, and Plan.BudgetHit says the search
+// stopped at its effort. On the published Falkenauer (1996) instances it
+// reaches the optimum on every triplet instance (t60) and comes within one
+// bar of the best known on every uniform instance (u250); the tests check
+// both.
+//
+// Several stocks, cheapest mix: for each stock, the pieces are packed into
+// that stock alone (as above); when its count runs out its fullest bars
+// are kept and the rest goes, the same way, to the stock with the lowest
+// price per usable length among those left; then bars move to the cheapest
+// stock that holds their pieces, and two bars whose pieces fit into one
+// cheaper bar are merged, until neither move applies. The cheapest of
+// these candidates is kept. What is guaranteed: every piece is on exactly
+// one bar or listed as unplaced with its reason; counts are kept; the plan
+// costs no more than packing into any one stock alone (where that stock
+// holds every piece in its count), no bar can move to a cheaper stock
+// that holds its pieces, and no two bars can become one cheaper bar. The
+// cost is ranked by price, then total bar length, then bars, so with no
+// prices the plan uses the least bar length.
+//
+// # Determinism
+//
+// The pieces are sorted by length (longest first) and label before
+// anything else, the search draws its tie-breaks from a fixed seed, and no
+// step depends on map order, goroutines or the clock: the same multiset of
+// pieces, in any order, with the same stocks and options, gives the same
+// plan.
+package bars

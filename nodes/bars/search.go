@@ -1,0 +1,435 @@
+package bars
+
+import (
+	"math"
+	"math/rand/v2"
+	"slices"
+)
+
+// The improvement search is a consistent-neighbourhood tabu search after
+// Buljubašić and Vasquez, "Consistent neighborhood search for
+// one-dimensional bin packing and two-dimensional vector packing",
+// Computers & Operations Research 76 (2016) 12–21: to pack into m bars,
+// take a plan with m+1 bars, empty its three least-filled bars into a pool
+// of unplaced items, and swap small groups between the pool and the m−2
+// bars left (never overfilling a bar), lowering the pool's total length,
+// until the pool fits into two bars.
+
+// consolidateEpoch: the search alternates between epochs of this many
+// moves with only pool moves (best on tight instances such as the
+// triplets, whose bars must all be filled exactly) and epochs that also
+// consolidate the free length between bars (best where the bars have some
+// slack). Tuned on the Falkenauer (1996) uniform and triplet classes.
+const consolidateEpoch = 1000
+
+// searchSeed seeds the tie-breaking of the search: fixed, so that every
+// run gives the same plan.
+const searchSeed = 0x5eed_ba25
+
+// Tabu tenure: an item taken out of a bar may not go back into that bar
+// for tenureMin + [0, tenureSpread) moves.
+const (
+	tenureMin    = 7
+	tenureSpread = 10
+)
+
+// poolGroup is one or two pool items moved together (b < 0 for one).
+type poolGroup struct {
+	sum  int64
+	a, b int32
+}
+
+type tabuSearch struct {
+	size     []int64
+	capacity int64
+	bins     [][]int32
+	load     []int64
+	pool     []int32
+	poolSum  int64
+	leftBin  []int32 // bar an item last left
+	until    []int64 // … and the move before which it may not go back
+	move     int64
+	work     int64 // group comparisons made, the unit of the budget
+	rng      *rand.Rand
+	groups   []poolGroup
+	gj, gk   []barGroup
+	dirty    []bool  // bars changed since the last consolidation pass
+	queue    []int32 // the dirty bars
+}
+
+func newTabuSearch(size []int64, capacity int64) *tabuSearch {
+	s := &tabuSearch{size: size, capacity: capacity,
+		leftBin: make([]int32, len(size)), until: make([]int64, len(size)),
+		rng: rand.New(rand.NewPCG(searchSeed, uint64(len(size))))}
+	return s
+}
+
+// reset loads a plan and empties all but keep of its bars, the least
+// filled (the last of equals), into the pool.
+func (s *tabuSearch) reset(plan [][]int32, keep int) {
+	loads := make([]int64, len(plan))
+	order := make([]int, len(plan))
+	for b, items := range plan {
+		for _, i := range items {
+			loads[b] += s.size[i]
+		}
+		order[b] = b
+	}
+	// Fullest first, the earlier of equals first.
+	slices.SortStableFunc(order, func(a, b int) int { return cmpInt64(loads[b], loads[a]) })
+	kept := make([]bool, len(plan))
+	for _, b := range order[:keep] {
+		kept[b] = true
+	}
+	s.bins, s.load = s.bins[:0], s.load[:0]
+	s.pool, s.poolSum = s.pool[:0], 0
+	for b, items := range plan {
+		if kept[b] {
+			s.bins = append(s.bins, slices.Clone(items))
+			s.load = append(s.load, loads[b])
+		} else {
+			s.pool = append(s.pool, items...)
+			s.poolSum += loads[b]
+		}
+	}
+	for i := range s.until {
+		s.until[i] = 0
+	}
+	s.dirty = make([]bool, len(s.bins))
+	s.queue = s.queue[:0]
+	for b := range s.bins {
+		s.mark(b)
+	}
+}
+
+func (s *tabuSearch) mark(b int) {
+	if !s.dirty[b] {
+		s.dirty[b] = true
+		s.queue = append(s.queue, int32(b))
+	}
+}
+
+func (s *tabuSearch) tabu(item int32, bin int) bool {
+	return item >= 0 && int(s.leftBin[item]) == bin && s.until[item] > s.move
+}
+
+// run makes moves until the pool fits into poolBars bars, and returns
+// them, or until the work reaches limit (nil).
+func (s *tabuSearch) run(poolBars int, limit int64) [][]int32 {
+	for {
+		if s.poolSum <= int64(poolBars)*s.capacity {
+			if p := s.packPool(poolBars, limit); p != nil {
+				return p
+			}
+		}
+		if s.work >= limit {
+			return nil
+		}
+		if s.step(false) || ((s.move/consolidateEpoch)%2 == 1 && s.consolidate(limit)) {
+			continue
+		}
+		s.step(true)
+	}
+}
+
+// packPool packs the pool into at most k bars by an exhaustive search
+// (largest item first, each into a bar it fits, never two empty bars
+// tried alike), or returns nil.
+func (s *tabuSearch) packPool(k int, limit int64) [][]int32 {
+	items := slices.Clone(s.pool)
+	slices.SortFunc(items, func(a, b int32) int {
+		if c := cmpInt64(s.size[b], s.size[a]); c != 0 {
+			return c
+		}
+		return int(a - b)
+	})
+	bins := make([][]int32, k)
+	free := make([]int64, k)
+	for b := range free {
+		free[b] = s.capacity
+	}
+	var place func(x int) bool
+	place = func(x int) bool {
+		if x == len(items) {
+			return true
+		}
+		s.work++
+		if s.work >= limit {
+			return false
+		}
+		i := items[x]
+		for b := range bins {
+			if free[b] < s.size[i] || (len(bins[b]) == 0 && b > 0 && len(bins[b-1]) == 0) {
+				continue
+			}
+			free[b] -= s.size[i]
+			bins[b] = append(bins[b], i)
+			if place(x + 1) {
+				return true
+			}
+			bins[b] = bins[b][:len(bins[b])-1]
+			free[b] += s.size[i]
+		}
+		return false
+	}
+	if !place(0) {
+		return nil
+	}
+	return bins
+}
+
+// step makes the best move that is not tabu: for a bar j, a group A of at
+// most two of its items and a group B of one or two pool items with
+// load(j) − Σ A + Σ B ≤ C, the move that lowers the pool's total the most
+// (or, if worse is true, raises it the least), ties drawn at random. It
+// reports whether it moved.
+func (s *tabuSearch) step(worse bool) bool {
+	g := s.groups[:0]
+	for x, a := range s.pool {
+		g = append(g, poolGroup{s.size[a], a, -1})
+		for _, b := range s.pool[x+1:] {
+			g = append(g, poolGroup{s.size[a] + s.size[b], a, b})
+		}
+	}
+	slices.SortFunc(g, func(p, q poolGroup) int {
+		if p.sum != q.sum {
+			return cmpInt64(p.sum, q.sum)
+		}
+		if p.a != q.a {
+			return int(p.a - q.a)
+		}
+		return int(p.b - q.b)
+	})
+	s.groups = g
+	s.work += int64(len(g))
+	bestDelta := int64(math.MaxInt64)
+	var bestBin int
+	var bestA [2]int32
+	var bestB poolGroup
+	ties := 0
+	consider := func(j int, a0, a1 int32, sumA int64) {
+		free := s.capacity - s.load[j] + sumA
+		k, _ := slices.BinarySearchFunc(g, free+1, func(p poolGroup, v int64) int { return cmpInt64(p.sum, v) })
+		for k--; k >= 0; k-- {
+			s.work++
+			e := g[k]
+			delta := sumA - e.sum
+			if delta > bestDelta {
+				return
+			}
+			if s.tabu(e.a, j) || s.tabu(e.b, j) || s.same(a0, a1, e) {
+				continue
+			}
+			if delta < bestDelta {
+				bestDelta, ties = delta, 0
+			}
+			ties++
+			if ties == 1 || s.rng.IntN(ties) == 0 {
+				bestBin, bestA, bestB = j, [2]int32{a0, a1}, e
+			}
+			return
+		}
+	}
+	for j, items := range s.bins {
+		consider(j, -1, -1, 0)
+		for x, a := range items {
+			consider(j, a, -1, s.size[a])
+			for _, b := range items[x+1:] {
+				consider(j, a, b, s.size[a]+s.size[b])
+			}
+		}
+	}
+	if ties == 0 {
+		s.move++ // every move is tabu: let the tenures run out
+		return false
+	}
+	if bestDelta >= 0 && !worse {
+		return false
+	}
+	s.apply(bestBin, bestA, bestB)
+	return true
+}
+
+// same reports whether the bar group {a0, a1} and the pool group e have
+// the same sizes (a move that would change nothing).
+func (s *tabuSearch) same(a0, a1 int32, e poolGroup) bool {
+	if a0 < 0 || (a1 < 0) != (e.b < 0) {
+		return false
+	}
+	if a1 < 0 {
+		return s.size[a0] == s.size[e.a]
+	}
+	x0, x1 := minmax(s.size[a0], s.size[a1])
+	y0, y1 := minmax(s.size[e.a], s.size[e.b])
+	return x0 == y0 && x1 == y1
+}
+
+func (s *tabuSearch) apply(j int, a [2]int32, e poolGroup) {
+	s.move++
+	for _, i := range []int32{e.a, e.b} {
+		if i < 0 {
+			continue
+		}
+		k := slices.Index(s.pool, i)
+		s.pool = slices.Delete(s.pool, k, k+1)
+		s.poolSum -= s.size[i]
+		s.bins[j] = append(s.bins[j], i)
+		s.load[j] += s.size[i]
+	}
+	for _, i := range a {
+		if i < 0 {
+			continue
+		}
+		k := slices.Index(s.bins[j], i)
+		s.bins[j] = slices.Delete(s.bins[j], k, k+1)
+		s.load[j] -= s.size[i]
+		s.pool = append(s.pool, i)
+		s.poolSum += s.size[i]
+		s.leftBin[i] = int32(j)
+		s.until[i] = s.move + tenureMin + int64(s.rng.IntN(tenureSpread))
+	}
+	s.mark(j)
+}
+
+// consolidate moves items between bars, without the pool, while that
+// makes Σ load² larger: it gathers the free length of the bars into fewer
+// bars, where pool items fit (the load-squared objective of Fleszar and
+// Hindi, "New heuristics for one-dimensional bin-packing", Computers &
+// Operations Research 29 (2002) 821–839). A group A of at most two items
+// of bar j trades places with a group B of at most two items of bar k; the
+// net length d = ΣA − ΣB goes from j to k, which raises Σ load² by
+// 2d(load k − load j + d). It reports whether it moved anything.
+func (s *tabuSearch) consolidate(limit int64) bool {
+	moved := false
+	for len(s.queue) > 0 && s.work < limit {
+		j := int(s.queue[len(s.queue)-1])
+		s.queue = s.queue[:len(s.queue)-1]
+		s.dirty[j] = false
+		for k := range s.bins {
+			if k != j && s.improvePair(j, k) {
+				moved = true
+				s.mark(j)
+				s.mark(k)
+				break
+			}
+		}
+	}
+	return moved
+}
+
+// improvePair makes the best trade between bars j and k that raises
+// Σ load², if any.
+func (s *tabuSearch) improvePair(j, k int) bool {
+	gj := s.barGroups(j, s.gj[:0])
+	gk := s.barGroups(k, s.gk[:0])
+	s.gj, s.gk = gj, gk
+	lj, lk := s.load[j], s.load[k]
+	var best float64
+	var ba, bb barGroup
+	for _, a := range gj {
+		for _, b := range gk {
+			s.work++
+			d := a.sum - b.sum
+			if d == 0 || lk+d > s.capacity || lj-d > s.capacity {
+				continue
+			}
+			if (d > 0) != (lk+d > lj) {
+				continue
+			}
+			if g := float64(d) * float64(lk-lj+d); g > best {
+				best, ba, bb = g, a, b
+			}
+		}
+	}
+	if best == 0 {
+		return false
+	}
+	s.trade(j, k, ba, bb)
+	return true
+}
+
+// barGroup is zero, one or two items of a bar (−1 for none).
+type barGroup struct {
+	sum  int64
+	a, b int32
+}
+
+func (s *tabuSearch) barGroups(j int, g []barGroup) []barGroup {
+	items := s.bins[j]
+	g = append(g, barGroup{0, -1, -1})
+	for x, a := range items {
+		g = append(g, barGroup{s.size[a], a, -1})
+		for _, b := range items[x+1:] {
+			g = append(g, barGroup{s.size[a] + s.size[b], a, b})
+		}
+	}
+	return g
+}
+
+// trade moves group a from bar j to bar k and group b from k to j.
+func (s *tabuSearch) trade(j, k int, a, b barGroup) {
+	for _, i := range []int32{a.a, a.b} {
+		if i >= 0 {
+			s.shift(i, j, k)
+		}
+	}
+	for _, i := range []int32{b.a, b.b} {
+		if i >= 0 {
+			s.shift(i, k, j)
+		}
+	}
+}
+
+func (s *tabuSearch) shift(i int32, from, to int) {
+	x := slices.Index(s.bins[from], i)
+	s.bins[from] = slices.Delete(s.bins[from], x, x+1)
+	s.load[from] -= s.size[i]
+	s.bins[to] = append(s.bins[to], i)
+	s.load[to] += s.size[i]
+}
+
+// poolBars is how many bars the pool must fit into at the end of a
+// search: the search keeps m − poolBars bars (Buljubašić and Vasquez 2016).
+const poolBars = 2
+
+// reduceBars packs the items into fewer bars than start if it can, one bar
+// at a time, stopping at bound or when the work reaches budget. It returns
+// the best plan found and whether the budget stopped it.
+func reduceBars(size []int64, capacity int64, start [][]int32, bound int, budget int64) ([][]int32, bool) {
+	best := start
+	s := newTabuSearch(size, capacity)
+	for len(best) > bound {
+		m := len(best) - 1
+		k := min(poolBars, m)
+		s.reset(best, m-k)
+		tail := s.run(k, budget)
+		if tail == nil {
+			return best, true
+		}
+		next := make([][]int32, 0, m)
+		for _, items := range append(s.bins, tail...) {
+			if len(items) > 0 {
+				next = append(next, slices.Clone(items))
+			}
+		}
+		best = next
+	}
+	return best, false
+}
+
+func cmpInt64(a, b int64) int {
+	switch {
+	case a < b:
+		return -1
+	case a > b:
+		return 1
+	}
+	return 0
+}
+
+func minmax(a, b int64) (int64, int64) {
+	if a < b {
+		return a, b
+	}
+	return b, a
+}
