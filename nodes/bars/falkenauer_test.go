@@ -103,6 +103,9 @@ func solveFalkenauer(t testing.TB, file string) (probs []falkenauer, bars []int)
 		if len(plan.Unplaced) > 0 {
 			t.Fatalf("%s: %d pieces unplaced", pr.name, len(plan.Unplaced))
 		}
+		if len(plan.Bars) < plan.Stocks[0].Bound || plan.Proven != (len(plan.Bars) == plan.Stocks[0].Bound) {
+			t.Fatalf("%s: %d bars, lower bound %d, proven %v", pr.name, len(plan.Bars), plan.Stocks[0].Bound, plan.Proven)
+		}
 		bars = append(bars, len(plan.Bars))
 	}
 	return probs, bars
@@ -123,8 +126,9 @@ func TestFalkenauerTriplets(t *testing.T) {
 // TestFalkenauerUniform: the uniform class u250 of Falkenauer (1996), file
 // binpack2 of the OR-Library, best-known counts as given in the file
 // (proven optimal except u250_07, u250_12, u250_13). Every instance must
-// come within one bar of the best known, and none below it by more than
-// the file allows (a count below a proven optimum would be a bug).
+// come within one bar of the best known. Fewer bars than the best known
+// are possible only on the three unproven instances (the replay has
+// checked the plan exactly).
 func TestFalkenauerUniform(t *testing.T) {
 	probs, bars := solveFalkenauer(t, "testdata/binpack2.txt")
 	hit := 0
@@ -133,7 +137,12 @@ func TestFalkenauerUniform(t *testing.T) {
 			t.Errorf("%s: %d bars, best known %d", pr.name, bars[i], pr.bestKnown)
 		}
 		if bars[i] < pr.bestKnown {
-			t.Logf("%s: %d bars, below the best known %d", pr.name, bars[i], pr.bestKnown)
+			switch pr.name {
+			case "u250_07", "u250_12", "u250_13":
+				t.Logf("%s: %d bars, below the file's best known %d", pr.name, bars[i], pr.bestKnown)
+			default:
+				t.Errorf("%s: %d bars, below the proven optimum %d", pr.name, bars[i], pr.bestKnown)
+			}
 		}
 		if bars[i] <= pr.bestKnown {
 			hit++

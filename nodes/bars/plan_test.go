@@ -146,6 +146,7 @@ func TestOrderIndependence(t *testing.T) {
 		l := float64(500+rng.IntN(40)*50) + float64(rng.IntN(2))*0.5
 		pieces = append(pieces, Piece{Label: fmt.Sprintf("M%03d", (i*7919)%1000), LengthMM: l})
 	}
+	pieces = append(pieces, pieces[:20]...) // identical pieces too
 	stocks := []Stock{
 		{Name: "6 m", LengthMM: 6000, KerfMM: 4, TrimMM: 10, Price: 45, Count: 20},
 		{Name: "12 m", LengthMM: 12000, KerfMM: 4, TrimMM: 10, Price: 85},
@@ -194,6 +195,16 @@ func TestCountLimits(t *testing.T) {
 	plan = solve(t, pieces, []Stock{cheap, dear})
 	if plan.Stocks[0].Bars != 2 || plan.Stocks[1].Bars != 2 || len(plan.Unplaced) != 0 {
 		t.Errorf("unlimited second stock: bars %d + %d, unplaced %d", plan.Stocks[0].Bars, plan.Stocks[1].Bars, len(plan.Unplaced))
+	}
+	// The one long bar must go to the one long piece, though four short
+	// pieces would fill it better: 9000 + 4 + 2900 = 11904 mm fit the 12 m
+	// bar, the other three short pieces take a 3 m bar each: 50 + 3·20.
+	long := Stock{Name: "12 m", LengthMM: 12000, KerfMM: 4, Price: 50, Count: 1}
+	short := Stock{Name: "3 m", LengthMM: 3000, KerfMM: 4, Price: 20}
+	pieces = append(lengths(2900, 2900, 2900, 2900), Piece{"LONG", 9000})
+	plan = solve(t, pieces, []Stock{long, short})
+	if len(plan.Unplaced) != 0 || plan.Stocks[0].Bars != 1 || plan.Cost != 50+3*20 {
+		t.Errorf("long piece: unplaced %v, bars %d + %d, cost %g", plan.Unplaced, plan.Stocks[0].Bars, plan.Stocks[1].Bars, plan.Cost)
 	}
 }
 
