@@ -82,10 +82,14 @@ func TestBoundsBelowOptimum(t *testing.T) {
 		ffd := firstFitDecreasing(size, capacity)
 		bfd := bestFitDecreasing(size, capacity)
 		best, _ := reduceBars(size, capacity, ffd, l2, 200_000)
-		for name, bins := range map[string][][]int32{"ffd": ffd, "bfd": bfd, "search": best} {
-			checkBins(t, name, size, capacity, bins)
-			if len(bins) < opt {
-				t.Fatalf("%s: %d bins below the optimum %d", name, len(bins), opt)
+		mbs := minBinSlack(size, capacity)
+		for _, r := range []struct {
+			name string
+			bins [][]int32
+		}{{"ffd", ffd}, {"bfd", bfd}, {"mbs", mbs}, {"search", best}} {
+			checkBins(t, r.name, size, capacity, r.bins)
+			if len(r.bins) < opt {
+				t.Fatalf("%s: %d bins below the optimum %d", r.name, len(r.bins), opt)
 			}
 		}
 		if len(best) != opt {
@@ -112,5 +116,19 @@ func checkBins(t *testing.T, name string, size []int64, capacity int64, bins [][
 		if n != 1 {
 			t.Fatalf("%s: item %d packed %d times", name, i, n)
 		}
+	}
+}
+
+// TestMinBinSlackEqualSizes: many equal items must not make the search
+// slow (it tries each size once a level), and fill each bar exactly.
+func TestMinBinSlackEqualSizes(t *testing.T) {
+	size := make([]int64, 100000)
+	for i := range size {
+		size[i] = 7
+	}
+	bins := minBinSlack(size, 70)
+	checkBins(t, "mbs", size, 70, bins)
+	if len(bins) != 10000 {
+		t.Errorf("%d bins, want 10000", len(bins))
 	}
 }

@@ -1,6 +1,9 @@
 package bars
 
-import "sort"
+import (
+	"slices"
+	"sort"
+)
 
 // firstFitDecreasing puts each item, largest first, into the first bar it
 // fits (Johnson 1973; at most 11/9·OPT + 6/9 bars, Dósa 2007). Sizes are
@@ -71,4 +74,70 @@ func bestFitDecreasing(size []int64, capacity int64) [][]int32 {
 		byFree[k] = o
 	}
 	return bins
+}
+
+// mbsNodesPerBar caps the search for one bar's contents in minBinSlack.
+const mbsNodesPerBar = 2000
+
+// minBinSlack packs one bar at a time, each with the largest item left
+// and the subset of the others that leaves the least free length: the
+// minimum bin slack heuristic of Gupta and Ho (1999), with the largest
+// item fixed as in MBS' of Fleszar and Hindi, "New heuristics for
+// one-dimensional bin-packing", Computers & Operations Research 29 (2002)
+// 821–839. The subset comes from a depth-first search over the items in
+// decreasing order, trying each size once a level, stopped after
+// mbsNodesPerBar nodes or at a bar filled exactly. Sizes are
+// non-increasing.
+func minBinSlack(size []int64, capacity int64) [][]int32 {
+	n := len(size)
+	// next[i] leads to the first item left at or after i (n: none).
+	next := make([]int32, n+1)
+	for i := range next {
+		next[i] = int32(i)
+	}
+	find := func(i int) int {
+		for int(next[i]) != i {
+			next[i] = next[next[i]]
+			i = int(next[i])
+		}
+		return i
+	}
+	// first[v]: the first index whose size is at most v.
+	first := func(v int64) int { return sort.Search(n, func(i int) bool { return size[i] <= v }) }
+	var bins [][]int32
+	var cur, best []int32
+	for {
+		top := find(0)
+		if top == n {
+			return bins
+		}
+		next[top] = int32(top + 1)
+		cur = append(cur[:0], int32(top))
+		best = append(best[:0], int32(top))
+		bestFree := capacity - size[top]
+		nodes := 0
+		var dfs func(from int, free int64) bool
+		dfs = func(from int, free int64) bool {
+			// Each size once: after j, jump to the first smaller size.
+			for j := find(max(from, first(free))); j < n; j = find(max(j+1, first(size[j]-1))) {
+				nodes++
+				cur = append(cur, int32(j))
+				f := free - size[j]
+				if f < bestFree {
+					bestFree = f
+					best = append(best[:0], cur...)
+				}
+				if f == 0 || nodes >= mbsNodesPerBar || dfs(j+1, f) {
+					return true
+				}
+				cur = cur[:len(cur)-1]
+			}
+			return false
+		}
+		dfs(top+1, bestFree)
+		for _, i := range best[1:] {
+			next[i] = int32(i + 1)
+		}
+		bins = append(bins, slices.Clone(best))
+	}
 }

@@ -20,6 +20,9 @@ func (p *problem) packOne(k int, items []int32) (bins [][]int32, hit bool) {
 	if bfd := bestFitDecreasing(size, u.capacity); len(bfd) < len(start) {
 		start = bfd
 	}
+	if mbs := minBinSlack(size, u.capacity); len(mbs) < len(start) {
+		start = mbs
+	}
 	best, hit := reduceBars(size, u.capacity, start, boundL2(size, u.capacity), p.effort)
 	bins = make([][]int32, len(best))
 	for b, xs := range best {
@@ -124,119 +127,309 @@ func (p *problem) fromPrimary(k int, items []int32) mix {
 	return m
 }
 
-// improve makes a plan cheaper by two moves until neither applies: a bar
-// goes to the cheapest stock left that holds its pieces (downsize), and two
-// bars whose pieces fit together into one bar that costs less become that
-// bar (merge).
+// improve makes a plan cheaper by three moves until none applies or the
+// work reaches the effort: a bar goes to the cheapest stock left that
+// holds its pieces (downsize); two bars whose pieces fit together into one
+// bar that costs less become that bar (merge); the pieces of one bar, or of
+// two of the least efficient bars (price per blank length), are cut the
+// cheapest way from any stocks left, found exhaustively (repack: it splits
+// a dear bar into cheaper ones, or shares two bars' pieces out anew).
 func (p *problem) improve(m *mix) {
-	used := make([]int, len(p.su))
+	im := &improver{p: p, m: m, used: make([]int, len(p.su))}
 	for _, b := range m.bars {
-		used[b.stock]++
+		im.used[b.stock]++
 	}
-	left := func(k int) int {
-		if p.su[k].count == 0 {
-			return unlimited
+	for changed := true; changed && im.work < p.effort; {
+		changed = im.downsize()
+		changed = im.merge() || changed
+		changed = im.repackSingles() || changed
+		changed = im.repackPairs() || changed
+	}
+}
+
+// improver holds a plan being improved and the bars used per stock.
+type improver struct {
+	p    *problem
+	m    *mix
+	used []int
+	work int64
+}
+
+func (im *improver) left(k int) int {
+	if im.p.su[k].count == 0 {
+		return unlimited
+	}
+	return im.p.su[k].count - im.used[k]
+}
+
+func (im *improver) blank(items []int32) int64 {
+	var l int64
+	for _, i := range items {
+		l += im.p.blank[i]
+	}
+	return l
+}
+
+// fits: blanks plus one kerf each within the capacity (usable + kerf).
+func (im *improver) fits(blank int64, n int, k int) bool {
+	u := im.p.su[k]
+	return blank+int64(n)*u.kerf <= u.capacity
+}
+
+// cheaper: lower price, then shorter.
+func cheaper(pa float64, la int64, pb float64, lb int64) bool {
+	return pa < pb || pa == pb && la < lb
+}
+
+func (im *improver) downsize() bool {
+	changed := false
+	for b := range im.m.bars {
+		bar := &im.m.bars[b]
+		blank := im.blank(bar.items)
+		best := bar.stock
+		for k, u := range im.p.su {
+			im.work++
+			if k != bar.stock && im.left(k) > 0 && im.fits(blank, len(bar.items), k) &&
+				cheaper(u.price, u.length, im.p.su[best].price, im.p.su[best].length) {
+				best = k
+			}
 		}
-		return p.su[k].count - used[k]
-	}
-	type agg struct{ blank, n int64 }
-	aggOf := func(items []int32) agg {
-		a := agg{n: int64(len(items))}
-		for _, i := range items {
-			a.blank += p.blank[i]
+		if best != bar.stock {
+			im.used[bar.stock]--
+			im.used[best]++
+			bar.stock = best
+			changed = true
 		}
-		return a
 	}
-	fits := func(a agg, k int) bool { return a.blank+a.n*p.su[k].kerf <= p.su[k].capacity }
-	// cheaper: lower price, then shorter.
-	cheaper := func(pa float64, la int64, pb float64, lb int64) bool { return pa < pb || pa == pb && la < lb }
-	aggs := make([]agg, len(m.bars))
-	for b := range m.bars {
-		aggs[b] = aggOf(m.bars[b].items)
-	}
+	return changed
+}
+
+func (im *improver) merge() bool {
+	bars := im.m.bars
+	blank := make([]int64, len(bars))
+	order := make([]int, len(bars))
 	maxCap := int64(0)
-	for _, u := range p.su {
+	for _, u := range im.p.su {
 		maxCap = max(maxCap, u.capacity)
 	}
-	work := int64(0)
-	for changed := true; changed && work < p.effort; {
-		changed = false
-		for b := range m.bars {
-			cur := m.bars[b].stock
-			best := cur
-			for k, u := range p.su {
-				if k != cur && left(k) > 0 && fits(aggs[b], k) && cheaper(u.price, u.length, p.su[best].price, p.su[best].length) {
+	for b := range bars {
+		blank[b] = im.blank(bars[b].items)
+		order[b] = b
+	}
+	slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(blank[a], blank[b]) })
+	gone := make([]bool, len(bars))
+	changed := false
+pairs:
+	for x, i := range order {
+		for _, j := range order[x+1:] {
+			im.work++
+			if gone[i] || blank[i]+blank[j] > maxCap {
+				continue pairs
+			}
+			if gone[j] {
+				continue
+			}
+			si, sj := im.p.su[bars[i].stock], im.p.su[bars[j].stock]
+			n := len(bars[i].items) + len(bars[j].items)
+			best := -1
+			for k, u := range im.p.su {
+				free := im.left(k)
+				if bars[i].stock == k {
+					free++
+				}
+				if bars[j].stock == k {
+					free++
+				}
+				if free <= 0 || !im.fits(blank[i]+blank[j], n, k) || !cheaper(u.price, u.length, si.price+sj.price, si.length+sj.length) {
+					continue
+				}
+				if best < 0 || cheaper(u.price, u.length, im.p.su[best].price, im.p.su[best].length) {
 					best = k
 				}
 			}
-			if best != cur {
-				used[cur]--
-				used[best]++
-				m.bars[b].stock = best
-				changed = true
+			if best < 0 {
+				continue
 			}
-		}
-		order := make([]int, len(m.bars))
-		for b := range order {
-			order[b] = b
-		}
-		slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(aggs[a].blank, aggs[b].blank) })
-		gone := make([]bool, len(m.bars))
-	pairs:
-		for x, i := range order {
-			for _, j := range order[x+1:] {
-				work++
-				if gone[i] || aggs[i].blank+aggs[j].blank > maxCap {
-					continue pairs
-				}
-				if gone[j] {
-					continue
-				}
-				si, sj := p.su[m.bars[i].stock], p.su[m.bars[j].stock]
-				both := agg{aggs[i].blank + aggs[j].blank, aggs[i].n + aggs[j].n}
-				best := -1
-				for k, u := range p.su {
-					free := left(k)
-					if m.bars[i].stock == k {
-						free++
-					}
-					if m.bars[j].stock == k {
-						free++
-					}
-					if free <= 0 || !fits(both, k) || !cheaper(u.price, u.length, si.price+sj.price, si.length+sj.length) {
-						continue
-					}
-					if best < 0 || cheaper(u.price, u.length, p.su[best].price, p.su[best].length) {
-						best = k
-					}
-				}
-				if best < 0 {
-					continue
-				}
-				used[m.bars[i].stock]--
-				used[m.bars[j].stock]--
-				used[best]++
-				m.bars[i].stock = best
-				m.bars[i].items = append(m.bars[i].items, m.bars[j].items...)
-				slices.Sort(m.bars[i].items)
-				aggs[i] = both
-				gone[j] = true
-				changed = true
-				continue pairs
-			}
-		}
-		if changed {
-			kept := m.bars[:0]
-			keptAggs := aggs[:0]
-			for b := range m.bars {
-				if !gone[b] {
-					kept = append(kept, m.bars[b])
-					keptAggs = append(keptAggs, aggs[b])
-				}
-			}
-			m.bars, aggs = kept, keptAggs
+			im.used[bars[i].stock]--
+			im.used[bars[j].stock]--
+			im.used[best]++
+			bars[i].stock = best
+			bars[i].items = append(bars[i].items, bars[j].items...)
+			slices.Sort(bars[i].items)
+			blank[i] += blank[j]
+			gone[j] = true
+			changed = true
+			continue pairs
 		}
 	}
+	if changed {
+		kept := bars[:0]
+		for b := range bars {
+			if !gone[b] {
+				kept = append(kept, bars[b])
+			}
+		}
+		im.m.bars = kept
+	}
+	return changed
+}
+
+// maxRepackPieces caps the pieces one exhaustive repack takes on, and
+// repackNodes the nodes of its search; worstBars is how many of the least
+// efficient bars are repacked in pairs.
+const (
+	maxRepackPieces = 12
+	repackNodes     = 20_000
+	worstBars       = 40
+)
+
+func (im *improver) repackSingles() bool {
+	changed := false
+	for b := 0; b < len(im.m.bars) && im.work < im.p.effort; b++ {
+		if n := len(im.m.bars[b].items); n >= 2 && n <= maxRepackPieces && im.replace([]int{b}) {
+			changed = true
+			b--
+		}
+	}
+	return changed
+}
+
+func (im *improver) repackPairs() bool {
+	bars := im.m.bars
+	order := make([]int, len(bars))
+	eff := make([]float64, len(bars))
+	for b := range bars {
+		order[b] = b
+		u := im.p.su[bars[b].stock]
+		// Price per blank length, then bar length per blank length.
+		eff[b] = u.price / float64(im.blank(bars[b].items))
+		if u.price == 0 {
+			eff[b] = float64(u.length) / float64(im.blank(bars[b].items))
+		}
+	}
+	slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(eff[b], eff[a]) })
+	order = order[:min(len(order), worstBars)]
+	for x, i := range order {
+		for _, j := range order[x+1:] {
+			if im.work >= im.p.effort {
+				return false
+			}
+			if len(bars[i].items)+len(bars[j].items) <= maxRepackPieces && im.replace([]int{i, j}) {
+				return true // the bars have changed: start over
+			}
+		}
+	}
+	return false
+}
+
+// replace repacks the pieces of the bars set exhaustively and puts the
+// result in their place if it is cheaper; it reports whether it did.
+func (im *improver) replace(set []int) bool {
+	var items []int32
+	var price float64
+	var length int64
+	avail := make([]int, len(im.p.su))
+	for k := range avail {
+		avail[k] = im.left(k)
+	}
+	for _, b := range set {
+		bar := im.m.bars[b]
+		items = append(items, bar.items...)
+		u := im.p.su[bar.stock]
+		price += u.price
+		length += u.length
+		if avail[bar.stock] != unlimited {
+			avail[bar.stock]++
+		}
+	}
+	slices.Sort(items)
+	bars, ok := im.repack(items, avail, price, length)
+	if !ok {
+		return false
+	}
+	for _, b := range set {
+		im.used[im.m.bars[b].stock]--
+	}
+	for _, b := range bars {
+		im.used[b.stock]++
+	}
+	// The first bars of the set take the new bars; the rest are removed.
+	slices.Sort(set)
+	for x, b := range set {
+		if x < len(bars) {
+			im.m.bars[b] = bars[x]
+		}
+	}
+	for x := len(set) - 1; x >= len(bars); x-- {
+		im.m.bars = slices.Delete(im.m.bars, set[x], set[x]+1)
+	}
+	im.m.bars = append(im.m.bars, bars[min(len(bars), len(set)):]...)
+	return true
+}
+
+// repack cuts items (canonical, ascending) from bars of any stock, at most
+// avail[k] of stock k, at the least (price, length), by a depth-first
+// search: each item, longest first, goes into an open bar with room or a
+// new bar. It returns a plan only if it beats (price, length).
+func (im *improver) repack(items []int32, avail []int, price float64, length int64) ([]mixBar, bool) {
+	type open struct {
+		stock int
+		free  int64 // capacity left, in this stock's sizes
+		items []int32
+	}
+	var cur, best []open
+	bestPrice, bestLength := price, length
+	found := false
+	nodes := 0
+	var dfs func(x int, price float64, length int64)
+	dfs = func(x int, price float64, length int64) {
+		if !cheaper(price, length, bestPrice, bestLength) || nodes >= repackNodes {
+			return
+		}
+		nodes++
+		im.work++
+		if x == len(items) {
+			bestPrice, bestLength, found = price, length, true
+			best = best[:0]
+			for _, o := range cur {
+				best = append(best, open{o.stock, o.free, slices.Clone(o.items)})
+			}
+			return
+		}
+		i := items[x]
+		for b := range cur {
+			size := im.p.blank[i] + im.p.su[cur[b].stock].kerf
+			if size > cur[b].free {
+				continue
+			}
+			cur[b].free -= size
+			cur[b].items = append(cur[b].items, i)
+			dfs(x+1, price, length)
+			cur[b].items = cur[b].items[:len(cur[b].items)-1]
+			cur[b].free += size
+		}
+		for k, u := range im.p.su {
+			size := im.p.blank[i] + u.kerf
+			if avail[k] <= 0 || size > u.capacity {
+				continue
+			}
+			avail[k]--
+			cur = append(cur, open{k, u.capacity - size, []int32{i}})
+			dfs(x+1, price+u.price, length+u.length)
+			cur = cur[:len(cur)-1]
+			avail[k]++
+		}
+	}
+	dfs(0, 0, 0)
+	if !found {
+		return nil, false
+	}
+	out := make([]mixBar, len(best))
+	for b, o := range best {
+		out[b] = mixBar{o.stock, o.items}
+		slices.Sort(out[b].items)
+	}
+	return out, true
 }
 
 // better orders plans: fewer unplaced pieces, then lower cost, then less

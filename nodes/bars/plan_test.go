@@ -280,7 +280,9 @@ func optimumCost(pieces []Piece, stocks []Stock) float64 {
 // TestMixAgainstOptimum: on small random instances (fixed seed) with two or
 // three stocks of different prices, the plan is never cheaper than the
 // brute-force optimum (that would be a broken plan), never dearer than the
-// best single stock, and reaches the optimum on most.
+// best single stock, and reaches the optimum on at least 39 in 40 (199 of
+// these 200 when written; the one missed needs three bars repacked at
+// once).
 func TestMixAgainstOptimum(t *testing.T) {
 	rng := rand.New(rand.NewPCG(21, 34))
 	hits, runs := 0, 200
@@ -310,11 +312,13 @@ func TestMixAgainstOptimum(t *testing.T) {
 		}
 		if plan.Cost <= opt+1e-9 {
 			hits++
+		} else if testing.Verbose() {
+			t.Logf("run %d: cost %g, optimum %g, stocks %v, pieces %v, plan %v", r, plan.Cost, opt, stocks, pieces, plan.Bars)
 		}
 	}
 	t.Logf("optimum reached on %d of %d", hits, runs)
-	if hits < runs*9/10 {
-		t.Errorf("optimum reached on %d of %d, want at least 90%%", hits, runs)
+	if hits < runs*39/40 {
+		t.Errorf("optimum reached on %d of %d, want at least 97.5%%", hits, runs)
 	}
 }
 
