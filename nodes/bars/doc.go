@@ -52,31 +52,40 @@
 //
 // # The solver and what it guarantees
 //
-// One stock, fewest bars: the better of first-fit and best-fit decreasing
-// (Johnson 1973), then a consistent-neighbourhood tabu search after
-// Buljubašić and Vasquez (Computers & Operations Research 76, 2016) that
-// removes one bar at a time until it reaches the bound L2 or spends its
-// effort (Options.Effort, counted in work units, never in time). When the
-// bars equal L2 the plan is proven to use the fewest bars (Plan.Proven);
-// otherwise it is a heuristic plan, and Plan.BudgetHit says the search
-// stopped at its effort. On the published Falkenauer (1996) instances it
-// reaches the optimum on every triplet instance (t60) and comes within one
-// bar of the best known on every uniform instance (u250); the tests check
-// both.
+// One stock, fewest bars: the best of first-fit decreasing, best-fit
+// decreasing (Johnson 1973) and minimum bin slack (Gupta and Ho 1999, as
+// MBS' of Fleszar and Hindi 2002), then a consistent-neighbourhood tabu
+// search after Buljubašić and Vasquez (Computers & Operations Research 76,
+// 2016): to save a bar it empties the three least-filled bars into a pool,
+// swaps groups of one or two pieces between the pool and the other bars
+// (never overfilling a bar) to lower the pool's weight, and weights up the
+// pieces that stay in the pool, until the pool fits into two bars. It
+// stops at the lower bound L2 or when it has spent its effort
+// (Options.Effort, counted in work units, never in time). When the bars
+// equal L2 the plan is proven to use the fewest bars (Plan.Proven);
+// otherwise it is a heuristic plan, and Plan.BudgetHit says whether the
+// effort ran out. On the published Falkenauer (1996) instances it reaches
+// the optimum on every triplet instance (t60) and the best known count, or
+// one fewer, on every uniform instance (u250); the tests check the
+// triplets exactly and the uniform class to within one bar.
 //
 // Several stocks, cheapest mix: for each stock, the pieces are packed into
 // that stock alone (as above); when its count runs out its fullest bars
 // are kept and the rest goes, the same way, to the stock with the lowest
-// price per usable length among those left; then bars move to the cheapest
-// stock that holds their pieces, and two bars whose pieces fit into one
-// cheaper bar are merged, until neither move applies. The cheapest of
-// these candidates is kept. What is guaranteed: every piece is on exactly
-// one bar or listed as unplaced with its reason; counts are kept; the plan
-// costs no more than packing into any one stock alone (where that stock
-// holds every piece in its count), no bar can move to a cheaper stock
-// that holds its pieces, and no two bars can become one cheaper bar. The
-// cost is ranked by price, then total bar length, then bars, so with no
-// prices the plan uses the least bar length.
+// price per usable length among those left. Then, until nothing changes: a
+// bar moves to the cheapest stock that holds its pieces; two bars whose
+// pieces fit into one cheaper bar are merged; the pieces of one bar, or of
+// two of the least efficient bars, are repacked exhaustively (up to 12
+// pieces) into the cheapest bars of any stock. The cheapest of these
+// candidates is kept. What is guaranteed: every piece is on exactly one
+// bar or listed as unplaced with its reason; counts are kept; the plan
+// costs no more than packing into any one stock alone, where that stock
+// holds every piece within its count; no bar can move to a cheaper stock
+// that holds its pieces, and no two bars can become one cheaper bar (when
+// the effort has not run out). The mix is otherwise heuristic: Plan
+// reports a lower bound on the cost beside it. Cost ranks by price, then
+// total bar length, then bars, so with no prices the plan uses the least
+// bar length.
 //
 // # Determinism
 //

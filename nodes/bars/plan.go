@@ -10,15 +10,16 @@ import (
 	"pqfab/geom"
 )
 
-// DefaultEffort is the work (comparisons of item groups) the search may
-// spend on one packing of the pieces into one stock: of the order of a
-// quarter second on a current core. It cuts the search short only on
-// instances it cannot bring down to the lower bound.
+// DefaultEffort is the work (comparisons of piece groups and search
+// nodes) the solver may spend on one packing of the pieces into one stock,
+// and again on improving each mix: a few tenths of a second on a current
+// core. It cuts the search short only where the plan has not reached its
+// lower bound.
 const DefaultEffort = 15_000_000
 
 // Options tune Solve.
 type Options struct {
-	// Effort caps each packing's search, in work units; 0 means
+	// Effort caps the search, in work units (see DefaultEffort); 0 means
 	// DefaultEffort. The same effort gives the same plan on every machine.
 	Effort int64
 }

@@ -1,6 +1,7 @@
 package bars
 
 import (
+	"cmp"
 	"math"
 	"math/rand/v2"
 	"slices"
@@ -84,7 +85,7 @@ func (s *tabuSearch) reset(plan [][]int32, keep int) {
 		order[b] = b
 	}
 	// Fullest first, the earlier of equals first.
-	slices.SortStableFunc(order, func(a, b int) int { return cmpInt64(loads[b], loads[a]) })
+	slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(loads[b], loads[a]) })
 	kept := make([]bool, len(plan))
 	for _, b := range order[:keep] {
 		kept[b] = true
@@ -115,7 +116,7 @@ func (s *tabuSearch) tabu(item int32, bin int) bool {
 func (s *tabuSearch) run(poolBars int, limit int64) [][]int32 {
 	for {
 		if s.poolSum <= int64(poolBars)*s.capacity {
-			if p := s.packPool(poolBars, limit); p != nil {
+			if p, _ := s.packPool(poolBars, limit); p != nil {
 				return p
 			}
 		}
@@ -132,13 +133,17 @@ func (s *tabuSearch) run(poolBars int, limit int64) [][]int32 {
 	}
 }
 
-// packPool packs the pool into at most k bars by an exhaustive search
+// packPoolNodes caps one search for a packing of the pool.
+const packPoolNodes = 20_000
+
+// packPool packs the pool into at most k bars by a depth-first search
 // (largest item first, each into a bar it fits, never two empty bars
-// tried alike), or returns nil.
-func (s *tabuSearch) packPool(k int, limit int64) [][]int32 {
+// tried alike) of at most packPoolNodes nodes, or returns nil and whether
+// a limit cut the search short.
+func (s *tabuSearch) packPool(k int, limit int64) ([][]int32, bool) {
 	items := slices.Clone(s.pool)
 	slices.SortFunc(items, func(a, b int32) int {
-		if c := cmpInt64(s.size[b], s.size[a]); c != 0 {
+		if c := cmp.Compare(s.size[b], s.size[a]); c != 0 {
 			return c
 		}
 		return int(a - b)
@@ -148,13 +153,16 @@ func (s *tabuSearch) packPool(k int, limit int64) [][]int32 {
 	for b := range free {
 		free[b] = s.capacity
 	}
+	nodes, cut := 0, false
 	var place func(x int) bool
 	place = func(x int) bool {
 		if x == len(items) {
 			return true
 		}
 		s.work++
-		if s.work >= limit {
+		nodes++
+		if s.work >= limit || nodes > packPoolNodes {
+			cut = true
 			return false
 		}
 		i := items[x]
@@ -173,9 +181,9 @@ func (s *tabuSearch) packPool(k int, limit int64) [][]int32 {
 		return false
 	}
 	if !place(0) {
-		return nil
+		return nil, cut
 	}
-	return bins
+	return bins, false
 }
 
 // step makes the best move that is not tabu: for a bar j, a group A of at
@@ -193,7 +201,7 @@ func (s *tabuSearch) step(worse bool) bool {
 	}
 	slices.SortFunc(g, func(p, q poolGroup) int {
 		if p.sum != q.sum {
-			return cmpInt64(p.sum, q.sum)
+			return cmp.Compare(p.sum, q.sum)
 		}
 		if p.a != q.a {
 			return int(p.a - q.a)
@@ -219,7 +227,7 @@ func (s *tabuSearch) step(worse bool) bool {
 	consider := func(j int, a0, a1 int32, sumA int64, wA float64) {
 		s.work++
 		free := s.capacity - s.load[j] + sumA
-		k, _ := slices.BinarySearchFunc(g, free+1, func(p poolGroup, v int64) int { return cmpInt64(p.sum, v) })
+		k, _ := slices.BinarySearchFunc(g, free+1, func(p poolGroup, v int64) int { return cmp.Compare(p.sum, v) })
 		if k == 0 {
 			return
 		}
@@ -336,7 +344,16 @@ func reduceBars(size []int64, capacity int64, start [][]int32, bound int, budget
 		m := len(best) - 1
 		k := min(poolBars, m)
 		s.reset(best, m-k)
-		tail := s.run(k, budget)
+		var tail [][]int32
+		if m == k {
+			// No bars to swap with: the pool alone must fit.
+			var cut bool
+			if tail, cut = s.packPool(k, budget); tail == nil {
+				return best, cut
+			}
+		} else {
+			tail = s.run(k, budget)
+		}
 		if tail == nil {
 			return best, true
 		}
@@ -349,16 +366,6 @@ func reduceBars(size []int64, capacity int64, start [][]int32, bound int, budget
 		best = next
 	}
 	return best, false
-}
-
-func cmpInt64(a, b int64) int {
-	switch {
-	case a < b:
-		return -1
-	case a > b:
-		return 1
-	}
-	return 0
 }
 
 func minmax(a, b int64) (int64, int64) {
