@@ -63,3 +63,25 @@ func boundL2(size []int64, capacity int64) int {
 	}
 	return best
 }
+
+// cardinalityBound: if the k+1 smallest sizes overfill a bar, no bar holds
+// more than k items, so at least ceil(n / k) bars are needed (a standard
+// counting bound). Sizes are non-increasing, each at most capacity.
+func cardinalityBound(size []int64, capacity int64) int {
+	n := len(size)
+	var sum int64
+	k := 0
+	for i := n - 1; i >= 0 && sum+size[i] <= capacity; i-- {
+		sum += size[i]
+		k++
+	}
+	if k == 0 {
+		return 0
+	}
+	return (n + k - 1) / k
+}
+
+// lowerBound is the larger of L2 and the cardinality bound.
+func lowerBound(size []int64, capacity int64) int {
+	return max(boundL2(size, capacity), cardinalityBound(size, capacity))
+}

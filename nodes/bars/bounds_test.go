@@ -83,10 +83,14 @@ func TestBoundsBelowOptimum(t *testing.T) {
 		bfd := bestFitDecreasing(size, capacity)
 		best, _ := reduceBars(size, capacity, ffd, l2, 200_000)
 		mbs := minBinSlack(size, capacity)
+		mp := mostPieces(size, capacity)
+		if c := cardinalityBound(size, capacity); c > opt {
+			t.Fatalf("%v in %d: cardinality bound %d, optimum %d", size, capacity, c, opt)
+		}
 		for _, r := range []struct {
 			name string
 			bins [][]int32
-		}{{"ffd", ffd}, {"bfd", bfd}, {"mbs", mbs}, {"search", best}} {
+		}{{"ffd", ffd}, {"bfd", bfd}, {"mbs", mbs}, {"most pieces", mp}, {"search", best}} {
 			checkBins(t, r.name, size, capacity, r.bins)
 			if len(r.bins) < opt {
 				t.Fatalf("%s: %d bins below the optimum %d", r.name, len(r.bins), opt)
@@ -119,16 +123,42 @@ func checkBins(t *testing.T, name string, size []int64, capacity int64, bins [][
 	}
 }
 
-// TestMinBinSlackEqualSizes: many equal items must not make the search
-// slow (it tries each size once a level), and fill each bar exactly.
-func TestMinBinSlackEqualSizes(t *testing.T) {
+// TestGreedyEqualSizes: many equal items must not make the greedy
+// packings slow (minimum bin slack tries each size once a level), and each
+// must fill every bar exactly.
+func TestGreedyEqualSizes(t *testing.T) {
 	size := make([]int64, 100000)
 	for i := range size {
 		size[i] = 7
 	}
-	bins := minBinSlack(size, 70)
-	checkBins(t, "mbs", size, 70, bins)
-	if len(bins) != 10000 {
-		t.Errorf("%d bins, want 10000", len(bins))
+	for _, g := range []struct {
+		name string
+		pack func([]int64, int64) [][]int32
+	}{{"mbs", minBinSlack}, {"most pieces", mostPieces}, {"ffd", firstFitDecreasing}} {
+		bins := g.pack(size, 70)
+		checkBins(t, g.name, size, 70, bins)
+		if len(bins) != 10000 {
+			t.Errorf("%s: %d bins, want 10000", g.name, len(bins))
+		}
+	}
+	if got := cardinalityBound(size, 70); got != 10000 {
+		t.Errorf("cardinality bound %d, want 10000", got)
+	}
+}
+
+// TestMostPiecesPairs: four pieces of 27 and four of 23 in bars of 100.
+// Two bars of 27 + 27 + 23 + 23 = 100 hold them all. First fit decreasing
+// puts 27, 27, 27 together (the fourth 27 and any 23 overfill), then 27,
+// 23, 23, 23, and the last 23 needs a third bar; most pieces pairs long
+// with short and needs two.
+func TestMostPiecesPairs(t *testing.T) {
+	size := []int64{27, 27, 27, 27, 23, 23, 23, 23}
+	if got := len(firstFitDecreasing(size, 100)); got != 3 {
+		t.Errorf("first fit decreasing: %d bars, want 3", got)
+	}
+	bins := mostPieces(size, 100)
+	checkBins(t, "most pieces", size, 100, bins)
+	if len(bins) != 2 {
+		t.Errorf("most pieces: %d bars, want 2", len(bins))
 	}
 }

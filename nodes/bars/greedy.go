@@ -141,3 +141,76 @@ func minBinSlack(size []int64, capacity int64) [][]int32 {
 		bins = append(bins, slices.Clone(best))
 	}
 }
+
+// mostPieces packs one bar at a time for the most pieces a bar: the
+// largest piece left, then the smallest pieces left while they fit, then
+// each of those small pieces, smallest first, is traded for the largest
+// piece left that fits in its place. Where bars are limited by how many
+// pieces they hold rather than by length (members of nearly one length),
+// the decreasing-order heuristics group the long pieces and lose bars;
+// this one pairs long with short. Sizes are non-increasing.
+func mostPieces(size []int64, capacity int64) [][]int32 {
+	n := len(size)
+	// fwd[i] leads to the first piece left at or after i (n: none);
+	// back[i+1] to the last piece left at or before i (back 0: none).
+	fwd := make([]int32, n+1)
+	back := make([]int32, n+1)
+	for i := range fwd {
+		fwd[i] = int32(i)
+		back[i] = int32(i)
+	}
+	findF := func(i int) int {
+		for int(fwd[i]) != i {
+			fwd[i] = fwd[fwd[i]]
+			i = int(fwd[i])
+		}
+		return i
+	}
+	// findB returns the last piece left before index i (−1: none).
+	findB := func(i int) int {
+		for int(back[i]) != i {
+			back[i] = back[back[i]]
+			i = int(back[i])
+		}
+		return i - 1
+	}
+	remove := func(i int) {
+		fwd[i] = int32(i + 1)
+		back[i+1] = int32(i)
+	}
+	first := func(v int64) int { return sort.Search(n, func(i int) bool { return size[i] <= v }) }
+	taken := make([]bool, n)
+	var bins [][]int32
+	for {
+		top := findF(0)
+		if top == n {
+			return bins
+		}
+		remove(top)
+		bar := []int32{int32(top)}
+		free := capacity - size[top]
+		for j := findB(n); j >= 0 && size[j] <= free; j = findB(j) {
+			bar = append(bar, int32(j))
+			taken[j] = true
+			free -= size[j]
+		}
+		for x := 1; x < len(bar); x++ {
+			c := int(bar[x])
+			j := findF(first(free + size[c]))
+			for j < n && taken[j] {
+				j = findF(j + 1)
+			}
+			if j >= n || size[j] <= size[c] {
+				continue
+			}
+			taken[c], taken[j] = false, true
+			free += size[c] - size[j]
+			bar[x] = int32(j)
+		}
+		for _, i := range bar[1:] {
+			taken[i] = false
+			remove(int(i))
+		}
+		bins = append(bins, bar)
+	}
+}

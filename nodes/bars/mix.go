@@ -7,8 +7,9 @@ import (
 )
 
 // packOne packs items (canonical positions, ascending) into bars of stock
-// k, fewest bars first: the better of first-fit and best-fit decreasing,
-// then the tabu search down to the bound L2. Each bar's items come back
+// k, fewest bars first: the best of first-fit and best-fit decreasing,
+// minimum bin slack and most pieces, then the tabu search down to the
+// lower bound. Each bar's items come back
 // ascending.
 func (p *problem) packOne(k int, items []int32) (bins [][]int32, hit bool) {
 	u := p.su[k]
@@ -23,7 +24,10 @@ func (p *problem) packOne(k int, items []int32) (bins [][]int32, hit bool) {
 	if mbs := minBinSlack(size, u.capacity); len(mbs) < len(start) {
 		start = mbs
 	}
-	best, hit := reduceBars(size, u.capacity, start, boundL2(size, u.capacity), p.effort)
+	if mp := mostPieces(size, u.capacity); len(mp) < len(start) {
+		start = mp
+	}
+	best, hit := reduceBars(size, u.capacity, start, lowerBound(size, u.capacity), p.effort)
 	bins = make([][]int32, len(best))
 	for b, xs := range best {
 		for _, x := range xs {

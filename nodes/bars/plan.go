@@ -47,8 +47,9 @@ type StockUse struct {
 	Cost  float64
 	// LengthBound is the fewest bars by length if every placed piece that
 	// fits this stock were cut from it: ceil(Σ (blank + kerf) / (usable +
-	// kerf)). Bound is the stronger bound L2 (Martello and Toth 1990) on
-	// the same pieces; Bound ≥ LengthBound.
+	// kerf)). Bound is a stronger lower bound on the same pieces: the
+	// larger of L2 (Martello and Toth 1990) and ceil(n / k) where no bar
+	// holds more than k pieces; Bound ≥ LengthBound.
 	LengthBound int
 	Bound       int
 	Fits        int // placed pieces that fit this stock
@@ -69,7 +70,7 @@ type Plan struct {
 	// kerf_k) / (usable_k + kerf_k), and with one stock price·Bound.
 	CostBound float64
 	// Proven: one stock, every piece placed, and the bars equal the lower
-	// bound L2, so no plan has fewer bars.
+	// bound Bound, so no plan has fewer bars.
 	Proven bool
 	// BudgetHit: the search stopped at Options.Effort before it reached
 	// its lower bound; more effort might save bars.
@@ -237,7 +238,7 @@ func (p *problem) fill(plan *Plan, m mix) {
 		su.Fits = len(size)
 		if len(size) > 0 {
 			su.LengthBound = lengthBound(size, u.capacity)
-			su.Bound = boundL2(size, u.capacity)
+			su.Bound = lowerBound(size, u.capacity)
 		}
 	}
 	for _, i := range placed {
