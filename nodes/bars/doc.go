@@ -45,29 +45,35 @@
 //
 // # Lower bounds
 //
-// For a stock, the fewest bars by length is ceil(Σ (b + K) / (U + K)); the
-// bound L2 of Martello and Toth (Knapsack Problems, 1990) is at least that
-// and counts pieces too long to share a bar. Plans report both per stock,
-// and a lower bound on the cost.
+// For a stock, the fewest bars by length is ceil(Σ (b + K) / (U + K)). The
+// stronger bound reported beside it is the larger of L2 (Martello and
+// Toth, Knapsack Problems, 1990), which counts pieces too long to share a
+// bar, and ceil(n / k) where no bar holds more than k pieces (the k+1
+// shortest overfill it). Plans report both per stock, and a lower bound on
+// the cost.
 //
 // # The solver and what it guarantees
 //
 // One stock, fewest bars: the best of first-fit decreasing, best-fit
-// decreasing (Johnson 1973) and minimum bin slack (Gupta and Ho 1999, as
-// MBS' of Fleszar and Hindi 2002), then a consistent-neighbourhood tabu
-// search after Buljubašić and Vasquez (Computers & Operations Research 76,
-// 2016): to save a bar it empties the three least-filled bars into a pool,
-// swaps groups of one or two pieces between the pool and the other bars
-// (never overfilling a bar) to lower the pool's weight, and weights up the
-// pieces that stay in the pool, until the pool fits into two bars. It
-// stops at the lower bound L2 or when it has spent its effort
-// (Options.Effort, counted in work units, never in time). When the bars
-// equal L2 the plan is proven to use the fewest bars (Plan.Proven);
-// otherwise it is a heuristic plan, and Plan.BudgetHit says whether the
-// effort ran out. On the published Falkenauer (1996) instances it reaches
-// the optimum on every triplet instance (t60) and the best known count, or
-// one fewer, on every uniform instance (u250); the tests check the
-// triplets exactly and the uniform class to within one bar.
+// decreasing (Johnson 1973), minimum bin slack (Gupta and Ho 1999, as MBS'
+// of Fleszar and Hindi 2002) and a most-pieces packing (the longest piece
+// left with the shortest ones, then traded up: it wins where members of
+// nearly one length make the number a bar holds the limit). Then a
+// consistent-neighbourhood tabu search after Buljubašić and Vasquez
+// (Computers & Operations Research 76, 2016) saves one bar at a time: it
+// empties the three least-filled bars into a pool, swaps groups of one or
+// two pieces between the pool and the other bars (never overfilling a
+// bar) to lower the pool's weight, and weights up the pieces that stay in
+// the pool, until the pool fits into two bars. On plans of more than 300
+// bars each move looks at 300 bars drawn at random. The search stops at
+// the lower bound or when it has spent its effort (Options.Effort,
+// counted in work units, never in time). When the bars equal the bound the
+// plan is proven to use the fewest bars (Plan.Proven); otherwise it is a
+// heuristic plan, and Plan.BudgetHit says whether the effort ran out. On
+// the published Falkenauer (1996) instances it reaches the optimum on
+// every triplet instance (t60) and the best known count, or one fewer, on
+// every uniform instance (u250); the tests check the triplets exactly and
+// the uniform class to within one bar.
 //
 // Several stocks, cheapest mix: for each stock, the pieces are packed into
 // that stock alone (as above); when its count runs out its fullest bars
@@ -75,8 +81,8 @@
 // price per usable length among those left. Then, until nothing changes: a
 // bar moves to the cheapest stock that holds its pieces; two bars whose
 // pieces fit into one cheaper bar are merged; the pieces of one bar, or of
-// two of the least efficient bars, are repacked exhaustively (up to 12
-// pieces) into the cheapest bars of any stock. The cheapest of these
+// two of the least efficient bars, are repacked by a bounded exhaustive
+// search (up to 12 pieces) into the cheapest bars of any stock. The cheapest of these
 // candidates is kept. What is guaranteed: every piece is on exactly one
 // bar or listed as unplaced with its reason; counts are kept; the plan
 // costs no more than packing into any one stock alone, where that stock
