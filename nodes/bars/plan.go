@@ -2,9 +2,11 @@ package bars
 
 import (
 	"cmp"
+	"errors"
 	"fmt"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 
 	"pqfab/geom"
@@ -92,9 +94,8 @@ type stockU struct {
 type problem struct {
 	stocks []Stock
 	su     []stockU
-	blank  []int64  // by canonical position
-	index  []int    // canonical position → input index
-	labels []string // by canonical position
+	blank  []int64 // by canonical position
+	index  []int   // canonical position → input index
 	effort int64
 }
 
@@ -114,7 +115,10 @@ func Solve(pieces []Piece, stocks []Stock, opt Options) (*Plan, error) {
 	longest := 0.0
 	for k, s := range stocks {
 		if err := s.Validate(); err != nil {
-			fe := err.(*geom.FieldError)
+			var fe *geom.FieldError
+			if !errors.As(err, &fe) {
+				return nil, err
+			}
 			return nil, &geom.FieldError{Field: fmt.Sprintf("Stocks[%d].%s", k, fe.Field), Msg: fmt.Sprintf("stock %d (%s): %s", k+1, s.Name, fe.Msg)}
 		}
 		u := stockU{length: toUM(s.LengthMM, false), kerf: toUM(s.KerfMM, true), trim: toUM(s.TrimMM, true), price: s.Price, count: s.Count}
@@ -165,7 +169,6 @@ func Solve(pieces []Piece, stocks []Stock, opt Options) (*Plan, error) {
 		items = append(items, int32(len(p.blank)))
 		p.blank = append(p.blank, c.blank)
 		p.index = append(p.index, c.index)
-		p.labels = append(p.labels, c.label)
 	}
 	m := p.solveMix(items)
 	p.fill(plan, m)
@@ -173,7 +176,16 @@ func Solve(pieces []Piece, stocks []Stock, opt Options) (*Plan, error) {
 }
 
 func tooLong(blankMM, longestMM float64) string {
-	return fmt.Sprintf("blank %.1f mm is longer than the longest usable bar length, %.1f mm", blankMM, longestMM)
+	return fmt.Sprintf("blank %s mm is longer than the longest usable bar length, %s mm", mmText(blankMM), mmText(longestMM))
+}
+
+// mmText writes a length to the micrometre, without trailing zeros (and
+// an absurd one in exponent form).
+func mmText(mm float64) string {
+	if mm > MaxLengthMM {
+		return strconv.FormatFloat(mm, 'g', 6, 64)
+	}
+	return strconv.FormatFloat(math.Round(mm*umPerMM)/umPerMM, 'f', -1, 64)
 }
 
 // mixBar is a bar in canonical positions.

@@ -80,9 +80,12 @@ func TestDegenerate(t *testing.T) {
 		t.Fatalf("too long: %d bars, unplaced %+v", len(plan.Bars), plan.Unplaced)
 	}
 	for _, u := range plan.Unplaced {
-		if !strings.Contains(u.Reason, "longer than the longest usable bar length, 5980.0 mm") {
+		if !strings.Contains(u.Reason, "longer than the longest usable bar length, 5980 mm") {
 			t.Errorf("piece %d: reason %q", u.Piece, u.Reason)
 		}
+	}
+	if got, want := plan.Unplaced[0].Reason, "blank 5981 mm is longer than the longest usable bar length, 5980 mm"; got != want {
+		t.Errorf("reason %q, want %q", got, want)
 	}
 	// Zero kerf and zero trim: three thirds fill a bar exactly.
 	plan = solve(t, lengths(2000, 2000, 2000, 1000.5), []Stock{{Name: "6 m", LengthMM: 6000}})
