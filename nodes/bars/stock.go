@@ -19,7 +19,7 @@ type Stock struct {
 	LengthMM float64 // bar length as delivered
 	KerfMM   float64 // width of one saw cut
 	TrimMM   float64 // removed at each bar end, including the cut that removes it
-	Price    float64 // per bar; 0 if unknown (or free, such as offcuts in the yard)
+	Price    float64 // per bar; 0 counts as free (offcuts in the yard): where other stocks have prices it is used first
 	Count    int     // bars in stock; 0 for no limit
 }
 
