@@ -90,18 +90,8 @@ const mbsNodesPerBar = 2000
 // non-increasing.
 func minBinSlack(size []int64, capacity int64) [][]int32 {
 	n := len(size)
-	// next[i] leads to the first item left at or after i (n: none).
-	next := make([]int32, n+1)
-	for i := range next {
-		next[i] = int32(i)
-	}
-	find := func(i int) int {
-		for int(next[i]) != i {
-			next[i] = next[next[i]]
-			i = int(next[i])
-		}
-		return i
-	}
+	left := newSkip(n)
+	find := left.find
 	// first[v]: the first index whose size is at most v.
 	first := func(v int64) int { return sort.Search(n, func(i int) bool { return size[i] <= v }) }
 	var bins [][]int32
@@ -111,7 +101,7 @@ func minBinSlack(size []int64, capacity int64) [][]int32 {
 		if top == n {
 			return bins
 		}
-		next[top] = int32(top + 1)
+		left.remove(top)
 		cur = append(cur[:0], int32(top))
 		best = append(best[:0], int32(top))
 		bestFree := capacity - size[top]
@@ -136,7 +126,7 @@ func minBinSlack(size []int64, capacity int64) [][]int32 {
 		}
 		dfs(top+1, bestFree)
 		for _, i := range best[1:] {
-			next[i] = int32(i + 1)
+			left.remove(int(i))
 		}
 		bins = append(bins, slices.Clone(best))
 	}
@@ -151,32 +141,14 @@ func minBinSlack(size []int64, capacity int64) [][]int32 {
 // this one pairs long with short. Sizes are non-increasing.
 func mostPieces(size []int64, capacity int64) [][]int32 {
 	n := len(size)
-	// fwd[i] leads to the first piece left at or after i (n: none);
-	// back[i+1] to the last piece left at or before i (back 0: none).
-	fwd := make([]int32, n+1)
-	back := make([]int32, n+1)
-	for i := range fwd {
-		fwd[i] = int32(i)
-		back[i] = int32(i)
-	}
-	findF := func(i int) int {
-		for int(fwd[i]) != i {
-			fwd[i] = fwd[fwd[i]]
-			i = int(fwd[i])
-		}
-		return i
-	}
-	// findB returns the last piece left before index i (−1: none).
-	findB := func(i int) int {
-		for int(back[i]) != i {
-			back[i] = back[back[i]]
-			i = int(back[i])
-		}
-		return i - 1
-	}
+	// fwd finds the first piece left at or after an index; bwd, on the
+	// mirrored indices, the last piece left at or before one.
+	fwd, bwd := newSkip(n), newSkip(n)
+	findF := fwd.find
+	findB := func(i int) int { return n - 1 - bwd.find(n-1-i) } // −1: none
 	remove := func(i int) {
-		fwd[i] = int32(i + 1)
-		back[i+1] = int32(i)
+		fwd.remove(i)
+		bwd.remove(n - 1 - i)
 	}
 	first := func(v int64) int { return sort.Search(n, func(i int) bool { return size[i] <= v }) }
 	taken := make([]bool, n)
@@ -189,7 +161,7 @@ func mostPieces(size []int64, capacity int64) [][]int32 {
 		remove(top)
 		bar := []int32{int32(top)}
 		free := capacity - size[top]
-		for j := findB(n); j >= 0 && size[j] <= free; j = findB(j) {
+		for j := findB(n - 1); j >= 0 && size[j] <= free; j = findB(j - 1) {
 			bar = append(bar, int32(j))
 			taken[j] = true
 			free -= size[j]
@@ -214,3 +186,25 @@ func mostPieces(size []int64, capacity int64) [][]int32 {
 		bins = append(bins, bar)
 	}
 }
+
+// skip finds the first index at or after i that is not removed, n when
+// none: a union-find over "removed, look right" with path halving.
+type skip []int32
+
+func newSkip(n int) skip {
+	s := make(skip, n+1)
+	for i := range s {
+		s[i] = int32(i)
+	}
+	return s
+}
+
+func (s skip) find(i int) int {
+	for int(s[i]) != i {
+		s[i] = s[s[i]]
+		i = int(s[i])
+	}
+	return i
+}
+
+func (s skip) remove(i int) { s[i] = int32(i + 1) }
