@@ -81,8 +81,8 @@
 // price per usable length among those left. Then, until nothing changes: a
 // bar moves to the cheapest stock that holds its pieces; two bars whose
 // pieces fit into one cheaper bar are merged; the pieces of one bar, or of
-// two of the least efficient bars, are repacked by a bounded exhaustive
-// search (up to 12 pieces) into the cheapest bars of any stock. The cheapest of these
+// two or three of the least efficient bars, are repacked by a bounded
+// exhaustive search (up to 12 pieces) into the cheapest bars of any stock. The cheapest of these
 // candidates is kept. What is guaranteed: every piece is on exactly one
 // bar or listed as unplaced with its reason; counts are kept; the plan
 // costs no more than packing into any one stock alone, where that stock

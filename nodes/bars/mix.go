@@ -135,9 +135,10 @@ func (p *problem) fromPrimary(k int, items []int32) mix {
 // work reaches the effort: a bar goes to the cheapest stock left that
 // holds its pieces (downsize); two bars whose pieces fit together into one
 // bar that costs less become that bar (merge); the pieces of one bar, or of
-// two of the least efficient bars (price per blank length), are cut the
-// cheapest way from any stocks left, found exhaustively (repack: it splits
-// a dear bar into cheaper ones, or shares two bars' pieces out anew).
+// two or three of the least efficient bars (price per blank length), are
+// cut the cheapest way from any stocks left, found by a bounded exhaustive
+// search (repack: it splits a dear bar into cheaper ones, or shares
+// several bars' pieces out anew).
 func (p *problem) improve(m *mix) {
 	im := &improver{p: p, m: m, used: make([]int, len(p.su))}
 	for _, b := range m.bars {
@@ -147,7 +148,7 @@ func (p *problem) improve(m *mix) {
 		changed = im.downsize()
 		changed = im.merge() || changed
 		changed = im.repackSingles() || changed
-		changed = im.repackPairs() || changed
+		changed = im.repackGroups() || changed
 	}
 }
 
@@ -280,11 +281,12 @@ pairs:
 
 // maxRepackPieces caps the pieces one exhaustive repack takes on, and
 // repackNodes the nodes of its search; worstBars is how many of the least
-// efficient bars are repacked in pairs.
+// efficient bars are repacked in pairs, worstTriples in threes.
 const (
 	maxRepackPieces = 12
 	repackNodes     = 20_000
 	worstBars       = 40
+	worstTriples    = 12
 )
 
 func (im *improver) repackSingles() bool {
@@ -298,7 +300,7 @@ func (im *improver) repackSingles() bool {
 	return changed
 }
 
-func (im *improver) repackPairs() bool {
+func (im *improver) repackGroups() bool {
 	bars := im.m.bars
 	order := make([]int, len(bars))
 	eff := make([]float64, len(bars))
@@ -312,14 +314,34 @@ func (im *improver) repackPairs() bool {
 		}
 	}
 	slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(eff[b], eff[a]) })
+	pieces := func(set ...int) int {
+		n := 0
+		for _, b := range set {
+			n += len(bars[b].items)
+		}
+		return n
+	}
 	order = order[:min(len(order), worstBars)]
 	for x, i := range order {
 		for _, j := range order[x+1:] {
 			if im.work >= im.p.effort {
 				return false
 			}
-			if len(bars[i].items)+len(bars[j].items) <= maxRepackPieces && im.replace([]int{i, j}) {
+			if pieces(i, j) <= maxRepackPieces && im.replace([]int{i, j}) {
 				return true // the bars have changed: start over
+			}
+		}
+	}
+	order = order[:min(len(order), worstTriples)]
+	for x, i := range order {
+		for y, j := range order[x+1:] {
+			for _, k := range order[x+y+2:] {
+				if im.work >= im.p.effort {
+					return false
+				}
+				if pieces(i, j, k) <= maxRepackPieces && im.replace([]int{i, j, k}) {
+					return true
+				}
 			}
 		}
 	}

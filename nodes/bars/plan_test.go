@@ -283,9 +283,8 @@ func optimumCost(pieces []Piece, stocks []Stock) float64 {
 // TestMixAgainstOptimum: on small random instances (fixed seed) with two or
 // three stocks of different prices, the plan is never cheaper than the
 // brute-force optimum (that would be a broken plan), never dearer than the
-// best single stock, and reaches the optimum on at least 39 in 40 (199 of
-// these 200 when written; the one missed needs three bars repacked at
-// once).
+// best single stock, and reaches the optimum on at least 99 in 100 (all
+// 200 when written, and 600 of 600 on another seed).
 func TestMixAgainstOptimum(t *testing.T) {
 	rng := rand.New(rand.NewPCG(21, 34))
 	hits, runs := 0, 200
@@ -320,8 +319,8 @@ func TestMixAgainstOptimum(t *testing.T) {
 		}
 	}
 	t.Logf("optimum reached on %d of %d", hits, runs)
-	if hits < runs*39/40 {
-		t.Errorf("optimum reached on %d of %d, want at least 97.5%%", hits, runs)
+	if hits < runs*99/100 {
+		t.Errorf("optimum reached on %d of %d, want at least 99%%", hits, runs)
 	}
 }
 
