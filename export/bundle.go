@@ -28,9 +28,10 @@ type Bundle struct {
 	Planarize *panels.PlanarizeResult
 	TolMM     float64
 
-	Structure  *nodes.Structure
-	Flats      []panels.Flat // one per face
-	PanelTypes []panels.Type
+	Structure      *nodes.Structure
+	Flats          []panels.Flat // one per face
+	PanelTypes     []panels.Type
+	PanelTypeBound geom.TypeBound
 
 	Stocks  []nest.Stock
 	Nesting *nest.Result // part i is face i

@@ -73,21 +73,21 @@ func BuildReport(b *Bundle) *Report {
 		rep.Panels = append(rep.Panels, row)
 	}
 	for _, t := range s.MemberTypes {
-		row := TypeRow{Name: t.Name, Count: len(t.Parts), Size: r(s.Members[t.Rep].CutLengthMM, lenDigits)}
+		row := TypeRow{Name: t.Name, Count: len(t.Parts), Size: r(t.CutLengthMM, lenDigits)}
 		for _, i := range t.Parts {
 			row.Parts = append(row.Parts, s.Members[i].Label)
 		}
 		rep.MemberTypes = append(rep.MemberTypes, row)
 	}
 	for _, t := range s.NodeTypes {
-		row := TypeRow{Name: t.Name, Count: len(t.Parts), Size: float64(s.Nodes[t.Rep].Valence)}
+		row := TypeRow{Name: t.Name, Count: len(t.Parts), Size: float64(t.MembersAtNode)}
 		for _, i := range t.Parts {
 			row.Parts = append(row.Parts, s.Nodes[i].Label)
 		}
 		rep.NodeTypes = append(rep.NodeTypes, row)
 	}
 	for _, t := range b.PanelTypes {
-		row := TypeRow{Name: t.Name, Count: len(t.Panels), Size: r(b.Flats[t.Rep].AreaM2, areaDigits)}
+		row := TypeRow{Name: t.Name, Count: len(t.Panels), Size: r(t.AreaM2, areaDigits)}
 		for _, i := range t.Panels {
 			row.Parts = append(row.Parts, b.Flats[i].Label)
 		}

@@ -253,7 +253,7 @@ func TestTypes(t *testing.T) {
 				t.Fatalf("member %d type %d, listed in %d", i, s.Members[i].Type, ti)
 			}
 		}
-		if l := s.Members[ty.Rep].CutLengthMM; l < prev {
+		if l := ty.CutLengthMM; l < prev {
 			t.Errorf("types not ordered by length")
 		} else {
 			prev = l

@@ -34,8 +34,11 @@ func DefaultOptions() Options {
 type Structure struct {
 	Nodes       []Node
 	Members     []Member
-	MemberTypes []Type
-	NodeTypes   []Type
+	MemberTypes []MemberType
+	NodeTypes   []NodeType
+	// Lower bounds on the numbers of types (see geom.TypeBound).
+	MemberTypeBound geom.TypeBound
+	NodeTypeBound   geom.TypeBound
 	// TwistNormalDeg is the largest |twist| with normal axes, for the
 	// report; equal to the members' largest twist for AxisNormal.
 	TwistNormalDeg float64
@@ -135,10 +138,12 @@ func Build(n *geom.Net, topo *geom.Topology, opt Options) (*Structure, error) {
 	if s.Nodes, err = Hubs(n, topo, axes, ms, nodeLabels); err != nil {
 		return nil, err
 	}
-	if s.MemberTypes, err = GroupMembers(ms, opt.Types); err != nil {
+	if s.MemberTypes, s.MemberTypeBound, err = GroupMembers(ms, opt.Types); err != nil {
 		return nil, err
 	}
-	s.NodeTypes = GroupNodes(s.Nodes, opt.Types)
+	if s.NodeTypes, s.NodeTypeBound, err = GroupNodes(s.Nodes, opt.Types); err != nil {
+		return nil, err
+	}
 	return s, nil
 }
 

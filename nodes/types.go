@@ -1,10 +1,9 @@
 package nodes
 
 import (
+	"cmp"
 	"fmt"
-	"math"
 	"slices"
-	"sort"
 
 	"pqfab/geom"
 )
@@ -24,149 +23,316 @@ type TypeOptions struct {
 	AngleTolDeg float64
 }
 
-// Type is a group of congruent parts.
-type Type struct {
-	Name  string // MT-001, NT-001
-	Parts []int  // member or node indices of the parts of this type, ascending
-	Rep   int    // the part the others were compared with
+// EndCut is the cut at one end of a member type.
+type EndCut struct {
+	MitreDeg, BevelDeg float64
 }
 
-// memberSig is what member types compare: cut length, twist, and the end
-// angles read from either end. Reading a member from its other end turns
-// its frame half a turn about z, which keeps mitres, elevations and twist
-// but flips the sign of the bevels.
-type memberSig struct {
-	cut, twist float64
-	fwd, rev   [6]float64 // mitre, bevel, elevation of the first end, then the second
+// MemberType is a type of member: a promise that every two of its members
+// agree within the tolerances (cut length within LengthTolMM; both ends'
+// mitre and bevel and the twist within AngleTolDeg), each read from the
+// end its entry of Reversed says. The nominal member (the values to cut)
+// is the middle of each value's range, so every member lies within half
+// the tolerance of it.
+type MemberType struct {
+	Name  string // MT-001, …
+	Parts []int  // member indices, ascending
+	// Reversed, per entry of Parts: the member is read from its end B,
+	// so its end B is the type's end A (its bevels change sign; its
+	// mitres and twist do not).
+	Reversed []bool
+	// Nominal member.
+	CutLengthMM float64
+	A, B        EndCut
+	TwistDeg    float64
+	// Largest deviation of any member from the nominal.
+	MaxDevMM  float64 // cut length
+	MaxDevDeg float64 // mitres, bevels, twist
+	// TotalCutLengthMM is the sum of the members' own cut lengths.
+	TotalCutLengthMM float64
 }
 
-func signature(m Member) memberSig {
-	a, b := m.A, m.B
-	return memberSig{cut: m.CutLengthMM, twist: m.TwistDeg,
-		fwd: [6]float64{a.MitreDeg, a.BevelDeg, a.ElevationDeg, b.MitreDeg, b.BevelDeg, b.ElevationDeg},
-		rev: [6]float64{b.MitreDeg, -b.BevelDeg, b.ElevationDeg, a.MitreDeg, -a.BevelDeg, a.ElevationDeg}}
-}
+// memberDim: cut length, mitre A, bevel A, mitre B, bevel B, twist.
+const memberDim = 6
 
-// sameMember reports whether two members are one type: cut lengths within
-// the length tolerance, twist and end angles within the angle tolerance,
-// with the ends in either order.
-func sameMember(p, q *memberSig, tol TypeOptions) bool {
-	if math.Abs(p.cut-q.cut) > tol.LengthTolMM || math.Abs(p.twist-q.twist) > tol.AngleTolDeg {
-		return false
+// memberCoords returns a member's coordinates read from end A, or from
+// end B (reversed). Read from its other end, a member's frame turns half
+// a turn about z: x and y change sign, z stays. The cut normal, oriented
+// along x, changes sign too, so mitre = atan2(n·y, n·x) stays and bevel =
+// atan2(n·z, n·x) changes sign; the twist, the angle from u_A to u_B about
+// e, becomes the angle from u_B to u_A about −e, which is the same angle.
+// So (cut, mA, bA, mB, bB, t) → (cut, mB, −bB, mA, −bA, t).
+//
+// The ends' elevations are not coordinates: with the axis in the frame's
+// x–z half-plane above the member (a·z > 0, which holds for any twist under
+// 90°), tan² elevation = tan² mitre + tan² bevel and the elevation's sign
+// is the bevel's opposite, and the setbacks are in the cut length.
+func memberCoords(m Member, reversed bool) [memberDim]float64 {
+	if reversed {
+		return [memberDim]float64{m.CutLengthMM, m.B.MitreDeg, -m.B.BevelDeg, m.A.MitreDeg, -m.A.BevelDeg, m.TwistDeg}
 	}
-	return within(&p.fwd, &q.fwd, tol.AngleTolDeg) || within(&p.fwd, &q.rev, tol.AngleTolDeg)
+	return [memberDim]float64{m.CutLengthMM, m.A.MitreDeg, m.A.BevelDeg, m.B.MitreDeg, m.B.BevelDeg, m.TwistDeg}
 }
 
-func within(a, b *[6]float64, tol float64) bool {
-	for i := range a {
-		if math.Abs(a[i]-b[i]) > tol {
-			return false
+// GroupMembers sorts members into the fewest types it finds (see
+// geom.GroupTypes for the method and its guarantees), sets each member's
+// Type, and returns the types numbered by nominal cut length, ties by the
+// nominal end angles and twist, with a lower bound on their number.
+func GroupMembers(ms []Member, tol TypeOptions) ([]MemberType, geom.TypeBound, error) {
+	if err := tol.Validate(); err != nil {
+		return nil, geom.TypeBound{}, err
+	}
+	L, A := tol.LengthTolMM, tol.AngleTolDeg
+	p := &geom.TypeProblem{Parts: len(ms), Dim: memberDim, Tol: []float64{L, A, A, A, A, A},
+		Compose: [][]int{{0, 1}, {1, 0}}, Permutes: true, Coords: make([]float64, 0, 2*memberDim*len(ms))}
+	keys := []geom.TypeKey{{Name: "cut length", Tol: L}, {Name: "twist", Tol: A},
+		{Name: "smaller mitre", Tol: A}, {Name: "larger mitre", Tol: A},
+		{Name: "smaller of bevel A and −bevel B", Tol: A}, {Name: "larger of bevel A and −bevel B", Tol: A}}
+	for k := range keys {
+		keys[k].Values = make([]float64, len(ms))
+	}
+	for i, m := range ms {
+		f, r := memberCoords(m, false), memberCoords(m, true)
+		p.Coords = append(append(p.Coords, f[:]...), r[:]...)
+		mlo, mhi := minmax(f[1], f[3])
+		blo, bhi := minmax(f[2], -f[4])
+		for k, v := range []float64{f[0], f[5], mlo, mhi, blo, bhi} {
+			keys[k].Values[i] = v
 		}
 	}
-	return true
-}
-
-// GroupMembers groups members into types and sets each member's Type.
-// Types are numbered by cut length, shortest first (MT-001, …).
-func GroupMembers(ms []Member, tol TypeOptions) ([]Type, error) {
-	if err := tol.Validate(); err != nil {
-		return nil, err
+	p.Keys = keys
+	groups, bound, err := geom.GroupTypes(p)
+	if err != nil {
+		return nil, geom.TypeBound{}, err
 	}
-	keys := make([]float64, len(ms))
-	sigs := make([]memberSig, len(ms))
-	for i, m := range ms {
-		keys[i] = m.CutLengthMM
-		sigs[i] = signature(m)
-	}
-	groups := group(keys, tol.LengthTolMM, func(a, b int) bool { return sameMember(&sigs[a], &sigs[b], tol) })
+	types := make([]MemberType, len(groups))
 	for t, g := range groups {
-		for _, i := range g.Parts {
+		n := g.Nominal()
+		mt := MemberType{Parts: g.Parts, CutLengthMM: n[0], A: EndCut{n[1], n[2]}, B: EndCut{n[3], n[4]}, TwistDeg: n[5],
+			MaxDevMM: (g.Max[0] - g.Min[0]) / 2}
+		for d := 1; d < memberDim; d++ {
+			mt.MaxDevDeg = max(mt.MaxDevDeg, (g.Max[d]-g.Min[d])/2)
+		}
+		for k, i := range g.Parts {
+			mt.Reversed = append(mt.Reversed, g.Variants[k] == 1)
+			mt.TotalCutLengthMM += ms[i].CutLengthMM
 			ms[i].Type = t
 		}
+		types[t] = mt
 	}
-	name(groups, "MT")
-	return groups, nil
+	width := nameWidth(len(types))
+	for t := range types {
+		types[t].Name = fmt.Sprintf("MT-%0*d", width, t+1)
+	}
+	return types, bound, nil
 }
 
-// nodeSignature returns the arms sorted by azimuth as (gap to the next
-// arm, elevation) pairs: independent of which arm is first.
-func nodeSignature(nd Node) [][2]float64 {
-	arms := append([]HubArm(nil), nd.Arms...)
-	sort.Slice(arms, func(i, j int) bool { return arms[i].AzimuthDeg < arms[j].AzimuthDeg })
-	sig := make([][2]float64, len(arms))
-	for k, a := range arms {
-		next := arms[(k+1)%len(arms)].AzimuthDeg
-		gap := next - a.AzimuthDeg
-		if gap <= 0 {
-			gap += 360
+func minmax(a, b float64) (float64, float64) { return min(a, b), max(a, b) }
+
+// nameWidth is the number of digits in type names: at least 3.
+func nameWidth(n int) int { return max(3, len(fmt.Sprint(n))) }
+
+// TypeArm is one arm of a node type's nominal hub.
+type TypeArm struct {
+	AzimuthDeg   float64 // counter-clockwise about the axis from the type's first arm (0 for it)
+	ElevationDeg float64
+}
+
+// NodeType is a type of node: every two of its nodes have the same number
+// of members and agree within AngleTolDeg in every arm's direction: its
+// elevation, and its azimuth measured from the type's first arm, with the
+// arms taken counter-clockwise about the axis from that arm (ArmOrder
+// says which arm of each node is which arm of the type). The nominal hub
+// is the middle of each value's range.
+type NodeType struct {
+	Name          string // NT-001, …
+	Parts         []int  // node indices, ascending
+	MembersAtNode int
+	// ArmOrder, per entry of Parts: indices into the node's Arms, in the
+	// type's arm order.
+	ArmOrder [][]int
+	Arms     []TypeArm // nominal hub, in the type's arm order
+	// MaxDevDeg is the largest deviation of any arm's azimuth or elevation
+	// from the nominal.
+	MaxDevDeg float64
+}
+
+// armsByAzimuth returns the indices of a node's arms sorted by azimuth
+// (ties by elevation, then member).
+func armsByAzimuth(nd Node) []int {
+	idx := make([]int, len(nd.Arms))
+	for i := range idx {
+		idx[i] = i
+	}
+	slices.SortFunc(idx, func(a, b int) int {
+		x, y := nd.Arms[a], nd.Arms[b]
+		if c := cmp.Compare(x.AzimuthDeg, y.AzimuthDeg); c != 0 {
+			return c
 		}
-		sig[k] = [2]float64{gap, a.ElevationDeg}
-	}
-	return sig
+		if c := cmp.Compare(x.ElevationDeg, y.ElevationDeg); c != 0 {
+			return c
+		}
+		return cmp.Compare(x.Member, y.Member)
+	})
+	return idx
 }
 
-// sameNode reports whether two nodes have the same valence and hub angles
-// within tol, up to turning one about its axis.
-func sameNode(p, q [][2]float64, tol float64) bool {
-	if len(p) != len(q) {
-		return false
+// nodeCoords appends the coordinates of a node read from its s-th arm by
+// azimuth (sorted: the arms by azimuth): the azimuths of the next k−1 arms
+// counter-clockwise, measured from arm s, then the k elevations from
+// arm s on.
+func nodeCoords(dst []float64, nd Node, sorted []int, s int) []float64 {
+	k := len(sorted)
+	az0 := nd.Arms[sorted[s]].AzimuthDeg
+	for i := 1; i < k; i++ {
+		a := nd.Arms[sorted[(s+i)%k]].AzimuthDeg - az0
+		if a < 0 {
+			a += 360
+		}
+		dst = append(dst, a)
 	}
-	for shift := range q {
-		ok := true
-		for k := range p {
-			r := q[(k+shift)%len(q)]
-			if math.Abs(p[k][0]-r[0]) > tol || math.Abs(p[k][1]-r[1]) > tol {
-				ok = false
-				break
+	for i := range k {
+		dst = append(dst, nd.Arms[sorted[(s+i)%k]].ElevationDeg)
+	}
+	return dst
+}
+
+// GroupNodes sorts nodes into the fewest types it finds (see
+// geom.GroupTypes), nodes with different numbers of members apart, sets
+// each node's Type, and returns the types numbered by members at node,
+// then by the nominal arms, with a lower bound on their number.
+func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, geom.TypeBound, error) {
+	if err := tol.Validate(); err != nil {
+		return nil, geom.TypeBound{}, err
+	}
+	A := tol.AngleTolDeg
+	byCount := map[int][]int{}
+	for i, nd := range nds {
+		byCount[len(nd.Arms)] = append(byCount[len(nd.Arms)], i)
+	}
+	counts := make([]int, 0, len(byCount))
+	for k := range byCount {
+		counts = append(counts, k)
+	}
+	slices.Sort(counts)
+	var types []NodeType
+	var bound geom.TypeBound
+	for _, k := range counts {
+		idx := byCount[k]
+		if k == 0 {
+			return nil, geom.TypeBound{}, fmt.Errorf("node %s has no members", nds[idx[0]].Label)
+		}
+		dim := 2*k - 1
+		p := &geom.TypeProblem{Parts: len(idx), Dim: dim, Tol: make([]float64, dim), Compose: make([][]int, k),
+			Coords: make([]float64, 0, len(idx)*k*dim)}
+		for d := range p.Tol {
+			p.Tol[d] = A
+		}
+		for a := range k {
+			p.Compose[a] = make([]int, k)
+			for b := range k {
+				p.Compose[a][b] = (a + b) % k
 			}
 		}
-		if ok {
-			return true
+		// Keys: the elevations sorted (each within the tolerance), and the
+		// gaps between arms sorted (each a difference of two azimuths
+		// measured from the first arm, so within twice the tolerance).
+		for j := range k {
+			p.Keys = append(p.Keys, geom.TypeKey{Name: fmt.Sprintf("%s arm elevation at nodes with %d members", ordinal(j, k, "lowest", "highest"), k), Tol: A, Values: make([]float64, len(idx))})
+		}
+		for j := range k {
+			p.Keys = append(p.Keys, geom.TypeKey{Name: fmt.Sprintf("%s angle between neighbouring arms at nodes with %d members", ordinal(j, k, "smallest", "largest"), k), Tol: 2 * A, Values: make([]float64, len(idx))})
+		}
+		sorted := make([][]int, len(idx))
+		el, gap := make([]float64, k), make([]float64, k)
+		for n, i := range idx {
+			sorted[n] = armsByAzimuth(nds[i])
+			for s := range k {
+				p.Coords = nodeCoords(p.Coords, nds[i], sorted[n], s)
+			}
+			for j, a := range sorted[n] {
+				el[j] = nds[i].Arms[a].ElevationDeg
+				next := nds[i].Arms[sorted[n][(j+1)%k]].AzimuthDeg
+				gap[j] = next - nds[i].Arms[a].AzimuthDeg
+				if gap[j] < 0 || k == 1 {
+					gap[j] += 360
+				}
+			}
+			slices.Sort(el)
+			slices.Sort(gap)
+			for j := range k {
+				p.Keys[j].Values[n] = el[j]
+				p.Keys[k+j].Values[n] = gap[j]
+			}
+		}
+		groups, b, err := geom.GroupTypes(p)
+		if err != nil {
+			return nil, geom.TypeBound{}, err
+		}
+		bound = bound.Add(b)
+		for _, g := range groups {
+			nom := g.Nominal()
+			nt := NodeType{MembersAtNode: k, Arms: make([]TypeArm, k)}
+			for j := range k {
+				if j > 0 {
+					nt.Arms[j].AzimuthDeg = nom[j-1]
+				}
+				nt.Arms[j].ElevationDeg = nom[k-1+j]
+			}
+			for d := range dim {
+				nt.MaxDevDeg = max(nt.MaxDevDeg, (g.Max[d]-g.Min[d])/2)
+			}
+			for e, n := range g.Parts {
+				i := idx[n]
+				order := make([]int, k)
+				for j := range k {
+					order[j] = sorted[n][(g.Variants[e]+j)%k]
+				}
+				nt.Parts = append(nt.Parts, i)
+				nt.ArmOrder = append(nt.ArmOrder, order)
+			}
+			types = append(types, nt)
 		}
 	}
-	return false
-}
-
-// GroupNodes groups nodes with the same valence and hub angles within the
-// angle tolerance and sets each node's Type. Types are numbered by
-// valence, then by the lowest arm elevation.
-func GroupNodes(nds []Node, tol TypeOptions) []Type {
-	sigs := make([][][2]float64, len(nds))
-	keys := make([]float64, len(nds))
-	for i, nd := range nds {
-		sigs[i] = nodeSignature(nd)
-		lo := math.Inf(1)
-		for _, s := range sigs[i] {
-			lo = math.Min(lo, s[1])
+	// Parts were listed within their class; list them ascending.
+	for t := range types {
+		nt := &types[t]
+		perm := make([]int, len(nt.Parts))
+		for i := range perm {
+			perm[i] = i
 		}
-		// Valence dominates the key; the lowest elevation orders within it.
-		keys[i] = float64(nd.Valence)*1000 + lo
-	}
-	groups := group(keys, tol.AngleTolDeg, func(a, b int) bool { return sameNode(sigs[a], sigs[b], tol.AngleTolDeg) })
-	for t, g := range groups {
-		for _, i := range g.Parts {
+		slices.SortFunc(perm, func(a, b int) int { return cmp.Compare(nt.Parts[a], nt.Parts[b]) })
+		parts, orders := make([]int, len(perm)), make([][]int, len(perm))
+		for i, j := range perm {
+			parts[i], orders[i] = nt.Parts[j], nt.ArmOrder[j]
+		}
+		nt.Parts, nt.ArmOrder = parts, orders
+		for _, i := range nt.Parts {
 			nds[i].Type = t
 		}
 	}
-	name(groups, "NT")
-	return groups
+	width := nameWidth(len(types))
+	for t := range types {
+		types[t].Name = fmt.Sprintf("NT-%0*d", width, t+1)
+	}
+	return types, bound, nil
 }
 
-// group turns geom.GroupNear's groups into types.
-func group(keys []float64, keyTol float64, same func(a, b int) bool) []Type {
-	gs := geom.GroupNear(keys, keyTol, same)
-	out := make([]Type, len(gs))
-	for g, members := range gs {
-		sorted := slices.Clone(members)
-		slices.Sort(sorted)
-		out[g] = Type{Rep: members[0], Parts: sorted}
+// ordinal names the j-th of k sorted values: "lowest", "2nd lowest", …,
+// "highest".
+func ordinal(j, k int, first, last string) string {
+	switch {
+	case j == 0:
+		return first
+	case j == k-1:
+		return last
 	}
-	return out
-}
-
-func name(groups []Type, prefix string) {
-	width := max(3, len(fmt.Sprint(len(groups))))
-	for g := range groups {
-		groups[g].Name = fmt.Sprintf("%s-%0*d", prefix, width, g+1)
+	suffix := "th"
+	switch j + 1 {
+	case 2:
+		suffix = "nd"
+	case 3:
+		suffix = "rd"
 	}
+	return fmt.Sprintf("%d%s %s", j+1, suffix, first)
 }

@@ -83,7 +83,7 @@ func TestRhombicDodecahedronFaces(t *testing.T) {
 			}
 		}
 	}
-	types, err := Group(flats, TypeOptions{TolMM: 0.01})
+	types, _, err := Group(flats, TypeOptions{TolMM: 0.01, AngleTolDeg: 0.01})
 	if err != nil || len(types) != 1 || len(types[0].Panels) != 12 {
 		t.Errorf("all 12 faces are one type: %v %v", types, err)
 	}
@@ -132,8 +132,8 @@ func TestInset(t *testing.T) {
 func TestPanelTypesMirror(t *testing.T) {
 	n, _ := samples.Make("canopy", 96)
 	flats := flatsOf(t, n, glass)
-	plain, _ := Group(slices.Clone(flats), TypeOptions{TolMM: 0.5})
-	mirrored, _ := Group(flats, TypeOptions{TolMM: 0.5, Mirror: true})
+	plain, _, _ := Group(slices.Clone(flats), TypeOptions{TolMM: 0.5, AngleTolDeg: 0.5})
+	mirrored, _, _ := Group(flats, TypeOptions{TolMM: 0.5, AngleTolDeg: 0.5, Mirror: true})
 	if got, want := len(plain), 6*4*2; got != want {
 		t.Errorf("plain: %d types, want %d", got, want)
 	}

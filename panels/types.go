@@ -9,121 +9,370 @@ import (
 	"pqfab/geom"
 )
 
-// DefaultTypeTolMM: panels whose edges and diagonals agree within 1 mm are
-// one type. MaxTypeTolMM is the largest tolerance accepted.
+// Panel type tolerances: defaults, and the largest values accepted.
 const (
-	DefaultTypeTolMM = 1.0
-	MaxTypeTolMM     = 1000.0
+	DefaultTypeTolMM       = 1.0 // edges and diagonals within 1 mm are one type
+	DefaultTypeAngleTolDeg = 0.5 // corner angles within 0.5° are one type
+	MaxTypeTolMM           = 1000.0
+	MaxTypeAngleTolDeg     = 45.0
 )
 
 // TypeOptions says when two panels are one type.
 type TypeOptions struct {
-	TolMM  float64 // edges and diagonals agree within this (mm)
-	Mirror bool    // a panel and its mirror image may be one type
+	TolMM       float64 // edges and diagonals agree within this (mm)
+	AngleTolDeg float64 // corner angles agree within this (degrees)
+	Mirror      bool    // a panel and its mirror image may be one type
 }
 
-// Validate checks the tolerance's range.
+// Validate checks the tolerances' ranges.
 func (o TypeOptions) Validate() error {
 	if !(o.TolMM >= 0) || o.TolMM > MaxTypeTolMM {
 		return geom.FieldErrorf("TolMM", "%g must be between 0 and %g mm", o.TolMM, MaxTypeTolMM)
 	}
+	if !(o.AngleTolDeg >= 0) || o.AngleTolDeg > MaxTypeAngleTolDeg {
+		return geom.FieldErrorf("AngleTolDeg", "%g must be between 0 and %g°", o.AngleTolDeg, MaxTypeAngleTolDeg)
+	}
 	return nil
 }
 
-// Type is a group of congruent panels.
+// Type is a type of panel: a promise that every two of its panels have the
+// same number of corners and agree within TolMM in every edge and every
+// diagonal of their cut outlines and within AngleTolDeg in every corner
+// angle, with corners matched as Start and Mirrored say (cyclic order;
+// reversed order, a panel turned over, only where mirroring is allowed).
+// The nominal panel (what is cut) is the middle of each value's range, so
+// every panel lies within half the tolerance of it.
 type Type struct {
-	Name     string // PT-001, …
-	Panels   []int  // face indices, ascending
-	Rep      int    // the panel the others were compared with
-	Mirrored []bool // per entry of Panels: congruent only as a mirror image
+	Name   string // PT-001, …
+	Panels []int  // face indices, ascending
+	// Per entry of Panels: the panel's corner that is the type's corner 1
+	// (an index into its outline), and whether its corners run the other
+	// way round (the panel turned over). Corner i of the type is corner
+	// (Start + i) mod k of the panel, or (Start − i) mod k when mirrored;
+	// see Corner.
+	Start    []int
+	Mirrored []bool
+	// Nominal panel, in the type's corner order: EdgeMM[i] from corner i to
+	// corner i+1, AngleDeg[i] at corner i, Diagonals between non-adjacent
+	// corners as in Flat.
+	EdgeMM    []float64
+	Diagonals []Diagonal
+	AngleDeg  []float64
+	// Outline is a nominal outline for drawings: corner 1 at the origin,
+	// corner 2 on the x axis, each further corner placed from corner 1 and
+	// the corner before it, so it honours every edge and every diagonal from
+	// corner 1 exactly; OutlineMisfitMM and OutlineMisfitDeg are its largest
+	// differences from the other nominal diagonals and the nominal corner
+	// angles.
+	Outline          geom.Polygon
+	OutlineMisfitMM  float64
+	OutlineMisfitDeg float64
+	AreaM2           float64 // of the nominal outline
+	PerimeterMM      float64 // sum of the nominal edges
+	// Largest deviation of any panel from the nominal.
+	MaxDevMM  float64 // edges and diagonals
+	MaxDevDeg float64 // corner angles
+	// Totals over the panels (their own cut outlines).
+	TotalAreaM2   float64
+	TotalWeightKg float64
 }
 
-// distances returns the matrix of distances between the corners of a flat
-// outline; congruence of planar polygons is equality of these matrices
-// under a correspondence of corners.
-func distances(p geom.Polygon) [][]float64 {
-	d := make([][]float64, len(p))
-	for i := range p {
-		d[i] = make([]float64, len(p))
-		for j := range p {
-			d[i][j] = p[j].Sub(p[i]).Norm()
-		}
+// Corner returns the panel corner (index into the outline of panel
+// t.Panels[entry]) that is corner i of the type.
+func (t *Type) Corner(entry, i int) int {
+	k := len(t.EdgeMM)
+	if t.Mirrored[entry] {
+		return ((t.Start[entry]-i)%k + k) % k
 	}
-	return d
+	return (t.Start[entry] + i) % k
 }
 
-// match reports whether outline distances q equal p's within tol under
-// corner map i → (s + dir·i) mod k.
-func match(p, q [][]float64, s, dir int, tol float64) bool {
-	k := len(p)
-	idx := func(i int) int { return ((s+dir*i)%k + k) % k }
+// panelShape lays out the coordinates of a k-corner panel: k edges, the
+// diagonals in Flat's order, k corner angles.
+type panelShape struct {
+	k     int
+	diags [][2]int
+	dim   int
+}
+
+func newShape(k int) panelShape {
+	s := panelShape{k: k}
 	for i := 0; i < k; i++ {
-		for j := i + 1; j < k; j++ {
-			if math.Abs(p[i][j]-q[idx(i)][idx(j)]) > tol {
-				return false
+		for j := i + 2; j < k; j++ {
+			if i == 0 && j == k-1 {
+				continue
 			}
+			s.diags = append(s.diags, [2]int{i, j})
 		}
 	}
-	return true
+	s.dim = 2*k + len(s.diags)
+	return s
 }
 
-// congruent reports whether two outlines are congruent within tol, up to
-// cyclic order, and whether only as mirror images (reversed order). Both
-// outlines run counter-clockwise, so a match in the same order is a turn,
-// a match in reverse order a reflection.
-func congruent(p, q [][]float64, tol float64, mirror bool) (ok, mirrored bool) {
-	if len(p) != len(q) {
-		return false, false
+// variant returns the corner map of variant v: corner i of the reading is
+// corner start + dir·i of the panel; variants 0..k−1 run forward from
+// corner v, variants k..2k−1 backward from corner v−k.
+func (s panelShape) variant(v int) (start, dir int) {
+	if v < s.k {
+		return v, 1
 	}
-	for s := range p {
-		if match(p, q, s, 1, tol) {
-			return true, false
-		}
-	}
-	if mirror {
-		for s := range p {
-			if match(p, q, s, -1, tol) {
-				return true, true
-			}
-		}
-	}
-	return false, false
+	return v - s.k, -1
 }
 
-// Group groups flat panels into congruent types by their cut outlines
-// and sets each panel's Type: edge lengths and diagonals within opt.TolMM,
-// up to cyclic order, and mirrored only when opt.Mirror is true. Types are
-// numbered by area, smallest first.
-func Group(flats []Flat, opt TypeOptions) ([]Type, error) {
+func (s panelShape) index(start, dir int) int {
+	start = (start%s.k + s.k) % s.k
+	if dir > 0 {
+		return start
+	}
+	return s.k + start
+}
+
+// coords appends the coordinates of a panel read in variant v, from its
+// corner distances dist (k×k) and corner angles.
+func (s panelShape) coords(dst []float64, dist [][]float64, angle []float64, v int) []float64 {
+	k := s.k
+	start, dir := s.variant(v)
+	c := func(i int) int { return ((start+dir*i)%k + k) % k }
+	for i := range k {
+		dst = append(dst, dist[c(i)][c(i+1)])
+	}
+	for _, d := range s.diags {
+		dst = append(dst, dist[c(d[0])][c(d[1])])
+	}
+	for i := range k {
+		dst = append(dst, angle[c(i)])
+	}
+	return dst
+}
+
+// cornerAngles returns the inside angle at every corner of a
+// counter-clockwise outline (degrees).
+func cornerAngles(p geom.Polygon) []float64 {
+	k := len(p)
+	out := make([]float64, k)
+	for i := range p {
+		a, b, c := p[(i+k-1)%k], p[i], p[(i+1)%k]
+		u, v := a.Sub(b), c.Sub(b)
+		ang := math.Atan2(v.Cross(u), v.Dot(u)) * 180 / math.Pi
+		if ang < 0 {
+			ang += 360
+		}
+		out[i] = ang
+	}
+	return out
+}
+
+// Group sorts flat panels into the fewest types it finds by their cut
+// outlines (see geom.GroupTypes for the method and its guarantees), panels
+// with different corner counts apart, sets each panel's Type, and returns
+// the types numbered by nominal area, ties by the nominal edges, with a
+// lower bound on their number.
+func Group(flats []Flat, opt TypeOptions) ([]Type, geom.TypeBound, error) {
 	if err := opt.Validate(); err != nil {
-		return nil, err
+		return nil, geom.TypeBound{}, err
 	}
-	tol, mirror := opt.TolMM, opt.Mirror
-	d := make([][][]float64, len(flats))
-	keys := make([]float64, len(flats))
-	for i, fl := range flats {
-		d[i] = distances(fl.Cut)
-		keys[i] = fl.PerimeterMM
+	byCount := map[int][]int{}
+	for f, fl := range flats {
+		byCount[len(fl.Cut)] = append(byCount[len(fl.Cut)], f)
 	}
-	// Congruent outlines have perimeters within k·tol.
-	keyTol := tol * float64(geom.MaxCorners)
-	groups := geom.GroupNear(keys, keyTol, func(a, b int) bool {
-		ok, _ := congruent(d[a], d[b], tol, mirror)
-		return ok
+	counts := make([]int, 0, len(byCount))
+	for k := range byCount {
+		counts = append(counts, k)
+	}
+	slices.Sort(counts)
+	var types []Type
+	var bound geom.TypeBound
+	for _, k := range counts {
+		ts, b, err := groupShape(flats, byCount[k], newShape(k), opt)
+		if err != nil {
+			return nil, geom.TypeBound{}, err
+		}
+		types = append(types, ts...)
+		bound = bound.Add(b)
+	}
+	slices.SortStableFunc(types, func(a, b Type) int {
+		return cmp.Compare(math.Round(a.AreaM2/areaResolutionM2), math.Round(b.AreaM2/areaResolutionM2))
 	})
-	slices.SortStableFunc(groups, func(a, b []int) int {
-		return cmp.Compare(flats[a[0]].AreaM2, flats[b[0]].AreaM2)
-	})
-	width := max(3, len(fmt.Sprint(len(groups))))
-	types := make([]Type, len(groups))
-	for t, g := range groups {
-		ty := Type{Name: fmt.Sprintf("PT-%0*d", width, t+1), Rep: g[0], Panels: slices.Sorted(slices.Values(g))}
-		for _, f := range ty.Panels {
-			_, m := congruent(d[g[0]], d[f], tol, mirror)
-			ty.Mirrored = append(ty.Mirrored, m)
+	width := max(3, len(fmt.Sprint(len(types))))
+	for t := range types {
+		types[t].Name = fmt.Sprintf("PT-%0*d", width, t+1)
+		for _, f := range types[t].Panels {
 			flats[f].Type = t
 		}
-		types[t] = ty
 	}
-	return types, nil
+	return types, bound, nil
+}
+
+// areaResolutionM2 is the resolution to which nominal areas are rounded
+// when types are numbered (1 mm²); ties go by the nominal edges.
+const areaResolutionM2 = 1e-6
+
+// ordinal names the j-th of n sorted values: "shortest", "2nd
+// shortest", …, "longest".
+func ordinal(j, n int, first, last string) string {
+	switch {
+	case j == 0:
+		return first
+	case j == n-1:
+		return last
+	}
+	suffix := "th"
+	switch j + 1 {
+	case 2:
+		suffix = "nd"
+	case 3:
+		suffix = "rd"
+	}
+	return fmt.Sprintf("%d%s %s", j+1, suffix, first)
+}
+
+// groupShape groups the panels idx, all with the corners of s.
+func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type, geom.TypeBound, error) {
+	k := s.k
+	G := k
+	if opt.Mirror {
+		G = 2 * k
+	}
+	p := &geom.TypeProblem{Parts: len(idx), Dim: s.dim, Tol: make([]float64, s.dim), Compose: make([][]int, G),
+		Permutes: true, Coords: make([]float64, 0, len(idx)*G*s.dim)}
+	for d := range p.Tol {
+		p.Tol[d] = opt.TolMM
+		if d >= k+len(s.diags) {
+			p.Tol[d] = opt.AngleTolDeg
+		}
+	}
+	for a := range G {
+		p.Compose[a] = make([]int, G)
+		sa, da := s.variant(a)
+		for b := range G {
+			// Corner i of b is corner sb + db·i of a's reading, which is
+			// corner sa + da·(sb + db·i) of the panel.
+			sb, db := s.variant(b)
+			p.Compose[a][b] = s.index(sa+da*sb, da*db)
+		}
+	}
+	// Keys: the edges, the diagonals and the corner angles, each sorted:
+	// every symmetry only permutes them, so each order statistic stays
+	// within its tolerance inside a type.
+	nd := len(s.diags)
+	addKeys := func(n int, what, first, last string, tol float64) {
+		for j := range n {
+			name := fmt.Sprintf("%s %s of %d-corner panels", ordinal(j, n, first, last), what, k)
+			p.Keys = append(p.Keys, geom.TypeKey{Name: name, Tol: tol, Values: make([]float64, len(idx))})
+		}
+	}
+	addKeys(k, "edge", "shortest", "longest", opt.TolMM)
+	addKeys(nd, "diagonal", "shortest", "longest", opt.TolMM)
+	addKeys(k, "corner angle", "smallest", "largest", opt.AngleTolDeg)
+	dist := make([][]float64, k)
+	for i := range dist {
+		dist[i] = make([]float64, k)
+	}
+	for n, f := range idx {
+		cut := flats[f].Cut
+		for i := range k {
+			for j := range k {
+				dist[i][j] = cut[j].Sub(cut[i]).Norm()
+			}
+		}
+		ang := cornerAngles(cut)
+		for v := range G {
+			p.Coords = s.coords(p.Coords, dist, ang, v)
+		}
+		x := slices.Clone(p.Coords[n*G*s.dim:][:s.dim])
+		slices.Sort(x[:k])
+		slices.Sort(x[k : k+nd])
+		slices.Sort(x[k+nd:])
+		for j, v := range x {
+			p.Keys[j].Values[n] = v
+		}
+	}
+	groups, bound, err := geom.GroupTypes(p)
+	if err != nil {
+		return nil, geom.TypeBound{}, err
+	}
+	types := make([]Type, len(groups))
+	for t, g := range groups {
+		types[t] = panelType(flats, idx, s, g)
+	}
+	return types, bound, nil
+}
+
+// panelType fills a type from its group.
+func panelType(flats []Flat, idx []int, s panelShape, g geom.TypeGroup) Type {
+	k, nd := s.k, len(s.diags)
+	nom := g.Nominal()
+	ty := Type{EdgeMM: nom[:k], AngleDeg: nom[k+nd:]}
+	for j, d := range s.diags {
+		ty.Diagonals = append(ty.Diagonals, Diagonal{I: d[0], J: d[1], MM: nom[k+j]})
+	}
+	for d := range s.dim {
+		dev := (g.Max[d] - g.Min[d]) / 2
+		if d < k+nd {
+			ty.MaxDevMM = max(ty.MaxDevMM, dev)
+		} else {
+			ty.MaxDevDeg = max(ty.MaxDevDeg, dev)
+		}
+	}
+	for _, e := range ty.EdgeMM {
+		ty.PerimeterMM += e
+	}
+	ty.Outline = fanOutline(s, nom)
+	ty.AreaM2 = ty.Outline.Area() / 1e6
+	got := make([][]float64, k)
+	for i := range got {
+		got[i] = make([]float64, k)
+		for j := range got[i] {
+			got[i][j] = ty.Outline[j].Sub(ty.Outline[i]).Norm()
+		}
+	}
+	for _, d := range ty.Diagonals {
+		ty.OutlineMisfitMM = max(ty.OutlineMisfitMM, math.Abs(got[d.I][d.J]-d.MM))
+	}
+	for i, a := range cornerAngles(ty.Outline) {
+		ty.OutlineMisfitDeg = max(ty.OutlineMisfitDeg, math.Abs(a-ty.AngleDeg[i]))
+	}
+	for e, n := range g.Parts {
+		f := idx[n]
+		start, dir := s.variant(g.Variants[e])
+		ty.Panels = append(ty.Panels, f)
+		ty.Start = append(ty.Start, start)
+		ty.Mirrored = append(ty.Mirrored, dir < 0)
+		ty.TotalAreaM2 += flats[f].AreaM2
+		ty.TotalWeightKg += flats[f].WeightKg
+	}
+	// idx is ascending, so Panels are.
+	return ty
+}
+
+// fanOutline builds an outline from nominal coordinates: corner 0 at the
+// origin, corner 1 on the x axis at the first edge's length, and each
+// further corner j where the circle about corner 0 (radius: the diagonal
+// 0–j, or the last edge) meets the circle about corner j−1 (radius: edge
+// j−1), on the left of the line from corner 0 to corner j−1 (the outline
+// runs counter-clockwise). Where the circles do not meet (nominal values
+// that no triangle has) the corner goes on the line through their centres.
+func fanOutline(s panelShape, nom []float64) geom.Polygon {
+	k := s.k
+	out := make(geom.Polygon, k)
+	out[1] = geom.Vec2{X: nom[0]}
+	// from0[j]: the coordinate of the distance from corner 0 to corner j
+	// (the diagonals come first in s.diags, then the last edge).
+	from0 := make([]int, k)
+	from0[k-1] = k - 1
+	for n, d := range s.diags {
+		if d[0] == 0 {
+			from0[d[1]] = k + n
+		}
+	}
+	for j := 2; j < k; j++ {
+		r0, r1 := nom[from0[j]], nom[j-1]
+		c := out[j-1]
+		d := c.Norm()
+		u := c.Scale(1 / d)
+		x := (d*d + r0*r0 - r1*r1) / (2 * d)
+		h := math.Sqrt(math.Max(0, r0*r0-x*x))
+		out[j] = u.Scale(x).Add(u.Perp().Scale(h))
+	}
+	return out
 }

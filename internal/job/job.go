@@ -189,7 +189,7 @@ func (j *Job) Material() panels.Material {
 
 // PanelTypeOptions returns when two panels are one type.
 func (j *Job) PanelTypeOptions() panels.TypeOptions {
-	return panels.TypeOptions{TolMM: j.Types.PanelTolMM, Mirror: j.Panel.Mirror}
+	return panels.TypeOptions{TolMM: j.Types.PanelTolMM, AngleTolDeg: j.Types.AngleTolDeg, Mirror: j.Panel.Mirror}
 }
 
 // Stocks returns the job's stock sheets for nesting.
@@ -212,7 +212,7 @@ var (
 		"Types.LengthTolMM": "types.length_tol_mm", "Types.AngleTolDeg": "types.angle_tol_deg"}
 	materialKeys = map[string]string{"ThicknessMM": "panel.thickness_mm", "DensityKgM3": "panel.density_kg_m3",
 		"EdgeInsetMM": "panel.edge_inset_mm", "BoundaryBevelDeg": "panel.boundary_bevel_deg"}
-	panelTypeKeys = map[string]string{"TolMM": "types.panel_tol_mm"}
+	panelTypeKeys = map[string]string{"TolMM": "types.panel_tol_mm", "AngleTolDeg": "types.angle_tol_deg"}
 	validateKeys  = map[string]string{"CoincidentTolMM": "net.merge_tol_mm"}
 	stockKeys     = map[string]string{"Name": "name", "WidthMM": "width_mm", "HeightMM": "height_mm", "MarginMM": "margin_mm",
 		"SpacingMM": "spacing_mm", "Rotation": "rotation", "Mirror": "mirror", "Count": "count", "Price": "price"}

@@ -33,9 +33,10 @@ type Result struct {
 	Planarize *panels.PlanarizeResult
 	Bays      geom.Bays
 
-	Structure  *nodes.Structure
-	Flats      []panels.Flat
-	PanelTypes []panels.Type
+	Structure      *nodes.Structure
+	Flats          []panels.Flat
+	PanelTypes     []panels.Type
+	PanelTypeBound geom.TypeBound // lower bound on the number of panel types
 
 	Stocks  []nest.Stock
 	Nesting *nest.Result
@@ -119,7 +120,7 @@ func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 	case err != nil:
 		return nil, err
 	}
-	if res.PanelTypes, err = panels.Group(res.Flats, j.PanelTypeOptions()); err != nil {
+	if res.PanelTypes, res.PanelTypeBound, err = panels.Group(res.Flats, j.PanelTypeOptions()); err != nil {
 		return nil, err
 	}
 
@@ -146,7 +147,7 @@ func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 func (r *Result) Bundle() *export.Bundle {
 	return &export.Bundle{Title: r.Job.Title, JobFile: r.Job.File, NetFile: r.NetPath, Settings: settings(r.Job), Warnings: r.Warnings,
 		Net: r.Net, Supports: r.Supports, Planarize: r.Planarize, TolMM: r.Job.Flatness.TolMM,
-		Structure: r.Structure, Flats: r.Flats, PanelTypes: r.PanelTypes, Stocks: r.Stocks, Nesting: r.Nesting, Cost: r.Cost}
+		Structure: r.Structure, Flats: r.Flats, PanelTypes: r.PanelTypes, PanelTypeBound: r.PanelTypeBound, Stocks: r.Stocks, Nesting: r.Nesting, Cost: r.Cost}
 }
 
 // Write writes every output of the result into the folder dir, atomically

@@ -155,7 +155,7 @@ func SummarizeMembers(file string, axis nodes.AxisMethod, s *nodes.Structure) *M
 	sort.SliceStable(order, func(a, b int) bool { return len(s.MemberTypes[order[a]].Parts) > len(s.MemberTypes[order[b]].Parts) })
 	for _, t := range order[:min(10, len(order))] {
 		ty := s.MemberTypes[t]
-		sum.TopTypes = append(sum.TopTypes, TypeCount{Type: ty.Name, Count: len(ty.Parts), CutLengthMM: export.Round(s.Members[ty.Rep].CutLengthMM, 1)})
+		sum.TopTypes = append(sum.TopTypes, TypeCount{Type: ty.Name, Count: len(ty.Parts), CutLengthMM: export.Round(ty.CutLengthMM, 1)})
 	}
 	return sum
 }

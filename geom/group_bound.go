@@ -1,0 +1,229 @@
+package geom
+
+import (
+	"math"
+	"slices"
+)
+
+// CoverCount returns the fewest intervals of length tol that cover the
+// values: sorted, each interval starts at the lowest value not yet
+// covered. This greedy cover is optimal (the interval starts are pairwise
+// more than tol apart, and no interval holds two of them), so when every
+// type keeps a quantity within tol, CoverCount of its values is a lower
+// bound on the number of types.
+func CoverCount(values []float64, tol float64) int {
+	v := slices.Clone(values)
+	slices.Sort(v)
+	n := 0
+	for i := 0; i < len(v); {
+		start := v[i]
+		n++
+		for i < len(v) && v[i]-start <= tol {
+			i++
+		}
+	}
+	return n
+}
+
+// Work caps for the pairwise-apart bound, in comparisons of two parts.
+const (
+	apartScanCap  = 64  // per part, for the sweep-order set
+	apartPairsCap = 400 // per part on average, for the graph of agreeing parts
+)
+
+// sweepKey computes every key's cover bound and returns the key with the
+// largest (the first on ties).
+func (g *grouper) sweepKey() int {
+	best, bc := 0, -1
+	for k, key := range g.p.Keys {
+		if c := CoverCount(key.Values, key.Tol+keySlack); c > bc {
+			best, bc = k, c
+		}
+	}
+	g.keyBound = bc
+	return best
+}
+
+// bound returns the largest of three lower bounds on the number of types:
+// the sweep key's cover count, and two sets of parts no two of which agree
+// within the tolerances in any pair of variants (each needs its own type),
+// one found in sweep order and one by the smallest-degree-first greedy on
+// the graph of parts that agree (a standard heuristic for an independent
+// set; skipped when the graph would take more than apartPairsCap
+// comparisons a part).
+func (g *grouper) bound() TypeBound {
+	b := TypeBound{Count: g.keyBound, Quantity: g.p.Keys[g.key].Name}
+	const apart = "parts pairwise out of tolerance"
+	if n := g.apartSweep(); n > b.Count {
+		b = TypeBound{Count: n, Quantity: apart}
+	}
+	if n, ok := g.apartGraph(); ok && n > b.Count {
+		b = TypeBound{Count: n, Quantity: apart}
+	}
+	return b
+}
+
+// apartSweep adds, in sweep order, each item whose representative part
+// agrees with none already taken.
+func (g *grouper) apartSweep() int {
+	var set []int // representative parts, in sweep order
+	for i := range g.items {
+		x := g.items[i].rep
+		apart := true
+		for j, n := len(set)-1, 0; j >= 0; j-- {
+			y := set[j]
+			if g.q[y] < g.q[x]-g.qTol-keySlack {
+				break
+			}
+			if n++; n > apartScanCap || g.agree(x, y) {
+				apart = false
+				break
+			}
+		}
+		if apart {
+			set = append(set, x)
+		}
+	}
+	return len(set)
+}
+
+// apartGraph builds the graph of items whose representatives agree (found
+// through a grid on the two most spread coordinates, holding every variant
+// of every item), then repeatedly takes the item with the fewest
+// neighbours left (ties by sweep order) and drops its neighbours.
+func (g *grouper) apartGraph() (int, bool) {
+	n := len(g.items)
+	// The two coordinates that spread most over their tolerances.
+	d1, d2, r1, r2 := 0, -1, -1.0, -1.0
+	for d, tol := range g.p.Tol {
+		lo, hi := math.Inf(1), math.Inf(-1)
+		for i := range g.items {
+			b := g.at(g.block(i), 0)
+			lo, hi = min(lo, b[d]), max(hi, b[g.D+d])
+		}
+		r := (hi - lo) / (tol + keySlack)
+		switch {
+		case r > r1:
+			d2, r2 = d1, r1
+			d1, r1 = d, r
+		case r > r2:
+			d2, r2 = d, r
+		}
+	}
+	if d2 < 0 {
+		d2 = d1
+	}
+	w1, w2 := g.p.Tol[d1]+keySlack, g.p.Tol[d2]+keySlack
+	cellOf := func(v []float64) [2]int64 {
+		return [2]int64{int64(math.Floor(v[d1] / w1)), int64(math.Floor(v[d2] / w2))}
+	}
+	cells := map[[2]int64][]int32{}
+	for i := range n {
+		x := g.items[i].rep
+		for t := range g.G {
+			c := cellOf(g.vec(x, t))
+			if l := cells[c]; len(l) == 0 || l[len(l)-1] != int32(i) {
+				cells[c] = append(l, int32(i))
+			}
+		}
+	}
+	neighbours := func(i int, visit func(j int)) {
+		x := g.items[i].rep
+		for _, s := range g.frames {
+			c := cellOf(g.vec(x, s))
+			for a := c[0] - 1; a <= c[0]+1; a++ {
+				for b := c[1] - 1; b <= c[1]+1; b++ {
+					for _, j := range cells[[2]int64{a, b}] {
+						visit(int(j))
+					}
+				}
+			}
+		}
+	}
+	work := 0
+	for i := range n {
+		neighbours(i, func(int) { work++ })
+		if work > apartPairsCap*n {
+			return 0, false
+		}
+	}
+	adj := make([][]int32, n)
+	seen := make([]int, n)
+	for i := range n {
+		x := g.items[i].rep
+		neighbours(i, func(j int) {
+			if j <= i || seen[j] == i+1 {
+				return
+			}
+			seen[j] = i + 1
+			if g.agree(x, g.items[j].rep) {
+				adj[i] = append(adj[i], int32(j))
+				adj[j] = append(adj[j], int32(i))
+			}
+		})
+	}
+	// Smallest degree first, with buckets by degree; within a bucket the
+	// lowest item (sweep order) goes first.
+	deg := make([]int, n)
+	maxDeg := 0
+	for i := range n {
+		deg[i] = len(adj[i])
+		maxDeg = max(maxDeg, deg[i])
+	}
+	buckets := make([][]int, maxDeg+1)
+	for i := n - 1; i >= 0; i-- {
+		buckets[deg[i]] = append(buckets[deg[i]], i)
+	}
+	gone := make([]bool, n)
+	taken := 0
+	for d := 0; d <= maxDeg; {
+		bk := buckets[d]
+		if len(bk) == 0 {
+			d++
+			continue
+		}
+		i := bk[len(bk)-1]
+		buckets[d] = bk[:len(bk)-1]
+		if gone[i] || deg[i] != d {
+			continue // stale entry
+		}
+		taken++
+		gone[i] = true
+		for _, j := range adj[i] {
+			if gone[j] {
+				continue
+			}
+			gone[j] = true
+			for _, k := range adj[j] {
+				if !gone[k] {
+					deg[k]--
+					buckets[deg[k]] = append(buckets[deg[k]], int(k))
+					d = min(d, deg[k])
+				}
+			}
+		}
+	}
+	return taken, true
+}
+
+// agree reports whether parts x and y agree within every tolerance in
+// some pair of variants.
+func (g *grouper) agree(x, y int) bool {
+	for _, s := range g.frames { // with Permutes, x's variant 0 stands for all
+		a := g.vec(x, s)
+		for t := range g.G {
+			b := g.vec(y, t)
+			ok := true
+			for d, tol := range g.p.Tol {
+				if math.Abs(a[d]-b[d]) > tol {
+					ok = false
+					break
+				}
+			}
+			if ok {
+				return true
+			}
+		}
+	}
+	return false
+}
