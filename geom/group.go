@@ -216,7 +216,9 @@ type grouper struct {
 	inv      []int // inverse variant
 	frames   []int // variants of a type tried when it grows
 	key      int   // sweep key
-	keyBound int   // its cover count
+	keyBound int   // largest cover count of a key
+	boundKey int   // its key
+	keyOrder []int // keys by cover count, largest first
 	q        []float64
 	qTol     float64 // sweep key tolerance plus slack
 	items    []item
@@ -288,8 +290,9 @@ func (g *grouper) canonical(p int) int {
 	return best
 }
 
-// makeItems chooses the sweep key, orders the parts by it (ties by their
-// rounded canonical coordinates) and merges parts that agree within the
+// makeItems chooses the sweep key, orders the parts by it (ties by the
+// other keys in the order of their cover counts, then by the rounded
+// canonical coordinates; all rounded) and merges parts that agree within the
 // resolution (and the tolerances) into items, in that order.
 func (g *grouper) makeItems() {
 	p := g.p
@@ -298,14 +301,17 @@ func (g *grouper) makeItems() {
 	g.q, g.qTol = k.Values, k.Tol+keySlack
 	canon := make([]int, p.Parts)
 	order := make([]int, p.Parts)
-	rq := make([]float64, p.Parts)
+	nk := len(p.Keys)
+	rq := make([]float64, p.Parts*nk) // rounded keys of part i at i*nk, in key order
 	for i := range order {
 		order[i] = i
 		canon[i] = g.canonical(i)
-		rq[i] = math.Round(g.q[i] / TypeResolution)
+		for j, k := range g.keyOrder {
+			rq[i*nk+j] = math.Round(p.Keys[k].Values[i] / TypeResolution)
+		}
 	}
 	slices.SortFunc(order, func(a, b int) int {
-		if c := cmp.Compare(rq[a], rq[b]); c != 0 {
+		if c := slices.Compare(rq[a*nk:(a+1)*nk], rq[b*nk:(b+1)*nk]); c != 0 {
 			return c
 		}
 		if c := rounded(g.vec(a, canon[a]), g.vec(b, canon[b])); c != 0 {

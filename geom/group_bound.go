@@ -31,18 +31,30 @@ const (
 	apartPairsCap = 400 // per part on average, for the graph of agreeing parts
 )
 
-// sweepKey computes every key's cover bound and returns the key with the
-// largest (the first on ties).
+// sweepKey orders the keys for the sweep and returns the first. A key
+// spreads the parts the more, the more values its cover count separates
+// at SweepSpreadFraction of its tolerance (a key constant over half of
+// the parts orders them badly even if it separates the rest well); ties
+// go by index. It also records the largest cover count at the full
+// tolerance, a lower bound.
 func (g *grouper) sweepKey() int {
-	best, bc := 0, -1
+	spread := make([]int, len(g.p.Keys))
+	g.keyOrder = make([]int, len(g.p.Keys))
+	g.keyBound = 0
 	for k, key := range g.p.Keys {
-		if c := CoverCount(key.Values, key.Tol+keySlack); c > bc {
-			best, bc = k, c
+		spread[k] = CoverCount(key.Values, key.Tol*SweepSpreadFraction+keySlack)
+		g.keyOrder[k] = k
+		if c := CoverCount(key.Values, key.Tol+keySlack); c > g.keyBound {
+			g.keyBound, g.boundKey = c, k
 		}
 	}
-	g.keyBound = bc
-	return best
+	slices.SortStableFunc(g.keyOrder, func(a, b int) int { return spread[b] - spread[a] })
+	return g.keyOrder[0]
 }
+
+// SweepSpreadFraction is the fraction of a key's tolerance at which keys
+// are compared for the sweep order.
+const SweepSpreadFraction = 0.125
 
 // bound returns the largest of three lower bounds on the number of types:
 // the sweep key's cover count, and two sets of parts no two of which agree
@@ -52,7 +64,7 @@ func (g *grouper) sweepKey() int {
 // set; skipped when the graph would take more than apartPairsCap
 // comparisons a part).
 func (g *grouper) bound() TypeBound {
-	b := TypeBound{Count: g.keyBound, Quantity: g.p.Keys[g.key].Name}
+	b := TypeBound{Count: g.keyBound, Quantity: g.p.Keys[g.boundKey].Name}
 	const apart = "parts pairwise out of tolerance"
 	if n := g.apartSweep(); n > b.Count {
 		b = TypeBound{Count: n, Quantity: apart}

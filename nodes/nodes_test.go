@@ -234,45 +234,6 @@ func TestLabelsStable(t *testing.T) {
 	}
 }
 
-// TestTypes: the translational canopy is symmetric about both mid-lines,
-// so members come in congruent groups; every member is in exactly one type
-// and types are numbered by cut length.
-func TestTypes(t *testing.T) {
-	n, _ := samples.Make("canopy", 96) // 12 × 8 panels
-	bays, _ := geom.NewBays(n.Positions(), 6000, 6000)
-	s, err := Build(n, topoOf(t, n), testOptions(AxisLeastTwist, 50, bays))
-	if err != nil {
-		t.Fatal(err)
-	}
-	seen := make([]int, len(s.Members))
-	prev := 0.0
-	for ti, ty := range s.MemberTypes {
-		for _, i := range ty.Parts {
-			seen[i]++
-			if s.Members[i].Type != ti {
-				t.Fatalf("member %d type %d, listed in %d", i, s.Members[i].Type, ti)
-			}
-		}
-		if l := ty.CutLengthMM; l < prev {
-			t.Errorf("types not ordered by length")
-		} else {
-			prev = l
-		}
-	}
-	for i, c := range seen {
-		if c != 1 {
-			t.Fatalf("member %d in %d types", i, c)
-		}
-	}
-	if nt := len(s.MemberTypes); nt >= len(s.Members)/2 || nt < 4 {
-		t.Errorf("%d member types for %d members", nt, len(s.Members))
-	}
-	if nt := len(s.NodeTypes); nt >= len(s.Nodes)/2 {
-		t.Errorf("%d node types for %d nodes", nt, len(s.Nodes))
-	}
-	t.Logf("%d members in %d types, %d nodes in %d types", len(s.Members), len(s.MemberTypes), len(s.Nodes), len(s.NodeTypes))
-}
-
 func benchBuild(b *testing.B, axis AxisMethod) {
 	n, _ := samples.Make("wave", 100000)
 	topo := geom.BuildTopology(n)
