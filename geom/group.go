@@ -193,11 +193,50 @@ func (p *TypeProblem) check() error {
 // boxes, box v holding the lows (Dim values) then the highs of the
 // coordinates of their parts, each read in Compose[its variant][v].
 
-// item is a set of parts that agree within TypeResolution.
+// item is a set of parts that agree within TypeResolution. An item of one
+// part keeps no boxes: they are the part's coordinates.
 type item struct {
-	rep      int // first part; its variant in the item is its canonical one
+	rep      int // first part
+	canon    int // rep's variant in the item (its canonical one)
+	box      int // offset of the item's boxes in itemBox; −1 for one part
 	qlo, qhi float64
+	keys     keyRanges
 	size     int
+}
+
+// filterKeys is the number of keys besides the sweep key whose ranges
+// items and types keep, to tell quickly that two cannot share a type.
+const filterKeys = 3
+
+// keyRanges holds the ranges of the filter keys.
+type keyRanges [filterKeys][2]float64
+
+// apart reports whether two sets of parts cannot share a type because a
+// filter key would range over more than its tolerance.
+func (g *grouper) apart(a, b *keyRanges) bool {
+	for f, k := range g.filter {
+		if max(a[f][1], b[f][1])-min(a[f][0], b[f][0]) > g.p.Keys[k].Tol+keySlack {
+			return true
+		}
+	}
+	return false
+}
+
+// widen widens key ranges a by b.
+func (g *grouper) widen(a, b *keyRanges) {
+	for f := range g.filter {
+		a[f][0], a[f][1] = min(a[f][0], b[f][0]), max(a[f][1], b[f][1])
+	}
+}
+
+// partKeys returns the filter keys of one part.
+func (g *grouper) partKeys(p int) keyRanges {
+	var r keyRanges
+	for f, k := range g.filter {
+		v := g.p.Keys[k].Values[p]
+		r[f] = [2]float64{v, v}
+	}
+	return r
 }
 
 // typ is a type being built: items, each read in Compose[shift][frame].
@@ -206,7 +245,8 @@ type typ struct {
 	frame         int
 	box           []float64
 	qlo, qhi      float64 // range of the sweep key
-	size          int     // parts
+	keys          keyRanges
+	size          int // parts
 	alive         bool
 }
 
@@ -222,12 +262,18 @@ type grouper struct {
 	q        []float64
 	qTol     float64 // sweep key tolerance plus slack
 	items    []item
-	itemBox  []float64 // item i's block at i*G*2*D
+	itemBox  []float64 // boxes of items of more than one part
 	itemOf   []int32   // per part
 	itemVar  []int32   // per part: its variant in its item
 	types    []typ
 	scratch  []float64
 	undo     []snapshot
+	// coordOrder lists the coordinates by their spread over their
+	// tolerance, largest first: the order fit tries them in, so a box
+	// that does not fit is told early.
+	coordOrder []int
+	filter     []int  // filter keys
+	cands      []cand // eject's buffer
 }
 
 // keySlack absorbs the rounding of keys computed from coordinates (such
@@ -260,13 +306,19 @@ func (g *grouper) vec(part, variant int) []float64 {
 	return g.p.Coords[i : i+g.D]
 }
 
-// block returns item i's boxes; at returns box v of a block.
-func (g *grouper) block(i int) []float64 {
-	n := g.G * 2 * g.D
-	return g.itemBox[i*n : (i+1)*n]
-}
-
+// at returns box v (lows, then highs) of a block of boxes.
 func (g *grouper) at(block []float64, v int) []float64 { return block[v*2*g.D : (v+1)*2*g.D] }
+
+// ibox returns item i's box in its variant v: lows and highs.
+func (g *grouper) ibox(i, v int) (lo, hi []float64) {
+	it := &g.items[i]
+	if it.box < 0 {
+		x := g.vec(it.rep, g.p.Compose[it.canon][v])
+		return x, x
+	}
+	b := g.itemBox[it.box+v*2*g.D:]
+	return b[:g.D], b[g.D : 2*g.D]
+}
 
 // rounded compares two vectors on values rounded to TypeResolution.
 func rounded(a, b []float64) int {
@@ -299,6 +351,7 @@ func (g *grouper) makeItems() {
 	g.key = g.sweepKey()
 	k := p.Keys[g.key]
 	g.q, g.qTol = k.Values, k.Tol+keySlack
+	g.filter = g.keyOrder[1:min(len(g.keyOrder), 1+filterKeys)]
 	canon := make([]int, p.Parts)
 	order := make([]int, p.Parts)
 	nk := len(p.Keys)
@@ -323,9 +376,18 @@ func (g *grouper) makeItems() {
 	for d, t := range p.Tol {
 		atomTol[d] = min(t, TypeResolution)
 	}
-	n := g.G * 2 * g.D
+	spread := make([]float64, g.D)
+	for d := range g.D {
+		lo, hi := math.Inf(1), math.Inf(-1)
+		for i := range p.Parts {
+			x := g.vec(i, canon[i])[d]
+			lo, hi = min(lo, x), max(hi, x)
+		}
+		spread[d] = (hi - lo) / (p.Tol[d] + keySlack)
+		g.coordOrder = append(g.coordOrder, d)
+	}
+	slices.SortStableFunc(g.coordOrder, func(a, b int) int { return cmp.Compare(spread[b], spread[a]) })
 	g.items = make([]item, 0, p.Parts)
-	g.itemBox = make([]float64, 0, p.Parts*n)
 	g.itemOf, g.itemVar = make([]int32, p.Parts), make([]int32, p.Parts)
 	lo := 0
 	for _, part := range order {
@@ -335,9 +397,9 @@ func (g *grouper) makeItems() {
 		}
 		joined := false
 		for i := lo; i < len(g.items) && !joined; i++ {
-			b := g.block(i)
+			blo, bhi := g.ibox(i, 0)
 			for s := range g.G {
-				if fitsTol(g.at(b, 0), g.vec(part, s), atomTol) {
+				if fitsTol(blo, bhi, g.vec(part, s), atomTol) {
 					g.addPart(i, part, s)
 					joined = true
 					break
@@ -346,22 +408,17 @@ func (g *grouper) makeItems() {
 		}
 		if !joined {
 			i := len(g.items)
-			g.items = append(g.items, item{rep: part, qlo: q, qhi: q, size: 1})
-			for v := range g.G {
-				x := g.vec(part, p.Compose[canon[part]][v])
-				g.itemBox = append(append(g.itemBox, x...), x...)
-			}
+			g.items = append(g.items, item{rep: part, canon: canon[part], box: -1, qlo: q, qhi: q, keys: g.partKeys(part), size: 1})
 			g.itemOf[part], g.itemVar[part] = int32(i), int32(canon[part])
 		}
 	}
 }
 
-// fitsTol reports whether the box (lo then hi) grown by point x keeps every
-// range within tol.
-func fitsTol(box, x, tol []float64) bool {
-	D := len(x)
+// fitsTol reports whether the box grown by point x keeps every range
+// within tol.
+func fitsTol(lo, hi, x, tol []float64) bool {
 	for d := range x {
-		if max(box[D+d], x[d])-min(box[d], x[d]) > tol[d] {
+		if max(hi[d], x[d])-min(lo[d], x[d]) > tol[d] {
 			return false
 		}
 	}
@@ -374,10 +431,18 @@ func (g *grouper) addPart(i, part, s int) {
 	it.size++
 	q := g.q[part]
 	it.qlo, it.qhi = min(it.qlo, q), max(it.qhi, q)
+	pk := g.partKeys(part)
+	g.widen(&it.keys, &pk)
 	g.itemOf[part], g.itemVar[part] = int32(i), int32(s)
-	blk := g.block(i)
+	if it.box < 0 { // give the item boxes, from its first part
+		it.box = len(g.itemBox)
+		for v := range g.G {
+			x := g.vec(it.rep, g.p.Compose[it.canon][v])
+			g.itemBox = append(append(g.itemBox, x...), x...)
+		}
+	}
 	for v := range g.G {
-		b := g.at(blk, v)
+		b := g.itemBox[it.box+v*2*g.D:]
 		x := g.vec(part, g.p.Compose[s][v])
 		for d := range g.D {
 			b[d] = min(b[d], x[d])
@@ -386,12 +451,14 @@ func (g *grouper) addPart(i, part, s int) {
 	}
 }
 
-// fit reports whether boxes a and b together keep every tolerance, and
-// the growth of a's sum of squared ranges over tolerances.
-func (g *grouper) fit(a, b []float64) (cost float64, ok bool) {
+// fit reports whether box a (lows then highs) and the box from blo to bhi
+// together keep every tolerance, and the growth of a's sum of squared
+// ranges over tolerances.
+func (g *grouper) fit(a, blo, bhi []float64) (cost float64, ok bool) {
 	D := g.D
-	for d, t := range g.p.Tol {
-		r := max(a[D+d], b[D+d]) - min(a[d], b[d])
+	for _, d := range g.coordOrder {
+		t := g.p.Tol[d]
+		r := max(a[D+d], bhi[d]) - min(a[d], blo[d])
 		if r > t {
 			return 0, false
 		}
@@ -403,14 +470,15 @@ func (g *grouper) fit(a, b []float64) (cost float64, ok bool) {
 	return cost, true
 }
 
-// best finds where a block src fits type t best: t read in its variant h
-// (from g.frames) and src in its variant v.
-func (g *grouper) best(t *typ, src []float64) (cost float64, h, v int, ok bool) {
+// best finds where item i (u < 0) or type u fits type t best: t read in
+// its variant h (from g.frames) and the other in its variant v.
+func (g *grouper) best(t *typ, i, u int) (cost float64, h, v int, ok bool) {
 	cost = math.Inf(1)
 	for _, hh := range g.frames {
 		a := g.at(t.box, hh)
 		for vv := range g.G {
-			if c, fits := g.fit(a, g.at(src, vv)); fits && c < cost {
+			lo, hi := g.box(i, u, vv)
+			if c, fits := g.fit(a, lo, hi); fits && c < cost {
 				cost, h, v, ok = c, hh, vv, true
 			}
 		}
@@ -431,13 +499,23 @@ func (g *grouper) turn(t *typ, h int) {
 	}
 }
 
-// grow widens t's boxes by block src read in its variant v.
-func (g *grouper) grow(t *typ, src []float64, v int) {
+// box returns the box of item i (u < 0) or of type u, in its variant v.
+func (g *grouper) box(i, u, v int) (lo, hi []float64) {
+	if u >= 0 {
+		b := g.at(g.types[u].box, v)
+		return b[:g.D], b[g.D:]
+	}
+	return g.ibox(i, v)
+}
+
+// grow widens t's boxes by item i (u < 0) or type u read in its variant v.
+func (g *grouper) grow(t *typ, i, u, v int) {
 	for x := range g.G {
-		a, b := g.at(t.box, x), g.at(src, g.p.Compose[v][x])
+		a := g.at(t.box, x)
+		lo, hi := g.box(i, u, g.p.Compose[v][x])
 		for d := range g.D {
-			a[d] = min(a[d], b[d])
-			a[g.D+d] = max(a[g.D+d], b[g.D+d])
+			a[d] = min(a[d], lo[d])
+			a[g.D+d] = max(a[g.D+d], hi[d])
 		}
 	}
 }
@@ -449,11 +527,13 @@ func (g *grouper) addItem(t *typ, i, v int) {
 	it := &g.items[i]
 	t.size += it.size
 	t.qlo, t.qhi = min(t.qlo, it.qlo), max(t.qhi, it.qhi)
-	g.grow(t, g.block(i), v)
+	g.widen(&t.keys, &it.keys)
+	g.grow(t, i, -1, v)
 }
 
-// addType puts every item of type u, read in u's variant v, into type t.
-func (g *grouper) addType(t, u *typ, v int) {
+// addType puts every item of type ui, read in its variant v, into type t.
+func (g *grouper) addType(t *typ, ui, v int) {
+	u := &g.types[ui]
 	for k, i := range u.items {
 		e := g.p.Compose[u.shifts[k]][u.frame] // item's variant in u
 		t.items = append(t.items, i)
@@ -461,7 +541,8 @@ func (g *grouper) addType(t, u *typ, v int) {
 	}
 	t.size += u.size
 	t.qlo, t.qhi = min(t.qlo, u.qlo), max(t.qhi, u.qhi)
-	g.grow(t, u.box, v)
+	g.widen(&t.keys, &u.keys)
+	g.grow(t, -1, ui, v)
 }
 
 // sweep places the items in sweep order: each into the open type it grows
@@ -473,10 +554,12 @@ func (g *grouper) sweep() {
 		for lo < len(g.types) && g.types[lo].qlo < it.qlo-g.qTol-keySlack {
 			lo++
 		}
-		src := g.block(i)
 		bt, bh, bv, bc := -1, 0, 0, math.Inf(1)
 		for t := lo; t < len(g.types); t++ {
-			if c, h, v, ok := g.best(&g.types[t], src); ok && c < bc {
+			if g.apart(&g.types[t].keys, &it.keys) {
+				continue
+			}
+			if c, h, v, ok := g.best(&g.types[t], i, -1); ok && c < bc {
 				bt, bh, bv, bc = t, h, v, c
 			}
 		}
@@ -485,8 +568,13 @@ func (g *grouper) sweep() {
 			g.addItem(&g.types[bt], i, bv)
 			continue
 		}
-		g.types = append(g.types, typ{items: []int{i}, shifts: []int{0}, box: slices.Clone(src),
-			qlo: it.qlo, qhi: it.qhi, size: it.size, alive: true})
+		box := make([]float64, 0, g.G*2*g.D)
+		for v := range g.G {
+			lo, hi := g.ibox(i, v)
+			box = append(append(box, lo...), hi...)
+		}
+		g.types = append(g.types, typ{items: []int{i}, shifts: []int{0}, box: box,
+			qlo: it.qlo, qhi: it.qhi, keys: it.keys, size: it.size, alive: true})
 	}
 }
 
@@ -523,12 +611,12 @@ func (g *grouper) mergePass() bool {
 			if tb.qlo > ta.qlo+g.qTol {
 				break // sorted: every later type is further still
 			}
-			if !tb.alive {
+			if !tb.alive || g.apart(&ta.keys, &tb.keys) {
 				continue
 			}
-			if _, h, v, ok := g.best(ta, tb.box); ok {
+			if _, h, v, ok := g.best(ta, -1, b); ok {
 				g.turn(ta, h)
-				g.addType(ta, tb, v)
+				g.addType(ta, b, v)
 				tb.alive = false
 				merged = true
 			}
@@ -600,8 +688,9 @@ func (g *grouper) save(u int) {
 
 // window returns the range of byKey whose types may take an item with key
 // range [qlo, qhi]. A type's key range must stay within the tolerance;
-// its low end only falls during a pass, so qlo0 (the low ends when the
-// pass began) lies within [qhi − tol, qlo + tol].
+// its low end only falls as items join, so qlo0 (the low ends when the
+// pass began) lies within [qhi − tol, qlo + tol]. (A type that pushed
+// items out may have narrowed and be missed: a chance lost, no more.)
 func (g *grouper) window(qlo, qhi float64, qlo0 []float64) (int, int) {
 	from, _ := slices.BinarySearch(qlo0, qhi-g.qTol-keySlack)
 	to := from
@@ -614,16 +703,17 @@ func (g *grouper) window(qlo, qhi float64, qlo0 []float64) (int, int) {
 // place puts item i into the live type (other than t and also) it grows
 // least.
 func (g *grouper) place(i, t, also int, byKey []int, qlo0 []float64) bool {
-	it, src := &g.items[i], g.block(i)
+	it := &g.items[i]
 	from, to := g.window(it.qlo, it.qhi, qlo0)
 	bu, bv, bc := -1, 0, math.Inf(1)
 	for _, u := range byKey[from:to] {
-		if u == t || u == also || !g.types[u].alive {
+		if u == t || u == also || !g.types[u].alive || g.apart(&g.types[u].keys, &it.keys) {
 			continue
 		}
 		a := g.at(g.types[u].box, 0)
 		for v := range g.G {
-			if c, fits := g.fit(a, g.at(src, v)); fits && c < bc {
+			lo, hi := g.ibox(i, v)
+			if c, fits := g.fit(a, lo, hi); fits && c < bc {
 				bu, bv, bc = u, v, c
 			}
 		}
@@ -636,41 +726,59 @@ func (g *grouper) place(i, t, also int, byKey []int, qlo0 []float64) bool {
 	return true
 }
 
-// eject puts item i into the type u (not t) where it fits after pushing
-// out the fewest items (at most MaxTypeEject, and not all), then places
-// those items elsewhere (not in t or u). An item of u must go if it lies
-// further than a tolerance from item i in some coordinate; the rest keep
-// every range within its tolerance, since they already did among
-// themselves.
+// eject puts item i into a type u (not t) where it fits after pushing out
+// the fewest items (at most MaxTypeEject, and not all), then places those
+// items elsewhere (not in t or u). An item of u must go if it lies further
+// than a tolerance from item i in some coordinate; the rest keep every
+// range within its tolerance, since they already did among themselves.
+// Only the ejectCandidates types (and variants) that item i overflows
+// least, summed over the coordinates in tolerances, are searched.
 func (g *grouper) eject(i, t int, byKey []int, qlo0 []float64) bool {
-	it, src := &g.items[i], g.block(i)
+	it := &g.items[i]
 	from, to := g.window(it.qlo, it.qhi, qlo0)
-	D := g.D
-	bu, bv, bn := -1, 0, MaxTypeEject+1
-	var out, best []int
+	cands := g.cands[:0]
 	for _, u := range byKey[from:to] {
 		tu := &g.types[u]
-		if u == t || !tu.alive {
+		if u == t || !tu.alive || len(tu.items) < 2 {
 			continue
 		}
+		// Pushing items out can narrow u's key ranges, so the filter keys
+		// tell nothing here.
+		a := g.at(tu.box, 0)
 		for v := range g.G {
-			x := g.at(src, v)
-			out = out[:0]
-			for k, j := range tu.items {
-				y := g.at(g.block(j), g.p.Compose[tu.shifts[k]][tu.frame])
-				for d, tol := range g.p.Tol {
-					if y[d] < x[D+d]-tol || y[D+d] > x[d]+tol {
-						out = append(out, k)
-						break
-					}
+			lo, hi := g.ibox(i, v)
+			over := 0.0
+			for d, tol := range g.p.Tol {
+				if r := max(a[g.D+d], hi[d]) - min(a[d], lo[d]); r > tol {
+					over += (r - tol) / (tol + keySlack)
 				}
-				if len(out) >= bn {
+			}
+			cands = append(cands, cand{u, v, over})
+		}
+	}
+	g.cands = cands
+	slices.SortStableFunc(cands, func(a, b cand) int { return cmp.Compare(a.over, b.over) })
+	n := min(len(cands), ejectCandidates)
+	bu, bv, bn := -1, 0, MaxTypeEject+1
+	var out, best []int
+	for _, c := range cands[:n] {
+		tu := &g.types[c.u]
+		xlo, xhi := g.ibox(i, c.v)
+		out = out[:0]
+		for k, j := range tu.items {
+			ylo, yhi := g.ibox(j, g.p.Compose[tu.shifts[k]][tu.frame])
+			for d, tol := range g.p.Tol {
+				if ylo[d] < xhi[d]-tol || yhi[d] > xlo[d]+tol {
+					out = append(out, k)
 					break
 				}
 			}
-			if len(out) < bn && len(out) < len(tu.items) {
-				bu, bv, bn, best = u, v, len(out), append(best[:0], out...)
+			if len(out) >= bn {
+				break
 			}
+		}
+		if len(out) < bn && len(out) < len(tu.items) {
+			bu, bv, bn, best = c.u, c.v, len(out), append(best[:0], out...)
 		}
 	}
 	if bu < 0 {
@@ -700,6 +808,16 @@ func (g *grouper) eject(i, t int, byKey []int, qlo0 []float64) bool {
 	return true
 }
 
+// cand is a type u, read in variant v, that an item overflows by over.
+type cand struct {
+	u, v int
+	over float64
+}
+
+// ejectCandidates is the number of types an item that fits none is tried
+// in, pushing items out.
+const ejectCandidates = 4
+
 // rebox recomputes a type's boxes, key range and size from its items.
 func (g *grouper) rebox(t *typ) {
 	D := g.D
@@ -710,9 +828,13 @@ func (g *grouper) rebox(t *typ) {
 		}
 	}
 	t.qlo, t.qhi, t.size = math.Inf(1), math.Inf(-1), 0
+	for f := range t.keys {
+		t.keys[f] = [2]float64{math.Inf(1), math.Inf(-1)}
+	}
 	for k, i := range t.items {
 		it := &g.items[i]
-		g.grow(t, g.block(i), g.p.Compose[t.shifts[k]][t.frame])
+		g.widen(&t.keys, &it.keys)
+		g.grow(t, i, -1, g.p.Compose[t.shifts[k]][t.frame])
 		t.qlo, t.qhi, t.size = min(t.qlo, it.qlo), max(t.qhi, it.qhi), t.size+it.size
 	}
 }

@@ -14,6 +14,11 @@ import (
 func CoverCount(values []float64, tol float64) int {
 	v := slices.Clone(values)
 	slices.Sort(v)
+	return coverSorted(v, tol)
+}
+
+// coverSorted is CoverCount of sorted values.
+func coverSorted(v []float64, tol float64) int {
 	n := 0
 	for i := 0; i < len(v); {
 		start := v[i]
@@ -41,10 +46,13 @@ func (g *grouper) sweepKey() int {
 	spread := make([]int, len(g.p.Keys))
 	g.keyOrder = make([]int, len(g.p.Keys))
 	g.keyBound = 0
+	sorted := make([]float64, g.p.Parts)
 	for k, key := range g.p.Keys {
-		spread[k] = CoverCount(key.Values, key.Tol*SweepSpreadFraction+keySlack)
+		copy(sorted, key.Values)
+		slices.Sort(sorted)
+		spread[k] = coverSorted(sorted, key.Tol*SweepSpreadFraction+keySlack)
 		g.keyOrder[k] = k
-		if c := CoverCount(key.Values, key.Tol+keySlack); c > g.keyBound {
+		if c := coverSorted(sorted, key.Tol+keySlack); c > g.keyBound {
 			g.keyBound, g.boundKey = c, k
 		}
 	}
@@ -110,8 +118,8 @@ func (g *grouper) apartGraph() (int, bool) {
 	for d, tol := range g.p.Tol {
 		lo, hi := math.Inf(1), math.Inf(-1)
 		for i := range g.items {
-			b := g.at(g.block(i), 0)
-			lo, hi = min(lo, b[d]), max(hi, b[g.D+d])
+			blo, bhi := g.ibox(i, 0)
+			lo, hi = min(lo, blo[d]), max(hi, bhi[d])
 		}
 		r := (hi - lo) / (tol + keySlack)
 		switch {
