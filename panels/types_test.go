@@ -157,7 +157,7 @@ func checkPanelTypes(t *testing.T, name string, flats []Flat, types []Type, opt 
 	type box struct{ lo, hi []float64 }
 	boxes := make([][]box, len(types)) // per type, per reading of the type's corners
 	tolOf := func(k int) []float64 {
-		nd := k*(k-3)/2
+		nd := k * (k - 3) / 2
 		tol := make([]float64, 2*k+nd)
 		for d := range tol {
 			tol[d] = opt.TolMM
