@@ -5,6 +5,7 @@ import (
 	"errors"
 	"math"
 	"slices"
+	"strings"
 )
 
 // TypeResolution is the resolution, in each coordinate's own unit (mm or
@@ -86,15 +87,20 @@ type TypeBound struct {
 }
 
 // Add returns the bound for two sets of parts that never share a type
-// (such as panels with different corner counts): the counts add.
+// (such as panels with different corner counts): the counts add, and the
+// quantities are listed once each.
 func (b TypeBound) Add(o TypeBound) TypeBound {
 	switch {
+	case o.Count == 0:
+		return b
 	case b.Count == 0:
 		return o
-	case o.Count == 0 || o.Quantity == b.Quantity:
-		return TypeBound{Count: b.Count + o.Count, Quantity: b.Quantity}
 	}
-	return TypeBound{Count: b.Count + o.Count, Quantity: b.Quantity + "; " + o.Quantity}
+	q := b.Quantity
+	if !slices.Contains(strings.Split(q, "; "), o.Quantity) {
+		q += "; " + o.Quantity
+	}
+	return TypeBound{Count: b.Count + o.Count, Quantity: q}
 }
 
 // MaxTypeRefineRounds caps the rounds of refinement (merging types, then

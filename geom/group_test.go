@@ -483,3 +483,19 @@ func TestGroupTypesBadProblem(t *testing.T) {
 		t.Errorf("good problem: %v %v %v", g, b, err)
 	}
 }
+
+func TestTypeBoundAdd(t *testing.T) {
+	for _, tc := range []struct {
+		a, b, want TypeBound
+	}{
+		{TypeBound{}, TypeBound{3, "x"}, TypeBound{3, "x"}},
+		{TypeBound{3, "x"}, TypeBound{}, TypeBound{3, "x"}},
+		{TypeBound{3, "x"}, TypeBound{2, "x"}, TypeBound{5, "x"}},
+		{TypeBound{3, "x"}, TypeBound{2, "y"}, TypeBound{5, "x; y"}},
+		{TypeBound{5, "x; y"}, TypeBound{1, "x"}, TypeBound{6, "x; y"}},
+	} {
+		if got := tc.a.Add(tc.b); got != tc.want {
+			t.Errorf("%v.Add(%v) = %v, want %v", tc.a, tc.b, got, tc.want)
+		}
+	}
+}
