@@ -48,8 +48,8 @@ type TypeProblem struct {
 	// Keys are quantities that no symmetry changes and that range within
 	// their Tol inside every type (a coordinate every variant keeps, or an
 	// order statistic of coordinates the symmetries permute, such as the
-	// shortest edge). At least one. The sweep runs along the one with the
-	// largest lower bound; every key gives a lower bound.
+	// shortest edge). At least one. Every key gives a lower bound; the
+	// sweep runs along the most spread one.
 	Keys []TypeKey
 }
 
@@ -113,26 +113,31 @@ const MaxTypeRefineRounds = 8
 // bound on the count.
 //
 // Method:
-//  1. Parts that agree within TypeResolution become one item.
-//  2. Sweep: items in order of the key with the largest lower bound (the
-//     most spread quantity, ties by the rounded coordinates); each joins,
-//     in the variant that fits best, the open type whose ranges it grows
-//     least (sum of squared ranges over tolerances), or opens a type.
-//     Only types whose key lies within the key's tolerance are open, so
-//     the work is near linear. With one coordinate this is the classic
-//     optimal interval cover: the count equals the bound.
-//  3. Refinement, repeated: merge any two types whose union fits, all of
-//     one read in a common variant; then empty small types, smallest
-//     first, by moving each of their items into another type it fits.
-//     The last step is a merge pass that finds nothing to merge.
+//  1. Parts are sorted by the keys, most spread first (see sweepKey),
+//     ties by their rounded coordinates, all rounded to TypeResolution;
+//     parts that agree within TypeResolution (and the tolerances) become
+//     one item.
+//  2. Sweep: each item in that order joins, in the variant that fits
+//     best, the open type whose ranges it grows least (sum of squared
+//     ranges over tolerances), or opens a type. Only types whose first
+//     key lies within its tolerance are open, and keys tell most misfits
+//     at a glance, so the work is near linear. With one coordinate this is
+//     the classic greedy interval cover, which is optimal: the count
+//     equals the bound.
+//  3. Refinement, repeated: merge any two types whose union fits, all
+//     of one read in a common variant (and, where the variants are not
+//     permutations, the other in another); then empty types, smallest
+//     first, by moving each of their items into another type it fits, if
+//     need be after pushing up to MaxTypeEject items of that type into
+//     others. The last step is a merge pass that finds nothing to merge.
 //
 // Guarantees: every type keeps every tolerance; no two types can be
-// merged by reading all parts of one in a common variant; parts that
-// agree within TypeResolution share a type; the result depends only on
-// the coordinates rounded to TypeResolution, not on the order of the
-// parts (parts that agree within it are interchangeable). The count is at
-// least the returned bound; how far above it is the quality of the
-// heuristic (box cover is NP-hard in two or more dimensions).
+// merged with each read in a common variant; the count is at least the
+// returned bound (how far above it is the quality of the heuristic: box
+// cover is NP-hard in two or more dimensions). The order of the work is
+// decided on values rounded to TypeResolution, so the result does not
+// depend on the order of the parts, except among parts equal to that
+// resolution, which are interchangeable.
 //
 // Types come out in the order of their rounded nominal coordinates, each
 // in the variant whose nominal coordinates come first (among those where

@@ -65,7 +65,7 @@ func (g *grouper) sweepKey() int {
 const SweepSpreadFraction = 0.125
 
 // bound returns the largest of three lower bounds on the number of types:
-// the sweep key's cover count, and two sets of parts no two of which agree
+// the largest cover count of a key, and two sets of parts no two of which agree
 // within the tolerances in any pair of variants (each needs its own type),
 // one found in sweep order and one by the smallest-degree-first greedy on
 // the graph of parts that agree (a standard heuristic for an independent
