@@ -1,0 +1,230 @@
+package geom
+
+import (
+	"bufio"
+	"bytes"
+	"errors"
+	"io"
+	"strconv"
+	"strings"
+)
+
+// Size limits of the readers. A reader stops with an error naming the line
+// and wrapping ErrTooLarge as soon as its input passes one, so memory stays
+// bounded whatever it is fed (an endless stream, a file without line
+// breaks). The counts are well above the largest gridshells built (tens of
+// thousands of panels).
+const (
+	// MaxLineBytes is the longest line a net file may have (1 MiB).
+	MaxLineBytes = 1 << 20
+	// MaxLines is the most lines a net file may have, blank and comment
+	// lines included.
+	MaxLines = 10_000_000
+	// MaxNodes is the most nodes a net may have.
+	MaxNodes = 1_000_000
+	// MaxPanels is the most panels a net may have.
+	MaxPanels = 500_000
+	// MaxIDBytes is the longest node or panel id a CSV net may use.
+	MaxIDBytes = 64
+)
+
+// bom is the UTF-8 byte-order mark some editors put at the start of a file.
+var bom = []byte("\ufeff")
+
+// textReader delivers a text file with every line end (LF, CRLF or a lone
+// CR) turned into LF and a leading byte-order mark dropped. It fails, with
+// an InputError wrapping ErrTooLarge, on a line longer than MaxLineBytes.
+type textReader struct {
+	r       *bufio.Reader
+	file    string
+	lines   int  // line ends delivered
+	col     int  // bytes delivered on the current line
+	cr      bool // the last byte read was a CR
+	started bool
+	err     error
+}
+
+func newTextReader(r io.Reader, file string) *textReader {
+	return &textReader{r: bufio.NewReaderSize(r, 64<<10), file: file}
+}
+
+func (t *textReader) Read(p []byte) (int, error) {
+	if t.err != nil {
+		return 0, t.err
+	}
+	if !t.started {
+		t.started = true
+		if b, _ := t.r.Peek(len(bom)); bytes.Equal(b, bom) {
+			_, _ = t.r.Discard(len(bom)) // cannot fail: the bytes are buffered
+		}
+	}
+	for {
+		n, err := t.r.Read(p)
+		w := 0
+		for _, c := range p[:n] {
+			if c == '\n' && t.cr {
+				t.cr = false
+				continue // the LF of a CRLF pair
+			}
+			t.cr = c == '\r'
+			if c == '\r' {
+				c = '\n'
+			}
+			if c == '\n' {
+				t.lines++
+				t.col = 0
+			} else if t.col++; t.col > MaxLineBytes {
+				t.err = &InputError{File: t.file, Line: t.lines + 1, Err: ErrTooLarge,
+					Msg: "line is longer than 1048576 bytes (1 MiB); is this a net file?"}
+				return w, t.err
+			}
+			p[w] = c
+			w++
+		}
+		if err != nil {
+			if !errors.Is(err, io.EOF) {
+				t.err = inputErr(t.file, t.lines+1, "", "read failed: %v", err)
+				return w, t.err
+			}
+			return w, err
+		}
+		if w > 0 || n == 0 {
+			return w, nil
+		}
+		// The chunk was only the LF of a CRLF pair: read on.
+	}
+}
+
+// lineReader yields the lines of a text file with their numbers, skipping
+// blank lines and comments.
+type lineReader struct {
+	br   *bufio.Reader
+	file string
+	line int
+	buf  []byte
+	csv  bool // comments are lines starting with '#' (else '#' starts a comment anywhere)
+	err  error
+}
+
+func newLineReader(r io.Reader, file string) *lineReader {
+	return &lineReader{br: bufio.NewReaderSize(newTextReader(r, file), 64<<10), file: file}
+}
+
+// readLine returns the next raw line without its line end, or io.EOF, or
+// an InputError.
+func (lr *lineReader) readLine() ([]byte, error) {
+	lr.buf = lr.buf[:0]
+	for {
+		b, err := lr.br.ReadSlice('\n')
+		lr.buf = append(lr.buf, b...)
+		switch {
+		case err == nil:
+			return lr.buf[:len(lr.buf)-1], nil
+		case errors.Is(err, bufio.ErrBufferFull):
+			continue // a line longer than the buffer; textReader caps it
+		case errors.Is(err, io.EOF) && len(lr.buf) > 0:
+			return lr.buf, nil // last line without a line end
+		}
+		return nil, err
+	}
+}
+
+// next returns the next line that is not blank and not a comment, trimmed
+// of surrounding space and (for OBJ and OFF) of a trailing '#' comment. At
+// the end, or on an error (kept in lr.err), it returns false.
+func (lr *lineReader) next() (string, bool) {
+	if lr.err != nil {
+		return "", false
+	}
+	for {
+		b, err := lr.readLine()
+		if err != nil {
+			if !errors.Is(err, io.EOF) {
+				lr.err = err
+			}
+			return "", false
+		}
+		lr.line++
+		if lr.line > MaxLines {
+			lr.err = &InputError{File: lr.file, Line: lr.line, Err: ErrTooLarge, Msg: "more than 10000000 lines, the most pqfab reads"}
+			return "", false
+		}
+		if !lr.csv {
+			if i := bytes.IndexByte(b, '#'); i >= 0 {
+				b = b[:i]
+			}
+		}
+		b = bytes.TrimSpace(b)
+		if len(b) == 0 || (lr.csv && b[0] == '#') {
+			continue
+		}
+		s := string(b)
+		if !utf8Text(s) {
+			lr.err = inputErr(lr.file, lr.line, "", "not a text line (binary data?)")
+			return "", false
+		}
+		return s, true
+	}
+}
+
+// utf8Text reports whether s holds printable text: no control bytes other
+// than tab, and valid UTF-8.
+func utf8Text(s string) bool {
+	for _, r := range s {
+		if r == 0xFFFD || (r < 0x20 && r != '\t') || r == 0x7f {
+			return false
+		}
+	}
+	return true
+}
+
+// splitCSV splits one CSV line into cells (RFC 4180 within the line: cells
+// separated by commas; a cell in double quotes may hold commas and doubled
+// quotes). A cell cannot hold a line break. It returns a message for a
+// malformed line.
+func splitCSV(s string, cells []string) ([]string, string) {
+	cells = cells[:0]
+	for k := 1; ; k++ {
+		if t := strings.TrimLeft(s, " \t"); strings.HasPrefix(t, `"`) {
+			var b strings.Builder
+			t = t[1:]
+			for {
+				i := strings.IndexByte(t, '"')
+				if i < 0 {
+					return nil, "cell " + strconv.Itoa(k) + ": the quote is not closed on this line (a cell cannot hold a line break)"
+				}
+				b.WriteString(t[:i])
+				t = t[i+1:]
+				if strings.HasPrefix(t, `"`) {
+					b.WriteByte('"')
+					t = t[1:]
+					continue
+				}
+				break
+			}
+			cells = append(cells, b.String())
+			t = strings.TrimLeft(t, " \t")
+			if t == "" {
+				return cells, ""
+			}
+			if t[0] != ',' {
+				return nil, "cell " + strconv.Itoa(k) + ": text after the closing quote"
+			}
+			s = t[1:]
+			continue
+		}
+		i := strings.IndexByte(s, ',')
+		cell := s
+		if i >= 0 {
+			cell = s[:i]
+		}
+		if strings.IndexByte(cell, '"') >= 0 {
+			return nil, "cell " + strconv.Itoa(k) + ": a quote inside a cell that does not start with one"
+		}
+		cells = append(cells, cell)
+		if i < 0 {
+			return cells, ""
+		}
+		s = s[i+1:]
+	}
+}
