@@ -26,21 +26,23 @@ func nearTestBudget(items int) int { return nearTestsBase + nearTestsPerItem*ite
 // spread out along it.
 var skewDir = r3.Unit(Vec{X: 0.5377, Y: 0.3112, Z: 0.7833})
 
-// coincidentNodes returns pairs (a, b), a < b, of nodes within tol, sorted
+// coincidentNodes returns pairs (a, b), a < b, of used nodes within tol, sorted
 // by b then a. It sorts the nodes by their projection on a skew direction
 // and compares only neighbours whose projections differ by at most tol,
 // so the work is V log V for any net that is not a cloud of
 // near-duplicates. It stops after MaxReportedPairs pairs (more reports
 // whether another pair exists) or after budget distance tests (done is
 // then false).
-func coincidentNodes(n *Net, tol float64, budget int) (pairs [][2]int, more, done bool) {
+func coincidentNodes(n *Net, used []bool, tol float64, budget int) (pairs [][2]int, more, done bool) {
 	type item struct {
 		proj float64
 		i    int
 	}
-	items := make([]item, len(n.Nodes))
+	items := make([]item, 0, len(n.Nodes))
 	for i, nd := range n.Nodes {
-		items[i] = item{r3.Dot(nd.Pos, skewDir), i}
+		if used[i] {
+			items = append(items, item{r3.Dot(nd.Pos, skewDir), i})
+		}
 	}
 	slices.SortFunc(items, func(a, b item) int { return cmp.Or(cmp.Compare(a.proj, b.proj), cmp.Compare(a.i, b.i)) })
 	tests := 0

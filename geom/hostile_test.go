@@ -263,6 +263,25 @@ func TestLimits(t *testing.T) {
 			}
 		}
 	})
+	t.Run("long line, CR line ends", func(t *testing.T) {
+		src := "v 0 0 0\rv 1 0 0\r\n" + strings.Repeat("x", MaxLineBytes+1) + "\rf 1 2 3\r"
+		_, err := ReadOBJ(strings.NewReader(src), "l.obj", MM)
+		if want := "l.obj:3: line is longer than 1048576 bytes (1 MiB); is this a net file?"; err == nil || err.Error() != want {
+			t.Errorf("got %v\nwant %s", err, want)
+		}
+	})
+	t.Run("file size", func(t *testing.T) {
+		// The mechanism, with a small limit: MaxFileBytes itself is 1 GiB.
+		tr := newTextReader(&endless{row: func(int) string { return "# 0123456789\n" }}, "big.obj")
+		tr.maxBytes = 1000
+		_, err := io.ReadAll(tr)
+		if want := "big.obj:77: the file is larger than 1000 bytes, the most pqfab reads"; err == nil || err.Error() != want || !errors.Is(err, ErrTooLarge) {
+			t.Errorf("got %v\nwant %s", err, want)
+		}
+		if got := byteSize(MaxFileBytes); got != "1 GiB" {
+			t.Errorf("MaxFileBytes is %s", got)
+		}
+	})
 	t.Run("endless CSV nodes", func(t *testing.T) {
 		nodes := &endless{head: "id,x,y,z\n", row: func(i int) string { return strconv.Itoa(i) + "," + strconv.Itoa(i) + ",0,0\n" }}
 		_, err := ReadCSV(nodes, "s-nodes.csv", strings.NewReader("id,a,b,c\n"), "s-panels.csv", MM)

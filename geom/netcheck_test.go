@@ -2,6 +2,7 @@ package geom
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"slices"
@@ -218,5 +219,63 @@ func TestLeastSquaresPlane(t *testing.T) {
 		if d := math.Abs(math.Abs(r3.Dot(n, fit.Normal)) - 1); d > 1e-9 || r3.Norm(r3.Sub(c, fit.Origin)) > 1e-9 {
 			t.Fatalf("trial %d: normal %v vs %v (1-|cos| = %g)", trial, n, fit.Normal, d)
 		}
+	}
+}
+
+// TestLongLists: messages list at most a few panels or groups, however
+// many there are.
+func TestLongLists(t *testing.T) {
+	var b strings.Builder
+	b.WriteString("v 0 0 0\nv 1000 0 0\n")
+	for i := 0; i < 20; i++ { // 20 triangles on edge 1–2: non-manifold
+		fmt.Fprintf(&b, "v 500 %d %d\nf 1 2 %d\n", 300+50*i, 100*i, i+3)
+	}
+	got := errorsOf(t, b.String(), DefaultValidateOptions())
+	want := "t.obj:8: panel 3: edge 1–2 is shared by 20 panels (1, 2, 3, 4, 5, 6, …); an edge may have at most two (non-manifold)"
+	if len(got) == 0 || got[0] != want {
+		t.Errorf("got %q\nwant %q", got, want)
+	}
+	b.Reset()
+	b.WriteString("v 0 0 0\n")
+	for i := 0; i < 10; i++ { // 10 triangles meeting only at node 1
+		a := float64(i) * 2 * math.Pi / 10
+		fmt.Fprintf(&b, "v %.3f %.3f 0\nv %.3f %.3f 0\nf 1 %d %d\n", 1000*math.Cos(a), 1000*math.Sin(a), 1000*math.Cos(a+0.3), 1000*math.Sin(a+0.3), 2*i+2, 2*i+3)
+	}
+	got = errorsOf(t, b.String(), DefaultValidateOptions())
+	want = "t.obj:1: node 1: panels around node 1 meet only at this node (a pinch): 10 groups (panels 1 | 2 | 3 | 4 | 5 | 6 | …); give each group its own node or join them through an edge"
+	if len(got) == 0 || got[0] != want {
+		t.Errorf("got %q\nwant %q", got, want)
+	}
+}
+
+func TestValidateOptions(t *testing.T) {
+	if err := DefaultValidateOptions().Validate(); err != nil {
+		t.Fatal(err)
+	}
+	for _, tc := range []struct {
+		mod  func(*ValidateOptions)
+		want string
+	}{
+		{func(o *ValidateOptions) { o.CoincidentTolMM = -1 }, "CoincidentTolMM: -1 must be a finite number, zero or more"},
+		{func(o *ValidateOptions) { o.MinAreaMM2 = math.NaN() }, "MinAreaMM2: NaN must be a finite number, zero or more"},
+		{func(o *ValidateOptions) { o.MaxMedianEdgeMM = 10 }, "MaxMedianEdgeMM: 10 is below MinMedianEdgeMM 30"},
+	} {
+		o := DefaultValidateOptions()
+		tc.mod(&o)
+		var fe *FieldError
+		if err := o.Validate(); !errors.As(err, &fe) || err.Error() != tc.want {
+			t.Errorf("got %v, want %s", err, tc.want)
+		}
+	}
+}
+
+// TestUnusedNotChecked: nodes in no panel are left out, so a stray node on
+// top of another or on an edge is only the unused-node warning.
+func TestUnusedNotChecked(t *testing.T) {
+	src := gridOBJ(2, 1, 1000) + "v 1000 0 0\nv 500 0 0\n"
+	n := mustRead(t, src)
+	_, fd := Validate(n, DefaultValidateOptions())
+	if fd.Err() != nil || len(fd.Warnings) != 1 || !strings.Contains(fd.Warnings[0].Msg, "2 nodes belong to no panel (ids 7, 8)") {
+		t.Errorf("got %v %v", fd.Err(), fd.Warnings)
 	}
 }

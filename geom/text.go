@@ -4,6 +4,7 @@ import (
 	"bufio"
 	"bytes"
 	"errors"
+	"fmt"
 	"io"
 	"strconv"
 	"strings"
@@ -24,6 +25,9 @@ const (
 	MaxNodes = 1_000_000
 	// MaxPanels is the most panels a net may have.
 	MaxPanels = 500_000
+	// MaxFileBytes is the largest net file pqfab reads (1 GiB, several
+	// times a net of MaxNodes and MaxPanels with texture and normal lines).
+	MaxFileBytes = 1 << 30
 	// MaxIDBytes is the longest node or panel id a CSV net may use.
 	MaxIDBytes = 64
 )
@@ -33,19 +37,22 @@ var bom = []byte("\ufeff")
 
 // textReader delivers a text file with every line end (LF, CRLF or a lone
 // CR) turned into LF and a leading byte-order mark dropped. It fails, with
-// an InputError wrapping ErrTooLarge, on a line longer than MaxLineBytes.
+// an InputError wrapping ErrTooLarge, on a line longer than MaxLineBytes
+// and after maxBytes bytes (MaxFileBytes).
 type textReader struct {
-	r       *bufio.Reader
-	file    string
-	lines   int  // line ends delivered
-	col     int  // bytes delivered on the current line
-	cr      bool // the last byte read was a CR
-	started bool
-	err     error
+	r        *bufio.Reader
+	file     string
+	maxBytes int64
+	total    int64 // bytes read
+	lines    int   // line ends delivered
+	col      int   // bytes delivered on the current line
+	cr       bool  // the last byte read was a CR
+	started  bool
+	err      error
 }
 
 func newTextReader(r io.Reader, file string) *textReader {
-	return &textReader{r: bufio.NewReaderSize(r, 64<<10), file: file}
+	return &textReader{r: bufio.NewReaderSize(r, 64<<10), file: file, maxBytes: MaxFileBytes}
 }
 
 func (t *textReader) Read(p []byte) (int, error) {
@@ -60,39 +67,89 @@ func (t *textReader) Read(p []byte) (int, error) {
 	}
 	for {
 		n, err := t.r.Read(p)
-		w := 0
-		for _, c := range p[:n] {
-			if c == '\n' && t.cr {
-				t.cr = false
-				continue // the LF of a CRLF pair
-			}
-			t.cr = c == '\r'
-			if c == '\r' {
-				c = '\n'
-			}
-			if c == '\n' {
-				t.lines++
-				t.col = 0
-			} else if t.col++; t.col > MaxLineBytes {
-				t.err = &InputError{File: t.file, Line: t.lines + 1, Err: ErrTooLarge,
-					Msg: "line is longer than 1048576 bytes (1 MiB); is this a net file?"}
-				return w, t.err
-			}
-			p[w] = c
-			w++
+		over := false
+		if rem := t.maxBytes - t.total; int64(n) > rem {
+			n, over = int(rem), true
 		}
-		if err != nil {
-			if !errors.Is(err, io.EOF) {
-				t.err = inputErr(t.file, t.lines+1, "", "read failed: %v", err)
-				return w, t.err
-			}
+		t.total += int64(n)
+		w, ok := t.convert(p[:n])
+		switch {
+		case !ok:
+			t.err = &InputError{File: t.file, Line: t.lines + 1, Err: ErrTooLarge,
+				Msg: fmt.Sprintf("line is longer than %d bytes (%s); is this a net file?", MaxLineBytes, byteSize(MaxLineBytes))}
+			return w, t.err
+		case over:
+			t.err = &InputError{File: t.file, Line: t.lines + 1, Err: ErrTooLarge,
+				Msg: fmt.Sprintf("the file is larger than %s, the most pqfab reads", byteSize(t.maxBytes))}
+			return w, t.err
+		case err != nil && !errors.Is(err, io.EOF):
+			t.err = inputErr(t.file, t.lines+1, "", "read failed: %v", err)
+			return w, t.err
+		case err != nil:
 			return w, err
-		}
-		if w > 0 || n == 0 {
+		case w > 0 || n == 0:
 			return w, nil
 		}
 		// The chunk was only the LF of a CRLF pair: read on.
 	}
+}
+
+// convert turns the line ends of b into LF in place, counting lines, and
+// returns the bytes to deliver. It stops (ok false) inside a line longer
+// than MaxLineBytes, after the bytes before that line.
+func (t *textReader) convert(b []byte) (w int, ok bool) {
+	if !t.cr && bytes.IndexByte(b, '\r') < 0 {
+		// Fast path: LF line ends only; nothing to rewrite.
+		for rest := b; ; {
+			i := bytes.IndexByte(rest, '\n')
+			seg := i
+			if i < 0 {
+				seg = len(rest)
+			}
+			if t.col+seg > MaxLineBytes {
+				return len(b) - len(rest), false
+			}
+			if i < 0 {
+				t.col += seg
+				return len(b), true
+			}
+			t.lines++
+			t.col = 0
+			rest = rest[i+1:]
+		}
+	}
+	lineStart := 0
+	for _, c := range b {
+		if c == '\n' && t.cr {
+			t.cr = false
+			continue // the LF of a CRLF pair
+		}
+		t.cr = c == '\r'
+		if c == '\r' {
+			c = '\n'
+		}
+		if c == '\n' {
+			t.lines++
+			t.col = 0
+			lineStart = w + 1
+		} else if t.col++; t.col > MaxLineBytes {
+			return lineStart, false
+		}
+		b[w] = c
+		w++
+	}
+	return w, true
+}
+
+// byteSize writes a power-of-two size for people: "1 MiB", "1 GiB".
+func byteSize(n int64) string {
+	switch {
+	case n >= 1<<30 && n%(1<<30) == 0:
+		return strconv.FormatInt(n>>30, 10) + " GiB"
+	case n >= 1<<20 && n%(1<<20) == 0:
+		return strconv.FormatInt(n>>20, 10) + " MiB"
+	}
+	return strconv.FormatInt(n, 10) + " bytes"
 }
 
 // lineReader yields the lines of a text file with their numbers, skipping

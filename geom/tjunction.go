@@ -20,7 +20,7 @@ const gridCellsPerAxis = 1 << 21
 // the nets' bounding box (any value away from 0, ½ and 1 will do).
 const gridShift = 0.37
 
-// tJunctions finds nodes within tol of an edge's open segment and farther
+// tJunctions finds used nodes within tol of an edge's open segment and farther
 // than tol from both its ends (nearer, they are coincident with an end).
 //
 // Nodes go into a uniform grid whose cell is at least the median edge,
@@ -30,7 +30,7 @@ const gridShift = 0.37
 // edge: linear expected time after a V log V sort. It stops after
 // MaxReportedPairs finds (more reports whether another exists) or after
 // budget cell visits and distance tests (done is then false).
-func tJunctions(n *Net, t *Topology, es edgeStats, tol float64, budget int) (found []tJunction, more, done bool) {
+func tJunctions(n *Net, t *Topology, used []bool, es edgeStats, tol float64, budget int) (found []tJunction, more, done bool) {
 	done = true
 	if len(t.Edges) == 0 || len(n.Nodes) == 0 {
 		return nil, false, true
@@ -94,7 +94,7 @@ func tJunctions(n *Net, t *Topology, es edgeStats, tol float64, budget int) (fou
 							continue
 						}
 						for _, p := range order[r[0]:r[1]] {
-							if int(p) == ed.A || int(p) == ed.B || stamp[p] == int32(e+1) {
+							if int(p) == ed.A || int(p) == ed.B || stamp[p] == int32(e+1) || !used[p] {
 								continue
 							}
 							stamp[p] = int32(e + 1)

@@ -2,6 +2,7 @@ package geom
 
 import (
 	"fmt"
+	"math"
 	"sort"
 	"strings"
 
@@ -44,6 +45,24 @@ type ValidateOptions struct {
 	// outside is in the wrong unit. Zero turns a bound off.
 	MinMedianEdgeMM float64
 	MaxMedianEdgeMM float64
+}
+
+// Validate reports the first bad value as a *FieldError: every value must
+// be a finite number, zero or more, and MaxMedianEdgeMM, when set, at
+// least MinMedianEdgeMM.
+func (o ValidateOptions) Validate() error {
+	for _, f := range []struct {
+		name string
+		v    float64
+	}{{"CoincidentTolMM", o.CoincidentTolMM}, {"MinAreaMM2", o.MinAreaMM2}, {"MinMedianEdgeMM", o.MinMedianEdgeMM}, {"MaxMedianEdgeMM", o.MaxMedianEdgeMM}} {
+		if !(f.v >= 0) || math.IsInf(f.v, 0) {
+			return FieldErrorf(f.name, "%g must be a finite number, zero or more", f.v)
+		}
+	}
+	if o.MaxMedianEdgeMM > 0 && o.MaxMedianEdgeMM < o.MinMedianEdgeMM {
+		return FieldErrorf("MaxMedianEdgeMM", "%g is below MinMedianEdgeMM %g", o.MaxMedianEdgeMM, o.MinMedianEdgeMM)
+	}
+	return nil
 }
 
 // DefaultValidateOptions returns the default tolerances.
@@ -95,6 +114,8 @@ func (e *ValidationError) Error() string {
 //     MinAreaMM2 (F);
 //   - coincident nodes (V log V sort, then at most nearTestBudget
 //     distance tests; at most MaxReportedPairs pairs are listed);
+//     nodes in no panel are left out of this check and the T-junction
+//     check, as DropUnused leaves them out of the net;
 //   - panels with the same corners (F), edges shared by more than two
 //     panels (E);
 //   - T-junctions: a node within CoincidentTolMM of another panel's edge,
@@ -106,7 +127,9 @@ func (e *ValidationError) Error() string {
 //   - warnings: nodes in no panel, disconnected parts, parts facing down
 //     (V + F + E).
 //
-// A check that runs out of its budget says so in a warning.
+// A check that runs out of its budget says so in a warning. opt should
+// pass ValidateOptions.Validate; other values give no useful findings
+// but never hang or panic.
 func Validate(n *Net, opt ValidateOptions) (*Topology, Findings) {
 	var fd Findings
 	file := n.Source
@@ -139,8 +162,9 @@ func Validate(n *Net, opt ValidateOptions) (*Topology, Findings) {
 			add(false, n.Faces[f].Line, faceElem(f), "area %.3g mm² is below %.3g mm² (degenerate panel)", a, opt.MinAreaMM2)
 		}
 	}
+	used := usedNodes(n) // nodes in no panel are left out: not checked below
 	budget := nearTestBudget(len(n.Nodes) + len(t.Edges))
-	pairs, more, done := coincidentNodes(n, opt.CoincidentTolMM, budget)
+	pairs, more, done := coincidentNodes(n, used, opt.CoincidentTolMM, budget)
 	for _, pair := range pairs {
 		a, b := pair[0], pair[1]
 		add(false, n.Nodes[b].Line, "node "+n.Nodes[b].ID, "coincides with node %s (line %d): %.4g mm apart, tolerance %.4g mm",
@@ -170,17 +194,13 @@ func Validate(n *Net, opt ValidateOptions) (*Topology, Findings) {
 	}
 	for _, e := range t.Edges {
 		if len(e.Faces) > 2 {
-			ids := make([]string, len(e.Faces))
-			for i, f := range e.Faces {
-				ids[i] = n.Faces[f].ID
-			}
 			add(false, n.Faces[e.Faces[2]].Line, faceElem(e.Faces[2]), "edge %s–%s is shared by %d panels (%s); an edge may have at most two (non-manifold)",
-				n.Nodes[e.A].ID, n.Nodes[e.B].ID, len(e.Faces), strings.Join(ids, ", "))
+				n.Nodes[e.A].ID, n.Nodes[e.B].ID, len(e.Faces), faceList(n, e.Faces))
 		}
 	}
 	var onEdge []bool // ends of edges with a T-junction: their pinch follows from it
 	if len(pairs) == 0 {
-		tj, more, done := tJunctions(n, t, es, opt.CoincidentTolMM, budget)
+		tj, more, done := tJunctions(n, t, used, es, opt.CoincidentTolMM, budget)
 		onEdge = make([]bool, len(n.Nodes))
 		for _, j := range tj {
 			e := t.Edges[j.edge]
@@ -206,7 +226,6 @@ func Validate(n *Net, opt ValidateOptions) (*Topology, Findings) {
 	if len(fd.Errors) == 0 {
 		checkOrientation(n, t, &fd)
 	}
-	used := usedNodes(n)
 	var unused []string
 	firstLine, cnt := 0, 0
 	for i, u := range used {
@@ -215,9 +234,9 @@ func Validate(n *Net, opt ValidateOptions) (*Topology, Findings) {
 				firstLine = n.Nodes[i].Line
 			}
 			cnt++
-			if len(unused) < 8 {
+			if len(unused) < maxListed {
 				unused = append(unused, n.Nodes[i].ID)
-			} else if len(unused) == 8 {
+			} else if len(unused) == maxListed {
 				unused = append(unused, "…")
 			}
 		}
@@ -245,28 +264,40 @@ func usedNodes(n *Net) []bool {
 	return used
 }
 
-// groupList names the panels of each group: "1, 2 | 3, 4", at most six
-// panels a group.
-func groupList(n *Net, groups [][]int) string {
-	s := make([]string, len(groups))
-	for i, g := range groups {
-		ids := make([]string, 0, len(g))
-		for k, f := range g {
-			if k == 6 {
-				ids = append(ids, "…")
-				break
-			}
-			ids = append(ids, n.Faces[f].ID)
+// maxListed is the most items a message lists before "…".
+const maxListed = 6
+
+// faceList names faces: "1, 2, 3", at most maxListed, then "…".
+func faceList(n *Net, faces []int) string {
+	ids := make([]string, 0, min(len(faces), maxListed+1))
+	for k, f := range faces {
+		if k == maxListed {
+			ids = append(ids, "…")
+			break
 		}
-		s[i] = strings.Join(ids, ", ")
+		ids = append(ids, n.Faces[f].ID)
+	}
+	return strings.Join(ids, ", ")
+}
+
+// groupList names the panels of each group: "1, 2 | 3, 4", at most
+// maxListed groups of at most maxListed panels.
+func groupList(n *Net, groups [][]int) string {
+	s := make([]string, 0, min(len(groups), maxListed+1))
+	for i, g := range groups {
+		if i == maxListed {
+			s = append(s, "…")
+			break
+		}
+		s = append(s, faceList(n, g))
 	}
 	return strings.Join(s, " | ")
 }
 
 func partSizes(parts [][]int) string {
-	s := make([]string, 0, len(parts))
+	s := make([]string, 0, min(len(parts), maxListed+1))
 	for i, p := range parts {
-		if i == 6 {
+		if i == maxListed {
 			s = append(s, "…")
 			break
 		}
