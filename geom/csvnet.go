@@ -157,6 +157,11 @@ func readCSVRows(r io.Reader, file string, row func(line int, rec []string) erro
 		if header {
 			header = false
 			if !strings.EqualFold(strings.TrimSpace(rec[0]), "id") {
+				for _, sep := range []struct{ c, name string }{{";", "semicolons"}, {"\t", "tabs"}} {
+					if len(rec) == 1 && strings.Contains(rec[0], sep.c) {
+						return inputErr(file, lr.line, "", "cells must be separated by commas; this file uses %s", sep.name)
+					}
+				}
 				return inputErr(file, lr.line, "", "first row must be a header starting with id, got %s", quote(rec[0]))
 			}
 			continue

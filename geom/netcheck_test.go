@@ -279,3 +279,25 @@ func TestUnusedNotChecked(t *testing.T) {
 		t.Errorf("got %v %v", fd.Err(), fd.Warnings)
 	}
 }
+
+// TestPinchInOnePart: a ring of panels whose two panels touch diagonally
+// at one node is one connected part, and the node is still a pinch.
+func TestPinchInOnePart(t *testing.T) {
+	lines := strings.Split(gridOBJ(3, 3, 1000), "\n")
+	var kept []string
+	for _, l := range lines {
+		// Drop the middle panel (nodes 6 7 11 10) and the top-right one.
+		if l != "f 6 7 11 10" && l != "f 11 12 16 15" {
+			kept = append(kept, l)
+		}
+	}
+	n := mustRead(t, strings.Join(kept, "\n"))
+	topo, fd := Validate(n, DefaultValidateOptions())
+	if parts := topo.Components(len(n.Faces)); len(parts) != 1 {
+		t.Fatalf("%d parts", len(parts))
+	}
+	want := "t.obj:11: node 11: panels around node 11 meet only at this node (a pinch): 2 groups (panels 5 | 7); give each group its own node or join them through an edge"
+	if len(fd.Errors) != 1 || fd.Errors[0].Error() != want {
+		t.Errorf("got %v\nwant %s", fd.Errors, want)
+	}
+}

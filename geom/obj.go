@@ -31,6 +31,9 @@ func ReadOBJ(r io.Reader, file string, unit Unit) (*Net, error) {
 			break
 		}
 		f := strings.Fields(s)
+		if f[len(f)-1] == `\` {
+			return nil, inputErr(file, lr.line, "", `the line ends in \ (continued on the next line), which pqfab does not read: join the lines`)
+		}
 		switch f[0] {
 		case "v":
 			id := strconv.Itoa(len(n.Nodes) + 1)
