@@ -27,8 +27,16 @@ func Canonical(n *Net) (c *Net, nodeFrom, faceFrom []int) {
 	}
 	slices.SortFunc(nodeFrom, func(a, b int) int {
 		pa, pb := n.Nodes[a].Pos, n.Nodes[b].Pos
-		return cmp.Or(cmp.Compare(pa.X, pb.X), cmp.Compare(pa.Y, pb.Y), cmp.Compare(pa.Z, pb.Z),
-			strings.Compare(n.Nodes[a].ID, n.Nodes[b].ID), cmp.Compare(a, b))
+		if c := cmp.Compare(pa.X, pb.X); c != 0 {
+			return c
+		}
+		if c := cmp.Compare(pa.Y, pb.Y); c != 0 {
+			return c
+		}
+		if c := cmp.Compare(pa.Z, pb.Z); c != 0 {
+			return c
+		}
+		return cmp.Or(strings.Compare(n.Nodes[a].ID, n.Nodes[b].ID), cmp.Compare(a, b))
 	})
 	newIdx := make([]int, len(n.Nodes))
 	c = &Net{Source: n.Source, Unit: n.Unit, Nodes: make([]Node, len(n.Nodes)), Faces: make([]Face, len(n.Faces))}
@@ -56,7 +64,10 @@ func Canonical(n *Net) (c *Net, nodeFrom, faceFrom []int) {
 		faceFrom[i] = i
 	}
 	slices.SortFunc(faceFrom, func(a, b int) int {
-		return cmp.Or(slices.Compare(rotated[a], rotated[b]), strings.Compare(n.Faces[a].ID, n.Faces[b].ID), cmp.Compare(a, b))
+		if c := slices.Compare(rotated[a], rotated[b]); c != 0 {
+			return c
+		}
+		return cmp.Or(strings.Compare(n.Faces[a].ID, n.Faces[b].ID), cmp.Compare(a, b))
 	})
 	for i, old := range faceFrom {
 		c.Faces[i] = Face{ID: n.Faces[old].ID, Line: n.Faces[old].Line, Corners: rotated[old]}
