@@ -30,6 +30,10 @@ const (
 	DefaultMaxMedianEdgeMM = 30_000.0
 )
 
+// MaxCoincidentTolMM is the largest coincidence tolerance accepted (100
+// mm): nodes that far apart are not one node entered twice.
+const MaxCoincidentTolMM = 100.0
+
 // MaxReportedPairs caps the coincident-node pairs and the T-junctions
 // Validate collects; past it, it reports that more exist and stops looking.
 const MaxReportedPairs = 100
@@ -58,6 +62,9 @@ func (o ValidateOptions) Validate() error {
 		if !(f.v >= 0) || math.IsInf(f.v, 0) {
 			return FieldErrorf(f.name, "%g must be a finite number, zero or more", f.v)
 		}
+	}
+	if o.CoincidentTolMM > MaxCoincidentTolMM {
+		return FieldErrorf("CoincidentTolMM", "%g must be between 0 and %g mm", o.CoincidentTolMM, MaxCoincidentTolMM)
 	}
 	if o.MaxMedianEdgeMM > 0 && o.MaxMedianEdgeMM < o.MinMedianEdgeMM {
 		return FieldErrorf("MaxMedianEdgeMM", "%g is below MinMedianEdgeMM %g", o.MaxMedianEdgeMM, o.MinMedianEdgeMM)

@@ -245,7 +245,7 @@ func TestBuildErrors(t *testing.T) {
 		args []string
 		want string
 	}{
-		{[]string{"build", "-q", filepath.Join(dir, "none.toml"), "-o", filepath.Join(dir, "o")}, "none.toml: no such file"},
+		{[]string{"build", "-q", filepath.Join(dir, "none.toml"), "-o", filepath.Join(dir, "o")}, "none.toml: file not found"},
 		{[]string{"build", "-q", job, "-o", filepath.Join(notDir, "out")}, "cannot write there"},
 		{[]string{"build", "-q", job, "-o", notDir}, "exists and is not a folder"},
 		{[]string{"build", "-q", job}, "build needs -o DIR"},

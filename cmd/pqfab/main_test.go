@@ -60,7 +60,7 @@ func TestCommandErrors(t *testing.T) {
 		{[]string{"frobnicate"}, `unknown command "frobnicate"`, 2},
 		{[]string{"inspect"}, "inspect takes one net file", 2},
 		{[]string{"inspect", "nowhere.obj"}, "nowhere.obj: file not found", 1},
-		{[]string{"inspect", "--unit", "ft", "x.obj"}, "--unit: geom: unknown unit", 2},
+		{[]string{"inspect", "--unit", "ft", "x.obj"}, "--unit: unknown unit", 2},
 		{[]string{"sample", "dome"}, "sample needs -o FILE", 2},
 		{[]string{"sample", "castle", "-o", "x.obj"}, "unknown sample", 2},
 		{[]string{"inspect", "../../geom/testdata/bad/flipped.obj"}, "flipped panel", 1},
