@@ -243,7 +243,7 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 <details><summary>Member types: {{len .R.MemberTypes}} for {{.R.Counts.Members}} members</summary>
 <table><tr><th>Type</th><th>Count</th><th>Cut length (mm)</th></tr>{{range .R.MemberTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
 <details><summary>Node types: {{len .R.NodeTypes}} for {{.R.Counts.Nodes}} nodes</summary>
-<table><tr><th>Type</th><th>Count</th><th>Valence</th></tr>{{range .R.NodeTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
+<table><tr><th>Type</th><th>Count</th><th>Members at node</th></tr>{{range .R.NodeTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
 <details><summary>Panel types: {{len .R.PanelTypes}} for {{.R.Counts.Panels}} panels</summary>
 <table><tr><th>Type</th><th>Count</th><th>Area (m²)</th></tr>{{range .R.PanelTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
 <h2>Stock sheets</h2>
