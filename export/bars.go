@@ -3,8 +3,6 @@ package export
 import (
 	"fmt"
 	"strings"
-
-	"pqfab/nodes/bars"
 )
 
 // BarStockRow sums up one bar stock of the cutting plan.
@@ -76,12 +74,4 @@ func barUse(b BarRow) string {
 		parts[i] = fmt.Sprintf("%s %.2f", p.Member, p.BlankMM)
 	}
 	return strings.Join(parts, "; ")
-}
-
-// planTotals returns the total bars, stock length, offcut and waste (mm).
-func planTotals(plan *bars.Plan) (n int, stockMM, offcutMM, wasteMM float64) {
-	if plan == nil {
-		return 0, 0, 0, 0
-	}
-	return len(plan.Bars), plan.StockMM, plan.OffcutMM, plan.WasteMM
 }

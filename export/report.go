@@ -93,16 +93,16 @@ type Planarity struct {
 
 // NodeRow is one node.
 type NodeRow struct {
-	Label   string     `json:"label"`
-	ID      string     `json:"id"`
-	Pos     [3]float64 `json:"position_mm"`
-	Axis    [3]float64 `json:"axis"`
-	MembersAtNode int  `json:"members_at_node"`
-	Type    string     `json:"type"`
-	Support bool       `json:"support"`
-	MoveMM  float64    `json:"move_mm"`
-	Move    [3]float64 `json:"move_vector_mm"`
-	Arms    []ArmRow   `json:"arms"`
+	Label         string     `json:"label"`
+	ID            string     `json:"id"`
+	Pos           [3]float64 `json:"position_mm"`
+	Axis          [3]float64 `json:"axis"`
+	MembersAtNode int        `json:"members_at_node"`
+	Type          string     `json:"type"`
+	Support       bool       `json:"support"`
+	MoveMM        float64    `json:"move_mm"`
+	Move          [3]float64 `json:"move_vector_mm"`
+	Arms          []ArmRow   `json:"arms"`
 }
 
 // ArmRow is one member at a node's hub.
@@ -114,18 +114,18 @@ type ArmRow struct {
 
 // MemberRow is one member.
 type MemberRow struct {
-	Label       string    `json:"label"`
-	NodeA       string    `json:"node_a"`
-	NodeB       string    `json:"node_b"`
-	LengthMM    float64   `json:"system_length_mm"`
-	CutLengthMM float64   `json:"cut_length_mm"`
-	TwistDeg    float64   `json:"twist_deg"`
+	Label       string  `json:"label"`
+	NodeA       string  `json:"node_a"`
+	NodeB       string  `json:"node_b"`
+	LengthMM    float64 `json:"system_length_mm"`
+	CutLengthMM float64 `json:"cut_length_mm"`
+	TwistDeg    float64 `json:"twist_deg"`
 	// FoldDeg is the fold between the two panels at the member: the signed
 	// angle between their normals, ridge positive (as for panel edges);
 	// 0 on the boundary.
-	FoldDeg float64 `json:"fold_deg"`
-	Type        string    `json:"type"`
-	Ends        [2]EndRow `json:"ends"`
+	FoldDeg float64   `json:"fold_deg"`
+	Type    string    `json:"type"`
+	Ends    [2]EndRow `json:"ends"`
 	// BlankMM is the length of bar the member is cut from: the cut length
 	// plus an allowance for each end cut. Bar names the bar of the cutting
 	// plan ("" without bar stock).
@@ -149,24 +149,24 @@ type EndRow struct {
 
 // PanelRow is one panel.
 type PanelRow struct {
-	Label            string        `json:"label"`
-	ID               string        `json:"id"`
-	Corners          []string      `json:"corners"`
-	Cut              CutRow        `json:"cut"` // the cut outline's numbers: what is ordered
-	GrainDeg         float64       `json:"grain_deg"`
-	AreaM2           float64       `json:"area_m2"`
-	PerimeterMM      float64       `json:"perimeter_mm"`
-	WeightKg         float64       `json:"weight_kg"`
-	FlatnessBeforeMM float64       `json:"flatness_before_mm"`
-	FlatnessMM       float64       `json:"flatness_mm"`
+	Label            string   `json:"label"`
+	ID               string   `json:"id"`
+	Corners          []string `json:"corners"`
+	Cut              CutRow   `json:"cut"` // the cut outline's numbers: what is ordered
+	GrainDeg         float64  `json:"grain_deg"`
+	AreaM2           float64  `json:"area_m2"`
+	PerimeterMM      float64  `json:"perimeter_mm"`
+	WeightKg         float64  `json:"weight_kg"`
+	FlatnessBeforeMM float64  `json:"flatness_before_mm"`
+	FlatnessMM       float64  `json:"flatness_mm"`
 	// Set-out (centre-line) numbers: edges (with their folds, bevels and
 	// neighbours), corner angles and diagonals of the set-out outline.
-	Edges            []EdgeRow     `json:"edges"`
-	AnglesDeg        []float64     `json:"corner_angles_deg"`
-	Diagonals        []DiagonalRow `json:"diagonals"`
-	Type             string        `json:"type"`
-	Sheet            string        `json:"sheet"`
-	Outline          [][2]float64  `json:"cut_outline_mm"`
+	Edges     []EdgeRow     `json:"edges"`
+	AnglesDeg []float64     `json:"corner_angles_deg"`
+	Diagonals []DiagonalRow `json:"diagonals"`
+	Type      string        `json:"type"`
+	Sheet     string        `json:"sheet"`
+	Outline   [][2]float64  `json:"cut_outline_mm"`
 }
 
 // CutRow holds a panel's cut-outline numbers: edge k runs from corner k

@@ -128,13 +128,6 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 	return writeSortedZip(w, buf.Bytes())
 }
 
-func nth[T any](xs []T, k int, get func(T) any) any {
-	if k < len(xs) {
-		return get(xs[k])
-	}
-	return nil
-}
-
 func typeRows(ts []TypeRow, partsSheet string) func(add func(row ...any) error) error {
 	return func(add func(row ...any) error) error {
 		for _, t := range ts {
