@@ -8,6 +8,7 @@ require (
 	github.com/xuri/excelize/v2 v2.11.1
 	github.com/yofu/dxf v0.0.0-20250421012503-acd811fa0dd4
 	golang.org/x/term v0.48.0
+	golang.org/x/text v0.43.0
 	gonum.org/v1/gonum v0.17.0
 	gonum.org/v1/plot v0.17.0
 )
@@ -30,5 +31,4 @@ require (
 	golang.org/x/image v0.44.0 // indirect
 	golang.org/x/net v0.62.0 // indirect
 	golang.org/x/sys v0.50.0 // indirect
-	golang.org/x/text v0.43.0 // indirect
 )

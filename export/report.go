@@ -47,9 +47,8 @@ type Report struct {
 	Weights        Weights        `json:"weights_kg"`
 	Cost           *Cost          `json:"cost,omitempty"`
 
-	stockInfo   []StockInfo // margins for the cut sheets
 	labelHeight float64
-	typeOf      map[string]string
+	panelOf     map[string]PanelRow // panel rows by label
 	planCentre  [2]float64
 	planLow     float64
 }
@@ -60,11 +59,6 @@ type Section struct {
 	DepthMM float64 `json:"depth"`
 }
 
-// StockInfo is what the cut sheets need of a stock size.
-type StockInfo struct {
-	Name     string
-	MarginMM float64
-}
 
 // Counts are the headline numbers.
 type Counts struct {
@@ -223,6 +217,8 @@ type SheetRow struct {
 	Stock       string         `json:"stock"`
 	WidthMM     float64        `json:"width_mm"`
 	HeightMM    float64        `json:"height_mm"`
+	MarginMM    float64        `json:"margin_mm"`
+	Rotation    string         `json:"rotation"` // free, quarter or grain (the grain runs along x)
 	Utilization float64        `json:"utilization"`
 	Placements  []PlacementRow `json:"placements"`
 }

@@ -61,7 +61,8 @@ func BuildReport(b *Bundle) *Report {
 		for _, c := range face.Corners {
 			row.Corners = append(row.Corners, nodeLabel(c))
 		}
-		row.Cut = CutRow{EdgesMM: round(fl.CutEdgeMM, lenDigits), AnglesDeg: round(fl.CutAngleDeg, angleDigits),
+		row.Diagonals = []DiagonalRow{}
+		row.Cut = CutRow{EdgesMM: round(fl.CutEdgeMM, lenDigits), AnglesDeg: round(fl.CutAngleDeg, angleDigits), Diagonals: []DiagonalRow{},
 			BoxMM: [2]float64{r(fl.BoxMM[0], lenDigits), r(fl.BoxMM[1], lenDigits)}}
 		for _, d := range fl.CutDiagonals {
 			row.Cut.Diagonals = append(row.Cut.Diagonals, DiagonalRow{From: nodeLabel(face.Corners[d.I]), To: nodeLabel(face.Corners[d.J]), MM: r(d.MM, lenDigits)})
@@ -110,7 +111,8 @@ func BuildReport(b *Bundle) *Report {
 	if nr := b.Nesting; nr != nil {
 		for si, sh := range nr.Sheets {
 			st := b.Stocks[sh.Stock]
-			row := SheetRow{Name: SheetName(si, len(nr.Sheets)), Stock: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM, Utilization: r(sh.Utilization, 4)}
+			row := SheetRow{Name: SheetName(si, len(nr.Sheets)), Stock: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM,
+				MarginMM: st.MarginMM, Rotation: string(st.Rotation), Utilization: r(sh.Utilization, 4)}
 			for _, p := range sh.Placements {
 				row.Placements = append(row.Placements, PlacementRow{Panel: b.Flats[p.Part].Label, X: r(p.X, lenDigits), Y: r(p.Y, lenDigits),
 					RotationDeg: r(p.RotationDeg, angleDigits), Mirrored: p.Mirrored, Outline: points(p.Outline)})
@@ -126,12 +128,13 @@ func BuildReport(b *Bundle) *Report {
 		rep.Counts.Sheets = len(nr.Sheets)
 		rep.Counts.Unplaced = len(nr.Unplaced)
 	}
+	rep.panelOf = make(map[string]PanelRow, len(rep.Panels))
+	for _, p := range rep.Panels {
+		rep.panelOf[p.Label] = p
+	}
 	rep.Weights = Weights{PanelsKg: r(rep.Weights.PanelsKg, weightDigits), MembersKg: r(rep.Weights.MembersKg, weightDigits),
 		TotalKg: r(rep.Weights.PanelsKg+rep.Weights.MembersKg, weightDigits)}
 	rep.Cost = b.Cost
-	for _, st := range b.Stocks {
-		rep.stockInfo = append(rep.stockInfo, StockInfo{Name: st.Name, MarginMM: st.MarginMM})
-	}
 	rep.planLayout()
 	return rep
 }
