@@ -16,8 +16,8 @@ import (
 
 // DXF layer names: our own, one concept each. Colours come from the layer.
 const (
-	LayerPlanMember  = "PQ-PLAN-MEMBER"  // members seen from above
-	LayerPlanPanel   = "PQ-PLAN-PANEL"   // panel outlines seen from above
+	LayerPlanMember  = "PQ-PLAN-MEMBER" // members seen from above
+	LayerPlanPanel   = "PQ-PLAN-PANEL"  // panel outlines seen from above
 	LayerNodeLabel   = "PQ-NODE-LABEL"
 	LayerMemberLabel = "PQ-MEMBER-LABEL"
 	LayerPanelLabel  = "PQ-PANEL-LABEL"
@@ -93,7 +93,6 @@ func warningLines(ws []string) []string {
 	}
 	return out
 }
-
 
 // WriteAssemblyDXF writes the assembly plan in mm: members and panel
 // outlines seen from above (z = 0) with node, member and panel labels on

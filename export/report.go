@@ -59,7 +59,6 @@ type Section struct {
 	DepthMM float64 `json:"depth"`
 }
 
-
 // Counts are the headline numbers.
 type Counts struct {
 	Nodes       int `json:"nodes"`
