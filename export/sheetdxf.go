@@ -90,12 +90,15 @@ func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
 			add(func() error {
 				cx, cy, size := labelSpot(p.Outline)
 				h := partTextHeight(size)
-				dir := 1.0
-				if math.Abs(math.Mod(p.RotationDeg+360, 360)-180) < 90 {
-					dir = -1 // turned half a turn: the grain runs the other way
+				// The panel's grain direction where the part lies: its
+				// own direction, mirrored if the part is, then turned.
+				g := panel[p.Panel].GrainDeg
+				if p.Mirrored {
+					g = 180 - g
 				}
-				y := cy - 2.2*h
-				return arrow(d, cx-dir*3*h, y, cx+dir*3*h, y, 0.8*h)
+				s, c := math.Sincos((g + p.RotationDeg) * math.Pi / 180)
+				x, y := cx, cy-2.2*h
+				return arrow(d, x-3*h*c, y-3*h*s, x+3*h*c, y+3*h*s, 0.8*h)
 			})
 		}
 	}

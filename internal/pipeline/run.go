@@ -146,7 +146,7 @@ func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 		}
 	}
 
-	res.Nesting, err = Nest(Parts(res.Flats), res.Stocks, obs)
+	res.Nesting, err = Nest(Parts(res.Flats), res.Flats, res.Stocks, obs)
 	if err != nil {
 		return nil, err
 	}
