@@ -173,3 +173,27 @@ func TestNestCommand(t *testing.T) {
 		t.Errorf("small sheet: %v %q", err, out)
 	}
 }
+
+// TestUnusedNodesLeftOut: a node that belongs to no panel is left out with
+// one warning, and the build goes on (one rule: the warning says so and the
+// outputs hold only the net's used nodes).
+func TestUnusedNodesLeftOut(t *testing.T) {
+	dir := t.TempDir()
+	net := goodQuad + "v 9000 9000 0\n"
+	for name, body := range map[string]string{"n.obj": net, "job.toml": jobFor("n.obj")} {
+		if err := os.WriteFile(filepath.Join(dir, name), []byte(body), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	out := filepath.Join(dir, "out")
+	_, stderr, err := runCmd(t, "build", "-q", filepath.Join(dir, "job.toml"), "-o", out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(stderr, "node 7: 1 node belongs to no panel (id 7); it is left out") {
+		t.Errorf("stderr %q", stderr)
+	}
+	if rep := loadReport(t, out); len(rep.Nodes) != 6 || len(rep.Warnings) == 0 {
+		t.Errorf("%d nodes in the report, warnings %v", len(rep.Nodes), rep.Warnings)
+	}
+}
