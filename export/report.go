@@ -46,12 +46,10 @@ type Report struct {
 	Unplaced    []UnplacedRow     `json:"unplaced"`
 	Stocks      []StockRow        `json:"stocks"`
 	Cost        *Cost             `json:"cost,omitempty"`
+	Bays        BayGrid           `json:"bays"`
 
-	stockInfo   []StockInfo // margins for the cut sheets
-	labelHeight float64
-	typeOf      map[string]string
-	planCentre  [2]float64
-	planLow     float64
+	stockInfo []StockInfo // margins for the cut sheets
+	typeOf    map[string]string
 }
 
 // Section is the members' cross-section (mm).
@@ -321,7 +319,8 @@ func BuildReport(b *Bundle) *Report {
 	for _, st := range b.Stocks {
 		rep.stockInfo = append(rep.stockInfo, StockInfo{Name: st.Name, MarginMM: st.MarginMM})
 	}
-	rep.planLayout()
+	rep.Bays = bayGridOf(b.Bays)
+	rep.Warnings = append(rep.Warnings, siteWarnings(rep)...)
 	return rep
 }
 

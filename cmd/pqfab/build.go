@@ -179,10 +179,10 @@ func build(job *Job, open func(string) (io.ReadCloser, error), netPath string, b
 	}
 
 	b := &export.Bundle{Title: job.Title, JobFile: job.file, NetFile: netPath, Settings: job.settings(), Warnings: warnings,
-		Net: flat, Supports: fixed, Planarize: pres, TolMM: job.Flatness.TolMM,
+		Net: flat, Bays: bays, Supports: fixed, Planarize: pres, TolMM: job.Flatness.TolMM,
 		Structure: st, Flats: flats, PanelTypes: ptypes, Stocks: stocks, Nesting: nres, Cost: job.cost(st, flats, nres, stocks)}
 	rep := export.BuildReport(b)
-	wbar := newProgress(stderr, bf.quiet, 5+len(rep.Sheets), "write")
+	wbar := newProgress(stderr, bf.quiet, 5+export.SiteFiles+len(rep.Sheets), "write")
 	err = export.WriteBuild(bf.out, b, rep, func(done, total int, what string) { wbar.set(done, "write "+what) })
 	wbar.done()
 	if err != nil {
