@@ -5,6 +5,7 @@ import (
 	"io"
 	"strings"
 	"time"
+	"unicode/utf8"
 
 	"github.com/go-pdf/fpdf"
 )
@@ -32,7 +33,7 @@ func newPDF(orientation string, size string, title, subject string) *fpdf.Fpdf {
 	pdf.SetMargins(0, 0, 0)
 	pdf.SetCreator("pqfab", false)
 	pdf.SetProducer("pqfab", false)
-	pdf.SetTitle(pdfPlain(title), false)
+	pdf.SetTitle(noControls(title), true)
 	pdf.SetSubject(subject, false)
 	return pdf
 }
@@ -78,16 +79,15 @@ func pdfText(s string) string {
 	return string(b)
 }
 
-// pdfPlain is s with control characters replaced, for the document
-// information (written as ASCII; other characters become '?').
-func pdfPlain(s string) string {
-	b := []byte(pdfText(s))
-	for i, c := range b {
-		if c >= 0x80 {
-			b[i] = '?'
+// noControls is s with control characters and invalid bytes replaced by
+// spaces, for the document information (which fpdf writes as UTF-16).
+func noControls(s string) string {
+	return strings.Map(func(c rune) rune {
+		if c < 0x20 || c == 0x7f || (c >= 0x80 && c < 0xa0) || c == utf8.RuneError {
+			return ' '
 		}
-	}
-	return string(b)
+		return c
+	}, s)
 }
 
 // fitText shortens already translated text with an ellipsis until it is at

@@ -286,6 +286,33 @@ func TestSitePDFsDeterministic(t *testing.T) {
 	}
 }
 
+// TestLongTitle: a title far too long for the title block, one word
+// without spaces and with characters outside code page 1252, still gives
+// the plan and the tags; the plan's title lines stay inside the column.
+func TestLongTitle(t *testing.T) {
+	rep := gridReport(t, 4, 4, 1500, 6000)
+	rep.Title = strings.Repeat("Überdachung日本", 40) + " " + strings.Repeat("x", 300)
+	var buf bytes.Buffer
+	for _, write := range []func() error{
+		func() error { return WritePlanPDF(&buf, rep) },
+		func() error { return WriteTagsPDF(&buf, rep) },
+		func() error { return WriteAssemblyDXF(&buf, rep) },
+		func() error { return WriteView(&buf, rep) },
+	} {
+		buf.Reset()
+		if err := write(); err != nil {
+			t.Fatal(err)
+		}
+	}
+	pdf := newPDF("L", "A3", "", "")
+	pdf.SetFont("Helvetica", "B", 10)
+	for _, l := range splitLines(pdf, pdfText(rep.Title), 100) {
+		if w := pdf.GetStringWidth(fitText(pdf, l, 100)); w > 100 {
+			t.Errorf("title line %.1f mm wide, want at most 100", w)
+		}
+	}
+}
+
 // TestSiteLimits: above the limits the PDFs hold one page saying so, and
 // the report carries a warning; at the limit they hold everything.
 func TestSiteLimits(t *testing.T) {

@@ -509,10 +509,10 @@ func drawSideColumn(pdf *fpdf.Fpdf, m *siteModel, k int, b *siteBay, v *pageView
 	title := pdfText(rep.Title)
 	lines := splitLines(pdf, title, iw)
 	if len(lines) > 2 {
-		lines = []string{lines[0], fitText(pdf, strings.Join(lines[1:], " "), iw)}
+		lines = []string{lines[0], strings.Join(lines[1:], " ")}
 	}
 	for _, l := range lines {
-		pdf.Text(in, y+3.5, l)
+		pdf.Text(in, y+3.5, fitText(pdf, l, iw))
 		y += 4.6
 	}
 	y += 1.5

@@ -110,7 +110,7 @@ func memberTag(mb MemberRow) tag {
 }
 
 func panelTag(p PanelRow) tag {
-	t := tag{label: p.Label, kind: "PANEL", typ: p.Type, bay: bayName(p.Label), note: "Corner 1 is marked on the cut sheet."}
+	t := tag{label: p.Label, kind: "PANEL", typ: p.Type, bay: bayName(p.Label), note: "Corners listed from corner 1, counter-clockwise seen from outside."}
 	t.lines = append(t.lines, "corners 1-"+fmt.Sprint(len(p.Corners))+": "+strings.Join(p.Corners, " "))
 	if p.Sheet != "" {
 		t.lines = append(t.lines, "sheet "+p.Sheet)

@@ -191,12 +191,7 @@ func WriteView(w io.Writer, rep *Report) error {
 			return errors.New("view.html: " + name + " holds text that would end its script element")
 		}
 	}
-	title := html.EscapeString(strings.Map(func(c rune) rune {
-		if c < 0x20 || c == 0x7f {
-			return ' '
-		}
-		return c
-	}, rep.Title))
+	title := html.EscapeString(noControls(rep.Title))
 	parts := []string{
 		"<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n",
 		"<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; script-src 'unsafe-inline' blob:; style-src 'unsafe-inline'; img-src data: blob:\">\n",
