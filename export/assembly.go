@@ -107,6 +107,10 @@ func newPlanScale(spanMM, sectionWidthMM float64) planScale {
 		bubble: 2 * h, pad: 0.15 * h, clear: sectionWidthMM/2 + 0.15*h, markR: 0.2 * h, gridOver: 4 * h}
 }
 
+// indexCellLabels is the cell size of the plan's label index, in node
+// label heights.
+const indexCellLabels = 4
+
 // planLabel is a label placed on the assembly plan, ready to draw: one or
 // two lines of text in a box.
 type planLabel struct {
@@ -339,7 +343,7 @@ func newAssemblyLayout(m *siteModel, ps planScale) *assemblyLayout {
 		pl.bubbles = append(pl.bubbles, bubble{bx0, y, name}, bubble{bx1, y, name})
 	}
 
-	ix := newBoxIndex(3 * ps.h)
+	ix := newBoxIndex(indexCellLabels*ps.h, [2]float64{bx0 - ps.bubble, by0 - ps.bubble}, [2]float64{bx1 + ps.bubble, by1 + ps.bubble})
 	for _, b := range pl.bubbles {
 		ix.add(axisBox(b.x, b.y, 2*ps.bubble, 2*ps.bubble))
 	}

@@ -70,32 +70,65 @@ func (b obox) edgePoint(p [2]float64) [2]float64 {
 	return [2]float64{b.cx + k*dx, b.cy + k*dy}
 }
 
-// boxIndex holds occupied rectangles in a uniform grid of square cells,
-// so a free-space test looks only at the rectangles near it. Lookups go by
-// cell; nothing iterates over the map, so results never depend on its
-// order.
+// boxIndex holds occupied rectangles in a uniform grid of square cells
+// over a fixed extent, so a free-space test looks only at the rectangles
+// near it. A rectangle reaching past the extent is filed under the border
+// cells, which keeps every test exact (only slower out there). Each cell
+// holds a linked list of entries in flat arrays: adding never allocates
+// per cell.
 type boxIndex struct {
-	cell  float64
-	cells map[[2]int32][]int32
-	boxes []obox
-	seen  []uint32 // per box, the query that last tested it
-	query uint32
+	cell      float64
+	x0, y0    float64 // lower-left corner of the extent
+	nx, ny    int32   // cells along x and y
+	head      []int32 // per cell, its first entry or -1
+	next, box []int32 // per entry: the next entry of its cell, and its rectangle
+	boxes     []obox
+	seen      []uint32 // per rectangle, the query that last tested it
+	query     uint32
 }
 
-func newBoxIndex(cell float64) *boxIndex {
-	return &boxIndex{cell: cell, cells: map[[2]int32][]int32{}}
+// maxIndexCells bounds the cells of an index; a larger extent gets larger
+// cells.
+const maxIndexCells = 1 << 24
+
+// newBoxIndex returns an index with cells of about side cell over the
+// extent lo–hi.
+func newBoxIndex(cell float64, lo, hi [2]float64) *boxIndex {
+	w, h := math.Max(hi[0]-lo[0], cell), math.Max(hi[1]-lo[1], cell)
+	if n := (w / cell) * (h / cell); n > maxIndexCells {
+		cell *= math.Sqrt(n / maxIndexCells)
+	}
+	ix := &boxIndex{cell: cell, x0: lo[0], y0: lo[1], nx: int32(math.Ceil(w/cell)) + 1, ny: int32(math.Ceil(h/cell)) + 1}
+	ix.head = make([]int32, int(ix.nx)*int(ix.ny))
+	for i := range ix.head {
+		ix.head[i] = -1
+	}
+	return ix
 }
 
 func (ix *boxIndex) cellRange(b obox) (i0, j0, i1, j1 int32) {
 	x0, y0, x1, y1 := b.bounds()
-	f := func(v float64) int32 { return int32(math.Floor(v / ix.cell)) }
-	return f(x0), f(y0), f(x1), f(y1)
+	f := func(v, o float64, n int32) int32 {
+		c := math.Floor((v - o) / ix.cell)
+		return int32(max(0, min(float64(n-1), c)))
+	}
+	return f(x0, ix.x0, ix.nx), f(y0, ix.y0, ix.ny), f(x1, ix.x0, ix.nx), f(y1, ix.y0, ix.ny)
 }
 
 // maxCellsPerBox bounds the cells one rectangle is filed under; a larger
 // rectangle (a member longer than many label heights) is filed under the
 // cells along its axis only, which still covers it as long as it is thin.
 const maxCellsPerBox = 4096
+
+func (ix *boxIndex) file(i, j, k int32) {
+	c := j*ix.nx + i
+	if h := ix.head[c]; h >= 0 && ix.box[h] == k {
+		return // filed here just before
+	}
+	ix.next = append(ix.next, ix.head[c])
+	ix.box = append(ix.box, k)
+	ix.head[c] = int32(len(ix.box) - 1)
+}
 
 func (ix *boxIndex) add(b obox) {
 	k := int32(len(ix.boxes))
@@ -105,10 +138,11 @@ func (ix *boxIndex) add(b obox) {
 	if int64(i1-i0+1)*int64(j1-j0+1) <= maxCellsPerBox {
 		for i := i0; i <= i1; i++ {
 			for j := j0; j <= j1; j++ {
-				// Skip cells the rectangle misses (long diagonal members).
-				c := axisBox((float64(i)+0.5)*ix.cell, (float64(j)+0.5)*ix.cell, ix.cell, ix.cell)
-				if b.overlaps(c) || i0 == i1 || j0 == j1 {
-					ix.cells[[2]int32{i, j}] = append(ix.cells[[2]int32{i, j}], k)
+				// Skip cells a slanted rectangle misses (long diagonal
+				// members); border cells also hold what lies beyond.
+				if i0 == i1 || j0 == j1 || i == 0 || j == 0 || i == ix.nx-1 || j == ix.ny-1 ||
+					b.overlaps(axisBox(ix.x0+(float64(i)+0.5)*ix.cell, ix.y0+(float64(j)+0.5)*ix.cell, ix.cell, ix.cell)) {
+					ix.file(i, j, k)
 				}
 			}
 		}
@@ -116,22 +150,15 @@ func (ix *boxIndex) add(b obox) {
 	}
 	// Walk along the axis in half-cell steps, filing the cells around.
 	steps := int(math.Ceil(2*b.hw/(ix.cell/2))) + 1
-	last := [2]int32{math.MaxInt32, math.MaxInt32}
 	for s := 0; s <= steps; s++ {
 		t := -b.hw + 2*b.hw*float64(s)/float64(steps)
 		sub := obox{cx: b.cx + t*b.ux, cy: b.cy + t*b.uy, ux: b.ux, uy: b.uy, hw: ix.cell / 2, hh: b.hh}
 		a0, c0, a1, c1 := ix.cellRange(sub)
 		for i := a0; i <= a1; i++ {
 			for j := c0; j <= c1; j++ {
-				if key := [2]int32{i, j}; key != last {
-					list := ix.cells[key]
-					if len(list) == 0 || list[len(list)-1] != k {
-						ix.cells[key] = append(list, k)
-					}
-				}
+				ix.file(i, j, k)
 			}
 		}
-		last = [2]int32{a1, c1}
 	}
 }
 
@@ -139,9 +166,10 @@ func (ix *boxIndex) add(b obox) {
 func (ix *boxIndex) free(b obox) bool {
 	ix.query++
 	i0, j0, i1, j1 := ix.cellRange(b)
-	for i := i0; i <= i1; i++ {
-		for j := j0; j <= j1; j++ {
-			for _, k := range ix.cells[[2]int32{i, j}] {
+	for j := j0; j <= j1; j++ {
+		for i := i0; i <= i1; i++ {
+			for e := ix.head[j*ix.nx+i]; e >= 0; e = ix.next[e] {
+				k := ix.box[e]
 				if ix.seen[k] == ix.query {
 					continue
 				}

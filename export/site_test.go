@@ -3,6 +3,7 @@ package export
 import (
 	"bytes"
 	"fmt"
+	"io"
 	"math"
 	"math/rand/v2"
 	"strings"
@@ -214,7 +215,7 @@ func TestOboxOverlaps(t *testing.T) {
 // seed) and checks every pair of boxes by brute force, without the index.
 func TestPlacerNoOverlap(t *testing.T) {
 	rng := rand.New(rand.NewPCG(9, 2))
-	ix := newBoxIndex(3)
+	ix := newBoxIndex(3, [2]float64{-10, -10}, [2]float64{110, 110})
 	var obstacles []obox
 	for range 300 {
 		a := [2]float64{rng.Float64() * 100, rng.Float64() * 100}
@@ -395,3 +396,21 @@ func BenchmarkAssemblyLayout(b *testing.B) {
 		newAssemblyLayout(m, ps)
 	}
 }
+
+// Benchmarks of the site PDFs and the 3D view on a 40 × 40 grid (1600
+// nodes, 3120 members, 1521 panels: 6241 tags, 100 bay pages).
+func benchSite(b *testing.B, write func(io.Writer, *Report) error) {
+	rep := gridReport(b, 40, 40, 1500, 6000)
+	var buf bytes.Buffer
+	for b.Loop() {
+		buf.Reset()
+		if err := write(&buf, rep); err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(buf.Len())/1e6, "MB")
+}
+
+func BenchmarkTagsPDF1600(b *testing.B) { benchSite(b, WriteTagsPDF) }
+func BenchmarkPlanPDF1600(b *testing.B) { benchSite(b, WritePlanPDF) }
+func BenchmarkView1600(b *testing.B)    { benchSite(b, WriteView) }

@@ -179,7 +179,7 @@ func drawBayPage(pdf *fpdf.Fpdf, m *siteModel, members map[[2]int][]int, k int, 
 			}
 		}
 	}
-	sortInts(near)
+	slices.Sort(near)
 	nearNodes := map[int]bool{}
 	for _, i := range near {
 		nearNodes[m.nodeIdx[rep.Members[i].NodeA]] = true
@@ -190,7 +190,7 @@ func drawBayPage(pdf *fpdf.Fpdf, m *siteModel, members map[[2]int][]int, k int, 
 	// dots; then the labels in label order: nodes, members, panels.
 	const clear, dot = 0.7, 0.9
 	a := v.area
-	ix := newBoxIndex(8)
+	ix := newBoxIndex(8, [2]float64{0, 0}, [2]float64{planPageW, planPageH})
 	big := 1000.0
 	ix.add(axisBox(a[0]-big/2, (a[1]+a[3])/2, big, big))
 	ix.add(axisBox(a[2]+big/2, (a[1]+a[3])/2, big, big))
@@ -610,8 +610,6 @@ func drawKeyPlan(pdf *fpdf.Fpdf, m *siteModel, b *siteBay, x, y, w, h float64) {
 		}
 	}
 }
-
-func sortInts(a []int) { slices.Sort(a) }
 
 func sortedKeys(m map[int]bool) []int {
 	out := make([]int, 0, len(m))
