@@ -51,10 +51,17 @@ func dxfText(s string) string {
 // wrapWords splits s into lines of at most width characters at spaces (a
 // longer word stands alone on its line).
 func wrapWords(s string, width int) []string {
+	return wrapFields(s, func(line string) bool { return utf8.RuneCountInString(line) <= width })
+}
+
+// wrapFields joins the space-separated words of s into lines, starting a
+// new line where adding the next word would make fits false (a word
+// that does not fit alone still stands on its own line).
+func wrapFields(s string, fits func(line string) bool) []string {
 	var lines []string
 	line := ""
 	for _, w := range strings.Fields(s) {
-		if line != "" && utf8.RuneCountInString(line)+1+utf8.RuneCountInString(w) > width {
+		if line != "" && !fits(line+" "+w) {
 			lines = append(lines, line)
 			line = ""
 		}

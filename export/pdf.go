@@ -118,20 +118,5 @@ func fontSizeToFit(pdf *fpdf.Fpdf, family, style string, size float64, s string,
 // current font, at spaces (a longer word stands alone). fpdf's SplitText
 // reads its input as UTF-8, so it cannot take code page 1252 bytes.
 func splitLines(pdf *fpdf.Fpdf, s string, w float64) []string {
-	var lines []string
-	line := ""
-	for _, word := range strings.Fields(s) {
-		if line != "" && pdf.GetStringWidth(line+" "+word) > w {
-			lines = append(lines, line)
-			line = ""
-		}
-		if line != "" {
-			line += " "
-		}
-		line += word
-	}
-	if line != "" {
-		lines = append(lines, line)
-	}
-	return lines
+	return wrapFields(s, func(line string) bool { return pdf.GetStringWidth(line) <= w })
 }

@@ -116,6 +116,26 @@ func TestDXFText(t *testing.T) {
 	}
 }
 
+func TestWrapWords(t *testing.T) {
+	tests := []struct {
+		in    string
+		width int
+		want  []string
+	}{
+		{"a bb ccc dddd", 6, []string{"a bb", "ccc", "dddd"}},
+		{"  one   two  ", 20, []string{"one two"}},
+		{"averyveryverylongword x", 5, []string{"averyveryverylongword", "x"}},
+		{"é é é", 3, []string{"é é", "é"}},
+		{"", 5, nil},
+	}
+	for _, tc := range tests {
+		got := wrapWords(tc.in, tc.width)
+		if strings.Join(got, "|") != strings.Join(tc.want, "|") || len(got) != len(tc.want) {
+			t.Errorf("wrapWords(%q, %d) = %q, want %q", tc.in, tc.width, got, tc.want)
+		}
+	}
+}
+
 func TestPDFText(t *testing.T) {
 	tests := []struct{ in, want string }{
 		{"Vault A", "Vault A"},
