@@ -29,6 +29,7 @@ type Bundle struct {
 	Planarize *panels.PlanarizeResult
 	TolMM     float64
 
+	Bays       geom.Bays // the plan bays of the labels
 	Structure  *nodes.Structure
 	Flats      []panels.Flat // one per face
 	PanelTypes []panels.Type

@@ -46,11 +46,9 @@ type Report struct {
 	PanelSpec      PanelSpec      `json:"panel_spec"`
 	Weights        Weights        `json:"weights_kg"`
 	Cost           *Cost          `json:"cost,omitempty"`
+	Bays           BayGrid        `json:"bays"`
 
-	labelHeight float64
-	panelOf     map[string]PanelRow // panel rows by label
-	planCentre  [2]float64
-	planLow     float64
+	panelOf map[string]PanelRow // panel rows by label
 }
 
 // Section is the members' cross-section (mm).

@@ -135,7 +135,8 @@ func BuildReport(b *Bundle) *Report {
 	rep.Weights = Weights{PanelsKg: r(rep.Weights.PanelsKg, weightDigits), MembersKg: r(rep.Weights.MembersKg, weightDigits),
 		TotalKg: r(rep.Weights.PanelsKg+rep.Weights.MembersKg, weightDigits)}
 	rep.Cost = b.Cost
-	rep.planLayout()
+	rep.Bays = bayGridOf(b.Bays)
+	rep.Warnings = append(rep.Warnings, siteWarnings(rep)...)
 	return rep
 }
 

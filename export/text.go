@@ -37,7 +37,7 @@ func dxfText(s string) string {
 			} else {
 				fmt.Fprintf(&b, `\U+%04X`, r)
 			}
-		case r == '\\':
+		case r == '\\' || r == '^': // the escape's own sign, and the caret of TEXT control codes
 			fmt.Fprintf(&b, `\U+%04X`, r)
 		case r == '%' && (strings.HasPrefix(s[i:], "%%") || (i > 0 && s[i-1] == '%')):
 			b.WriteString("%%%")

@@ -197,7 +197,7 @@ func cutPlan(j *job.Job, res *Result, obs Observer, pol Policy, warn func(string
 // Bundle returns what the writers need.
 func (r *Result) Bundle() *export.Bundle {
 	return &export.Bundle{Title: r.Job.Title, JobFile: r.Job.File, NetFile: r.NetPath, Settings: settings(r.Job), Warnings: r.Warnings,
-		Net: r.Net, Supports: r.Supports, Planarize: r.Planarize, TolMM: r.Job.Flatness.TolMM,
+		Net: r.Net, Bays: r.Bays, Supports: r.Supports, Planarize: r.Planarize, TolMM: r.Job.Flatness.TolMM,
 		Structure: r.Structure, Flats: r.Flats, PanelTypes: r.PanelTypes, Stocks: r.Stocks, Nesting: r.Nesting, Cost: r.Cost,
 		BarStocks: r.BarStocks, Blanks: r.Blanks, BarPlan: r.BarPlan,
 		MemberMaterial: r.Job.Member.Material, MemberDensityKgM3: r.Job.Member.DensityKgM3,
