@@ -439,9 +439,11 @@ func titleBlock(rep *Report, ps planScale, x, top, width float64) ([]planText, [
 	y -= 3.5 * ps.h
 	ch := 1.6 * ps.h
 	chars := max(20, int((width-4*ps.h)/(DXFCharWidth*ch)))
-	for _, l := range wrapWords("CAUTION: "+Caution, chars) {
-		out = append(out, planText{l, left, y, ch})
-		y -= 2.6 * ps.h
+	for _, para := range append([]string{"CAUTION: " + Caution}, warningLines(rep.Warnings)...) {
+		for _, l := range wrapWords(para, chars) {
+			out = append(out, planText{l, left, y, ch})
+			y -= 2.6 * ps.h
+		}
 	}
 	bottom := y - ps.h
 	return out, rectPts(x, bottom, x+width, top)

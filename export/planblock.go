@@ -160,6 +160,9 @@ func drawSideColumn(pdf *fpdf.Fpdf, m *siteModel, k int, b *siteBay, v *pageView
 	bottom := planPageH - planMarginMM - 3
 	pdf.SetFont("Helvetica", "", 6.5)
 	caution := splitLines(pdf, pdfText("CAUTION: "+Caution), iw)
+	for _, wl := range warningLines(m.rep.Warnings) {
+		caution = append(caution, splitLines(pdf, pdfText(wl), iw)...)
+	}
 	top := bottom - float64(len(caution))*2.9 - 9
 	pdf.SetLineWidth(0.25)
 	pdf.Line(x0, top-2, x0+w, top-2)

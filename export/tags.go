@@ -53,6 +53,12 @@ func WriteTagsPDF(w io.Writer, rep *Report) error {
 			"print tags from those in batches.", total, len(rep.Nodes), len(rep.Members), len(rep.Panels), MaxTags))
 		return writePDF(w, pdf)
 	}
+	if len(rep.Warnings) > 0 {
+		// A plain cover sheet: warnings have no place on the labels.
+		pdf.AddPage()
+		limitPage(pdf, TagSheetW, rep.Title, "Print this page on plain paper: the job was built with warnings, "+
+			"which every output carries:\n"+strings.Join(warningLines(rep.Warnings), "\n"))
+	}
 	k := 0
 	put := func(t tag) error {
 		if k%(TagCols*TagRows) == 0 {

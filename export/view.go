@@ -31,6 +31,7 @@ var (
 type viewData struct {
 	Title     string      `json:"title"`
 	Caution   string      `json:"caution"`
+	Warnings  []string    `json:"warnings"`
 	Hub       string      `json:"hub"`
 	Numbering string      `json:"numbering"`
 	Centre    [3]float64  `json:"centre"`
@@ -71,7 +72,7 @@ type viewPanels struct {
 }
 
 func newViewData(rep *Report) (*viewData, error) {
-	d := &viewData{Title: rep.Title, Caution: Caution, Hub: HubFrameNote, Numbering: NumberingNote}
+	d := &viewData{Title: rep.Title, Caution: Caution, Warnings: warningLines(rep.Warnings), Hub: HubFrameNote, Numbering: NumberingNote}
 	nodeIdx := make(map[string]int, len(rep.Nodes))
 	lo, hi := [3]float64{math.Inf(1), math.Inf(1), math.Inf(1)}, [3]float64{math.Inf(-1), math.Inf(-1), math.Inf(-1)}
 	for i, n := range rep.Nodes {

@@ -6,7 +6,7 @@
   const $ = (id) => document.getElementById(id);
   const status = (text, bad) => { $('status').textContent = text; $('status').style.color = bad ? '#a00' : '#555'; };
   const D = JSON.parse($('data').textContent);
-  $('caution').textContent = 'Caution: ' + D.caution;
+  $('caution').textContent = 'Caution: ' + D.caution + (D.warnings && D.warnings.length ? ' ' + D.warnings.join(' ') : '');
 
   let THREE, OrbitControls;
   try {
