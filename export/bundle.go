@@ -2,6 +2,7 @@ package export
 
 import (
 	"math"
+	"pqfab/nodes/bars"
 	"strconv"
 
 	"pqfab/geom"
@@ -28,6 +29,7 @@ type Bundle struct {
 	Planarize *panels.PlanarizeResult
 	TolMM     float64
 
+	Bays           geom.Bays // the plan bays of the labels
 	Structure      *nodes.Structure
 	Flats          []panels.Flat // one per face
 	PanelTypes     []panels.Type
@@ -36,7 +38,34 @@ type Bundle struct {
 	Stocks  []nest.Stock
 	Nesting *nest.Result // part i is face i
 
+	Blanks            []bars.Piece // piece i is member i: its blank
+	BarStocks         []bars.Stock
+	BarPlan           *bars.Plan // nil without bar stock
+	MemberMaterial    string
+	MemberDensityKgM3 float64
+
+	PanelSpec PanelSpec            // for every panel type
+	TypeSpecs map[string]PanelSpec // overrides for named panel types
+
 	Cost *Cost // nil when the job gives no rates
+}
+
+// PanelSpec is a panel's plain-text specification, as the job gives it.
+type PanelSpec struct {
+	BuildUp       string `json:"build_up,omitempty"`
+	EdgeWork      string `json:"edge_work,omitempty"`
+	Coating       string `json:"coating,omitempty"`
+	HeatTreatment string `json:"heat_treatment,omitempty"`
+	Grade         string `json:"grade,omitempty"`
+}
+
+// specOf returns the specification of a panel type: the type's own where
+// the job gives one, else the job's.
+func (b *Bundle) specOf(typeName string) PanelSpec {
+	if s, ok := b.TypeSpecs[typeName]; ok {
+		return s
+	}
+	return b.PanelSpec
 }
 
 // Setting is one job setting shown in the summary.

@@ -2,8 +2,6 @@ package export
 
 import (
 	"fmt"
-	"io"
-	"math"
 	"sync"
 
 	"github.com/yofu/dxf"
@@ -16,12 +14,8 @@ import (
 
 // DXF layer names: our own, one concept each. Colours come from the layer.
 const (
-	LayerSheetEdge   = "PQ-SHEET-EDGE"   // outline of the stock sheet
-	LayerSheetMargin = "PQ-SHEET-MARGIN" // edge of the usable area
-	LayerCut         = "PQ-CUT"          // panel cut outlines
-	LayerPartLabel   = "PQ-PART-LABEL"   // panel labels on cut sheets
-	LayerPlanMember  = "PQ-PLAN-MEMBER"  // members seen from above
-	LayerPlanPanel   = "PQ-PLAN-PANEL"   // panel outlines seen from above
+	LayerPlanMember  = "PQ-PLAN-MEMBER" // members seen from above
+	LayerPlanPanel   = "PQ-PLAN-PANEL"  // panel outlines seen from above
 	LayerNodeLabel   = "PQ-NODE-LABEL"
 	LayerMemberLabel = "PQ-MEMBER-LABEL"
 	LayerPanelLabel  = "PQ-PANEL-LABEL"
@@ -81,62 +75,6 @@ func rectPts(x0, y0, x1, y1 float64) [][2]float64 {
 	return [][2]float64{{x0, y0}, {x1, y0}, {x1, y1}, {x0, y1}}
 }
 
-// WriteSheetDXF writes one stock sheet as a cut sheet in mm: the sheet
-// outline, the usable area inside the margin, every part's cut outline
-// where it lies, and its label and type at its centre.
-func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
-	dxfMu.Lock()
-	defer dxfMu.Unlock()
-	s := rep.Sheets[sheet]
-	d, err := newDrawing([]dxfLayer{{LayerSheetEdge, color.Grey128}, {LayerSheetMargin, color.Cyan},
-		{LayerCut, color.Red}, {LayerPartLabel, color.Green}, {LayerTitle, color.White}})
-	if err != nil {
-		return err
-	}
-	margin := stockMargin(rep, s)
-	steps := []func() error{
-		func() error { return useLayer(d, LayerSheetEdge) },
-		func() error { return closedPoly(d, rectPts(0, 0, s.WidthMM, s.HeightMM)) },
-		func() error { return useLayer(d, LayerSheetMargin) },
-		func() error { return closedPoly(d, rectPts(margin, margin, s.WidthMM-margin, s.HeightMM-margin)) },
-		func() error { return useLayer(d, LayerCut) },
-	}
-	for _, p := range s.Placements {
-		p := p
-		steps = append(steps, func() error { return closedPoly(d, p.Outline) })
-	}
-	steps = append(steps, func() error { return useLayer(d, LayerPartLabel) })
-	panelType := rep.panelTypes()
-	for _, p := range s.Placements {
-		p := p
-		steps = append(steps, func() error {
-			cx, cy, size := labelSpot(p.Outline)
-			h := math.Max(10, math.Min(80, size/12))
-			if err := text(d, p.Panel, cx, cy+0.7*h, 0, h, 0); err != nil {
-				return err
-			}
-			return text(d, panelType[p.Panel], cx, cy-0.7*h, 0, 0.6*h, 0)
-		})
-	}
-	steps = append(steps, func() error { return useLayer(d, LayerTitle) },
-		func() error {
-			return text(d, fmt.Sprintf("%s  %s  %s %g x %g mm  %d parts  %.1f %%", rep.Title, s.Name, s.Stock, s.WidthMM, s.HeightMM, len(s.Placements), 100*s.Utilization),
-				s.WidthMM/2, -60, 0, 30, 0)
-		},
-		func() error { return text(d, "CAUTION: "+Caution, s.WidthMM/2, -110, 0, 14, 0) })
-	for i, w := range warningLines(rep.Warnings) {
-		steps = append(steps, func() error { return text(d, w, s.WidthMM/2, -150-30*float64(i), 0, 14, 0) })
-	}
-	for _, st := range steps {
-		if err := st(); err != nil {
-			return err
-		}
-	}
-	d.SetExt()
-	_, err = d.WriteTo(w)
-	return err
-}
-
 // maxWarningLines is the most warnings a drawing's title block lists;
 // report.json and the schedule list them all.
 const maxWarningLines = 5
@@ -152,167 +90,4 @@ func warningLines(ws []string) []string {
 		out = append(out, "WARNING: "+w)
 	}
 	return out
-}
-
-// panelTypes maps panel labels to type names, built once per report.
-func (rep *Report) panelTypes() map[string]string {
-	if rep.typeOf == nil {
-		rep.typeOf = make(map[string]string, len(rep.Panels))
-		for _, p := range rep.Panels {
-			rep.typeOf[p.Label] = p.Type
-		}
-	}
-	return rep.typeOf
-}
-
-// stockMargin finds the margin of a sheet's stock in the report settings
-// (carried in the sheet row's stock name).
-func stockMargin(rep *Report, s SheetRow) float64 {
-	for _, st := range rep.stockInfo {
-		if st.Name == s.Stock {
-			return st.MarginMM
-		}
-	}
-	return 0
-}
-
-// labelSpot returns the centroid of an outline and its size.
-func labelSpot(pts [][2]float64) (x, y, size float64) {
-	var a, cx, cy float64
-	lox, loy, hix, hiy := math.Inf(1), math.Inf(1), math.Inf(-1), math.Inf(-1)
-	for i, p := range pts {
-		q := pts[(i+1)%len(pts)]
-		c := p[0]*q[1] - q[0]*p[1]
-		a += c
-		cx += (p[0] + q[0]) * c
-		cy += (p[1] + q[1]) * c
-		lox, loy = math.Min(lox, p[0]), math.Min(loy, p[1])
-		hix, hiy = math.Max(hix, p[0]), math.Max(hiy, p[1])
-	}
-	if a == 0 {
-		return (lox + hix) / 2, (loy + hiy) / 2, 0
-	}
-	return cx / (3 * a), cy / (3 * a), math.Min(hix-lox, hiy-loy)
-}
-
-// WriteAssemblyDXF writes the assembly plan in mm: members and panel
-// outlines seen from above (z = 0) with node, member and panel labels on
-// their own layers, and every member as a 3D line at its true height.
-func WriteAssemblyDXF(w io.Writer, rep *Report) error {
-	dxfMu.Lock()
-	defer dxfMu.Unlock()
-	d, err := newDrawing([]dxfLayer{{LayerPlanMember, color.White}, {LayerPlanPanel, color.Grey128},
-		{LayerNodeLabel, color.Red}, {LayerMemberLabel, color.Yellow}, {LayerPanelLabel, color.Green},
-		{Layer3DMember, color.Blue}, {LayerPlanBar, color.Cyan}, {LayerTitle, color.White}})
-	if err != nil {
-		return err
-	}
-	pos := make(map[string][3]float64, len(rep.Nodes))
-	for _, n := range rep.Nodes {
-		pos[n.Label] = n.Pos
-	}
-	var steps []func() error
-	add := func(f func() error) { steps = append(steps, f) }
-	add(func() error { return useLayer(d, LayerPlanMember) })
-	for _, m := range rep.Members {
-		a, b := pos[m.NodeA], pos[m.NodeB]
-		add(func() error {
-			_, err := d.Line(r(a[0], dxfDigits), r(a[1], dxfDigits), 0, r(b[0], dxfDigits), r(b[1], dxfDigits), 0)
-			return err
-		})
-	}
-	add(func() error { return useLayer(d, LayerPlanPanel) })
-	for _, p := range rep.Panels {
-		pts := make([][2]float64, len(p.Corners))
-		for i, c := range p.Corners {
-			pts[i] = [2]float64{pos[c][0], pos[c][1]}
-		}
-		add(func() error { return closedPoly(d, pts) })
-	}
-	if rep.Section.WidthMM > 0 {
-		add(func() error { return useLayer(d, LayerPlanBar) })
-		for _, m := range rep.Members {
-			add(func() error { return closedPoly(d, barOutline(m, pos[m.NodeA], pos[m.NodeB], rep.Section.WidthMM)) })
-		}
-	}
-	add(func() error { return useLayer(d, Layer3DMember) })
-	for _, m := range rep.Members {
-		a, b := pos[m.NodeA], pos[m.NodeB]
-		add(func() error {
-			_, err := d.Line(r(a[0], dxfDigits), r(a[1], dxfDigits), r(a[2], dxfDigits), r(b[0], dxfDigits), r(b[1], dxfDigits), r(b[2], dxfDigits))
-			return err
-		})
-	}
-	h := rep.labelHeight
-	add(func() error { return useLayer(d, LayerNodeLabel) })
-	for _, n := range rep.Nodes {
-		add(func() error { return text(d, n.Label, n.Pos[0], n.Pos[1]+0.8*h, 0, h, 0) })
-	}
-	add(func() error { return useLayer(d, LayerMemberLabel) })
-	for _, m := range rep.Members {
-		a, b := pos[m.NodeA], pos[m.NodeB]
-		ang := math.Atan2(b[1]-a[1], b[0]-a[0]) * 180 / math.Pi
-		if ang > 90 {
-			ang -= 180
-		} else if ang < -90 {
-			ang += 180
-		}
-		add(func() error { return text(d, m.Label, (a[0]+b[0])/2, (a[1]+b[1])/2, 0, 0.7*h, ang) })
-	}
-	add(func() error { return useLayer(d, LayerPanelLabel) })
-	for _, p := range rep.Panels {
-		var cx, cy float64
-		for _, c := range p.Corners {
-			cx += pos[c][0]
-			cy += pos[c][1]
-		}
-		k := float64(len(p.Corners))
-		add(func() error { return text(d, p.Label, cx/k, cy/k, 0, h, 0) })
-	}
-	add(func() error { return useLayer(d, LayerTitle) })
-	add(func() error {
-		return text(d, rep.Title+" - assembly plan, mm, seen from above", rep.planCentre[0], rep.planLow-8*h, 0, 3*h, 0)
-	})
-	add(func() error { return text(d, "CAUTION: "+Caution, rep.planCentre[0], rep.planLow-12*h, 0, 1.2*h, 0) })
-	for _, s := range steps {
-		if err := s(); err != nil {
-			return err
-		}
-	}
-	d.SetExt()
-	_, err = d.WriteTo(w)
-	return err
-}
-
-// barOutline returns the plan outline of a member's top face: the
-// section width across the member (along its frame's Y axis) and the cut
-// length between the hub setbacks.
-func barOutline(m MemberRow, a, b [3]float64, width float64) [][2]float64 {
-	d := [3]float64{b[0] - a[0], b[1] - a[1], b[2] - a[2]}
-	l := math.Sqrt(d[0]*d[0] + d[1]*d[1] + d[2]*d[2])
-	at := func(t, side float64) [2]float64 {
-		return [2]float64{a[0] + d[0]*t/l + m.FrameY[0]*side, a[1] + d[1]*t/l + m.FrameY[1]*side}
-	}
-	s0, s1 := m.Ends[0].SetbackMM, l-m.Ends[1].SetbackMM
-	h := width / 2
-	return [][2]float64{at(s0, -h), at(s1, -h), at(s1, h), at(s0, h)}
-}
-
-// planLayout sets the label height and title position of the plan from
-// the nodes' extent.
-func (rep *Report) planLayout() {
-	lox, loy, hix := math.Inf(1), math.Inf(1), math.Inf(-1)
-	var span float64
-	for _, n := range rep.Nodes {
-		lox, loy, hix = math.Min(lox, n.Pos[0]), math.Min(loy, n.Pos[1]), math.Max(hix, n.Pos[0])
-	}
-	for _, m := range rep.Members {
-		span += m.LengthMM
-	}
-	if len(rep.Members) > 0 {
-		span /= float64(len(rep.Members))
-	}
-	rep.labelHeight = r(math.Max(20, span/15), 1)
-	rep.planCentre = [2]float64{(lox + hix) / 2, 0}
-	rep.planLow = loy
 }

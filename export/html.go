@@ -25,6 +25,8 @@ type planView struct {
 
 type htmlPage struct {
 	R          *Report
+	BarChart   template.HTML
+	MoreBars   int
 	Plans      []planView
 	Plots      []template.HTML
 	Previews   []template.HTML
@@ -75,6 +77,7 @@ func WriteHTML(w io.Writer, rep *Report) error {
 	if len(pg.Previews) > 0 {
 		pg.MeanUtil = 100 * pg.MeanUtil / float64(len(pg.Previews))
 	}
+	pg.BarChart, pg.MoreBars = barChart(rep)
 	return pageTemplate.Execute(w, pg)
 }
 
@@ -179,7 +182,7 @@ func sheetSVG(rep *Report, s SheetRow) string {
 	var b strings.Builder
 	fmt.Fprintf(&b, `<figure class="sheet"><svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 %.0f %.0f" width="%.0f" height="%.0f">`, w, h, w, h)
 	fmt.Fprintf(&b, `<rect x="0" y="0" width="%.1f" height="%.1f" fill="#eef3f5" stroke="#333" stroke-width="1"/>`, w, h)
-	types := rep.panelTypes()
+	rows := rep.panelRows()
 	index := map[string]int{}
 	for i, t := range rep.PanelTypes {
 		index[t.Name] = i
@@ -192,7 +195,7 @@ func sheetSVG(rep *Report, s SheetRow) string {
 			}
 			fmt.Fprintf(&b, "%.1f,%.1f", v[0]*scale, h-v[1]*scale)
 		}
-		fmt.Fprintf(&b, `" fill="%s" stroke="#222" stroke-width="0.6"/>`, typeColour(index[types[p.Panel]]))
+		fmt.Fprintf(&b, `" fill="%s" stroke="#222" stroke-width="0.6"/>`, typeColour(index[rows[p.Panel].Type]))
 		cx, cy, _ := labelSpot(p.Outline)
 		fmt.Fprintf(&b, `<text x="%.1f" y="%.1f" font-size="9" text-anchor="middle">%s</text>`, cx*scale, h-cy*scale, template.HTMLEscapeString(p.Panel))
 	}
@@ -230,6 +233,9 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 <tr><th>Flatness before / after (max, mm)</th><td class="num">{{.R.Planarity.FlatBeforeMM.Max}} / {{.R.Planarity.FlatAfterMM.Max}} (tolerance {{.R.Planarity.ToleranceMM}})</td></tr>
 <tr><th>Largest / RMS node move (mm)</th><td class="num">{{.R.Planarity.MaxMoveMM}} / {{.R.Planarity.RMSMoveMM}}</td></tr>
 <tr><th>Largest member twist (°)</th><td class="num">{{.R.Planarity.MaxTwistDeg}} (normal axes: {{.R.Planarity.MaxTwistNormalDeg}})</td></tr>
+<tr><th>Weight: panels / members / total (kg)</th><td class="num">{{.R.Weights.PanelsKg}} / {{.R.Weights.MembersKg}} / {{.R.Weights.TotalKg}}</td></tr>
+<tr><th>Member material</th><td>{{.R.MemberMaterial.Name}}, {{.R.MemberMaterial.DensityKgM3}} kg/m³</td></tr>
+{{with .R.PanelSpec}}{{if .BuildUp}}<tr><th>Panel build-up</th><td>{{.BuildUp}}</td></tr>{{end}}{{if .EdgeWork}}<tr><th>Edge work</th><td>{{.EdgeWork}}</td></tr>{{end}}{{if .Coating}}<tr><th>Coating</th><td>{{.Coating}}</td></tr>{{end}}{{if .HeatTreatment}}<tr><th>Heat treatment</th><td>{{.HeatTreatment}}</td></tr>{{end}}{{if .Grade}}<tr><th>Grade</th><td>{{.Grade}}</td></tr>{{end}}{{end}}
 </table>
 {{with .R.Warnings}}<h2>Warnings</h2><ul>{{range .}}<li>{{.}}</li>{{end}}</ul>{{end}}
 {{with .R.Cost}}<h2>Cost estimate ({{.Currency}})</h2><table><tr><th>Item</th><th>Quantity</th><th>Unit</th><th>Rate</th><th>Amount</th></tr>
@@ -243,14 +249,18 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 <details><summary>Member types: {{len .R.MemberTypes}} for {{.R.Counts.Members}} members</summary>
 <table><tr><th>Type</th><th>Count</th><th>Cut length (mm)</th></tr>{{range .R.MemberTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
 <details><summary>Node types: {{len .R.NodeTypes}} for {{.R.Counts.Nodes}} nodes</summary>
-<table><tr><th>Type</th><th>Count</th><th>Valence</th></tr>{{range .R.NodeTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
+<table><tr><th>Type</th><th>Count</th><th>Members at node</th></tr>{{range .R.NodeTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
 <details><summary>Panel types: {{len .R.PanelTypes}} for {{.R.Counts.Panels}} panels</summary>
 <table><tr><th>Type</th><th>Count</th><th>Area (m²)</th></tr>{{range .R.PanelTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
 <h2>Stock sheets</h2>
-<table><tr><th>Stock</th><th>Sheets</th><th>Area bound</th><th>Cost</th></tr>{{range .R.Stocks}}<tr><td>{{.Name}}</td><td class="num">{{.Sheets}}</td><td class="num">{{.AreaBound}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
+<table><tr><th>Stock</th><th>Sheets</th><th>Fewest sheets by area</th><th>Cost</th></tr>{{range .R.Stocks}}<tr><td>{{.Name}}</td><td class="num">{{.Sheets}}</td><td class="num">{{.AreaBound}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
 {{with .R.Unplaced}}<h3>Unplaced panels</h3><ul>{{range .}}<li>{{.Panel}}: {{.Reason}}</li>{{end}}</ul>{{end}}
 <p>Mean utilization of the sheets shown: {{printf "%.1f" .MeanUtil}} %.{{if .MoreSheets}} {{.MoreSheets}} more sheets are not previewed here; every sheet is in the sheets folder.{{end}}</p>
 <div class="sheets">{{range .Previews}}{{.}}{{end}}</div>
+<h2>Bars</h2>
+{{if .R.BarStocks}}<table><tr><th>Bar stock</th><th>Length (mm)</th><th>Bars</th><th>Fewest bars by length</th><th>Cost</th></tr>{{range .R.BarStocks}}<tr><td>{{.Name}}</td><td class="num">{{.LengthMM}}</td><td class="num">{{.Bars}}</td><td class="num">{{.FewestByLength}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
+<p>Each bar as cut, members in cutting order (grey: offcut, red: kerfs, trims and slivers).{{if .MoreBars}} {{.MoreBars}} more bars are in the schedule's Bars sheet.{{end}}</p>
+{{.BarChart}}{{else}}<p>The job gives no bar stock, so there is no cutting plan.</p>{{end}}
 <p class="caution">Caution: {{.R.Caution}}</p>
 </body></html>
 `))

@@ -25,10 +25,12 @@ type Progress func(done, total int, what string)
 // (the DXF drawings one after another, as the DXF library needs).
 func WriteBuild(dir string, opt WriteOptions, b *Bundle, rep *Report, progress Progress) error {
 	return WriteFolder(dir, opt, func(tmp string) error {
-		if err := os.Mkdir(filepath.Join(tmp, DirSheets), 0o755); err != nil {
-			return err
+		for _, d := range []string{DirSheets, DirSite} {
+			if err := os.Mkdir(filepath.Join(tmp, d), 0o755); err != nil {
+				return err
+			}
 		}
-		total := 5 + len(rep.Sheets)
+		total := 5 + SiteFiles + len(rep.Sheets)
 		var mu sync.Mutex
 		done := 0
 		step := func(what string) {
@@ -52,6 +54,9 @@ func WriteBuild(dir string, opt WriteOptions, b *Bundle, rep *Report, progress P
 			file(FileReport, func(w io.Writer) error { return WriteJSON(w, rep) }),
 			file(FileSchedule, func(w io.Writer) error { return WriteSchedule(w, rep) }),
 			file(FileHTML, func(w io.Writer) error { return WriteHTML(w, rep) }),
+			file(FilePlanPDF, func(w io.Writer) error { return WritePlanPDF(w, rep) }),
+			file(FileTagsPDF, func(w io.Writer) error { return WriteTagsPDF(w, rep) }),
+			file(FileView, func(w io.Writer) error { return WriteView(w, rep) }),
 			func() error {
 				if err := file(FileNet, func(w io.Writer) error { return WriteOBJ(w, b.Net, "pqfab planarized net: "+b.Title, b.Warnings...) })(); err != nil {
 					return err

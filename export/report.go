@@ -38,25 +38,23 @@ type Report struct {
 	Sheets      []SheetRow        `json:"sheets"`
 	Unplaced    []UnplacedRow     `json:"unplaced"`
 	Stocks      []StockRow        `json:"stocks"`
-	Cost        *Cost             `json:"cost,omitempty"`
+	// Member material, bar stock and the members' cutting plan (empty
+	// without bar stock), panel specification, and the weights.
+	MemberMaterial MemberMaterial `json:"member_material"`
+	BarStocks      []BarStockRow  `json:"bar_stocks"`
+	Bars           []BarRow       `json:"bars"`
+	PanelSpec      PanelSpec      `json:"panel_spec"`
+	Weights        Weights        `json:"weights_kg"`
+	Cost           *Cost          `json:"cost,omitempty"`
+	Bays           BayGrid        `json:"bays"`
 
-	stockInfo   []StockInfo // margins for the cut sheets
-	labelHeight float64
-	typeOf      map[string]string
-	planCentre  [2]float64
-	planLow     float64
+	panelOf map[string]PanelRow // panel rows by label
 }
 
 // Section is the members' cross-section (mm).
 type Section struct {
 	WidthMM float64 `json:"width"`
 	DepthMM float64 `json:"depth"`
-}
-
-// StockInfo is what the cut sheets need of a stock size.
-type StockInfo struct {
-	Name     string
-	MarginMM float64
 }
 
 // Counts are the headline numbers.
@@ -86,16 +84,16 @@ type Planarity struct {
 
 // NodeRow is one node.
 type NodeRow struct {
-	Label   string     `json:"label"`
-	ID      string     `json:"id"`
-	Pos     [3]float64 `json:"position_mm"`
-	Axis    [3]float64 `json:"axis"`
-	Valence int        `json:"valence"`
-	Type    string     `json:"type"`
-	Support bool       `json:"support"`
-	MoveMM  float64    `json:"move_mm"`
-	Move    [3]float64 `json:"move_vector_mm"`
-	Arms    []ArmRow   `json:"arms"`
+	Label         string     `json:"label"`
+	ID            string     `json:"id"`
+	Pos           [3]float64 `json:"position_mm"`
+	Axis          [3]float64 `json:"axis"`
+	MembersAtNode int        `json:"members_at_node"`
+	Type          string     `json:"type"`
+	Support       bool       `json:"support"`
+	MoveMM        float64    `json:"move_mm"`
+	Move          [3]float64 `json:"move_vector_mm"`
+	Arms          []ArmRow   `json:"arms"`
 }
 
 // ArmRow is one member at a node's hub.
@@ -107,15 +105,24 @@ type ArmRow struct {
 
 // MemberRow is one member.
 type MemberRow struct {
-	Label       string    `json:"label"`
-	NodeA       string    `json:"node_a"`
-	NodeB       string    `json:"node_b"`
-	LengthMM    float64   `json:"system_length_mm"`
-	CutLengthMM float64   `json:"cut_length_mm"`
-	TwistDeg    float64   `json:"twist_deg"`
-	DihedralDeg float64   `json:"dihedral_deg"`
-	Type        string    `json:"type"`
-	Ends        [2]EndRow `json:"ends"`
+	Label       string  `json:"label"`
+	NodeA       string  `json:"node_a"`
+	NodeB       string  `json:"node_b"`
+	LengthMM    float64 `json:"system_length_mm"`
+	CutLengthMM float64 `json:"cut_length_mm"`
+	TwistDeg    float64 `json:"twist_deg"`
+	// FoldDeg is the fold between the two panels at the member: the signed
+	// angle between their normals, ridge positive (as for panel edges);
+	// 0 on the boundary.
+	FoldDeg float64   `json:"fold_deg"`
+	Type    string    `json:"type"`
+	Ends    [2]EndRow `json:"ends"`
+	// BlankMM is the length of bar the member is cut from: the cut length
+	// plus an allowance for each end cut. Bar names the bar of the cutting
+	// plan ("" without bar stock).
+	BlankMM  float64 `json:"blank_length_mm"`
+	Bar      string  `json:"bar"`
+	WeightKg float64 `json:"weight_kg"`
 	// Frame axes of the member: X along it (A to B), Z the top of the
 	// section, Y = Z × X.
 	FrameY [3]float64 `json:"frame_y"`
@@ -133,20 +140,48 @@ type EndRow struct {
 
 // PanelRow is one panel.
 type PanelRow struct {
-	Label            string        `json:"label"`
-	ID               string        `json:"id"`
-	Corners          []string      `json:"corners"`
-	AreaM2           float64       `json:"area_m2"`
-	PerimeterMM      float64       `json:"perimeter_mm"`
-	WeightKg         float64       `json:"weight_kg"`
-	FlatnessBeforeMM float64       `json:"flatness_before_mm"`
-	FlatnessMM       float64       `json:"flatness_mm"`
-	Edges            []EdgeRow     `json:"edges"`
-	AnglesDeg        []float64     `json:"corner_angles_deg"`
-	Diagonals        []DiagonalRow `json:"diagonals"`
-	Type             string        `json:"type"`
-	Sheet            string        `json:"sheet"`
-	Outline          [][2]float64  `json:"cut_outline_mm"`
+	Label            string   `json:"label"`
+	ID               string   `json:"id"`
+	Corners          []string `json:"corners"`
+	Cut              CutRow   `json:"cut"` // the cut outline's numbers: what is ordered
+	GrainDeg         float64  `json:"grain_deg"`
+	AreaM2           float64  `json:"area_m2"`
+	PerimeterMM      float64  `json:"perimeter_mm"`
+	WeightKg         float64  `json:"weight_kg"`
+	FlatnessBeforeMM float64  `json:"flatness_before_mm"`
+	FlatnessMM       float64  `json:"flatness_mm"`
+	// Set-out (centre-line) numbers: edges (with their folds, bevels and
+	// neighbours), corner angles and diagonals of the set-out outline.
+	Edges     []EdgeRow     `json:"edges"`
+	AnglesDeg []float64     `json:"corner_angles_deg"`
+	Diagonals []DiagonalRow `json:"diagonals"`
+	Type      string        `json:"type"`
+	Sheet     string        `json:"sheet"`
+	Outline   [][2]float64  `json:"cut_outline_mm"`
+}
+
+// CutRow holds a panel's cut-outline numbers: edge k runs from corner k
+// to k+1 (corner 1 first), angles are the inner corner angles, and the
+// box is the smallest enclosing rectangle, long side first.
+type CutRow struct {
+	EdgesMM   []float64     `json:"edges_mm"`
+	AnglesDeg []float64     `json:"corner_angles_deg"`
+	Diagonals []DiagonalRow `json:"diagonals"`
+	BoxMM     [2]float64    `json:"box_mm"`
+}
+
+// MemberMaterial is the members' material and density.
+type MemberMaterial struct {
+	Name        string  `json:"name"`
+	DensityKgM3 float64 `json:"density_kg_m3"`
+}
+
+// Weights are the totals an estimator carries: panels (glass or board)
+// and members (cut lengths, section and density).
+type Weights struct {
+	PanelsKg  float64 `json:"panels"`
+	MembersKg float64 `json:"members"`
+	TotalKg   float64 `json:"total"`
 }
 
 // EdgeRow is one panel edge.
@@ -166,10 +201,11 @@ type DiagonalRow struct {
 
 // TypeRow is one type of part.
 type TypeRow struct {
-	Name  string   `json:"name"`
-	Count int      `json:"count"`
-	Size  float64  `json:"size"` // cut length (mm), valence, or area (m²)
-	Parts []string `json:"parts"`
+	Name  string     `json:"name"`
+	Count int        `json:"count"`
+	Size  float64    `json:"size"` // cut length (mm), members at node, or area (m²)
+	Parts []string   `json:"parts"`
+	Spec  *PanelSpec `json:"spec,omitempty"` // panel types
 }
 
 // SheetRow is one stock sheet.
@@ -178,6 +214,8 @@ type SheetRow struct {
 	Stock       string         `json:"stock"`
 	WidthMM     float64        `json:"width_mm"`
 	HeightMM    float64        `json:"height_mm"`
+	MarginMM    float64        `json:"margin_mm"`
+	Rotation    string         `json:"rotation"` // free, quarter or grain (the grain runs along x)
 	Utilization float64        `json:"utilization"`
 	Placements  []PlacementRow `json:"placements"`
 }

@@ -30,22 +30,28 @@ func BuildReport(b *Bundle) *Report {
 		MaxTwistDeg: r(nodes.MaxAbsTwist(s.Members), angleDigits), MaxTwistNormalDeg: r(s.TwistNormalDeg, angleDigits)}
 	for i, nd := range s.Nodes {
 		row := NodeRow{Label: nd.Label, ID: n.Nodes[i].ID, Pos: vec(n.Nodes[i].Pos, lenDigits), Axis: vec(nd.Axis, 6),
-			Valence: nd.Valence, Type: s.NodeTypes[nd.Type].Name, Support: b.Supports[i],
+			MembersAtNode: nd.Valence, Type: s.NodeTypes[nd.Type].Name, Support: b.Supports[i],
 			MoveMM: r(r3.Norm(pl.Moves[i]), lenDigits), Move: vec(pl.Moves[i], lenDigits)}
 		for _, a := range nd.Arms {
 			row.Arms = append(row.Arms, ArmRow{Member: s.Members[a.Member].Label, AzimuthDeg: r(a.AzimuthDeg, angleDigits), ElevationDeg: r(a.ElevationDeg, angleDigits)})
 		}
 		rep.Nodes = append(rep.Nodes, row)
 	}
-	for _, m := range s.Members {
+	barOf := rep.buildBars(b)
+	area := s.Section.WidthMM * s.Section.DepthMM / 1e6 // m²
+	for k, m := range s.Members {
 		end := func(e nodes.End) EndRow {
 			return EndRow{Node: nodeLabel(e.Node), ElevationDeg: r(e.ElevationDeg, angleDigits), SetbackMM: r(e.SetbackMM, lenDigits), MitreDeg: r(e.MitreDeg, angleDigits), BevelDeg: r(e.BevelDeg, angleDigits)}
 		}
 		rep.Members = append(rep.Members, MemberRow{Label: m.Label, NodeA: nodeLabel(m.A.Node), NodeB: nodeLabel(m.B.Node),
 			LengthMM: r(m.LengthMM, lenDigits), CutLengthMM: r(m.CutLengthMM, lenDigits), TwistDeg: r(m.TwistDeg, angleDigits),
-			DihedralDeg: r(m.DihedralDeg, angleDigits), Type: s.MemberTypes[m.Type].Name,
-			Ends: [2]EndRow{end(m.A), end(m.B)}, FrameY: vec(m.Frame.Y, 6), FrameZ: vec(m.Frame.Z, 6)})
+			FoldDeg: r(memberFold(m), angleDigits), Type: s.MemberTypes[m.Type].Name,
+			Ends: [2]EndRow{end(m.A), end(m.B)}, FrameY: vec(m.Frame.Y, 6), FrameZ: vec(m.Frame.Z, 6),
+			BlankMM: r(blankOf(b, k), lenDigits), Bar: barOf[k], WeightKg: r(area*m.CutLengthMM/1000*b.MemberDensityKgM3, weightDigits)})
+		rep.Weights.MembersKg += area * m.CutLengthMM / 1000 * b.MemberDensityKgM3
 	}
+	rep.MemberMaterial = MemberMaterial{Name: b.MemberMaterial, DensityKgM3: b.MemberDensityKgM3}
+	rep.PanelSpec = b.PanelSpec
 	sheetOf := b.sheetOf()
 	for f, fl := range b.Flats {
 		face := n.Faces[f]
@@ -55,6 +61,14 @@ func BuildReport(b *Bundle) *Report {
 		for _, c := range face.Corners {
 			row.Corners = append(row.Corners, nodeLabel(c))
 		}
+		row.Diagonals = []DiagonalRow{}
+		row.Cut = CutRow{EdgesMM: round(fl.CutEdgeMM, lenDigits), AnglesDeg: round(fl.CutAngleDeg, angleDigits), Diagonals: []DiagonalRow{},
+			BoxMM: [2]float64{r(fl.BoxMM[0], lenDigits), r(fl.BoxMM[1], lenDigits)}}
+		for _, d := range fl.CutDiagonals {
+			row.Cut.Diagonals = append(row.Cut.Diagonals, DiagonalRow{From: nodeLabel(face.Corners[d.I]), To: nodeLabel(face.Corners[d.J]), MM: r(d.MM, lenDigits)})
+		}
+		row.GrainDeg = r(fl.GrainDeg, angleDigits)
+		rep.Weights.PanelsKg += fl.WeightKg
 		for k := range face.Corners {
 			nb := ""
 			if g := fl.Neighbour[k]; g >= 0 {
@@ -87,7 +101,8 @@ func BuildReport(b *Bundle) *Report {
 		rep.NodeTypes = append(rep.NodeTypes, row)
 	}
 	for _, t := range b.PanelTypes {
-		row := TypeRow{Name: t.Name, Count: len(t.Panels), Size: r(t.AreaM2, areaDigits)}
+		spec := b.specOf(t.Name)
+		row := TypeRow{Name: t.Name, Count: len(t.Panels), Size: r(t.AreaM2, areaDigits), Spec: &spec}
 		for _, i := range t.Panels {
 			row.Parts = append(row.Parts, b.Flats[i].Label)
 		}
@@ -96,7 +111,8 @@ func BuildReport(b *Bundle) *Report {
 	if nr := b.Nesting; nr != nil {
 		for si, sh := range nr.Sheets {
 			st := b.Stocks[sh.Stock]
-			row := SheetRow{Name: SheetName(si, len(nr.Sheets)), Stock: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM, Utilization: r(sh.Utilization, 4)}
+			row := SheetRow{Name: SheetName(si, len(nr.Sheets)), Stock: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM,
+				MarginMM: st.MarginMM, Rotation: string(st.Rotation), Utilization: r(sh.Utilization, 4)}
 			for _, p := range sh.Placements {
 				row.Placements = append(row.Placements, PlacementRow{Panel: b.Flats[p.Part].Label, X: r(p.X, lenDigits), Y: r(p.Y, lenDigits),
 					RotationDeg: r(p.RotationDeg, angleDigits), Mirrored: p.Mirrored, Outline: points(p.Outline)})
@@ -112,12 +128,43 @@ func BuildReport(b *Bundle) *Report {
 		rep.Counts.Sheets = len(nr.Sheets)
 		rep.Counts.Unplaced = len(nr.Unplaced)
 	}
-	rep.Cost = b.Cost
-	for _, st := range b.Stocks {
-		rep.stockInfo = append(rep.stockInfo, StockInfo{Name: st.Name, MarginMM: st.MarginMM})
+	rep.panelOf = make(map[string]PanelRow, len(rep.Panels))
+	for _, p := range rep.Panels {
+		rep.panelOf[p.Label] = p
 	}
-	rep.planLayout()
+	rep.Weights = Weights{PanelsKg: r(rep.Weights.PanelsKg, weightDigits), MembersKg: r(rep.Weights.MembersKg, weightDigits),
+		TotalKg: r(rep.Weights.PanelsKg+rep.Weights.MembersKg, weightDigits)}
+	rep.Cost = b.Cost
+	rep.Bays = bayGridOf(b.Bays)
+	rep.Warnings = append(rep.Warnings, siteWarnings(rep)...)
 	return rep
+}
+
+// memberFold returns the fold between the panels at a member (0 on the
+// boundary): 180° less the angle between them through the inside.
+func memberFold(m nodes.Member) float64 {
+	if m.DihedralDeg == 0 {
+		return 0
+	}
+	return 180 - m.DihedralDeg
+}
+
+// blankOf returns member k's blank length, or its cut length when the
+// bundle has no blanks.
+func blankOf(b *Bundle, k int) float64 {
+	if k < len(b.Blanks) {
+		return b.Blanks[k].LengthMM
+	}
+	return b.Structure.Members[k].CutLengthMM
+}
+
+// round rounds every value to d decimals.
+func round(xs []float64, d int) []float64 {
+	out := make([]float64, len(xs))
+	for i, x := range xs {
+		out[i] = r(x, d)
+	}
+	return out
 }
 
 func points(p geom.Polygon) [][2]float64 {

@@ -4,20 +4,25 @@ import (
 	"fmt"
 	"strings"
 	"unicode/utf8"
+
+	"golang.org/x/text/encoding/charmap"
 )
 
 // Text from the job or the net (titles, names, ids, warnings) reaches
 // several file formats; each has its own rules, applied here once.
 
 // dxfText makes s safe for a DXF TEXT value in an AC1015 file, which
-// readers take as code page 1252: control characters (a newline would end
-// the group value and break the file's structure) become spaces; every
-// character outside ASCII, and the backslash, is written as a \U+XXXX
-// escape (the DXF notation for Unicode in files before AC1021; characters
-// outside the Basic Multilingual Plane, which it cannot hold, and bytes
-// that are not UTF-8 become "?"); and a percent sign next to another (a
-// TEXT control code) is written as "%%%", which readers show as one
-// percent sign.
+// declares no code page and which readers therefore take as code page 1252
+// (ANSI_1252): control characters (a newline would end the group value
+// and break the file's structure) become spaces; a character of code page
+// 1252 outside ASCII (such as ° or é) is written as its one byte there;
+// every other character, and the backslash, is written as a \U+XXXX escape
+// (the DXF notation for Unicode in files before AC1021; characters outside
+// the Basic Multilingual Plane, which it cannot hold, and bytes that are
+// not UTF-8 become "?"); and a percent sign next to another (a TEXT
+// control code) is written as "%%%", which readers show as one percent
+// sign. The result is meant for the DXF writer, not for Go: it need not be
+// UTF-8.
 func dxfText(s string) string {
 	var b strings.Builder
 	for i, r := range s {
@@ -26,7 +31,13 @@ func dxfText(s string) string {
 			b.WriteByte(' ')
 		case r == utf8.RuneError || r > 0xffff:
 			b.WriteByte('?')
-		case r >= 0x80 || r == '\\':
+		case r >= 0x80:
+			if c, ok := charmap.Windows1252.EncodeRune(r); ok {
+				b.WriteByte(c)
+			} else {
+				fmt.Fprintf(&b, `\U+%04X`, r)
+			}
+		case r == '\\' || r == '^': // the escape's own sign, and the caret of TEXT control codes
 			fmt.Fprintf(&b, `\U+%04X`, r)
 		case r == '%' && (strings.HasPrefix(s[i:], "%%") || (i > 0 && s[i-1] == '%')):
 			b.WriteString("%%%")

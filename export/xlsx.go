@@ -18,6 +18,7 @@ const (
 	SheetMemberTypes = "Member types"
 	SheetPanelTypes  = "Panel types"
 	SheetSheets      = "Sheets"
+	SheetBars        = "Bars"
 )
 
 // WriteSchedule writes schedule.xlsx from the report model: a summary with
@@ -41,46 +42,28 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 	if err := writeSummary(f, rep, bold); err != nil {
 		return err
 	}
+	panelHead, panelRows := panelsTable(rep)
 	tables := []struct {
 		name   string
 		header []string
 		rows   func(add func(row ...any) error) error
 	}{
-		{SheetPanels, []string{"Label", "Id", "Type", "Sheet", "Corners", "Area (m²)", "Perimeter (mm)", "Weight (kg)",
-			"Diagonal 1 (mm)", "Diagonal 2 (mm)", "Edge 1 (mm)", "Edge 2 (mm)", "Edge 3 (mm)", "Edge 4 (mm)",
-			"Bevel 1 (°)", "Bevel 2 (°)", "Bevel 3 (°)", "Bevel 4 (°)", "Flatness before (mm)", "Flatness after (mm)"},
-			func(add func(row ...any) error) error {
-				for _, p := range rep.Panels {
-					row := []any{p.Label, p.ID, p.Type, p.Sheet, strings.Join(p.Corners, " ")}
-					row = append(row, p.AreaM2, p.PerimeterMM, p.WeightKg)
-					row = append(row, nth(p.Diagonals, 0, func(d DiagonalRow) any { return d.MM }), nth(p.Diagonals, 1, func(d DiagonalRow) any { return d.MM }))
-					for k := 0; k < 4; k++ {
-						row = append(row, nth(p.Edges, k, func(e EdgeRow) any { return e.LengthMM }))
-					}
-					for k := 0; k < 4; k++ {
-						row = append(row, nth(p.Edges, k, func(e EdgeRow) any { return e.BevelDeg }))
-					}
-					row = append(row, p.FlatnessBeforeMM, p.FlatnessMM)
-					if err := add(row...); err != nil {
-						return err
-					}
-				}
-				return nil
-			}},
-		{SheetMembers, []string{"Label", "Type", "Node A", "Node B", "System length (mm)", "Cut length (mm)", "Twist (°)",
-			"Dihedral (°)", "A elevation (°)", "A setback (mm)", "A mitre (°)", "A bevel (°)",
-			"B elevation (°)", "B setback (mm)", "B mitre (°)", "B bevel (°)"},
+		{SheetPanels, panelHead, panelRows},
+		{SheetMembers, []string{"Label", "Type", "Node A", "Node B", "Cut length (mm)", "Blank length (mm)", "Bar",
+			"A mitre (°)", "A bevel (°)", "B mitre (°)", "B bevel (°)", "Twist (°)", "A setback (mm)", "B setback (mm)",
+			"A elevation (°)", "B elevation (°)", "System length (mm)", "Fold (°)", "Weight (kg)"},
 			func(add func(row ...any) error) error {
 				for _, m := range rep.Members {
 					a, b := m.Ends[0], m.Ends[1]
-					if err := add(m.Label, m.Type, m.NodeA, m.NodeB, m.LengthMM, m.CutLengthMM, m.TwistDeg, m.DihedralDeg,
-						a.ElevationDeg, a.SetbackMM, a.MitreDeg, a.BevelDeg, b.ElevationDeg, b.SetbackMM, b.MitreDeg, b.BevelDeg); err != nil {
+					if err := add(m.Label, m.Type, m.NodeA, m.NodeB, m.CutLengthMM, m.BlankMM, m.Bar,
+						a.MitreDeg, a.BevelDeg, b.MitreDeg, b.BevelDeg, m.TwistDeg, a.SetbackMM, b.SetbackMM,
+						a.ElevationDeg, b.ElevationDeg, m.LengthMM, m.FoldDeg, m.WeightKg); err != nil {
 						return err
 					}
 				}
 				return nil
 			}},
-		{SheetNodes, []string{"Label", "Id", "Type", "Valence", "X (mm)", "Y (mm)", "Z (mm)", "Axis x", "Axis y", "Axis z",
+		{SheetNodes, []string{"Label", "Id", "Type", "Members at node", "X (mm)", "Y (mm)", "Z (mm)", "Axis x", "Axis y", "Axis z",
 			"Support", "Move (mm)", "Move x (mm)", "Move y (mm)", "Move z (mm)", "Hub arms (member azimuth° elevation°)"},
 			func(add func(row ...any) error) error {
 				for _, n := range rep.Nodes {
@@ -92,7 +75,7 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 					if n.Support {
 						sup = "yes"
 					}
-					if err := add(n.Label, n.ID, n.Type, n.Valence, n.Pos[0], n.Pos[1], n.Pos[2], n.Axis[0], n.Axis[1], n.Axis[2],
+					if err := add(n.Label, n.ID, n.Type, n.MembersAtNode, n.Pos[0], n.Pos[1], n.Pos[2], n.Axis[0], n.Axis[1], n.Axis[2],
 						sup, n.MoveMM, n.Move[0], n.Move[1], n.Move[2], strings.Join(arms, "; ")); err != nil {
 						return err
 					}
@@ -119,6 +102,16 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				}
 				return nil
 			}},
+		{SheetBars, []string{"Bar", "Stock", "Stock length (mm)", "Members", "Members in cutting order (label, blank mm)",
+			"Used (mm)", "Offcut (mm)", "Waste (mm)"},
+			func(add func(row ...any) error) error {
+				for _, b := range rep.Bars {
+					if err := add(b.Name, b.Stock, b.LengthMM, len(b.Pieces), barUse(b), b.UsedMM, b.OffcutMM, b.WasteMM); err != nil {
+						return err
+					}
+				}
+				return nil
+			}},
 	}
 	for i, t := range tables {
 		if _, err := f.NewSheet(t.name); err != nil {
@@ -133,13 +126,6 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 		return err
 	}
 	return writeSortedZip(w, buf.Bytes())
-}
-
-func nth[T any](xs []T, k int, get func(T) any) any {
-	if k < len(xs) {
-		return get(xs[k])
-	}
-	return nil
 }
 
 func typeRows(ts []TypeRow, partsSheet string) func(add func(row ...any) error) error {
@@ -273,6 +259,7 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("Panel types", c.PanelTypes) },
 		func() error { return put("Stock sheets", c.Sheets) },
 		func() error { return put("Unplaced panels", c.Unplaced) },
+		func() error { return put("Bars", len(rep.Bars)) },
 		func() error { return head("Planarity") },
 		func() error { return put("Flatness tolerance (mm)", rep.Planarity.ToleranceMM) },
 		func() error { return put("Flatness before, max (mm)", rep.Planarity.FlatBeforeMM.Max) },
@@ -282,11 +269,36 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("Largest |twist| (°)", rep.Planarity.MaxTwistDeg) },
 	)
 	for _, s := range rep.Stocks {
-		s := s
 		steps = append(steps, func() error {
-			return put("Stock "+s.Name+": sheets / area bound", s.Sheets, s.AreaBound)
+			return put("Stock "+s.Name+": sheets / fewest sheets by area", s.Sheets, s.AreaBound)
 		})
 	}
+	steps = append(steps, func() error { return head("Bars (member stock)") })
+	if len(rep.BarStocks) == 0 {
+		steps = append(steps, func() error { return put("No bar stock in the job: no cutting plan") })
+	}
+	var stockMM, offcutMM, wasteMM float64
+	for _, b := range rep.Bars {
+		stockMM, offcutMM, wasteMM = stockMM+b.LengthMM, offcutMM+b.OffcutMM, wasteMM+b.WasteMM
+	}
+	for _, b := range rep.BarStocks {
+		steps = append(steps, func() error {
+			return put(fmt.Sprintf("Bars %s (%g mm): bars / fewest bars by length", b.Name, b.LengthMM), b.Bars, b.FewestByLength)
+		})
+	}
+	if len(rep.BarStocks) > 0 {
+		steps = append(steps,
+			func() error { return put("Bar stock length (m)", r(stockMM/1000, 3)) },
+			func() error { return put("Offcuts (m)", r(offcutMM/1000, 3)) },
+			func() error { return put("Waste: kerfs, trims, slivers (m)", r(wasteMM/1000, 3)) })
+	}
+	steps = append(steps,
+		func() error { return head("Weights") },
+		func() error { return put("Panels (kg)", rep.Weights.PanelsKg) },
+		func() error {
+			return put(fmt.Sprintf("Members, %s at %g kg/m³ (kg)", rep.MemberMaterial.Name, rep.MemberMaterial.DensityKgM3), rep.Weights.MembersKg)
+		},
+		func() error { return put("Total (kg)", rep.Weights.TotalKg) })
 	if rep.Cost != nil {
 		steps = append(steps, func() error { return head("Cost estimate (" + rep.Cost.Currency + ")") },
 			func() error { return put("Item", "Quantity", "Unit", "Rate", "Amount") })

@@ -10,7 +10,8 @@ import (
 // writeSortedZip copies a zip archive to w with its entries in a fixed
 // order ([Content_Types].xml first, then by name) and no timestamps, so
 // that the same content always gives the same bytes. excelize writes
-// streamed sheets in map order, which varies from run to run.
+// streamed sheets in map order, which varies from run to run. Entries are
+// copied as they are compressed (no second compression).
 func writeSortedZip(w io.Writer, archive []byte) error {
 	zr, err := zip.NewReader(bytes.NewReader(archive), int64(len(archive)))
 	if err != nil {
@@ -26,20 +27,17 @@ func writeSortedZip(w io.Writer, archive []byte) error {
 	})
 	zw := zip.NewWriter(w)
 	for _, f := range files {
-		hdr := &zip.FileHeader{Name: f.Name, Method: zip.Deflate}
-		dst, err := zw.CreateHeader(hdr)
+		hdr := &zip.FileHeader{Name: f.Name, Method: f.Method, CRC32: f.CRC32,
+			CompressedSize64: f.CompressedSize64, UncompressedSize64: f.UncompressedSize64}
+		dst, err := zw.CreateRaw(hdr)
 		if err != nil {
 			return err
 		}
-		src, err := f.Open()
+		src, err := f.OpenRaw()
 		if err != nil {
 			return err
 		}
 		if _, err := io.Copy(dst, src); err != nil {
-			src.Close()
-			return err
-		}
-		if err := src.Close(); err != nil {
 			return err
 		}
 	}

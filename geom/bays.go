@@ -23,7 +23,7 @@ type Bays struct {
 }
 
 // NewBays returns bays of the given size starting at the lower-left corner
-// of the points' plan bounding box.
+// of the points' plan bounding box, rounded down to LabelResolutionMM.
 func NewBays(pts []Vec, sizeX, sizeY float64) (Bays, error) {
 	if !(sizeX > 0) || !(sizeY > 0) || math.IsInf(sizeX, 0) || math.IsInf(sizeY, 0) {
 		return Bays{}, fmt.Errorf("geom: bay size %g × %g mm must be positive", sizeX, sizeY)
@@ -35,13 +35,17 @@ func NewBays(pts []Vec, sizeX, sizeY float64) (Bays, error) {
 	if len(pts) == 0 {
 		lo = Vec2{}
 	}
+	lo = Vec2{math.Floor(lo.X/LabelResolutionMM) * LabelResolutionMM, math.Floor(lo.Y/LabelResolutionMM) * LabelResolutionMM}
 	return Bays{Origin: lo, SizeX: sizeX, SizeY: sizeY}, nil
 }
 
 // Cell returns the 0-based column and row of the bay holding plan point p.
+// p is rounded to LabelResolutionMM first, so a point on a grid line (to
+// within the resolution) belongs to the bay right of or above the line,
+// whatever the last bits of its coordinates.
 func (b Bays) Cell(p Vec2) (col, row int) {
-	col = int(math.Floor((p.X - b.Origin.X) / b.SizeX))
-	row = int(math.Floor((p.Y - b.Origin.Y) / b.SizeY))
+	col = int(math.Floor((roundRes(p.X) - b.Origin.X) / b.SizeX))
+	row = int(math.Floor((roundRes(p.Y) - b.Origin.Y) / b.SizeY))
 	return max(col, 0), max(row, 0)
 }
 
@@ -58,62 +62,115 @@ func ColumnLetters(i int) string {
 	return s
 }
 
+// Label order inside a bay: rows separated by gaps in y, then x.
+const (
+	// LabelResolutionMM: positions are rounded to whole millimetres
+	// before they are compared, so the order never hangs on the last bits
+	// of a float.
+	LabelResolutionMM = 1.0
+	// RowGapFraction: inside a bay a new row starts where the next y is
+	// more than this fraction of the typical spacing above the previous
+	// one.
+	RowGapFraction = 0.5
+)
+
 // Label names items by their bay and their order in the bay, such as
-// "C3-07" (prefix "") or "C3-M12" (prefix "M"). Items in a bay are
-// ordered by x, then y, then z of their point, then by key, which makes
-// the labels independent of the order the items come in. Numbers have at
-// least two digits, more where a bay holds more than 99 items.
+// "C3-07" (prefix "") or "C3-M12" (prefix "M"). Numbers run row by row
+// from the bay's lower-left corner: the items of a bay are sorted by y;
+// a new row starts where y rises by more than RowGapFraction of the
+// typical spacing over the item before (the typical spacing is
+// √(A / n), A the plan area of the bounding box of all the points and n
+// their number: the spacing of n points spread evenly over it); rows go
+// from low to high y, and inside a row items go by x, then y, then z,
+// then by key. Positions are rounded to LabelResolutionMM before any
+// comparison. The labels depend only on the points and keys, never on
+// the order the items come in. Numbers are consecutive in each bay (01,
+// 02, 03, …) with at least two digits, more where a bay holds more than
+// 99 items.
 func (b Bays) Label(pts []Vec, keys []string, prefix string) []string {
 	type item struct {
 		i        int
 		col, row int
-		p        Vec
+		x, y, z  float64 // rounded to LabelResolutionMM
+		line     int     // row inside the bay
 	}
 	items := make([]item, len(pts))
+	lo, hi := Vec2{math.Inf(1), math.Inf(1)}, Vec2{math.Inf(-1), math.Inf(-1)}
 	for i, p := range pts {
 		c, r := b.Cell(Vec2{p.X, p.Y})
-		items[i] = item{i, c, r, p}
+		items[i] = item{i: i, col: c, row: r, x: roundRes(p.X), y: roundRes(p.Y), z: roundRes(p.Z)}
+		lo = Vec2{math.Min(lo.X, items[i].x), math.Min(lo.Y, items[i].y)}
+		hi = Vec2{math.Max(hi.X, items[i].x), math.Max(hi.Y, items[i].y)}
 	}
-	slices.SortFunc(items, func(a, c item) int {
+	gap := 0.0
+	if len(pts) > 0 {
+		gap = RowGapFraction * math.Sqrt((hi.X-lo.X)*(hi.Y-lo.Y)/float64(len(pts)))
+	}
+	bay := func(a, c item) int {
 		if d := cmp.Compare(a.col, c.col); d != 0 {
 			return d
 		}
-		if d := cmp.Compare(a.row, c.row); d != 0 {
+		return cmp.Compare(a.row, c.row)
+	}
+	tail := func(a, c item) int { // x, y, z, key
+		if d := cmp.Compare(a.x, c.x); d != 0 {
 			return d
 		}
-		if d := cmp.Compare(a.p.X, c.p.X); d != 0 {
+		if d := cmp.Compare(a.y, c.y); d != 0 {
 			return d
 		}
-		if d := cmp.Compare(a.p.Y, c.p.Y); d != 0 {
-			return d
-		}
-		if d := cmp.Compare(a.p.Z, c.p.Z); d != 0 {
+		if d := cmp.Compare(a.z, c.z); d != 0 {
 			return d
 		}
 		return strings.Compare(keys[a.i], keys[c.i])
+	}
+	// By bay, then y: rows are cut where y jumps.
+	slices.SortFunc(items, func(a, c item) int {
+		if d := bay(a, c); d != 0 {
+			return d
+		}
+		if d := cmp.Compare(a.y, c.y); d != 0 {
+			return d
+		}
+		return tail(a, c)
 	})
 	width := 2
 	for s := 0; s < len(items); {
-		e := s
-		for e < len(items) && items[e].col == items[s].col && items[e].row == items[s].row {
+		e := s + 1
+		for e < len(items) && bay(items[e], items[s]) == 0 {
+			line := items[e-1].line
+			if items[e].y-items[e-1].y > gap {
+				line++
+			}
+			items[e].line = line
 			e++
 		}
-		width = max(width, len(fmt.Sprint(e-s)))
+		// Then row by row, by x inside a row.
+		slices.SortFunc(items[s:e], func(a, c item) int {
+			if d := cmp.Compare(a.line, c.line); d != 0 {
+				return d
+			}
+			return tail(a, c)
+		})
+		width = max(width, len(strconv.Itoa(e-s)))
 		s = e
 	}
 	labels := make([]string, len(pts))
 	k := 0
-	bay := ""
+	name := ""
 	for j, it := range items {
-		if j == 0 || it.col != items[j-1].col || it.row != items[j-1].row {
+		if j == 0 || bay(it, items[j-1]) != 0 {
 			k = 0
 		}
 		k++
 		if k == 1 {
-			bay = b.Name(it.col, it.row) + "-" + prefix
+			name = b.Name(it.col, it.row) + "-" + prefix
 		}
 		num := strconv.Itoa(k)
-		labels[it.i] = bay + strings.Repeat("0", max(0, width-len(num))) + num
+		labels[it.i] = name + strings.Repeat("0", max(0, width-len(num))) + num
 	}
 	return labels
 }
+
+// roundRes rounds a coordinate to LabelResolutionMM.
+func roundRes(v float64) float64 { return math.Round(v/LabelResolutionMM) * LabelResolutionMM }

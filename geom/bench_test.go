@@ -32,3 +32,13 @@ func benchValidate(b *testing.B, nx, ny int) {
 // Validation is linear in size: compare ns/op of the two.
 func BenchmarkValidate10k(b *testing.B)  { benchValidate(b, 125, 80) }
 func BenchmarkValidate100k(b *testing.B) { benchValidate(b, 400, 250) }
+
+// BenchmarkCanonical100k renumbers a 100k-panel net in geometric order
+// (V log V + F log F).
+func BenchmarkCanonical100k(b *testing.B) {
+	n := mustRead(b, gridOBJ(400, 250, 1500))
+	b.ReportAllocs()
+	for b.Loop() {
+		Canonical(n)
+	}
+}

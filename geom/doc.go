@@ -14,6 +14,13 @@
 //   - Panels (faces) run counter-clockwise seen from above, or from outside
 //     for closed nets, so the right-hand normal points up or out.
 //
+// Readers are strict and bounded: numbers are plain decimals, every
+// problem is an *InputError naming the file, the line and the element,
+// and input past MaxLineBytes, MaxFileBytes, MaxLines, MaxNodes or
+// MaxPanels stops the reader, so no input can exhaust memory. Validate
+// bounds the work of each of its checks (see its doc), and Canonical
+// renumbers a valid net in an order fixed by its geometry.
+//
 // Vectors are gonum's spatial/r3.Vec, a small value struct (X, Y, Z); Vec
 // below is an alias for it, and Vec2 is our own 2D value struct. Neither is
 // ever passed by pointer.

@@ -1,8 +1,22 @@
 package geom
 
 import (
+	"errors"
 	"fmt"
 	"strconv"
+	"unicode/utf8"
+)
+
+// Sentinel causes wrapped by InputError.Err, for errors.Is.
+var (
+	// ErrTooLarge: the input passes a size limit (MaxLineBytes, MaxLines,
+	// MaxNodes, MaxPanels).
+	ErrTooLarge = errors.New("input beyond a size limit")
+	// ErrNotRegular: the path names a FIFO, device, socket or folder.
+	ErrNotRegular = errors.New("not a regular file")
+	// ErrWrongUnit: the net's edges are far too short or too long for a
+	// building net in the unit it was read in.
+	ErrWrongUnit = errors.New("net in the wrong unit")
 )
 
 // InputError is the one error type for "this element of this file is
@@ -44,6 +58,28 @@ func (e *InputError) Unwrap() error { return e.Err }
 func inputErr(file string, line int, elem, format string, args ...any) *InputError {
 	return &InputError{File: file, Line: line, Elem: elem, Msg: fmt.Sprintf(format, args...)}
 }
+
+// maxQuoteRunes is the longest part of a bad value a message repeats.
+const maxQuoteRunes = 32
+
+// short returns s cut to maxQuoteRunes characters, with "…" when cut, so
+// that a message never echoes a huge value.
+func short(s string) string {
+	if utf8.RuneCountInString(s) <= maxQuoteRunes {
+		return s
+	}
+	k := 0
+	for i := range s {
+		if k == maxQuoteRunes {
+			return s[:i] + "…"
+		}
+		k++
+	}
+	return s
+}
+
+// quote returns short(s) in Go double quotes.
+func quote(s string) string { return strconv.Quote(short(s)) }
 
 // FieldError is a bad value in an options struct: Field names the Go field
 // (such as "TolMM", or "Stocks[2].WidthMM" for an element of a list) and

@@ -24,8 +24,12 @@ func seedFiles(f *testing.F, pattern string) {
 // an accepted net must be usable.
 func checkRead(t *testing.T, n *Net, err error) {
 	if err != nil {
-		if !strings.Contains(err.Error(), "fuzz") {
+		msg := err.Error()
+		if !strings.Contains(msg, "fuzz") {
 			t.Fatalf("error does not name the file: %v", err)
+		}
+		if strings.ContainsAny(msg, "\n\r") || len(msg) > maxMessageBytes {
+			t.Fatalf("error is not one short line (%d bytes): %q", len(msg), short(msg))
 		}
 		return
 	}
@@ -45,10 +49,30 @@ func checkRead(t *testing.T, n *Net, err error) {
 		}
 	}
 	topo, fd := Validate(n, DefaultValidateOptions())
-	if fd.Err() == nil && len(topo.FaceEdges) != len(n.Faces) {
+	for _, e := range append(fd.Errors, fd.Warnings...) {
+		if msg := e.Error(); strings.ContainsAny(msg, "\n\r") || len(msg) > maxMessageBytes {
+			t.Fatalf("finding is not one short line (%d bytes): %q", len(msg), short(msg))
+		}
+	}
+	if fd.Err() != nil {
+		return
+	}
+	if len(topo.FaceEdges) != len(n.Faces) {
 		t.Fatal("topology lost faces")
 	}
+	kept, dropped := DropUnused(n)
+	if len(kept.Nodes)+len(dropped) != len(n.Nodes) || len(kept.Faces) != len(n.Faces) {
+		t.Fatalf("DropUnused: %d + %d nodes of %d", len(kept.Nodes), len(dropped), len(n.Nodes))
+	}
+	c, nodeFrom, faceFrom := Canonical(n)
+	if len(c.Nodes) != len(n.Nodes) || len(nodeFrom) != len(n.Nodes) || len(faceFrom) != len(n.Faces) {
+		t.Fatal("Canonical lost nodes or faces")
+	}
 }
+
+// maxMessageBytes bounds an error message: a few names, numbers and short
+// quotes, never a whole line of the input.
+const maxMessageBytes = 600
 
 func FuzzReadOBJ(f *testing.F) {
 	seedFiles(f, "*.obj")

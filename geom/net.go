@@ -26,8 +26,12 @@ type Face struct {
 // Net is a panel net as read from a file: nodes and faces.
 type Net struct {
 	Source string // file the net came from, for messages
-	Nodes  []Node
-	Faces  []Face
+	// Unit is the unit the file was written in (positions are converted
+	// to millimetres on reading); 0 for a net not read from a file, which
+	// messages treat as mm.
+	Unit  Unit
+	Nodes []Node
+	Faces []Face
 }
 
 // FaceNodes returns the node indices of face f.
@@ -52,7 +56,7 @@ func (n *Net) Positions() []Vec {
 
 // Clone returns a deep copy of the net.
 func (n *Net) Clone() *Net {
-	c := &Net{Source: n.Source, Nodes: append([]Node(nil), n.Nodes...), Faces: make([]Face, len(n.Faces))}
+	c := &Net{Source: n.Source, Unit: n.Unit, Nodes: append([]Node(nil), n.Nodes...), Faces: make([]Face, len(n.Faces))}
 	for i, f := range n.Faces {
 		c.Faces[i] = Face{ID: f.ID, Line: f.Line, Corners: append([]int(nil), f.Corners...)}
 	}

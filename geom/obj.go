@@ -6,13 +6,24 @@ import (
 	"strings"
 )
 
-// ReadOBJ reads a Wavefront OBJ net: `v x y z` nodes and `f` faces with
-// corner references in the forms a, a/b, a//c and a/b/c, positive (1-based)
-// or negative (relative to the nodes read so far). Comments, groups,
-// objects, materials, smoothing, texture and normal lines are ignored.
-// Node and face ids are their 1-based numbers in the file.
+// ReadOBJ reads a Wavefront OBJ net: `v` nodes and `f` faces with corner
+// references in the forms a, a/b, a//c and a/b/c, positive (1-based) or
+// negative (relative to the nodes read so far). Comments, groups, objects,
+// materials, smoothing, texture, normal, point and line statements are
+// ignored; any other statement is an error.
+//
+// A `v` line holds exactly x y z, or x y z w (w, a weight for rational
+// curves, is ignored), or x y z r g b (vertex colours, ignored); every
+// value is a plain decimal number. Anything else, such as the words of a
+// next statement after a lost line break ("v 1 2 3 f 1 2 3"), is an error
+// naming the line and the node.
+//
+// Lines may end in LF, CRLF or a lone CR; a byte-order mark at the start
+// is skipped. Input beyond MaxLineBytes, MaxLines, MaxNodes or MaxPanels
+// stops the reader with an error. Node and face ids are their 1-based
+// numbers in the file.
 func ReadOBJ(r io.Reader, file string, unit Unit) (*Net, error) {
-	n := &Net{Source: file}
+	n := &Net{Source: file, Unit: unit}
 	lr := newLineReader(r, file)
 	for {
 		s, ok := lr.next()
@@ -20,27 +31,33 @@ func ReadOBJ(r io.Reader, file string, unit Unit) (*Net, error) {
 			break
 		}
 		f := strings.Fields(s)
+		if f[len(f)-1] == `\` {
+			return nil, inputErr(file, lr.line, "", `the line ends in \ (continued on the next line), which pqfab does not read: join the lines`)
+		}
 		switch f[0] {
 		case "v":
 			id := strconv.Itoa(len(n.Nodes) + 1)
-			if len(f) < 4 {
-				return nil, inputErr(file, lr.line, "node "+id, "needs x y z")
+			if len(n.Nodes) == MaxNodes {
+				return nil, tooMany(file, lr.line, "node "+id, "nodes", MaxNodes)
 			}
-			p, err := parsePoint(f[1:4], unit)
-			if err != nil {
-				return nil, inputErr(file, lr.line, "node "+id, "%v", err)
+			p, msg := parseOBJVertex(f[1:], unit)
+			if msg != "" {
+				return nil, inputErr(file, lr.line, "node "+id, "%s", msg)
 			}
 			n.Nodes = append(n.Nodes, Node{ID: id, Pos: p, Line: lr.line})
 		case "f":
 			id := strconv.Itoa(len(n.Faces) + 1)
+			if len(n.Faces) == MaxPanels {
+				return nil, tooMany(file, lr.line, "panel "+id, "panels", MaxPanels)
+			}
+			if msg := checkCornerCount(len(f) - 1); msg != "" {
+				return nil, inputErr(file, lr.line, "panel "+id, "%s", msg)
+			}
 			corners := make([]int, 0, len(f)-1)
 			for k, ref := range f[1:] {
-				if j := strings.IndexByte(ref, '/'); j >= 0 {
-					ref = ref[:j]
-				}
-				idx, err := strconv.Atoi(ref)
-				if err != nil {
-					return nil, inputErr(file, lr.line, "panel "+id, "corner %d: bad node reference %q", k+1, f[k+1])
+				idx, ok := parseOBJRef(ref)
+				if !ok {
+					return nil, inputErr(file, lr.line, "panel "+id, "corner %d: bad node reference %s", k+1, quote(ref))
 				}
 				switch {
 				case idx > 0:
@@ -48,7 +65,7 @@ func ReadOBJ(r io.Reader, file string, unit Unit) (*Net, error) {
 				case idx < 0:
 					idx += len(n.Nodes)
 					if idx < 0 {
-						return nil, inputErr(file, lr.line, "panel "+id, "corner %d: relative node %s reaches before the first node", k+1, ref)
+						return nil, inputErr(file, lr.line, "panel "+id, "corner %d: relative node %s reaches before the first node", k+1, short(ref))
 					}
 				default:
 					return nil, inputErr(file, lr.line, "panel "+id, "corner %d: node 0 does not exist (OBJ counts from 1)", k+1)
@@ -61,13 +78,76 @@ func ReadOBJ(r io.Reader, file string, unit Unit) (*Net, error) {
 			n.Faces = append(n.Faces, Face{ID: id, Corners: corners, Line: lr.line})
 		case "vt", "vn", "vp", "g", "o", "s", "usemtl", "mtllib", "l", "p":
 		default:
-			return nil, inputErr(file, lr.line, "", "unknown OBJ statement %q", f[0])
+			return nil, inputErr(file, lr.line, "", "unknown OBJ statement %s", quote(f[0]))
 		}
 	}
 	if lr.err != nil {
 		return nil, lr.err
 	}
 	return finishRead(n, file)
+}
+
+const objVertexForms = "want x y z, x y z w or x y z r g b (a lost line break?)"
+
+// parseOBJVertex reads the values after `v`: x y z, x y z w or x y z r g b.
+func parseOBJVertex(vals []string, unit Unit) (Vec, string) {
+	if len(vals) < 3 {
+		return Vec{}, "needs x y z"
+	}
+	p, err := parsePoint(vals, unit)
+	if err != nil {
+		return Vec{}, err.Error()
+	}
+	switch len(vals) {
+	case 3, 4, 6:
+	default:
+		return Vec{}, "has " + strconv.Itoa(len(vals)) + " values; " + objVertexForms
+	}
+	for k, v := range vals[3:] {
+		if _, ok := parsePlain(v); !ok {
+			return Vec{}, "value " + strconv.Itoa(k+4) + " " + quote(v) + " is not a number; " + objVertexForms
+		}
+	}
+	return p, ""
+}
+
+// parseOBJRef reads a corner reference a, a/b, a//c or a/b/c (decimal
+// integers, a not empty) and returns a.
+func parseOBJRef(ref string) (int, bool) {
+	a, rest, slash := strings.Cut(ref, "/")
+	if !isInteger(a) {
+		return 0, false
+	}
+	if slash {
+		b, c, slash2 := strings.Cut(rest, "/")
+		switch {
+		case slash2 && (!isInteger(c) || (b != "" && !isInteger(b))):
+			return 0, false // a/b/c or a//c
+		case !slash2 && !isInteger(b):
+			return 0, false // a/b
+		}
+	}
+	idx, err := strconv.Atoi(a)
+	if err != nil {
+		return 0, false
+	}
+	return idx, true
+}
+
+// isInteger reports whether s is a decimal integer with an optional sign.
+func isInteger(s string) bool {
+	if s != "" && (s[0] == '+' || s[0] == '-') {
+		s = s[1:]
+	}
+	if s == "" {
+		return false
+	}
+	for i := 0; i < len(s); i++ {
+		if !isDigit(s[i]) {
+			return false
+		}
+	}
+	return true
 }
 
 // finishRead checks what every reader needs: something read, and every

@@ -32,7 +32,7 @@ type PlaneFit struct {
 }
 
 // ErrTooFewPoints is returned by FitPlane for fewer than three points.
-var ErrTooFewPoints = errors.New("geom: a plane needs at least three points")
+var ErrTooFewPoints = errors.New("a plane needs at least three points")
 
 // FitPlane returns the least-squares plane of pts: it passes through the
 // centroid and its normal is the eigenvector of the scatter matrix
@@ -57,7 +57,7 @@ func FitPlane(pts []Vec) (PlaneFit, error) {
 	sym := mat.NewSymDense(3, []float64{s[0], s[1], s[2], s[1], s[3], s[4], s[2], s[4], s[5]})
 	var eig mat.EigenSym
 	if !eig.Factorize(sym, true) {
-		return PlaneFit{}, errors.New("geom: plane fit: eigen decomposition failed")
+		return PlaneFit{}, errors.New("plane fit: eigen decomposition failed")
 	}
 	vals := eig.Values(nil)
 	var vecs mat.Dense
@@ -101,7 +101,7 @@ func PlaneFrame(o, n, dir Vec, tol float64) (Frame, error) {
 	z := r3.Unit(n)
 	x := r3.Sub(dir, r3.Scale(r3.Dot(dir, z), z))
 	if r3.Norm(x) <= tol*r3.Norm(dir) || r3.Norm(dir) == 0 {
-		return Frame{}, errors.New("geom: frame direction is parallel to the normal")
+		return Frame{}, errors.New("frame direction is parallel to the normal")
 	}
 	x = r3.Unit(x)
 	return Frame{Origin: o, X: x, Y: r3.Cross(z, x), Z: z}, nil

@@ -1,15 +1,12 @@
 package geom
 
 import (
-	"bufio"
 	"errors"
 	"fmt"
 	"io"
 	"io/fs"
-	"math"
 	"os"
 	"path/filepath"
-	"strconv"
 	"strings"
 	"syscall"
 )
@@ -27,13 +24,51 @@ const MaxCoordMM = 1e8
 
 // ReadFile reads a net file from disk, choosing the format by the file
 // name's extension: .obj, .off, or .csv for a CSV pair (see ReadCSV; the
-// panels file is found by PanelsPathFor).
+// panels file is found by PanelsPathFor). Files are opened with
+// OpenRegular, so a FIFO, device, socket or folder is refused at once.
 func ReadFile(path string, unit Unit) (*Net, error) {
-	return ReadFrom(func(name string) (io.ReadCloser, error) { return os.Open(name) }, path, unit)
+	return ReadFrom(func(name string) (io.ReadCloser, error) { return OpenRegular(name) }, path, unit)
+}
+
+// OpenRegular opens a regular file for reading. It refuses, with an
+// InputError naming the path, a path that does not exist, a folder, and a
+// FIFO, device or socket (wrapping ErrNotRegular), without blocking: it
+// checks the path before opening it, opens it without waiting for a
+// writer, and checks the opened file again.
+func OpenRegular(path string) (*os.File, error) {
+	fi, err := os.Stat(path)
+	if err != nil {
+		return nil, &InputError{File: path, Msg: openMsg(err), Err: err}
+	}
+	if err := checkRegular(path, fi); err != nil {
+		return nil, err
+	}
+	f, err := os.OpenFile(path, os.O_RDONLY|syscall.O_NONBLOCK, 0)
+	if err != nil {
+		return nil, &InputError{File: path, Msg: openMsg(err), Err: err}
+	}
+	if fi, err = f.Stat(); err == nil {
+		err = checkRegular(path, fi)
+	}
+	if err != nil {
+		f.Close()
+		return nil, err
+	}
+	return f, nil
+}
+
+func checkRegular(path string, fi fs.FileInfo) error {
+	switch {
+	case fi.IsDir():
+		return &InputError{File: path, Msg: "is a folder, not a file", Err: ErrNotRegular}
+	case !fi.Mode().IsRegular():
+		return &InputError{File: path, Msg: "is not a regular file (a FIFO, device or socket)", Err: ErrNotRegular}
+	}
+	return nil
 }
 
 // ReadFrom is ReadFile with files opened by open, such as an embedded
-// file system's Open.
+// file system's Open. An *InputError from open is returned as it is.
 func ReadFrom(open func(name string) (io.ReadCloser, error), path string, unit Unit) (*Net, error) {
 	var read func(io.Reader, string, Unit) (*Net, error)
 	switch strings.ToLower(filepath.Ext(path)) {
@@ -46,26 +81,38 @@ func ReadFrom(open func(name string) (io.ReadCloser, error), path string, unit U
 		if err != nil {
 			return nil, err
 		}
-		nf, err := open(path)
+		nf, err := openFile(open, path)
 		if err != nil {
-			return nil, &InputError{File: path, Msg: openMsg(err)}
+			return nil, err
 		}
 		defer nf.Close()
-		pf, err := open(pp)
+		pf, err := openFile(open, pp)
 		if err != nil {
-			return nil, &InputError{File: pp, Msg: openMsg(err)}
+			return nil, err
 		}
 		defer pf.Close()
 		return ReadCSV(nf, path, pf, pp, unit)
 	default:
 		return nil, &InputError{File: path, Msg: "unknown net format (want .obj, .off or a nodes/panels .csv pair)"}
 	}
-	f, err := open(path)
+	f, err := openFile(open, path)
 	if err != nil {
-		return nil, &InputError{File: path, Msg: openMsg(err)}
+		return nil, err
 	}
 	defer f.Close()
 	return read(f, path, unit)
+}
+
+func openFile(open func(name string) (io.ReadCloser, error), path string) (io.ReadCloser, error) {
+	f, err := open(path)
+	if err != nil {
+		var ie *InputError
+		if errors.As(err, &ie) {
+			return nil, err
+		}
+		return nil, &InputError{File: path, Msg: openMsg(err), Err: err}
+	}
+	return f, nil
 }
 
 func openMsg(err error) string {
@@ -85,91 +132,10 @@ func openMsg(err error) string {
 	return err.Error()
 }
 
-// lineReader yields trimmed lines with their numbers, skipping blank lines
-// and '#' comments.
-type lineReader struct {
-	sc   *bufio.Scanner
-	file string
-	line int
-	err  error
-}
-
-func newLineReader(r io.Reader, file string) *lineReader {
-	sc := bufio.NewScanner(r)
-	sc.Buffer(make([]byte, 64*1024), 16*1024*1024)
-	return &lineReader{sc: sc, file: file}
-}
-
-func (lr *lineReader) next() (string, bool) {
-	for lr.sc.Scan() {
-		lr.line++
-		s := lr.sc.Text()
-		if i := strings.IndexByte(s, '#'); i >= 0 {
-			s = s[:i]
-		}
-		s = strings.TrimSpace(s)
-		if s == "" {
-			continue
-		}
-		if !utf8Text(s) {
-			lr.err = inputErr(lr.file, lr.line, "", "not a text line (binary data?)")
-			return "", false
-		}
-		return s, true
-	}
-	if err := lr.sc.Err(); err != nil {
-		lr.err = inputErr(lr.file, lr.line+1, "", "read failed: %v", err)
-	}
-	return "", false
-}
-
-// utf8Text reports whether s holds printable text: no control bytes other
-// than tab, and valid UTF-8.
-func utf8Text(s string) bool {
-	for _, r := range s {
-		if r == 0xFFFD || (r < 0x20 && r != '\t' && r != '\r') || r == 0x7f {
-			return false
-		}
-	}
-	return true
-}
-
-// parseCoord reads one coordinate and converts it to millimetres.
-func parseCoord(s string, unit Unit) (float64, error) {
-	v, err := strconv.ParseFloat(s, 64)
-	if err != nil {
-		return 0, fmt.Errorf("bad number %q", s)
-	}
-	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return 0, fmt.Errorf("coordinate %q is not a finite number", s)
-	}
-	v *= float64(unit)
-	if math.Abs(v) > MaxCoordMM {
-		return 0, fmt.Errorf("coordinate %s %s is beyond %.0f km (wrong unit?)", s, unit, MaxCoordMM/1e6)
-	}
-	return v, nil
-}
-
-// parsePoint reads three coordinates.
-func parsePoint(f []string, unit Unit) (Vec, error) {
-	var c [3]float64
-	for i := 0; i < 3; i++ {
-		v, err := parseCoord(f[i], unit)
-		if err != nil {
-			return Vec{}, err
-		}
-		c[i] = v
-	}
-	return Vec{X: c[0], Y: c[1], Z: c[2]}, nil
-}
-
 // checkFaceCorners reports a face with too few, too many or repeated corners.
 func checkFaceCorners(corners []int) string {
-	if len(corners) < MinCorners {
-		return fmt.Sprintf("has %d corners; a panel needs at least %d", len(corners), MinCorners)
-	}
-	if len(corners) > MaxCorners {
-		return fmt.Sprintf("has %d corners; pqfab takes panels of %d to %d corners", len(corners), MinCorners, MaxCorners)
+	if msg := checkCornerCount(len(corners)); msg != "" {
+		return msg
 	}
 	for i := range corners {
 		for j := i + 1; j < len(corners); j++ {
@@ -179,4 +145,21 @@ func checkFaceCorners(corners []int) string {
 		}
 	}
 	return ""
+}
+
+// checkCornerCount reports a panel of too few or too many corners.
+func checkCornerCount(k int) string {
+	if k < MinCorners {
+		return fmt.Sprintf("has %d corners; a panel needs at least %d", k, MinCorners)
+	}
+	if k > MaxCorners {
+		return fmt.Sprintf("has %d corners; pqfab takes panels of %d to %d corners", k, MinCorners, MaxCorners)
+	}
+	return ""
+}
+
+// tooMany is the error for the node or panel past a count limit.
+func tooMany(file string, line int, elem, what string, limit int) *InputError {
+	return &InputError{File: file, Line: line, Elem: elem, Err: ErrTooLarge,
+		Msg: fmt.Sprintf("more than %d %s, the most pqfab takes", limit, what)}
 }

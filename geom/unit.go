@@ -22,7 +22,7 @@ func ParseUnit(s string) (Unit, error) {
 	case "m":
 		return M, nil
 	}
-	return 0, fmt.Errorf("geom: unknown unit %q (want mm, cm or m)", s)
+	return 0, fmt.Errorf("unknown unit %s (want mm, cm or m)", quote(s))
 }
 
 // String returns the unit's symbol.

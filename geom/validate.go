@@ -2,6 +2,7 @@ package geom
 
 import (
 	"fmt"
+	"math"
 	"sort"
 	"strings"
 
@@ -15,17 +16,66 @@ const (
 	DefaultCoincidentTolMM = 0.01
 	// DefaultMinAreaMM2: a panel smaller than 1 mm² is degenerate.
 	DefaultMinAreaMM2 = 1.0
+	// DefaultMinMedianEdgeMM and DefaultMaxMedianEdgeMM bound the median
+	// edge of a building net (30 mm and 30 m). Members of real gridshells
+	// are roughly 0.3–5 m long (common practice, from memory). A net read
+	// in a unit a thousand times too small (metres read as millimetres)
+	// has median edges of 0.3–5 mm, one read a thousand times too large
+	// (millimetres read as metres) 300 m–5 km; the bounds sit a factor of
+	// ten below and six above the real range, so dense lattices and long
+	// spans pass and the thousand-fold mistakes fail. A factor of ten
+	// (centimetres read as millimetres: 30–500 mm) cannot be told from
+	// geometry and is not flagged.
+	DefaultMinMedianEdgeMM = 30.0
+	DefaultMaxMedianEdgeMM = 30_000.0
 )
+
+// MaxCoincidentTolMM is the largest coincidence tolerance accepted (100
+// mm): nodes that far apart are not one node entered twice.
+const MaxCoincidentTolMM = 100.0
+
+// MaxReportedPairs caps the coincident-node pairs and the T-junctions
+// Validate collects; past it, it reports that more exist and stops looking.
+const MaxReportedPairs = 100
 
 // ValidateOptions sets the tolerances of Validate.
 type ValidateOptions struct {
+	// CoincidentTolMM: nodes closer than this are coincident, and a node
+	// closer than this to another panel's edge lies on it (a T-junction).
 	CoincidentTolMM float64
-	MinAreaMM2      float64
+	// MinAreaMM2: a panel of smaller area is degenerate.
+	MinAreaMM2 float64
+	// MinMedianEdgeMM and MaxMedianEdgeMM: a net whose median edge lies
+	// outside is in the wrong unit. Zero turns a bound off.
+	MinMedianEdgeMM float64
+	MaxMedianEdgeMM float64
+}
+
+// Validate reports the first bad value as a *FieldError: every value must
+// be a finite number, zero or more, and MaxMedianEdgeMM, when set, at
+// least MinMedianEdgeMM.
+func (o ValidateOptions) Validate() error {
+	for _, f := range []struct {
+		name string
+		v    float64
+	}{{"CoincidentTolMM", o.CoincidentTolMM}, {"MinAreaMM2", o.MinAreaMM2}, {"MinMedianEdgeMM", o.MinMedianEdgeMM}, {"MaxMedianEdgeMM", o.MaxMedianEdgeMM}} {
+		if !(f.v >= 0) || math.IsInf(f.v, 0) {
+			return FieldErrorf(f.name, "%g must be a finite number, zero or more", f.v)
+		}
+	}
+	if o.CoincidentTolMM > MaxCoincidentTolMM {
+		return FieldErrorf("CoincidentTolMM", "%g must be between 0 and %g mm", o.CoincidentTolMM, MaxCoincidentTolMM)
+	}
+	if o.MaxMedianEdgeMM > 0 && o.MaxMedianEdgeMM < o.MinMedianEdgeMM {
+		return FieldErrorf("MaxMedianEdgeMM", "%g is below MinMedianEdgeMM %g", o.MaxMedianEdgeMM, o.MinMedianEdgeMM)
+	}
+	return nil
 }
 
 // DefaultValidateOptions returns the default tolerances.
 func DefaultValidateOptions() ValidateOptions {
-	return ValidateOptions{CoincidentTolMM: DefaultCoincidentTolMM, MinAreaMM2: DefaultMinAreaMM2}
+	return ValidateOptions{CoincidentTolMM: DefaultCoincidentTolMM, MinAreaMM2: DefaultMinAreaMM2,
+		MinMedianEdgeMM: DefaultMinMedianEdgeMM, MaxMedianEdgeMM: DefaultMaxMedianEdgeMM}
 }
 
 // Findings is what Validate found. Errors stop the job; warnings do not.
@@ -60,10 +110,33 @@ func (e *ValidationError) Error() string {
 	return s
 }
 
-// Validate checks a net read from a file: zero-area panels, coincident
-// nodes, duplicate panels, edges shared by more than two panels, and
-// inconsistent orientation are errors; unused nodes, disconnected parts
-// and parts facing down are warnings. It also returns the topology.
+// Validate checks a net read from a file and returns its topology with
+// what it found. The checks, in order, with the work each may take for V
+// nodes, E edges and F panels:
+//
+//   - unit: a median edge outside [MinMedianEdgeMM, MaxMedianEdgeMM] is
+//     the one error reported, naming the unit that fits (E log E);
+//   - panel shape: corners whose outline, projected on their
+//     least-squares plane, crosses itself (a bow-tie), then an area below
+//     MinAreaMM2 (F);
+//   - coincident nodes (V log V sort, then at most nearTestBudget
+//     distance tests; at most MaxReportedPairs pairs are listed);
+//     nodes in no panel are left out of this check and the T-junction
+//     check, as DropUnused leaves them out of the net;
+//   - panels with the same corners (F), edges shared by more than two
+//     panels (E);
+//   - T-junctions: a node within CoincidentTolMM of another panel's edge,
+//     away from its ends (a spatial grid: V log V, then at most
+//     nearTestBudget tests; skipped when nodes coincide);
+//   - pinches: a node where the panels around it form groups that share
+//     no edge there (V + F);
+//   - orientation, when nothing above failed (F + E);
+//   - warnings: nodes in no panel, disconnected parts, parts facing down
+//     (V + F + E).
+//
+// A check that runs out of its budget says so in a warning. opt should
+// pass ValidateOptions.Validate; other values give no useful findings
+// but never hang or panic.
 func Validate(n *Net, opt ValidateOptions) (*Topology, Findings) {
 	var fd Findings
 	file := n.Source
@@ -77,17 +150,38 @@ func Validate(n *Net, opt ValidateOptions) (*Topology, Findings) {
 	}
 	faceElem := func(f int) string { return "panel " + n.Faces[f].ID }
 
+	t := BuildTopology(n)
+	es := edgeLengths(n, t)
+	if e := checkUnit(n, es, opt); e != nil {
+		fd.Errors = append(fd.Errors, e)
+		return t, fd
+	}
 	var pts []Vec
 	for f := range n.Faces {
 		pts = n.FacePoints(pts[:0], f)
+		if i, j, ok := bowTie(pts, opt.MinAreaMM2); ok {
+			c, k := n.Faces[f].Corners, len(pts)
+			add(false, n.Faces[f].Line, faceElem(f), "corners out of order: the outline crosses itself (a bow-tie: edges %s–%s and %s–%s cross)",
+				n.Nodes[c[i]].ID, n.Nodes[c[(i+1)%k]].ID, n.Nodes[c[j]].ID, n.Nodes[c[(j+1)%k]].ID)
+			continue
+		}
 		if a := r3.Norm(VectorArea(pts)); a < opt.MinAreaMM2 {
 			add(false, n.Faces[f].Line, faceElem(f), "area %.3g mm² is below %.3g mm² (degenerate panel)", a, opt.MinAreaMM2)
 		}
 	}
-	for _, pair := range coincidentNodes(n, opt.CoincidentTolMM) {
+	used := usedNodes(n) // nodes in no panel are left out: not checked below
+	budget := nearTestBudget(len(n.Nodes) + len(t.Edges))
+	pairs, more, done := coincidentNodes(n, used, opt.CoincidentTolMM, budget)
+	for _, pair := range pairs {
 		a, b := pair[0], pair[1]
 		add(false, n.Nodes[b].Line, "node "+n.Nodes[b].ID, "coincides with node %s (line %d): %.4g mm apart, tolerance %.4g mm",
 			n.Nodes[a].ID, n.Nodes[a].Line, r3.Norm(r3.Sub(n.Nodes[a].Pos, n.Nodes[b].Pos)), opt.CoincidentTolMM)
+	}
+	if more {
+		add(false, 0, "", "… and more coincident nodes (only the first %d pairs are listed; is the merge tolerance %g mm too large?)", MaxReportedPairs, opt.CoincidentTolMM)
+	}
+	if !done {
+		add(true, 0, "", "the coincident-node check stopped after %d distance tests; some coincident nodes may be unreported", budget)
 	}
 	seen := make(map[[MaxCorners]int32]int, len(n.Faces))
 	for f, face := range n.Faces {
@@ -105,48 +199,60 @@ func Validate(n *Net, opt ValidateOptions) (*Topology, Findings) {
 			seen[k] = f
 		}
 	}
-	t := BuildTopology(n)
 	for _, e := range t.Edges {
 		if len(e.Faces) > 2 {
-			ids := make([]string, len(e.Faces))
-			for i, f := range e.Faces {
-				ids[i] = n.Faces[f].ID
-			}
 			add(false, n.Faces[e.Faces[2]].Line, faceElem(e.Faces[2]), "edge %s–%s is shared by %d panels (%s); an edge may have at most two (non-manifold)",
-				n.Nodes[e.A].ID, n.Nodes[e.B].ID, len(e.Faces), strings.Join(ids, ", "))
+				n.Nodes[e.A].ID, n.Nodes[e.B].ID, len(e.Faces), faceList(n, e.Faces))
 		}
+	}
+	var onEdge []bool // ends of edges with a T-junction: their pinch follows from it
+	if len(pairs) == 0 {
+		tj, more, done := tJunctions(n, t, used, es, opt.CoincidentTolMM, budget)
+		onEdge = make([]bool, len(n.Nodes))
+		for _, j := range tj {
+			e := t.Edges[j.edge]
+			f := e.Faces[0]
+			onEdge[e.A], onEdge[e.B] = true, true
+			add(false, n.Nodes[j.node].Line, "node "+n.Nodes[j.node].ID, "lies on edge %s–%s of panel %s (line %d) (a T-junction); split that panel's edge at the node",
+				n.Nodes[e.A].ID, n.Nodes[e.B].ID, n.Faces[f].ID, n.Faces[f].Line)
+		}
+		if more {
+			add(false, 0, "", "… and more T-junctions (only the first %d are listed)", MaxReportedPairs)
+		}
+		if !done {
+			add(true, 0, "", "the T-junction check stopped after %d distance tests; some T-junctions may be unreported", budget)
+		}
+	}
+	for _, p := range pinches(n, t) {
+		if onEdge != nil && onEdge[p.node] {
+			continue
+		}
+		add(false, n.Nodes[p.node].Line, "node "+n.Nodes[p.node].ID, "panels around node %s meet only at this node (a pinch): %d groups (panels %s); give each group its own node or join them through an edge",
+			n.Nodes[p.node].ID, len(p.groups), groupList(n, p.groups))
 	}
 	if len(fd.Errors) == 0 {
 		checkOrientation(n, t, &fd)
 	}
-	used := make([]bool, len(n.Nodes))
-	for _, face := range n.Faces {
-		for _, c := range face.Corners {
-			used[c] = true
-		}
-	}
 	var unused []string
-	firstLine := 0
+	firstLine, cnt := 0, 0
 	for i, u := range used {
 		if !u {
-			if firstLine == 0 {
+			if cnt == 0 {
 				firstLine = n.Nodes[i].Line
 			}
-			if len(unused) < 8 {
+			cnt++
+			if len(unused) < maxListed {
 				unused = append(unused, n.Nodes[i].ID)
-			} else if len(unused) == 8 {
+			} else if len(unused) == maxListed {
 				unused = append(unused, "…")
 			}
 		}
 	}
-	if len(unused) > 0 {
-		cnt := 0
-		for _, u := range used {
-			if !u {
-				cnt++
-			}
-		}
-		add(true, firstLine, "node "+unused[0], "%d nodes belong to no panel (%s); they are ignored", cnt, strings.Join(unused, ", "))
+	switch {
+	case cnt == 1:
+		add(true, firstLine, "node "+unused[0], "1 node belongs to no panel (id %s); it is left out", unused[0])
+	case cnt > 1:
+		add(true, firstLine, "node "+unused[0], "%d nodes belong to no panel (ids %s); they are left out", cnt, strings.Join(unused, ", "))
 	}
 	if parts := t.Components(len(n.Faces)); len(parts) > 1 {
 		add(true, 0, "", "the net has %d disconnected parts (sizes %s)", len(parts), partSizes(parts))
@@ -154,54 +260,57 @@ func Validate(n *Net, opt ValidateOptions) (*Topology, Findings) {
 	return t, fd
 }
 
+// usedNodes flags the nodes that are a corner of some panel.
+func usedNodes(n *Net) []bool {
+	used := make([]bool, len(n.Nodes))
+	for _, face := range n.Faces {
+		for _, c := range face.Corners {
+			used[c] = true
+		}
+	}
+	return used
+}
+
+// maxListed is the most items a message lists before "…".
+const maxListed = 6
+
+// faceList names faces: "1, 2, 3", at most maxListed, then "…".
+func faceList(n *Net, faces []int) string {
+	ids := make([]string, 0, min(len(faces), maxListed+1))
+	for k, f := range faces {
+		if k == maxListed {
+			ids = append(ids, "…")
+			break
+		}
+		ids = append(ids, n.Faces[f].ID)
+	}
+	return strings.Join(ids, ", ")
+}
+
+// groupList names the panels of each group: "1, 2 | 3, 4", at most
+// maxListed groups of at most maxListed panels.
+func groupList(n *Net, groups [][]int) string {
+	s := make([]string, 0, min(len(groups), maxListed+1))
+	for i, g := range groups {
+		if i == maxListed {
+			s = append(s, "…")
+			break
+		}
+		s = append(s, faceList(n, g))
+	}
+	return strings.Join(s, " | ")
+}
+
 func partSizes(parts [][]int) string {
-	s := make([]string, 0, len(parts))
+	s := make([]string, 0, min(len(parts), maxListed+1))
 	for i, p := range parts {
-		if i == 6 {
+		if i == maxListed {
 			s = append(s, "…")
 			break
 		}
 		s = append(s, fmt.Sprint(len(p)))
 	}
 	return strings.Join(s, ", ")
-}
-
-// coincidentNodes returns pairs (a, b), a < b, of nodes within tol. It
-// sorts the nodes by their projection on a skew direction and compares
-// only neighbours whose projections differ by at most tol, so the work is
-// n log n for any net that is not a cloud of near-duplicates.
-func coincidentNodes(n *Net, tol float64) [][2]int {
-	dir := r3.Unit(Vec{X: 0.5377, Y: 0.3112, Z: 0.7833})
-	type item struct {
-		proj float64
-		i    int
-	}
-	items := make([]item, len(n.Nodes))
-	for i, nd := range n.Nodes {
-		items[i] = item{r3.Dot(nd.Pos, dir), i}
-	}
-	sort.Slice(items, func(a, b int) bool {
-		if items[a].proj != items[b].proj {
-			return items[a].proj < items[b].proj
-		}
-		return items[a].i < items[b].i
-	})
-	var out [][2]int
-	for x, it := range items {
-		for y := x + 1; y < len(items) && items[y].proj-it.proj <= tol; y++ {
-			j := items[y].i
-			if r3.Norm(r3.Sub(n.Nodes[j].Pos, n.Nodes[it.i].Pos)) <= tol {
-				out = append(out, [2]int{min(it.i, j), max(it.i, j)})
-			}
-		}
-	}
-	sort.Slice(out, func(a, b int) bool {
-		if out[a][1] != out[b][1] {
-			return out[a][1] < out[b][1]
-		}
-		return out[a][0] < out[b][0]
-	})
-	return out
 }
 
 // sameDirection reports whether faces f and g run along edge e the same

@@ -96,7 +96,7 @@ func TestWarnings(t *testing.T) {
 		msgs = append(msgs, w.Error())
 	}
 	got := strings.Join(msgs, "\n")
-	want := "t.obj:9: node 8: 1 nodes belong to no panel (8); they are ignored\nt.obj: the net has 2 disconnected parts (sizes 1, 1)"
+	want := "t.obj:9: node 8: 1 node belongs to no panel (id 8); it is left out\nt.obj: the net has 2 disconnected parts (sizes 1, 1)"
 	if got != want {
 		t.Errorf("got\n%s\nwant\n%s", got, want)
 	}

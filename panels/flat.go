@@ -18,21 +18,34 @@ type Flat struct {
 	Plane geom.Plane
 	// Frame maps the 2D outline back to 3D: origin at the first corner
 	// projected on the plane, X along the first edge, Z the plane normal.
-	Frame   geom.Frame
-	Outline geom.Polygon // corners in the frame, counter-clockwise
+	Frame geom.Frame
+	// Outline is the set-out outline: the corners (node points) in the
+	// frame, counter-clockwise seen from outside (the side the normal
+	// points to: up, or out of a closed net).
+	Outline geom.Polygon
 	Cut     geom.Polygon // outline with the edge inset: what is cut
-	// Per edge k (corner k to k+1):
+	// Set-out (centre-line) numbers, per edge k (corner k to k+1), per
+	// corner k, and diagonals between every pair of non-adjacent corners:
+	// (0,2), (1,3) for a quad.
 	EdgeMM    []float64
-	FoldDeg   []float64 // signed angle to the neighbour's normal, ridge positive; 0 on the boundary
-	BevelDeg  []float64 // fold / 2 (butt joint on the bisector plane); the job's boundary bevel outside
-	Neighbour []int     // face across the edge, -1 on the boundary
-	// Per corner k:
-	AngleDeg []float64
-	// Diagonals between every pair of non-adjacent corners: (0,2), (1,3)
-	// for a quad.
-	Diagonals   []Diagonal
-	AreaM2      float64 // of the cut outline
-	PerimeterMM float64 // of the cut outline
+	AngleDeg  []float64
+	Diagonals []Diagonal
+	// The same numbers for the cut outline: what a glazier orders.
+	CutEdgeMM    []float64
+	CutAngleDeg  []float64
+	CutDiagonals []Diagonal
+	// BoxMM is the cut outline's smallest enclosing rectangle, long side
+	// then short side (mm): the size shaped panes are commonly priced on.
+	BoxMM [2]float64
+	// GrainDeg is the direction the grain (or the coating's direction)
+	// must follow, in the panel's frame: degrees from the first edge.
+	GrainDeg float64
+	// Per edge k:
+	FoldDeg     []float64 // signed angle to the neighbour's normal, ridge positive; 0 on the boundary
+	BevelDeg    []float64 // fold / 2 (butt joint on the bisector plane); the job's boundary bevel outside
+	Neighbour   []int     // face across the edge, -1 on the boundary
+	AreaM2      float64   // of the cut outline
+	PerimeterMM float64   // of the cut outline
 	WeightKg    float64
 	FlatnessMM  float64 // deviation of the 3D corners from the plane
 	Type        int
@@ -67,6 +80,10 @@ func Flatten(n *geom.Net, topo *geom.Topology, mat Material, labels []string) ([
 		} else {
 			fl.Cut = fl.Outline
 		}
+		fl.CutEdgeMM, fl.CutAngleDeg, fl.CutDiagonals = measure(fl.Cut)
+		long, short, _ := fl.Cut.MinAreaRect()
+		fl.BoxMM = [2]float64{long, short}
+		fl.GrainDeg = mat.Grain.direction(fl)
 		fl.AreaM2 = fl.Cut.Area() / 1e6
 		fl.PerimeterMM = fl.Cut.Perimeter()
 		fl.WeightKg = fl.AreaM2 * mat.ThicknessMM / 1000 * mat.DensityKgM3
@@ -134,25 +151,34 @@ func flatten(pts []geom.Vec) (Flat, error) {
 	if fl.Outline.SelfIntersects() {
 		return Flat{}, errors.New("outline crosses itself")
 	}
-	fl.EdgeMM = make([]float64, k)
-	fl.AngleDeg = make([]float64, k)
-	for i := range fl.Outline {
-		a, b, c := fl.Outline[(i+k-1)%k], fl.Outline[i], fl.Outline[(i+1)%k]
-		fl.EdgeMM[i] = c.Sub(b).Norm()
+	fl.EdgeMM, fl.AngleDeg, fl.Diagonals = measure(fl.Outline)
+	return fl, nil
+}
+
+// measure returns a counter-clockwise outline's edge lengths (edge k runs
+// from corner k to k+1), inner corner angles (degrees) and diagonals
+// between every pair of non-adjacent corners.
+func measure(p geom.Polygon) (edges, angles []float64, diags []Diagonal) {
+	k := len(p)
+	edges = make([]float64, k)
+	angles = make([]float64, k)
+	for i := range p {
+		a, b, c := p[(i+k-1)%k], p[i], p[(i+1)%k]
+		edges[i] = c.Sub(b).Norm()
 		u, v := a.Sub(b), c.Sub(b)
 		ang := math.Atan2(v.Cross(u), v.Dot(u)) * 180 / math.Pi
 		if ang < 0 {
 			ang += 360
 		}
-		fl.AngleDeg[i] = ang
+		angles[i] = ang
 	}
 	for i := 0; i < k; i++ {
 		for j := i + 2; j < k; j++ {
 			if i == 0 && j == k-1 {
 				continue
 			}
-			fl.Diagonals = append(fl.Diagonals, Diagonal{I: i, J: j, MM: fl.Outline[j].Sub(fl.Outline[i]).Norm()})
+			diags = append(diags, Diagonal{I: i, J: j, MM: p[j].Sub(p[i]).Norm()})
 		}
 	}
-	return fl, nil
+	return edges, angles, diags
 }

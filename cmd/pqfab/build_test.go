@@ -232,6 +232,37 @@ func TestPlanarityFailure(t *testing.T) {
 		t.Error("the stale diagnostic report survived a successful build")
 	}
 	checkAccounting(t, out)
+	checkWarningsEverywhere(t, out)
+}
+
+// checkWarningsEverywhere: a build with warnings carries them in every
+// output: the drawings' title blocks, the OBJ, the schedule, the JSON,
+// the pages and the site PDFs (read with pdftotext from poppler-utils).
+func checkWarningsEverywhere(t *testing.T, out string) {
+	t.Helper()
+	const mark = "WARNING: built with panels over the flatness tolerance"
+	files := []string{export.FileNet, export.FileAssembly, filepath.Join(export.DirSheets, "sheet-01.dxf"), export.FileHTML, export.FileView, export.FileReport}
+	for _, f := range files {
+		b, err := os.ReadFile(filepath.Join(out, f))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if !strings.Contains(string(b), "built with panels over the flatness tolerance") {
+			t.Errorf("%s does not carry the warning", f)
+		}
+	}
+	for _, f := range []string{export.FilePlanPDF, export.FileTagsPDF} {
+		b, err := exec.Command("pdftotext", "-l", "2", filepath.Join(out, f), "-").CombinedOutput()
+		if err != nil || !strings.Contains(strings.Join(strings.Fields(string(b)), " "), mark) {
+			t.Errorf("%s does not carry the warning (%v)", f, err)
+		}
+	}
+	b, err := exec.Command(debianPython, "-c", `import openpyxl,sys
+ws = openpyxl.load_workbook(sys.argv[1])["Summary"]
+print(any(r[0] == "Warning" and "flatness tolerance" in (r[1] or "") for r in ws.iter_rows(values_only=True)))`, filepath.Join(out, export.FileSchedule)).CombinedOutput()
+	if err != nil || strings.TrimSpace(string(b)) != "True" {
+		t.Errorf("schedule.xlsx does not carry the warning: %v %s", err, b)
+	}
 }
 
 func TestBuildErrors(t *testing.T) {
@@ -245,7 +276,7 @@ func TestBuildErrors(t *testing.T) {
 		args []string
 		want string
 	}{
-		{[]string{"build", "-q", filepath.Join(dir, "none.toml"), "-o", filepath.Join(dir, "o")}, "none.toml: no such file"},
+		{[]string{"build", "-q", filepath.Join(dir, "none.toml"), "-o", filepath.Join(dir, "o")}, "none.toml: file not found"},
 		{[]string{"build", "-q", job, "-o", filepath.Join(notDir, "out")}, "cannot write there"},
 		{[]string{"build", "-q", job, "-o", notDir}, "exists and is not a folder"},
 		{[]string{"build", "-q", job}, "build needs -o DIR"},

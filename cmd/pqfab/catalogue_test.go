@@ -45,7 +45,7 @@ func TestBadInputCatalogue(t *testing.T) {
 		{"CSV partner missing", map[string]string{"job.toml": jobFor("a-nodes.csv"), "a-nodes.csv": "id,x,y,z\nA,0,0,0\n"}, "", []string{"a-panels.csv", "file not found"}},
 		{"unknown format", map[string]string{"job.toml": jobFor("n.stl"), "n.stl": "solid"}, "", []string{"n.stl", "unknown net format"}},
 		// Job files.
-		{"missing job", map[string]string{}, "", []string{"job.toml", "no such file"}},
+		{"missing job", map[string]string{}, "", []string{"job.toml", "file not found"}},
 		{"empty job", map[string]string{"job.toml": "\n\n"}, "", []string{"job.toml", "empty job file"}},
 		{"binary job", map[string]string{"job.toml": "\x00\x01PK\x03\x04"}, "", []string{"job.toml:1"}},
 		{"unknown key", map[string]string{"job.toml": jobFor("n.obj") + "colour = \"blue\"\n", "n.obj": goodQuad}, "", []string{"job.toml:10", "key stock.colour", "unknown key"}},
@@ -66,7 +66,7 @@ func TestBadInputCatalogue(t *testing.T) {
 		{"price beyond every budget", map[string]string{"job.toml": jobFor("n.obj") + "price = 1e308\n", "n.obj": goodQuad}, "", []string{"job.toml:10", "key stock[1].price", "must be between 0 and 1e+09"}},
 		{"near-miss key", map[string]string{"job.toml": jobFor("n.obj") + "[flatness]\ntolerance = 0.5\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key flatness.tolerance", "did you mean flatness.tolerance_mm?"}},
 		{"text where a number goes", map[string]string{"job.toml": jobFor("n.obj") + "[nodes]\nbay_mm = \"six metres\"\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key nodes.bay_mm", "want a number, got text"}},
-		{"job file is a folder", map[string]string{"job.toml/x": ""}, "", []string{"job.toml", "not a regular file"}},
+		{"job file is a folder", map[string]string{"job.toml/x": ""}, "", []string{"job.toml", "is a folder, not a file"}},
 		// Output folder.
 		{"output under a file", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": goodQuad, "afile": "x"}, "afile/out", []string{"afile/out", "cannot write there"}},
 		{"output is a file", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": goodQuad, "afile": "x"}, "afile", []string{"afile", "not a folder"}},

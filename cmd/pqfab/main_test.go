@@ -60,7 +60,7 @@ func TestCommandErrors(t *testing.T) {
 		{[]string{"frobnicate"}, `unknown command "frobnicate"`, 2},
 		{[]string{"inspect"}, "inspect takes one net file", 2},
 		{[]string{"inspect", "nowhere.obj"}, "nowhere.obj: file not found", 1},
-		{[]string{"inspect", "--unit", "ft", "x.obj"}, "--unit: geom: unknown unit", 2},
+		{[]string{"inspect", "--unit", "ft", "x.obj"}, "--unit: unknown unit", 2},
 		{[]string{"sample", "dome"}, "sample needs -o FILE", 2},
 		{[]string{"sample", "castle", "-o", "x.obj"}, "unknown sample", 2},
 		{[]string{"inspect", "../../geom/testdata/bad/flipped.obj"}, "flipped panel", 1},
@@ -171,5 +171,29 @@ func TestNestCommand(t *testing.T) {
 	out, _, err = runCmd(t, "nest", path, "--sheet", "1000x1000")
 	if err == nil || !strings.Contains(err.Error(), "60 of 60 panels fit no sheet") || !strings.Contains(out, "larger than every stock sheet") {
 		t.Errorf("small sheet: %v %q", err, out)
+	}
+}
+
+// TestUnusedNodesLeftOut: a node that belongs to no panel is left out with
+// one warning, and the build goes on (one rule: the warning says so and the
+// outputs hold only the net's used nodes).
+func TestUnusedNodesLeftOut(t *testing.T) {
+	dir := t.TempDir()
+	net := goodQuad + "v 9000 9000 0\n"
+	for name, body := range map[string]string{"n.obj": net, "job.toml": jobFor("n.obj")} {
+		if err := os.WriteFile(filepath.Join(dir, name), []byte(body), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	out := filepath.Join(dir, "out")
+	_, stderr, err := runCmd(t, "build", "-q", filepath.Join(dir, "job.toml"), "-o", out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(stderr, "node 7: 1 node belongs to no panel (id 7); it is left out") {
+		t.Errorf("stderr %q", stderr)
+	}
+	if rep := loadReport(t, out); len(rep.Nodes) != 6 || len(rep.Warnings) == 0 {
+		t.Errorf("%d nodes in the report, warnings %v", len(rep.Nodes), rep.Warnings)
 	}
 }

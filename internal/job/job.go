@@ -3,6 +3,7 @@ package job
 import (
 	"fmt"
 	"path/filepath"
+	"pqfab/nodes/bars"
 
 	"pqfab/geom"
 	"pqfab/nodes"
@@ -13,18 +14,21 @@ import (
 // Job is a build job file (TOML). Every key is optional except net.file
 // and at least one stock sheet; defaults are the library defaults.
 type Job struct {
-	Title    string    `toml:"title"`
-	Net      Net       `toml:"net"`
-	Supports Supports  `toml:"supports"`
-	Flatness Flatness  `toml:"flatness"`
-	Nodes    Nodes     `toml:"nodes"`
-	Member   Member    `toml:"member"`
-	Panel    Panel     `toml:"panel"`
-	Types    Types     `toml:"types"`
-	Stock    []Stock   `toml:"stock"`
-	Rates    *Rates    `toml:"rates"`
-	File     string    `toml:"-"` // the job file's name, for messages
-	lines    *keyLines // where each key is, for messages
+	Title    string   `toml:"title"`
+	Net      Net      `toml:"net"`
+	Supports Supports `toml:"supports"`
+	Flatness Flatness `toml:"flatness"`
+	Nodes    Nodes    `toml:"nodes"`
+	Member   Member   `toml:"member"`
+	Panel    Panel    `toml:"panel"`
+	Types    Types    `toml:"types"`
+	Stock    []Stock  `toml:"stock"`
+	Bar      []Bar    `toml:"bar"`
+	Rates    *Rates   `toml:"rates"`
+	// PanelType overrides the panel specification for named panel types.
+	PanelType []PanelSpec `toml:"panel_type"`
+	File      string      `toml:"-"` // the job file's name, for messages
+	lines     *keyLines   // where each key is, for messages
 }
 
 // Net is the [net] table.
@@ -57,10 +61,12 @@ type Nodes struct {
 	BayMM       float64 `toml:"bay_mm"`
 }
 
-// Member is the [member] table: the member section.
+// Member is the [member] table: the member section and its material.
 type Member struct {
-	WidthMM float64 `toml:"width_mm"`
-	DepthMM float64 `toml:"depth_mm"`
+	Material    string  `toml:"material"`
+	WidthMM     float64 `toml:"width_mm"`
+	DepthMM     float64 `toml:"depth_mm"`
+	DensityKgM3 float64 `toml:"density_kg_m3"`
 }
 
 // Panel is the [panel] table.
@@ -71,6 +77,30 @@ type Panel struct {
 	EdgeInsetMM      float64 `toml:"edge_inset_mm"`
 	BoundaryBevelDeg float64 `toml:"boundary_bevel_deg"`
 	Mirror           bool    `toml:"mirror"`
+	Grain            string  `toml:"grain"`          // first-edge, longest-edge or plan
+	GrainPlanDeg     float64 `toml:"grain_plan_deg"` // with grain = "plan"
+	PanelSpec
+}
+
+// PanelSpec is the plain-text specification of a panel: job-wide in
+// [panel], and per panel type in [[panel_type]] tables naming the type.
+type PanelSpec struct {
+	Type          string `toml:"type"` // [[panel_type]] only: the type it applies to, such as "PT-003"
+	BuildUp       string `toml:"build_up"`
+	EdgeWork      string `toml:"edge_work"`
+	Coating       string `toml:"coating"` // which face, such as "low-e on face 2 (inside)"
+	HeatTreatment string `toml:"heat_treatment"`
+	Grade         string `toml:"grade"`
+}
+
+// Bar is one [[bar]] table: bar stock the members are cut from.
+type Bar struct {
+	Name     string  `toml:"name"`
+	LengthMM float64 `toml:"length_mm"`
+	KerfMM   float64 `toml:"kerf_mm"`
+	TrimMM   float64 `toml:"trim_mm"` // cut off at each end of a bar
+	Price    float64 `toml:"price"`
+	Count    int     `toml:"count"` // 0: no limit
 }
 
 // Types is the [types] table.
@@ -110,13 +140,24 @@ const (
 	SupportsList     = "list"
 )
 
+// Member densities (kg/m³): the default is glulam of strength class
+// GL24h, whose mean density EN 14080 gives as 420 kg/m³ (from memory;
+// check the supplier's figure); steel is 7850 kg/m³ (handbook value,
+// EN 1991-1-1 Table A.4 gives 77–78.5 kN/m³).
+const (
+	DefaultMemberDensityKgM3 = 420.0
+	SteelDensityKgM3         = 7850.0
+	MaxDensityKgM3           = 25000.0
+)
+
 // Limits on what a job may ask for: beyond them a value is a mistake and
 // the outputs would overflow.
 const (
-	MaxStocks   = 100  // [[stock]] tables
-	MaxRate     = 1e9  // any rate or price
-	MaxTextLen  = 1000 // title, names, material (characters)
-	MaxSupports = 1e6  // node ids in supports.nodes
+	MaxStocks    = 100   // [[stock]] tables, and [[bar]] tables
+	MaxRate      = 1e9   // any rate or price
+	MaxTextLen   = 1000  // title, names, material (characters)
+	MaxSupports  = 1e6   // node ids in supports.nodes
+	MaxTypeSpecs = 10000 // [[panel_type]] tables
 )
 
 // defaults returns a job with every default set.
@@ -127,7 +168,7 @@ func defaults(file string) *Job {
 		Supports: Supports{Mode: SupportsBoundary},
 		Flatness: Flatness{TolMM: panels.DefaultFlatTolMM, MaxMoveMM: panels.DefaultMaxMoveMM, Fairness: panels.DefaultFairness, MaxIter: panels.DefaultMaxIter},
 		Nodes:    Nodes{Axis: string(nodes.AxisLeastTwist), BayMM: geom.DefaultBaySizeMM},
-		Member:   Member{WidthMM: nodes.DefaultSectionWidthMM, DepthMM: nodes.DefaultSectionDepthMM},
+		Member:   Member{Material: "glulam", WidthMM: nodes.DefaultSectionWidthMM, DepthMM: nodes.DefaultSectionDepthMM, DensityKgM3: DefaultMemberDensityKgM3},
 		Panel:    Panel{Material: "float glass", ThicknessMM: panels.DefaultThicknessMM, DensityKgM3: panels.DefaultDensityKgM3},
 		Types:    Types{LengthTolMM: nodes.DefaultTypeLengthTolMM, AngleTolDeg: nodes.DefaultTypeAngleTolDeg, PanelTolMM: panels.DefaultTypeTolMM},
 	}
@@ -184,12 +225,22 @@ func (j *Job) NodeOptions() nodes.Options {
 func (j *Job) Material() panels.Material {
 	p := j.Panel
 	return panels.Material{Name: p.Material, ThicknessMM: p.ThicknessMM, DensityKgM3: p.DensityKgM3,
-		EdgeInsetMM: p.EdgeInsetMM, BoundaryBevelDeg: p.BoundaryBevelDeg}
+		EdgeInsetMM: p.EdgeInsetMM, BoundaryBevelDeg: p.BoundaryBevelDeg,
+		Grain: panels.Grain{Rule: p.Grain, PlanDeg: p.GrainPlanDeg}}
 }
 
 // PanelTypeOptions returns when two panels are one type.
 func (j *Job) PanelTypeOptions() panels.TypeOptions {
 	return panels.TypeOptions{TolMM: j.Types.PanelTolMM, AngleTolDeg: j.Types.AngleTolDeg, Mirror: j.Panel.Mirror}
+}
+
+// BarStocks returns the job's bar stock for the members' cutting plan.
+func (j *Job) BarStocks() []bars.Stock {
+	out := make([]bars.Stock, len(j.Bar))
+	for i, b := range j.Bar {
+		out[i] = bars.Stock{Name: b.Name, LengthMM: b.LengthMM, KerfMM: b.KerfMM, TrimMM: b.TrimMM, Price: b.Price, Count: b.Count}
+	}
+	return out
 }
 
 // Stocks returns the job's stock sheets for nesting.
@@ -211,7 +262,9 @@ var (
 		"Section.WidthMM": "member.width_mm", "Section.DepthMM": "member.depth_mm",
 		"Types.LengthTolMM": "types.length_tol_mm", "Types.AngleTolDeg": "types.angle_tol_deg"}
 	materialKeys = map[string]string{"ThicknessMM": "panel.thickness_mm", "DensityKgM3": "panel.density_kg_m3",
-		"EdgeInsetMM": "panel.edge_inset_mm", "BoundaryBevelDeg": "panel.boundary_bevel_deg"}
+		"EdgeInsetMM": "panel.edge_inset_mm", "BoundaryBevelDeg": "panel.boundary_bevel_deg",
+		"Grain.Rule": "panel.grain", "Grain.PlanDeg": "panel.grain_plan_deg"}
+	barKeys       = map[string]string{"LengthMM": "length_mm", "KerfMM": "kerf_mm", "TrimMM": "trim_mm", "Price": "price", "Count": "count"}
 	panelTypeKeys = map[string]string{"TolMM": "types.panel_tol_mm", "AngleTolDeg": "types.angle_tol_deg"}
 	validateKeys  = map[string]string{"CoincidentTolMM": "net.merge_tol_mm"}
 	stockKeys     = map[string]string{"Name": "name", "WidthMM": "width_mm", "HeightMM": "height_mm", "MarginMM": "margin_mm",
@@ -254,10 +307,30 @@ func (j *Job) check() error {
 	if _, err := geom.NewBays(nil, j.Nodes.BayMM, j.Nodes.BayMM); err != nil {
 		return j.Errorf("nodes.bay_mm", "%g must be a positive number of millimetres", j.Nodes.BayMM)
 	}
-	for _, t := range []struct{ key, text string }{{"title", j.Title}, {"panel.material", j.Panel.Material}} {
+	texts := []struct{ key, text string }{{"title", j.Title}, {"panel.material", j.Panel.Material}, {"member.material", j.Member.Material}}
+	texts = append(texts, specTexts("panel.", j.Panel.PanelSpec)...)
+	if len(j.PanelType) > MaxTypeSpecs {
+		return j.Errorf("panel_type", "%d [[panel_type]] tables: at most %d", len(j.PanelType), MaxTypeSpecs)
+	}
+	seen := map[string]int{}
+	for i, t := range j.PanelType {
+		prefix := fmt.Sprintf("panel_type[%d].", i+1)
+		if t.Type == "" {
+			return j.Errorf(prefix+"type", "missing: name the panel type, such as \"PT-003\"")
+		}
+		if k, dup := seen[t.Type]; dup {
+			return j.Errorf(prefix+"type", "%q is given in panel_type %d too", short(t.Type), k+1)
+		}
+		seen[t.Type] = i
+		texts = append(texts, specTexts(prefix, t)...)
+	}
+	for _, t := range texts {
 		if err := j.checkText(t.key, t.text); err != nil {
 			return err
 		}
+	}
+	if d := j.Member.DensityKgM3; !(d >= 0) || d > MaxDensityKgM3 {
+		return j.Errorf("member.density_kg_m3", "%g must be between 0 and %g kg/m³", d, MaxDensityKgM3)
 	}
 	if err := j.fieldErr(j.PlanarizeOptions().Validate(), planarizeKeys, ""); err != nil {
 		return err
@@ -274,7 +347,40 @@ func (j *Job) check() error {
 	if err := j.checkStocks(); err != nil {
 		return err
 	}
+	if err := j.checkBars(); err != nil {
+		return err
+	}
 	return j.checkRates()
+}
+
+// specTexts lists a panel specification's text keys with their values.
+func specTexts(prefix string, s PanelSpec) []struct{ key, text string } {
+	return []struct{ key, text string }{{prefix + "type", s.Type}, {prefix + "build_up", s.BuildUp}, {prefix + "edge_work", s.EdgeWork},
+		{prefix + "coating", s.Coating}, {prefix + "heat_treatment", s.HeatTreatment}, {prefix + "grade", s.Grade}}
+}
+
+func (j *Job) checkBars() error {
+	if len(j.Bar) > MaxStocks {
+		return j.Errorf("bar", "%d [[bar]] tables: at most %d", len(j.Bar), MaxStocks)
+	}
+	names := map[string]int{}
+	for i := range j.Bar {
+		prefix := fmt.Sprintf("bar[%d].", i+1)
+		if j.Bar[i].Name == "" {
+			j.Bar[i].Name = fmt.Sprintf("bar %d", i+1)
+		}
+		if err := j.checkText(prefix+"name", j.Bar[i].Name); err != nil {
+			return err
+		}
+		if k, dup := names[j.Bar[i].Name]; dup {
+			return j.Errorf(prefix+"name", "%q is the name of bar stock %d too: give each its own name", short(j.Bar[i].Name), k+1)
+		}
+		names[j.Bar[i].Name] = i
+		if err := j.fieldErr(j.BarStocks()[i].Validate(), barKeys, prefix); err != nil {
+			return err
+		}
+	}
+	return nil
 }
 
 func (j *Job) checkSupports() error {

@@ -16,20 +16,24 @@ type Loaded struct {
 
 // LoadNet reads the net at path (OBJ, OFF or the nodes file of a CSV pair,
 // in unit), checks it (geom.Validate with opt) and, when reorient is set,
-// turns flipped panels to a consistent orientation. On failure the error is
-// a *geom.ValidationError listing every problem found, or the reader's
+// turns flipped panels to a consistent orientation. Nodes that belong to no
+// panel are left out (with a warning), and the net is put in its canonical
+// order (geom.Canonical): every later stage, and so every output, depends
+// only on the geometry, never on the order of nodes and panels in the file
+// or on which corner a panel starts at. On failure the error is a
+// *geom.ValidationError listing every problem found, or the reader's
 // *geom.InputError.
 func LoadNet(open Opener, path string, unit geom.Unit, opt geom.ValidateOptions, reorient bool) (*Loaded, error) {
 	net, err := geom.ReadFrom(open, path, unit)
 	if err != nil {
 		return nil, err
 	}
-	topo, fd := geom.Validate(net, opt)
+	_, fd := geom.Validate(net, opt)
 	var warnings []string
 	if reorient && len(fd.Misoriented) > 0 {
 		geom.Reorient(net, fd.Misoriented)
 		warnings = append(warnings, fmt.Sprintf("%s: turned %d panels to a consistent orientation", net.Source, len(fd.Misoriented)))
-		topo, fd = geom.Validate(net, opt)
+		_, fd = geom.Validate(net, opt)
 	}
 	for _, w := range fd.Warnings {
 		warnings = append(warnings, w.Error())
@@ -37,7 +41,11 @@ func LoadNet(open Opener, path string, unit geom.Unit, opt geom.ValidateOptions,
 	if err := fd.Err(); err != nil {
 		return nil, err
 	}
-	return &Loaded{Net: net, Topo: topo, Warnings: warnings}, nil
+	if kept, dropped := geom.DropUnused(net); len(dropped) > 0 {
+		net = kept
+	}
+	net, _, _ = geom.Canonical(net)
+	return &Loaded{Net: net, Topo: geom.BuildTopology(net), Warnings: warnings}, nil
 }
 
 // Supports returns a flag per node: true for nodes that never move. mode

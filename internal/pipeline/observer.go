@@ -2,7 +2,8 @@ package pipeline
 
 import (
 	"io"
-	"os"
+
+	"pqfab/geom"
 )
 
 // Opener opens a named input file (the net, or the panels file of a CSV
@@ -10,8 +11,9 @@ import (
 // serves the demo.
 type Opener func(name string) (io.ReadCloser, error)
 
-// OpenFile opens a file on disk.
-func OpenFile(name string) (io.ReadCloser, error) { return os.Open(name) }
+// OpenFile opens a regular file on disk; a FIFO, device or socket is
+// refused at once (geom.OpenRegular), never waited on.
+func OpenFile(name string) (io.ReadCloser, error) { return geom.OpenRegular(name) }
 
 // Observer is told how a job goes. Its methods are called from the
 // goroutine that runs the job, one call at a time.

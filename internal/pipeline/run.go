@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"path/filepath"
+	"pqfab/nodes/bars"
 	"strings"
 
 	"pqfab/export"
@@ -40,7 +41,14 @@ type Result struct {
 
 	Stocks  []nest.Stock
 	Nesting *nest.Result
-	Cost    *export.Cost // nil without rates
+
+	// Every member's blank (label and blank length), the bar stock and the
+	// members' cutting plan (nil without [[bar]] tables).
+	Blanks    []bars.Piece
+	BarStocks []bars.Stock
+	BarPlan   *bars.Plan
+
+	Cost *export.Cost // nil without rates
 }
 
 // PlanarityFailure is returned by Run when the flatness tolerance cannot be
@@ -58,8 +66,11 @@ func (e *PlanarityFailure) Error() string { return e.Err.Error() }
 func (e *PlanarityFailure) Unwrap() error { return e.Err }
 
 // ErrUnplaced is wrapped by the error Run returns when panels fit no stock
-// sheet and the policy does not continue.
-var ErrUnplaced = errors.New("panels are on no stock sheet")
+// sheet, or member blanks no bar, and the policy does not continue.
+var (
+	ErrUnplaced        = errors.New("panels are on no stock sheet")
+	ErrMembersUnplaced = errors.New("members are on no bar")
+)
 
 // Run runs job j: it reads the net through open, checks and planarizes it,
 // computes nodes, members, panels and types, and nests the panels. Errors
@@ -113,6 +124,9 @@ func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 		return nil, err
 	}
 	res.Structure, res.Bays = st, bays
+	if err := cutPlan(j, res, obs, pol, warn); err != nil {
+		return nil, err
+	}
 	res.Flats, err = Panels(res.Net, topo, j.Material(), bays, NodeLabels(st))
 	switch {
 	case errors.Is(err, panels.ErrInsetTooLarge):
@@ -123,8 +137,17 @@ func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 	if res.PanelTypes, res.PanelTypeBound, err = panels.Group(res.Flats, j.PanelTypeOptions()); err != nil {
 		return nil, err
 	}
+	names := map[string]bool{}
+	for _, t := range res.PanelTypes {
+		names[t.Name] = true
+	}
+	for i, t := range j.PanelType {
+		if !names[t.Type] {
+			return nil, j.Errorf(fmt.Sprintf("panel_type[%d].type", i+1), "%q is not a panel type of this net (it has PT-001 to %s)", t.Type, res.PanelTypes[len(res.PanelTypes)-1].Name)
+		}
+	}
 
-	res.Nesting, err = Nest(Parts(res.Flats), res.Stocks, obs)
+	res.Nesting, err = Nest(Parts(res.Flats), res.Flats, res.Stocks, obs)
 	if err != nil {
 		return nil, err
 	}
@@ -139,15 +162,47 @@ func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 			warn(fmt.Sprintf("panel %s is on no sheet: %s", res.Flats[u.Part].Label, u.Reason))
 		}
 	}
-	res.Cost = cost(j, st, res.Flats, res.Nesting, res.Stocks)
+	res.Cost = cost(j, st, res.Flats, res.Nesting, res.Stocks, res.BarPlan, res.BarStocks)
 	return res, nil
+}
+
+// cutPlan cuts the members' blanks from the job's bar stock, if it has any.
+func cutPlan(j *job.Job, res *Result, obs Observer, pol Policy, warn func(string)) error {
+	pieces, err := bars.MemberPieces(res.Structure.Members, res.Structure.Section)
+	if err != nil {
+		return err
+	}
+	res.Blanks, res.BarStocks = pieces, j.BarStocks()
+	if len(res.BarStocks) == 0 {
+		return nil
+	}
+	obs.Step("bars", 0, 1, fmt.Sprintf("bars: %d members on %d bar lengths", len(pieces), len(res.BarStocks)))
+	plan, err := bars.Solve(pieces, res.BarStocks, bars.Options{})
+	obs.Step("bars", 1, 1, "bars: done")
+	if err != nil {
+		return j.KeyError("bar", err)
+	}
+	if un := plan.Unplaced; len(un) > 0 {
+		if !pol.Continue {
+			return j.KeyError("bar", fmt.Errorf("%d %w; the first, %s (blank %.1f mm), is %s", len(un), ErrMembersUnplaced,
+				pieces[un[0].Piece].Label, pieces[un[0].Piece].LengthMM, un[0].Reason))
+		}
+		for _, u := range un {
+			warn(fmt.Sprintf("member %s is on no bar: %s", pieces[u.Piece].Label, u.Reason))
+		}
+	}
+	res.BarPlan = plan
+	return nil
 }
 
 // Bundle returns what the writers need.
 func (r *Result) Bundle() *export.Bundle {
 	return &export.Bundle{Title: r.Job.Title, JobFile: r.Job.File, NetFile: r.NetPath, Settings: settings(r.Job), Warnings: r.Warnings,
-		Net: r.Net, Supports: r.Supports, Planarize: r.Planarize, TolMM: r.Job.Flatness.TolMM,
-		Structure: r.Structure, Flats: r.Flats, PanelTypes: r.PanelTypes, PanelTypeBound: r.PanelTypeBound, Stocks: r.Stocks, Nesting: r.Nesting, Cost: r.Cost}
+		Net: r.Net, Bays: r.Bays, Supports: r.Supports, Planarize: r.Planarize, TolMM: r.Job.Flatness.TolMM,
+		Structure: r.Structure, Flats: r.Flats, PanelTypes: r.PanelTypes, PanelTypeBound: r.PanelTypeBound, Stocks: r.Stocks, Nesting: r.Nesting, Cost: r.Cost,
+		BarStocks: r.BarStocks, Blanks: r.Blanks, BarPlan: r.BarPlan,
+		MemberMaterial: r.Job.Member.Material, MemberDensityKgM3: r.Job.Member.DensityKgM3,
+		PanelSpec: spec(r.Job.Panel.PanelSpec), TypeSpecs: typeSpecs(r.Job)}
 }
 
 // Write writes every output of the result into the folder dir, atomically
@@ -179,6 +234,20 @@ func NetFiles(path string) []string {
 	return []string{path}
 }
 
+// spec turns a job's panel specification into the report's.
+func spec(s job.PanelSpec) export.PanelSpec {
+	return export.PanelSpec{BuildUp: s.BuildUp, EdgeWork: s.EdgeWork, Coating: s.Coating, HeatTreatment: s.HeatTreatment, Grade: s.Grade}
+}
+
+// typeSpecs returns the job's specifications of named panel types.
+func typeSpecs(j *job.Job) map[string]export.PanelSpec {
+	m := map[string]export.PanelSpec{}
+	for _, t := range j.PanelType {
+		m[t.Type] = spec(t)
+	}
+	return m
+}
+
 // settings lists the job's settings for the summary sheet.
 func settings(j *job.Job) []export.Setting {
 	f := func(v float64) string { return fmt.Sprintf("%g", v) }
@@ -206,7 +275,7 @@ func settings(j *job.Job) []export.Setting {
 }
 
 // cost turns the job's unit rates into a cost summary (nil without rates).
-func cost(j *job.Job, st *nodes.Structure, flats []panels.Flat, nres *nest.Result, stocks []nest.Stock) *export.Cost {
+func cost(j *job.Job, st *nodes.Structure, flats []panels.Flat, nres *nest.Result, stocks []nest.Stock, plan *bars.Plan, barStocks []bars.Stock) *export.Cost {
 	rt := j.Rates
 	if rt == nil {
 		return nil
@@ -236,6 +305,13 @@ func cost(j *job.Job, st *nodes.Structure, flats []panels.Flat, nres *nest.Resul
 			price = rt.SheetEach
 		}
 		add("Stock sheets "+stocks[u.Stock].Name, float64(u.Sheets), "sheet", price)
+	}
+	if plan != nil {
+		for _, u := range plan.Stocks {
+			if u.Bars > 0 {
+				add("Bars "+barStocks[u.Stock].Name, float64(u.Bars), "bar", barStocks[u.Stock].Price)
+			}
+		}
 	}
 	c.Total = math.Round(c.Total*100) / 100
 	return c

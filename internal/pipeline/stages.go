@@ -2,6 +2,7 @@ package pipeline
 
 import (
 	"fmt"
+	"math"
 
 	"pqfab/geom"
 	"pqfab/nodes"
@@ -37,20 +38,43 @@ func Panels(net *geom.Net, topo *geom.Topology, mat panels.Material, bays geom.B
 }
 
 // Parts returns the cut outlines of flat panels as parts to nest; part i
-// is panel i.
+// is panel i. Each outline is turned so that its grain direction
+// (Flat.GrainDeg) runs along x, which stock that allows only turns of 0
+// and 180° keeps along the sheet's x axis; Nest turns the placements back
+// to the panels' own frames.
 func Parts(flats []panels.Flat) []nest.Part {
 	parts := make([]nest.Part, len(flats))
 	for i, f := range flats {
-		parts[i] = nest.Part{Label: f.Label, Outline: f.Cut}
+		out := f.Cut
+		if f.GrainDeg != 0 {
+			out = f.Cut.Rotate(-f.GrainDeg * math.Pi / 180)
+		}
+		parts[i] = nest.Part{Label: f.Label, Outline: out}
 	}
 	return parts
 }
 
-// Nest places the parts on the stock sheets, reporting to obs as stage
-// "nest".
-func Nest(parts []nest.Part, stocks []nest.Stock, obs Observer) (*nest.Result, error) {
+// Nest places the parts (made by Parts from flats) on the stock sheets,
+// reporting to obs as stage "nest". Placement turns are given for the
+// panels' own cut outlines.
+func Nest(parts []nest.Part, flats []panels.Flat, stocks []nest.Stock, obs Observer) (*nest.Result, error) {
 	obs.Step("nest", 0, 1, fmt.Sprintf("nest: %d panels on %d stock sizes", len(parts), len(stocks)))
 	res, err := nest.Nest(parts, stocks)
 	obs.Step("nest", 1, 1, "nest: done")
-	return res, err
+	if err != nil {
+		return nil, err
+	}
+	for s := range res.Sheets {
+		for k := range res.Sheets[s].Placements {
+			p := &res.Sheets[s].Placements[k]
+			g := flats[p.Part].GrainDeg
+			// Placed = turn(rot) ∘ mirror? ∘ turn(−g) applied to the cut
+			// outline; a mirror turns a turn the other way.
+			if p.Mirrored {
+				g = -g
+			}
+			p.RotationDeg = math.Mod(p.RotationDeg-g+720, 360)
+		}
+	}
+	return res, nil
 }

@@ -235,7 +235,7 @@ func NestNet(in *Loaded, mat panels.Material, stocks []nest.Stock, bayMM float64
 		worstMM = math.Max(worstMM, f.FlatnessMM)
 	}
 	parts := Parts(flats)
-	res, err := Nest(parts, stocks, Quiet{})
+	res, err := Nest(parts, flats, stocks, Quiet{})
 	if err != nil {
 		return nil, 0, err
 	}

@@ -131,6 +131,12 @@ func WriteBuildText(w io.Writer, dir string, rep *export.Report) {
 	if len(rep.Sheets) > 0 {
 		fmt.Fprintf(w, "  mean sheet utilization %.1f %%, %d panels unplaced\n", 100*util/float64(len(rep.Sheets)), c.Unplaced)
 	}
+	for _, b := range rep.BarStocks {
+		if b.Bars > 0 {
+			fmt.Fprintf(w, "  bars  %-10s %4d bars (fewest bars by length %d)\n", b.Name, b.Bars, b.FewestByLength)
+		}
+	}
+	fmt.Fprintf(w, "  weight: panels %.0f kg, members %.0f kg, total %.0f kg\n", rep.Weights.PanelsKg, rep.Weights.MembersKg, rep.Weights.TotalKg)
 	if rep.Cost != nil {
 		fmt.Fprintf(w, "  cost estimate %.2f %s\n", rep.Cost.Total, rep.Cost.Currency)
 	}

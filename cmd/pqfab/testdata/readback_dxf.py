@@ -38,7 +38,7 @@ def main(out):
         doc = load(path)
         msp = doc.modelspace()
         cuts = msp.query('LWPOLYLINE[layer=="PQ-CUT"]')
-        labels = msp.query('TEXT[layer=="PQ-PART-LABEL"]')
+        labels = msp.query('TEXT[layer=="PQ-ENGRAVE"]')
         edge = msp.query('LWPOLYLINE[layer=="PQ-SHEET-EDGE"]')
         if len(cuts) != len(sheet["placements"]):
             fail("%s: %d cut outlines for %d placements" % (path, len(cuts), len(sheet["placements"])))

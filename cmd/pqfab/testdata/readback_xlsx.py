@@ -26,7 +26,7 @@ def main(out):
     with open(os.path.join(out, "report.json")) as f:
         rep = json.load(f)
     wb = openpyxl.load_workbook(os.path.join(out, "schedule.xlsx"))
-    want = ["Summary", "Panels", "Members", "Nodes", "Member types", "Panel types", "Sheets"]
+    want = ["Summary", "Panels", "Members", "Nodes", "Member types", "Panel types", "Sheets", "Bars"]
     if wb.sheetnames != want:
         fail("sheets %s" % wb.sheetnames)
     summary = [r for r in wb["Summary"].iter_rows(values_only=True)]
@@ -46,22 +46,31 @@ def main(out):
             fail("%s: labels differ from the report or repeat" % name)
         if not any("(" in (h or "") for h in header):
             fail("%s: no units in the header" % name)
-    # Spot values, as numbers.
-    _, panels = rows(wb["Panels"])
+    # Spot values, as numbers, found by their column headers.
+    head, panels = rows(wb["Panels"])
+    col = {h: i for i, h in enumerate(head)}
     for row, p in list(zip(panels, rep["panels"]))[:: max(1, len(panels) // 25)]:
-        if row[0] != p["label"] or not isinstance(row[5], (int, float)) or abs(row[5] - p["area_m2"]) > 1e-9:
-            fail("Panels: %s area %r != %r" % (p["label"], row[5], p["area_m2"]))
-        if abs(row[8] - p["diagonals"][0]["length_mm"]) > 1e-9 or abs(row[10] - p["edges"][0]["length_mm"]) > 1e-9:
-            fail("Panels: %s diagonal or edge differs" % p["label"])
-        if (row[3] or "") != p["sheet"]:
-            fail("Panels: %s sheet %r != %r" % (p["label"], row[3], p["sheet"]))
-    _, members = rows(wb["Members"])
+        area = row[col["Cut area (m²)"]]
+        if row[0] != p["label"] or not isinstance(area, (int, float)) or abs(area - p["area_m2"]) > 1e-9:
+            fail("Panels: %s area %r != %r" % (p["label"], area, p["area_m2"]))
+        for k, e in enumerate(p["cut"]["edges_mm"]):
+            if abs(row[col["Cut edge %d (mm)" % (k + 1)]] - e) > 1e-9:
+                fail("Panels: %s cut edge %d differs" % (p["label"], k + 1))
+        for k, e in enumerate(p["edges"]):
+            if abs(row[col["Set-out edge %d (mm)" % (k + 1)]] - e["length_mm"]) > 1e-9:
+                fail("Panels: %s set-out edge %d differs" % (p["label"], k + 1))
+        if (row[col["Sheet"]] or "") != p["sheet"]:
+            fail("Panels: %s sheet %r != %r" % (p["label"], row[col["Sheet"]], p["sheet"]))
+    head, members = rows(wb["Members"])
+    col = {h: i for i, h in enumerate(head)}
     for row, m in list(zip(members, rep["members"]))[:: max(1, len(members) // 25)]:
-        if row[0] != m["label"] or not isinstance(row[5], (int, float)) or abs(row[5] - m["cut_length_mm"]) > 1e-9 or abs(row[6] - m["twist_deg"]) > 1e-9:
-            fail("Members: %s cut length/twist %r %r" % (m["label"], row[5], row[6]))
-    _, nodes = rows(wb["Nodes"])
+        cut, tw = row[col["Cut length (mm)"]], row[col["Twist (°)"]]
+        if row[0] != m["label"] or not isinstance(cut, (int, float)) or abs(cut - m["cut_length_mm"]) > 1e-9 or abs(tw - m["twist_deg"]) > 1e-9:
+            fail("Members: %s cut length/twist %r %r" % (m["label"], cut, tw))
+    head, nodes = rows(wb["Nodes"])
+    col = {h: i for i, h in enumerate(head)}
     for row, n in list(zip(nodes, rep["nodes"]))[:: max(1, len(nodes) // 25)]:
-        if row[0] != n["label"] or row[3] != n["valence"] or abs(row[6] - n["position_mm"][2]) > 1e-9:
+        if row[0] != n["label"] or row[col["Members at node"]] != n["members_at_node"] or abs(row[col["Z (mm)"]] - n["position_mm"][2]) > 1e-9:
             fail("Nodes: %s differs" % n["label"])
     for name, key in (("Member types", "member_types"), ("Panel types", "panel_types")):
         _, data = rows(wb[name])
@@ -71,6 +80,9 @@ def main(out):
     placed = sum(r[4] for r in sheets)
     if placed != len(rep["panels"]):
         fail("Sheets: %d parts listed for %d panels" % (placed, len(rep["panels"])))
+    _, bars = rows(wb["Bars"])
+    if len(bars) != len(rep["bars"]) or sum(r[3] for r in bars) != sum(len(b["pieces"]) for b in rep["bars"]):
+        fail("Bars: %d rows for %d bars, or pieces differ" % (len(bars), len(rep["bars"])))
     print("ok")
 
 

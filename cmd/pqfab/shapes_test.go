@@ -1,0 +1,53 @@
+package main
+
+import (
+	"os"
+	"os/exec"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// shapesNet is a flat net of a triangle, a quad, a pentagon and a hexagon
+// around a common node, each sharing edges with its neighbours (mm).
+const shapesNet = `v 0 0 0
+v 2000 0 0
+v 1000 1500 0
+v 3200 1200 0
+v 3000 -1500 0
+v -1200 1300 0
+v -2000 -100 0
+v -1600 -1600 0
+v 0 -2200 0
+v 1500 -2300 0
+v 1900 2600 0
+v 300 2900 0
+f 1 2 3
+f 2 4 11 3
+f 1 3 12 6 7
+f 1 7 8 9 10 2
+f 2 10 5
+`
+
+// TestPanelShapesInSchedule: triangles to hexagons go through a build with
+// every cut edge, diagonal and corner angle in the schedule, equal to
+// report.json, the angles summing to (n−2)·180° (readback_shapes.py, with
+// Debian's openpyxl).
+func TestPanelShapesInSchedule(t *testing.T) {
+	dir := t.TempDir()
+	job := "[net]\nfile = \"shapes.obj\"\n[supports]\nmode = \"none\"\n[panel]\nedge_inset_mm = 8\n" + goodStock
+	for name, body := range map[string]string{"shapes.obj": shapesNet, "job.toml": job} {
+		if err := os.WriteFile(filepath.Join(dir, name), []byte(body), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	out := filepath.Join(dir, "out")
+	if _, _, err := runCmd(t, "build", "-q", filepath.Join(dir, "job.toml"), "-o", out); err != nil {
+		t.Fatal(err)
+	}
+	b, err := exec.Command(debianPython, filepath.Join("testdata", "readback_shapes.py"), out).CombinedOutput()
+	if err != nil || !strings.HasSuffix(strings.TrimSpace(string(b)), "ok") || !strings.Contains(string(b), "[3, 4, 5, 6]") {
+		t.Fatalf("read back: %v\n%s", err, b)
+	}
+	readBack(t, "readback_dxf.py", out)
+}

@@ -1,0 +1,168 @@
+package main
+
+import (
+	"archive/zip"
+	"bytes"
+	"encoding/json"
+	"io"
+	"math/rand/v2"
+	"os"
+	"path/filepath"
+	"regexp"
+	"strings"
+	"testing"
+
+	"pqfab/export"
+	"pqfab/geom"
+	"pqfab/samples"
+)
+
+// shuffled returns a copy of n with its nodes and panels in a random
+// order, every panel starting at a random corner (orientation kept), and
+// ids renumbered as a file in that order would number them.
+func shuffled(n *geom.Net, rng *rand.Rand) *geom.Net {
+	perm := rng.Perm(len(n.Nodes)) // perm[new] = old
+	newOf := make([]int, len(n.Nodes))
+	s := &geom.Net{Source: n.Source}
+	for k, old := range perm {
+		newOf[old] = k
+		nd := n.Nodes[old]
+		s.Nodes = append(s.Nodes, geom.Node{ID: nd.ID, Pos: nd.Pos, Support: nd.Support})
+	}
+	for _, f := range rng.Perm(len(n.Faces)) {
+		c := n.Faces[f].Corners
+		start := rng.IntN(len(c))
+		var corners []int
+		for i := range c {
+			corners = append(corners, newOf[c[(start+i)%len(c)]])
+		}
+		s.Faces = append(s.Faces, geom.Face{ID: n.Faces[f].ID, Corners: corners})
+	}
+	return s
+}
+
+// writeNetOBJ writes a net as OBJ (ids become the 1-based numbers).
+func writeNetOBJ(t *testing.T, path string, n *geom.Net) {
+	t.Helper()
+	var buf bytes.Buffer
+	if err := export.WriteOBJ(&buf, n, "shuffled"); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(path, buf.Bytes(), 0o644); err != nil {
+		t.Fatal(err)
+	}
+}
+
+var objComments = regexp.MustCompile(`(?m) # (node|panel) .*$`)
+
+// comparable reads an output file in a form that drops what may differ
+// between inputs listed in another order: the ids of nodes and panels
+// (report.json, the OBJ comments) and the Id column of the schedule.
+func comparable(t *testing.T, path string) []byte {
+	t.Helper()
+	b, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	switch filepath.Ext(path) {
+	case ".json":
+		var v any
+		if err := json.Unmarshal(b, &v); err != nil {
+			t.Fatal(err)
+		}
+		dropIDs(v)
+		out, _ := json.Marshal(v)
+		return out
+	case ".obj":
+		return objComments.ReplaceAll(b, nil)
+	case ".xlsx":
+		zr, err := zip.NewReader(bytes.NewReader(b), int64(len(b)))
+		if err != nil {
+			t.Fatal(err)
+		}
+		var all []byte
+		for _, f := range zr.File {
+			if strings.Contains(f.Name, "sharedStrings") || strings.HasPrefix(f.Name, "xl/worksheets/") {
+				continue // hold the Id column's text
+			}
+			r, _ := f.Open()
+			c, _ := io.ReadAll(r)
+			r.Close()
+			all = append(append(all, f.Name...), c...)
+		}
+		return all
+	}
+	return b
+}
+
+// dropIDs removes every "id" key (an input id) from decoded JSON.
+func dropIDs(v any) {
+	switch x := v.(type) {
+	case map[string]any:
+		delete(x, "id")
+		for _, c := range x {
+			dropIDs(c)
+		}
+	case []any:
+		for _, c := range x {
+			dropIDs(c)
+		}
+	}
+}
+
+// TestShuffledInputSameAnswer: the same net with its nodes and panels in
+// another order and every panel starting at another corner gives the same
+// labels, types, sheets, cost and drawings: every output file is the same
+// but for input ids, for every sample and several seeds.
+func TestShuffledInputSameAnswer(t *testing.T) {
+	job := "title = \"shuffle\"\n[net]\nfile = \"net.obj\"\n[nodes]\nhub_radius_mm = 50\n[panel]\nedge_inset_mm = 5\n" + goodStock +
+		"price = 400\n[[stock]]\nname = \"split\"\nwidth_mm = 3210\nheight_mm = 2250\nmargin_mm = 15\nspacing_mm = 6\nprice = 190\n" +
+		"[rates]\ncurrency = \"EUR\"\nmember_per_m = 90\nnode_each = 150\npanel_per_m2 = 200\n"
+	for _, name := range samples.Names() {
+		t.Run(name, func(t *testing.T) {
+			n, err := samples.Make(name, 150)
+			if err != nil {
+				t.Fatal(err)
+			}
+			var ref string
+			for seed := uint64(0); seed < 3; seed++ {
+				dir := filepath.Join(t.TempDir(), "in")
+				if err := os.MkdirAll(dir, 0o755); err != nil {
+					t.Fatal(err)
+				}
+				net := n
+				if seed > 0 {
+					net = shuffled(n, rand.New(rand.NewPCG(seed, 77)))
+				}
+				writeNetOBJ(t, filepath.Join(dir, "net.obj"), net)
+				if err := os.WriteFile(filepath.Join(dir, "job.toml"), []byte(job), 0o644); err != nil {
+					t.Fatal(err)
+				}
+				t.Chdir(dir) // relative names, so the reports carry no temporary folder
+				if _, _, err := runCmd(t, "build", "-q", "job.toml", "-o", "out"); err != nil {
+					t.Fatal(err)
+				}
+				out := filepath.Join(dir, "out")
+				if seed == 0 {
+					ref = out
+					continue
+				}
+				n := 0
+				filepath.Walk(ref, func(p string, info os.FileInfo, err error) error {
+					if err != nil || info.IsDir() {
+						return err
+					}
+					rel, _ := filepath.Rel(ref, p)
+					if !bytes.Equal(comparable(t, p), comparable(t, filepath.Join(out, rel))) {
+						t.Errorf("seed %d: %s differs from the unshuffled build", seed, rel)
+					}
+					n++
+					return nil
+				})
+				if n < 6 {
+					t.Fatalf("compared only %d files", n)
+				}
+			}
+		})
+	}
+}

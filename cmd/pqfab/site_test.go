@@ -1,0 +1,372 @@
+package main
+
+import (
+	"fmt"
+	"image"
+	"image/png"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"slices"
+	"strings"
+	"testing"
+
+	"pqfab/export"
+)
+
+// Outside readers of the site files, all Debian packages that .ci/run
+// installs: poppler-utils (pdftotext, pdftoppm), zbar-tools (zbarimg) and
+// chromium. A missing reader is a failure, not a skip.
+const (
+	pdftotext = "/usr/bin/pdftotext"
+	pdftoppm  = "/usr/bin/pdftoppm"
+	zbarimg   = "/usr/bin/zbarimg"
+)
+
+// siteTitle has what a title can break: quotes, markup, a newline, a DXF
+// control code, a backslash and characters outside code page 1252.
+const siteTitle = `Café "Nord" <b>&amp; 50%% \ 日本 — hall`
+
+// buildSiteJob builds a small wave (120 panels, 3 m bays so it spans
+// several) and returns the output folder and its report.
+func buildSiteJob(t *testing.T, dir string) (string, *export.Report) {
+	t.Helper()
+	if _, _, err := runCmd(t, "sample", "wave", "--panels", "120", "-o", filepath.Join(dir, "wave.obj")); err != nil {
+		t.Fatal(err)
+	}
+	job := `title = "` + strings.ReplaceAll(strings.ReplaceAll(siteTitle, `\`, `\\`), `"`, `\"`) + `"
+[net]
+file = "wave.obj"
+[nodes]
+bay_mm = 3000
+hub_radius_mm = 50
+[[stock]]
+name = "jumbo"
+width_mm = 6000
+height_mm = 3210
+margin_mm = 20
+spacing_mm = 6
+`
+	if err := os.WriteFile(filepath.Join(dir, "job.toml"), []byte(job), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out := filepath.Join(dir, "out")
+	if _, _, err := runCmd(t, "build", "-q", filepath.Join(dir, "job.toml"), "-o", out); err != nil {
+		t.Fatal(err)
+	}
+	return out, loadReport(t, out)
+}
+
+func runTool(t *testing.T, name string, args ...string) string {
+	t.Helper()
+	out, err := exec.Command(name, args...).Output()
+	if err != nil {
+		msg := ""
+		if ee, ok := err.(*exec.ExitError); ok {
+			msg = string(ee.Stderr)
+		}
+		t.Fatalf("%s %v: %v\n%s", name, args, err, tail(msg, 2000))
+	}
+	return string(out)
+}
+
+// pdfPages returns the text of every page (pdftotext ends each page with
+// a form feed).
+func pdfPages(t *testing.T, path string) []string {
+	t.Helper()
+	pages := strings.Split(runTool(t, pdftotext, "-enc", "UTF-8", path, "-"), "\f")
+	return pages[:len(pages)-1]
+}
+
+func tokens(s string) map[string]bool {
+	out := map[string]bool{}
+	for _, f := range strings.Fields(s) {
+		out[f] = true
+	}
+	return out
+}
+
+// partsByBay lists each bay's node, member and panel labels.
+func partsByBay(rep *export.Report) map[string][]string {
+	out := map[string][]string{}
+	add := func(l string) {
+		bay, _, _ := strings.Cut(l, "-")
+		out[bay] = append(out[bay], l)
+	}
+	for _, n := range rep.Nodes {
+		add(n.Label)
+	}
+	for _, m := range rep.Members {
+		add(m.Label)
+	}
+	for _, p := range rep.Panels {
+		add(p.Label)
+	}
+	return out
+}
+
+// TestSitePlanPDF reads site/plan.pdf back with pdftotext (poppler-utils):
+// one page per bay that holds parts, each page names its bay and scale,
+// carries the caution and the title (in code page 1252: characters
+// outside it print as '?'), and every label of the bay's nodes, members
+// and panels appears on its page as a word of its own.
+func TestSitePlanPDF(t *testing.T) {
+	dir := t.TempDir()
+	out, rep := buildSiteJob(t, dir)
+	pages := pdfPages(t, filepath.Join(out, export.FilePlanPDF))
+	bays := partsByBay(rep)
+	if len(pages) != len(bays) {
+		t.Fatalf("%d pages for %d bays", len(pages), len(bays))
+	}
+	seen := map[string]bool{}
+	for i, pg := range pages {
+		words := tokens(pg)
+		bay := ""
+		if k := strings.Index(pg, "Bay "); k >= 0 {
+			bay = strings.Fields(pg[k+4:])[0]
+		}
+		labels, ok := bays[bay]
+		if !ok || seen[bay] {
+			t.Fatalf("page %d: bay %q is not a bay with parts, or is on two pages", i+1, bay)
+		}
+		seen[bay] = true
+		for _, l := range labels {
+			if !words[l] {
+				t.Errorf("page %d (bay %s): label %s missing", i+1, bay, l)
+			}
+		}
+		flat := strings.Join(strings.Fields(pg), " ")
+		for _, want := range []string{"scale 1:", "CAUTION: pqfab computes geometry only", "azimuth 0", "row by row",
+			`Café "Nord" <b>&amp; 50%% \ ?? — hall`} {
+			if !strings.Contains(flat, want) {
+				t.Errorf("page %d: no %q in %q", i+1, want, tail(flat, 300))
+			}
+		}
+	}
+}
+
+// TestSiteTagsPDF reads site/tags.pdf back: pdftotext (poppler-utils) finds
+// every node, member and panel label, node tags carry the azimuth
+// definition and member tags their end nodes; pdftoppm renders sample
+// sheets and zbarimg (zbar-tools) decodes each sampled tag's QR code to
+// exactly the label of the part in that slot.
+func TestSiteTagsPDF(t *testing.T) {
+	dir := t.TempDir()
+	out, rep := buildSiteJob(t, dir)
+	path := filepath.Join(out, export.FileTagsPDF)
+	pages := pdfPages(t, path)
+	// The order of the tags: nodes, members, panels, each by label.
+	var order []string
+	for _, kind := range [][]string{labelsOf(rep.Nodes, func(n export.NodeRow) string { return n.Label }),
+		labelsOf(rep.Members, func(m export.MemberRow) string { return m.Label }),
+		labelsOf(rep.Panels, func(p export.PanelRow) string { return p.Label })} {
+		slices.Sort(kind)
+		order = append(order, kind...)
+	}
+	perSheet := export.TagCols * export.TagRows
+	if want := (len(order) + perSheet - 1) / perSheet; len(pages) != want {
+		t.Fatalf("%d sheets for %d tags, want %d", len(pages), len(order), want)
+	}
+	for k, l := range order {
+		pg := pages[k/perSheet]
+		if !tokens(pg)[l] {
+			t.Errorf("tag %s missing from sheet %d", l, k/perSheet+1)
+		}
+	}
+	flat := strings.Join(strings.Fields(pages[0]), " ")
+	if !strings.Contains(flat, "az 0 = first member listed") || !strings.Contains(flat, "NODE") {
+		t.Errorf("first sheet (node tags) lacks the azimuth definition: %q", tail(flat, 400))
+	}
+	m := rep.Members[0]
+	mpage := pages[slices.Index(order, m.Label)/perSheet]
+	if !strings.Contains(mpage, "end A to node "+m.NodeA) || !strings.Contains(mpage, "end B to node "+m.NodeB) {
+		t.Errorf("member %s's tag lacks its end nodes", m.Label)
+	}
+
+	// QR codes on the first sheet, a middle one and the last.
+	const dpi = 150
+	sheets := []int{0, len(pages) / 2, len(pages) - 1}
+	decoded := 0
+	for _, s := range slices.Compact(sheets) {
+		prefix := filepath.Join(dir, fmt.Sprintf("sheet-%d", s+1))
+		runTool(t, pdftoppm, "-r", fmt.Sprint(dpi), "-gray", "-png", "-singlefile", "-f", fmt.Sprint(s+1), "-l", fmt.Sprint(s+1), path, prefix)
+		img := readPNG(t, prefix+".png")
+		for slot := 0; slot < perSheet && s*perSheet+slot < len(order); slot++ {
+			want := order[s*perSheet+slot]
+			x := float64(slot%export.TagCols) * export.TagW
+			y := (export.TagSheetH-export.TagRows*export.TagH)/2 + float64(slot/export.TagCols)*export.TagH
+			px := func(mm float64) int { return int(mm / 25.4 * dpi) }
+			crop := image.Rect(px(x), px(y), px(x+27), px(y+27))
+			file := filepath.Join(dir, fmt.Sprintf("qr-%d-%d.png", s, slot))
+			writePNG(t, file, img.(interface {
+				SubImage(image.Rectangle) image.Image
+			}).SubImage(crop))
+			got := strings.TrimSpace(runTool(t, zbarimg, "-q", "--raw", file))
+			if got != want {
+				t.Errorf("sheet %d slot %d: QR code reads %q, want %q", s+1, slot+1, got, want)
+			}
+			decoded++
+		}
+	}
+	t.Logf("%d tags on %d sheets; %d QR codes decoded", len(order), len(pages), decoded)
+}
+
+func labelsOf[T any](rows []T, label func(T) string) []string {
+	out := make([]string, len(rows))
+	for i, r := range rows {
+		out[i] = label(r)
+	}
+	return out
+}
+
+func readPNG(t *testing.T, path string) image.Image {
+	t.Helper()
+	f, err := os.Open(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	img, err := png.Decode(f)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return img
+}
+
+func writePNG(t *testing.T, path string, img image.Image) {
+	t.Helper()
+	f, err := os.Create(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := png.Encode(f, img); err != nil {
+		t.Fatal(err)
+	}
+	if err := f.Close(); err != nil {
+		t.Fatal(err)
+	}
+}
+
+// TestSitePlanDXF checks the assembly plan with ezdxf and shapely (Debian's
+// python3-ezdxf and python3-shapely; check_plan_dxf.py says what): no two
+// text boxes overlap, no label on a member line, grid lines and bay texts
+// present, every label near its part; with one label moved onto another
+// the same script must fail.
+func TestSitePlanDXF(t *testing.T) {
+	dir := t.TempDir()
+	out, _ := buildSiteJob(t, dir)
+	readBack(t, "check_plan_dxf.py", out)
+	readBack(t, "readback_dxf.py", out)
+	got, err := exec.Command(debianPython, filepath.Join("testdata", "check_plan_dxf.py"), out, "--perturb").CombinedOutput()
+	if err == nil || !strings.Contains(string(got), "text boxes overlap") {
+		t.Errorf("a label moved onto another was not caught: %v\n%s", err, tail(string(got), 500))
+	}
+}
+
+// chromiumFlags are the flags of every headless run: no network services,
+// a fresh profile, software WebGL (SwiftShader, which chromium no longer
+// falls back to by itself).
+func chromiumFlags(profile string) []string {
+	return []string{"--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking",
+		"--disable-component-update", "--disable-sync", "--no-first-run", "--user-data-dir=" + profile,
+		"--enable-unsafe-swiftshader", "--enable-logging=stderr", "--v=0", "--virtual-time-budget=15000", "--hide-scrollbars"}
+}
+
+// consoleErrors returns the page's console messages and uncaught errors
+// from chromium's log, leaving out the GL driver's performance notes
+// (reading pixels back for the screenshot stalls SwiftShader).
+func consoleErrors(log string) []string {
+	var out []string
+	for _, line := range strings.Split(log, "\n") {
+		if (strings.Contains(line, "CONSOLE") || strings.Contains(line, "Uncaught")) && !strings.Contains(line, "GL Driver Message") {
+			out = append(out, line)
+		}
+	}
+	return out
+}
+
+// TestSiteViewInChromium loads view.html in headless chromium (Debian's
+// chromium): with a member's label after # the DOM shows it selected and
+// its data (read with --dump-dom); with a node's label the screenshot is
+// not blank; no console errors either time. The page loads nothing from
+// the network: every script is inline and a content security policy
+// forbids other sources.
+func TestSiteViewInChromium(t *testing.T) {
+	dir := t.TempDir()
+	out, rep := buildSiteJob(t, dir)
+	page := filepath.Join(out, export.FileView)
+	body, err := os.ReadFile(page)
+	if err != nil {
+		t.Fatal(err)
+	}
+	html := string(body)
+	for _, bad := range []string{"<script src", "<link rel=\"stylesheet\"", "@import", "<img src=\"http"} {
+		if strings.Contains(html, bad) {
+			t.Errorf("view.html loads a file: %q", bad)
+		}
+	}
+	if !strings.Contains(html, `content="default-src 'none'`) {
+		t.Error("view.html has no content security policy")
+	}
+	if strings.Contains(html, "<b>&amp;") || !strings.Contains(html, "&lt;b&gt;&amp;amp;") {
+		t.Error("the title is not escaped in view.html")
+	}
+
+	m := rep.Members[len(rep.Members)/2]
+	cmd := exec.Command(chromium, append(chromiumFlags(filepath.Join(dir, "p1")), "--dump-dom", "file://"+page+"#"+m.Label)...)
+	var logs strings.Builder
+	cmd.Stderr = &logs
+	dom, err := cmd.Output()
+	if err != nil {
+		t.Fatalf("chromium: %v\n%s", err, tail(logs.String(), 3000))
+	}
+	for _, l := range consoleErrors(logs.String()) {
+		t.Errorf("console message: %s", l)
+	}
+	d := string(dom)
+	if !strings.Contains(d, `data-selected="`+m.Label+`"`) || !strings.Contains(d, `data-kind="member"`) {
+		t.Errorf("member %s not selected in the DOM: %s", m.Label, tail(d, 600))
+	}
+	info := d[strings.Index(d, `id="info"`):]
+	for _, want := range []string{m.Label, m.NodeA, m.NodeB, m.Type} {
+		if !strings.Contains(info[:min(len(info), 2000)], want) {
+			t.Errorf("data panel lacks %s", want)
+		}
+	}
+
+	n := rep.Nodes[0]
+	shot := filepath.Join(dir, "view.png")
+	cmd = exec.Command(chromium, append(chromiumFlags(filepath.Join(dir, "p2")), "--window-size=1200,800", "--screenshot="+shot, "file://"+page+"#"+n.Label)...)
+	combined, err := cmd.CombinedOutput()
+	if err != nil {
+		t.Fatalf("chromium: %v\n%s", err, tail(string(combined), 3000))
+	}
+	for _, l := range consoleErrors(string(combined)) {
+		t.Errorf("console message: %s", l)
+	}
+	colours, nonWhite, total := pixelStats(readPNG(t, shot))
+	t.Logf("screenshot: %d colours, %.1f %% non-white", colours, 100*float64(nonWhite)/float64(total))
+	if colours < 64 || float64(nonWhite) < 0.1*float64(total) {
+		t.Errorf("screenshot looks blank: %d colours, %d of %d pixels non-white", colours, nonWhite, total)
+	}
+}
+
+// TestSiteDeterministic: the site files of two builds are byte for byte
+// the same.
+func TestSiteDeterministic(t *testing.T) {
+	a, _ := buildSiteJob(t, t.TempDir())
+	b, _ := buildSiteJob(t, t.TempDir())
+	for _, name := range []string{export.FilePlanPDF, export.FileTagsPDF, export.FileView, export.FileAssembly} {
+		x, err := os.ReadFile(filepath.Join(a, name))
+		if err != nil {
+			t.Fatal(err)
+		}
+		y, err := os.ReadFile(filepath.Join(b, name))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if string(x) != string(y) {
+			t.Errorf("%s differs between builds", name)
+		}
+	}
+}

@@ -1,0 +1,262 @@
+package export
+
+import (
+	"fmt"
+	"io"
+	"math"
+
+	"github.com/yofu/dxf/color"
+	"github.com/yofu/dxf/drawing"
+)
+
+// Layers of the cut sheets: one concept each, colour by layer.
+const (
+	LayerSheetEdge   = "PQ-SHEET-EDGE"   // outline of the stock sheet
+	LayerSheetMargin = "PQ-SHEET-MARGIN" // edge of the usable area
+	LayerCut         = "PQ-CUT"          // panel cut outlines
+	LayerEngrave     = "PQ-ENGRAVE"      // what is engraved or marked on a part: its label and type
+	LayerPartMark    = "PQ-PART-MARK"    // corner 1 (a ring) and the edge numbers of every part
+	LayerBevel       = "PQ-BEVEL"        // the bevel of each edge, as text along the edge
+	LayerGrain       = "PQ-GRAIN"        // grain direction arrows (stock with rotation "grain")
+)
+
+// WriteSheetDXF writes one stock sheet as a cut sheet in mm: the sheet
+// outline, the usable area inside the margin, every part's cut outline
+// where it lies; on the engraving layer each part's label and type; on the
+// mark layer a ring at corner 1 and the number of each edge (edge k runs
+// from corner k to k+1, as in the schedule); on the bevel layer each
+// edge's bevel; for grain stock an arrow along the grain on the sheet and
+// on every part; and a title block with the caution and any warnings. A
+// part cut inside face up (a mirrored placement) says so.
+//
+// It is safe to call from several goroutines: drawings are built one at a
+// time (the DXF library keeps package-level state).
+func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
+	dxfMu.Lock()
+	defer dxfMu.Unlock()
+	s := rep.Sheets[sheet]
+	d, err := newDrawing([]dxfLayer{{LayerSheetEdge, color.Grey128}, {LayerSheetMargin, color.Cyan},
+		{LayerCut, color.Red}, {LayerEngrave, color.Green}, {LayerPartMark, color.Magenta}, {LayerBevel, color.Yellow},
+		{LayerGrain, color.Blue}, {LayerTitle, color.White}})
+	if err != nil {
+		return err
+	}
+	panel := rep.panelRows()
+	grain := s.Rotation == "grain"
+	m := s.MarginMM
+	var steps []func() error
+	add := func(f func() error) { steps = append(steps, f) }
+	add(func() error { return useLayer(d, LayerSheetEdge) })
+	add(func() error { return closedPoly(d, rectPts(0, 0, s.WidthMM, s.HeightMM)) })
+	add(func() error { return useLayer(d, LayerSheetMargin) })
+	add(func() error { return closedPoly(d, rectPts(m, m, s.WidthMM-m, s.HeightMM-m)) })
+	add(func() error { return useLayer(d, LayerCut) })
+	for _, p := range s.Placements {
+		add(func() error { return closedPoly(d, p.Outline) })
+	}
+	add(func() error { return useLayer(d, LayerEngrave) })
+	for _, p := range s.Placements {
+		add(func() error {
+			cx, cy, size := labelSpot(p.Outline)
+			h := partTextHeight(size)
+			if err := text(d, p.Panel, cx, cy+0.7*h, 0, h, 0); err != nil {
+				return err
+			}
+			second := panel[p.Panel].Type
+			if p.Mirrored {
+				second += " inside face up"
+			}
+			return text(d, second, cx, cy-0.7*h, 0, 0.6*h, 0)
+		})
+	}
+	add(func() error { return useLayer(d, LayerPartMark) })
+	for _, p := range s.Placements {
+		add(func() error { return partMarks(d, p) })
+	}
+	add(func() error { return useLayer(d, LayerBevel) })
+	for _, p := range s.Placements {
+		add(func() error { return bevelTexts(d, p, panel[p.Panel]) })
+	}
+	if grain {
+		add(func() error { return useLayer(d, LayerGrain) })
+		add(func() error {
+			y := s.HeightMM + 60
+			if err := arrow(d, s.WidthMM/2-400, y, s.WidthMM/2+400, y, 40); err != nil {
+				return err
+			}
+			return text(d, "GRAIN", s.WidthMM/2, y+50, 0, 30, 0)
+		})
+		for _, p := range s.Placements {
+			add(func() error {
+				cx, cy, size := labelSpot(p.Outline)
+				h := partTextHeight(size)
+				// The panel's grain direction where the part lies: its
+				// own direction, mirrored if the part is, then turned.
+				g := panel[p.Panel].GrainDeg
+				if p.Mirrored {
+					g = 180 - g
+				}
+				s, c := math.Sincos((g + p.RotationDeg) * math.Pi / 180)
+				x, y := cx, cy-2.2*h
+				return arrow(d, x-3*h*c, y-3*h*s, x+3*h*c, y+3*h*s, 0.8*h)
+			})
+		}
+	}
+	add(func() error { return useLayer(d, LayerTitle) })
+	add(func() error {
+		return text(d, fmt.Sprintf("%s  %s  %s %g x %g mm  %d parts  %.1f %%", rep.Title, s.Name, s.Stock, s.WidthMM, s.HeightMM, len(s.Placements), 100*s.Utilization),
+			s.WidthMM/2, -60, 0, 30, 0)
+	})
+	add(func() error {
+		return text(d, "Parts seen from outside (the face the net's normals point to) unless marked inside face up; corner 1 ringed, edge k from corner k to k+1",
+			s.WidthMM/2, -100, 0, 14, 0)
+	})
+	add(func() error { return text(d, "CAUTION: "+Caution, s.WidthMM/2, -130, 0, 14, 0) })
+	for i, wl := range warningLines(rep.Warnings) {
+		add(func() error { return text(d, wl, s.WidthMM/2, -170-30*float64(i), 0, 14, 0) })
+	}
+	for _, st := range steps {
+		if err := st(); err != nil {
+			return err
+		}
+	}
+	d.SetExt()
+	_, err = d.WriteTo(w)
+	return err
+}
+
+// fixed formats x with d decimals, never as a negative zero.
+func fixed(x float64, d int) string { return string(AppendFixed(nil, x, d)) }
+
+// partTextHeight is the label height on a part of the given size (mm).
+func partTextHeight(size float64) float64 { return math.Max(10, math.Min(80, size/12)) }
+
+// partMarks draws a ring inside corner 1 and the number of each edge
+// inside its midpoint. A mirrored part's outline runs corner 1, k, k−1, …,
+// so its edges are numbered back to the panel's own.
+func partMarks(d *drawing.Drawing, p PlacementRow) error {
+	_, _, size := labelSpot(p.Outline)
+	h := 0.5 * partTextHeight(size)
+	k := len(p.Outline)
+	c := inward(p.Outline, 0, 1.6*h)
+	if _, err := d.Circle(r(c[0], dxfDigits), r(c[1], dxfDigits), 0, r(0.6*h, dxfDigits)); err != nil {
+		return err
+	}
+	for j := 0; j < k; j++ {
+		_, ang, in := edgeSpot(p.Outline, j, 1.2*h)
+		if err := text(d, fmt.Sprint(panelEdge(j, k, p.Mirrored)+1), in[0], in[1], 0, h, ang); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// bevelTexts writes each edge's bevel along it, inside the edge number.
+func bevelTexts(d *drawing.Drawing, p PlacementRow, panel PanelRow) error {
+	_, _, size := labelSpot(p.Outline)
+	h := 0.4 * partTextHeight(size)
+	k := len(p.Outline)
+	for j := 0; j < k; j++ {
+		e := panelEdge(j, k, p.Mirrored)
+		if e >= len(panel.Edges) {
+			continue
+		}
+		_, ang, at := edgeSpot(p.Outline, j, 3.2*h)
+		if err := text(d, "bevel "+fixed(panel.Edges[e].BevelDeg, 2)+"°", at[0], at[1], 0, h, ang); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// panelEdge returns the panel's own number (0-based) of edge j of a
+// placed outline of k corners.
+func panelEdge(j, k int, mirrored bool) int {
+	if mirrored {
+		return (2*k - j - 1) % k
+	}
+	return j
+}
+
+// edgeSpot returns the midpoint of edge j of a counter-clockwise outline,
+// the edge's direction for text (degrees, turned to read left to right)
+// and the point off its midpoint by in millimetres into the part.
+func edgeSpot(pts [][2]float64, j int, in float64) (mid [2]float64, angDeg float64, at [2]float64) {
+	a, b := pts[j], pts[(j+1)%len(pts)]
+	mid = [2]float64{(a[0] + b[0]) / 2, (a[1] + b[1]) / 2}
+	dx, dy := b[0]-a[0], b[1]-a[1]
+	l := math.Hypot(dx, dy)
+	if l == 0 {
+		return mid, 0, mid
+	}
+	nx, ny := -dy/l, dx/l // left of a→b: inside a counter-clockwise outline
+	at = [2]float64{mid[0] + in*nx, mid[1] + in*ny}
+	angDeg = math.Atan2(dy, dx) * 180 / math.Pi
+	if angDeg > 90 {
+		angDeg -= 180
+	} else if angDeg < -90 {
+		angDeg += 180
+	}
+	return mid, angDeg, at
+}
+
+// inward returns the point at distance in from corner i along the bisector
+// of its two edges, into the outline.
+func inward(pts [][2]float64, i int, in float64) [2]float64 {
+	k := len(pts)
+	p, a, b := pts[i], pts[(i+k-1)%k], pts[(i+1)%k]
+	u := unit2(b[0]-p[0], b[1]-p[1])
+	v := unit2(a[0]-p[0], a[1]-p[1])
+	bx, by := u[0]+v[0], u[1]+v[1]
+	if l := math.Hypot(bx, by); l > 1e-12 {
+		return [2]float64{p[0] + in*bx/l, p[1] + in*by/l}
+	}
+	return [2]float64{p[0] - in*u[1], p[1] + in*u[0]} // a straight corner: off the edge
+}
+
+func unit2(x, y float64) [2]float64 {
+	l := math.Hypot(x, y)
+	if l == 0 {
+		return [2]float64{}
+	}
+	return [2]float64{x / l, y / l}
+}
+
+// arrow draws a line from (x0, y0) to (x1, y1) with a head of size h at
+// its end.
+func arrow(d *drawing.Drawing, x0, y0, x1, y1, h float64) error {
+	if _, err := d.Line(r(x0, dxfDigits), r(y0, dxfDigits), 0, r(x1, dxfDigits), r(y1, dxfDigits), 0); err != nil {
+		return err
+	}
+	u := unit2(x1-x0, y1-y0)
+	for _, side := range []float64{1, -1} {
+		hx := x1 - h*u[0] - side*0.5*h*u[1]
+		hy := y1 - h*u[1] + side*0.5*h*u[0]
+		if _, err := d.Line(r(x1, dxfDigits), r(y1, dxfDigits), 0, r(hx, dxfDigits), r(hy, dxfDigits), 0); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// panelRows maps panel labels to their rows (made by BuildReport).
+func (rep *Report) panelRows() map[string]PanelRow { return rep.panelOf }
+
+// labelSpot returns the centroid of an outline and its size.
+func labelSpot(pts [][2]float64) (x, y, size float64) {
+	var a, cx, cy float64
+	lox, loy, hix, hiy := math.Inf(1), math.Inf(1), math.Inf(-1), math.Inf(-1)
+	for i, p := range pts {
+		q := pts[(i+1)%len(pts)]
+		c := p[0]*q[1] - q[0]*p[1]
+		a += c
+		cx += (p[0] + q[0]) * c
+		cy += (p[1] + q[1]) * c
+		lox, loy = math.Min(lox, p[0]), math.Min(loy, p[1])
+		hix, hiy = math.Max(hix, p[0]), math.Max(hiy, p[1])
+	}
+	if a == 0 {
+		return (lox + hix) / 2, (loy + hiy) / 2, 0
+	}
+	return cx / (3 * a), cy / (3 * a), math.Min(hix-lox, hiy-loy)
+}

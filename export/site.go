@@ -1,0 +1,237 @@
+package export
+
+import (
+	"cmp"
+	"fmt"
+	"math"
+	"slices"
+	"strconv"
+	"strings"
+
+	"pqfab/geom"
+)
+
+// Output files for the site team.
+const (
+	DirSite     = "site"
+	FilePlanPDF = "site/plan.pdf"
+	FileTagsPDF = "site/tags.pdf"
+	FileView    = "view.html"
+	// SiteFiles is how many of the files above WriteBuild writes.
+	SiteFiles = 3
+)
+
+// Size limits of the site files. Beyond them the file holds one page that
+// says so (and the report carries a warning): the assembly plan DXF, the
+// schedule and view.html still hold every part.
+const (
+	// MaxPlanPages: plan.pdf has a page per bay up to this many bays.
+	MaxPlanPages = 600
+	// MaxTags: tags.pdf has a tag per part (nodes, members and panels
+	// together) up to this many parts (500 sheets of 24 labels).
+	MaxTags = 12000
+)
+
+// HubFrameNote defines the hub angles for the people who read them; it is
+// on every node tag and in the legends of the plans.
+const HubFrameNote = "Hub angles: z = node axis; azimuth 0 = the first member listed (label order), " +
+	"projected on the plane normal to the axis; azimuth counter-clockwise seen from above the hub " +
+	"along the axis, 0 to 360°; elevation above (+) or below (-) the hub plane."
+
+// NumberingNote says how parts are numbered inside a bay (geom.Bays.Label).
+const NumberingNote = "Numbering in a bay: row by row from the bay's lower-left corner, by x along a row. " +
+	"Members and panels take the bay of their midpoint or centre."
+
+// BayGrid is the plan bay grid the labels use (see geom.Bays): columns
+// lettered along x, rows numbered along y.
+type BayGrid struct {
+	OriginMM [2]float64 `json:"origin_mm"` // lower-left corner of bay A1
+	SizeMM   [2]float64 `json:"size_mm"`   // bay width along x, depth along y
+}
+
+func bayGridOf(b geom.Bays) BayGrid {
+	return BayGrid{OriginMM: [2]float64{r(b.Origin.X, lenDigits), r(b.Origin.Y, lenDigits)},
+		SizeMM: [2]float64{r(b.SizeX, lenDigits), r(b.SizeY, lenDigits)}}
+}
+
+// parseBay reads the bay of a part label ("C3-M12" → column 2, row 2).
+func parseBay(label string) (col, row int, ok bool) {
+	name, _, found := strings.Cut(label, "-")
+	if !found || name == "" {
+		return 0, 0, false
+	}
+	i := 0
+	for i < len(name) && name[i] >= 'A' && name[i] <= 'Z' {
+		col = col*26 + int(name[i]-'A') + 1
+		i++
+	}
+	n, err := strconv.Atoi(name[i:])
+	if i == 0 || err != nil || n < 1 {
+		return 0, 0, false
+	}
+	return col - 1, n - 1, true
+}
+
+// siteBay is one bay that holds parts, with the parts' indices in the
+// report (each list in label order).
+type siteBay struct {
+	col, row               int
+	name                   string
+	nodes, members, panels []int
+	lo, hi                 [2]float64 // plan rectangle (mm)
+	extLo, extHi           [2]float64 // plan extent of the bay's parts (mm)
+}
+
+// siteModel is what the site files share: node positions by label, the
+// bays that hold parts in column-then-row order, and the plan extent.
+type siteModel struct {
+	rep     *Report
+	grid    BayGrid
+	nodeIdx map[string]int
+	bays    []*siteBay
+	bayIdx  map[[2]int]int
+	lo, hi  [2]float64 // plan extent of the nodes
+	spanMM  float64    // mean member system length
+	maxLen  float64    // longest member, plan length
+}
+
+// newSiteModel indexes a report for the site files. Every label must
+// carry a bay (as pqfab's labels do).
+func newSiteModel(rep *Report) (*siteModel, error) {
+	g := rep.Bays
+	if !(g.SizeMM[0] > 0) || !(g.SizeMM[1] > 0) {
+		return nil, fmt.Errorf("the bay grid has no size (%g × %g mm)", g.SizeMM[0], g.SizeMM[1])
+	}
+	m := &siteModel{rep: rep, grid: g, nodeIdx: make(map[string]int, len(rep.Nodes)), bayIdx: map[[2]int]int{},
+		lo: [2]float64{math.Inf(1), math.Inf(1)}, hi: [2]float64{math.Inf(-1), math.Inf(-1)}}
+	for i, n := range rep.Nodes {
+		m.nodeIdx[n.Label] = i
+		m.lo = [2]float64{math.Min(m.lo[0], n.Pos[0]), math.Min(m.lo[1], n.Pos[1])}
+		m.hi = [2]float64{math.Max(m.hi[0], n.Pos[0]), math.Max(m.hi[1], n.Pos[1])}
+	}
+	if len(rep.Nodes) == 0 {
+		m.lo, m.hi = g.OriginMM, g.OriginMM
+	}
+	bay := func(label string) (*siteBay, error) {
+		c, rw, ok := parseBay(label)
+		if !ok {
+			return nil, fmt.Errorf("label %q names no bay", label)
+		}
+		k, found := m.bayIdx[[2]int{c, rw}]
+		if !found {
+			k = len(m.bays)
+			m.bayIdx[[2]int{c, rw}] = k
+			lo := [2]float64{g.OriginMM[0] + float64(c)*g.SizeMM[0], g.OriginMM[1] + float64(rw)*g.SizeMM[1]}
+			m.bays = append(m.bays, &siteBay{col: c, row: rw, name: geom.ColumnLetters(c) + strconv.Itoa(rw+1),
+				lo: lo, hi: [2]float64{lo[0] + g.SizeMM[0], lo[1] + g.SizeMM[1]}, extLo: lo, extHi: [2]float64{lo[0] + g.SizeMM[0], lo[1] + g.SizeMM[1]}})
+		}
+		return m.bays[k], nil
+	}
+	grow := func(b *siteBay, p [3]float64) {
+		b.extLo = [2]float64{math.Min(b.extLo[0], p[0]), math.Min(b.extLo[1], p[1])}
+		b.extHi = [2]float64{math.Max(b.extHi[0], p[0]), math.Max(b.extHi[1], p[1])}
+	}
+	for i, n := range rep.Nodes {
+		b, err := bay(n.Label)
+		if err != nil {
+			return nil, err
+		}
+		b.nodes = append(b.nodes, i)
+		grow(b, n.Pos)
+	}
+	for i, mb := range rep.Members {
+		b, err := bay(mb.Label)
+		if err != nil {
+			return nil, err
+		}
+		ia, oka := m.nodeIdx[mb.NodeA]
+		ib, okb := m.nodeIdx[mb.NodeB]
+		if !oka || !okb {
+			return nil, fmt.Errorf("member %s: end node %s or %s is not in the report", mb.Label, mb.NodeA, mb.NodeB)
+		}
+		b.members = append(b.members, i)
+		pa, pb := rep.Nodes[ia].Pos, rep.Nodes[ib].Pos
+		grow(b, pa)
+		grow(b, pb)
+		m.spanMM += mb.LengthMM
+		m.maxLen = math.Max(m.maxLen, math.Hypot(pb[0]-pa[0], pb[1]-pa[1]))
+	}
+	if len(rep.Members) > 0 {
+		m.spanMM /= float64(len(rep.Members))
+	}
+	for i, p := range rep.Panels {
+		b, err := bay(p.Label)
+		if err != nil {
+			return nil, err
+		}
+		b.panels = append(b.panels, i)
+		for _, c := range p.Corners {
+			k, ok := m.nodeIdx[c]
+			if !ok {
+				return nil, fmt.Errorf("panel %s: corner %s is not in the report", p.Label, c)
+			}
+			grow(b, rep.Nodes[k].Pos)
+		}
+	}
+	slices.SortFunc(m.bays, func(a, b *siteBay) int {
+		if d := cmp.Compare(a.col, b.col); d != 0 {
+			return d
+		}
+		return cmp.Compare(a.row, b.row)
+	})
+	for k, b := range m.bays {
+		m.bayIdx[[2]int{b.col, b.row}] = k
+		byLabel := func(labels func(int) string) func(a, b int) int {
+			return func(a, b int) int { return strings.Compare(labels(a), labels(b)) }
+		}
+		slices.SortFunc(b.nodes, byLabel(func(i int) string { return rep.Nodes[i].Label }))
+		slices.SortFunc(b.members, byLabel(func(i int) string { return rep.Members[i].Label }))
+		slices.SortFunc(b.panels, byLabel(func(i int) string { return rep.Panels[i].Label }))
+	}
+	return m, nil
+}
+
+// pos returns a node's position by label.
+func (m *siteModel) pos(label string) [3]float64 { return m.rep.Nodes[m.nodeIdx[label]].Pos }
+
+// gridRange returns the columns and rows of the grid that cover the
+// nodes' plan extent.
+func (m *siteModel) gridRange() (cols, rows int) {
+	g := m.grid
+	cols = max(1, int(math.Ceil((m.hi[0]-g.OriginMM[0])/g.SizeMM[0]-1e-9)))
+	rows = max(1, int(math.Ceil((m.hi[1]-g.OriginMM[1])/g.SizeMM[1]-1e-9)))
+	for _, b := range m.bays {
+		cols, rows = max(cols, b.col+1), max(rows, b.row+1)
+	}
+	return cols, rows
+}
+
+// heightText is a node's height as printed: z in whole millimetres.
+func heightText(z float64) string { return fmt.Sprintf("z %.0f", r(z, 0)) }
+
+// siteWarnings says which site files are cut short by the size limits.
+func siteWarnings(rep *Report) []string {
+	var w []string
+	if n := len(rep.Nodes) + len(rep.Members) + len(rep.Panels); n > MaxTags {
+		w = append(w, fmt.Sprintf("%s holds no tags: the job has %d parts, more than the %d tags pqfab prints in one file", FileTagsPDF, n, MaxTags))
+	}
+	bays := map[string]bool{}
+	for _, n := range rep.Nodes {
+		bays[bayName(n.Label)] = true
+	}
+	for _, m := range rep.Members {
+		bays[bayName(m.Label)] = true
+	}
+	for _, p := range rep.Panels {
+		bays[bayName(p.Label)] = true
+	}
+	if len(bays) > MaxPlanPages {
+		w = append(w, fmt.Sprintf("%s holds no bay pages: the job spans %d bays, more than the %d pages pqfab prints in one file", FilePlanPDF, len(bays), MaxPlanPages))
+	}
+	return w
+}
+
+func bayName(label string) string {
+	name, _, _ := strings.Cut(label, "-")
+	return name
+}

@@ -1,0 +1,130 @@
+package export
+
+import (
+	"fmt"
+	"strings"
+)
+
+// panelsTable returns the Panels sheet: cut values first (what a glazier
+// or a board workshop orders: every edge, diagonal and corner angle of the
+// cut outline, its smallest enclosing rectangle, area, weight, the bevel
+// of each edge and the panel specification), then the set-out
+// (centre-line) values under headers that say so. Edge k runs from corner
+// k to corner k+1; corner 1 is the one marked on every drawing. Columns
+// run to the largest corner count in the net, so 5- and 6-corner panels
+// keep every edge.
+func panelsTable(rep *Report) ([]string, func(add func(row ...any) error) error) {
+	k := 3
+	for _, p := range rep.Panels {
+		k = max(k, len(p.Corners))
+	}
+	diags := diagonalPairs(k)
+	head := []string{"Label", "Type", "Sheet"}
+	for i := 1; i <= k; i++ {
+		head = append(head, fmt.Sprintf("Cut edge %d (mm)", i))
+	}
+	for _, d := range diags {
+		head = append(head, fmt.Sprintf("Cut diagonal %d-%d (mm)", d[0]+1, d[1]+1))
+	}
+	for i := 1; i <= k; i++ {
+		head = append(head, fmt.Sprintf("Cut angle %d (°)", i))
+	}
+	head = append(head, "Cut rectangle long (mm)", "Cut rectangle short (mm)", "Cut area (m²)", "Cut perimeter (mm)", "Weight (kg)")
+	for i := 1; i <= k; i++ {
+		head = append(head, fmt.Sprintf("Bevel %d (°)", i))
+	}
+	head = append(head, "Build-up", "Edge work", "Coating", "Heat treatment", "Grade")
+	for i := 1; i <= k; i++ {
+		head = append(head, fmt.Sprintf("Set-out edge %d (mm)", i))
+	}
+	for _, d := range diags {
+		head = append(head, fmt.Sprintf("Set-out diagonal %d-%d (mm)", d[0]+1, d[1]+1))
+	}
+	for i := 1; i <= k; i++ {
+		head = append(head, fmt.Sprintf("Set-out angle %d (°)", i))
+	}
+	head = append(head, "Corner nodes", "Id", "Grain direction (°)", "Flatness before (mm)", "Flatness after (mm)")
+	spec := map[string]*PanelSpec{}
+	for _, t := range rep.PanelTypes {
+		spec[t.Name] = t.Spec
+	}
+	rows := func(add func(row ...any) error) error {
+		for _, p := range rep.Panels {
+			row := []any{p.Label, p.Type, p.Sheet}
+			row = appendN(row, p.Cut.EdgesMM, k)
+			row = appendDiagonals(row, p.Cut.Diagonals, p.Corners, diags)
+			row = appendN(row, p.Cut.AnglesDeg, k)
+			row = append(row, p.Cut.BoxMM[0], p.Cut.BoxMM[1], p.AreaM2, p.PerimeterMM, p.WeightKg)
+			bevels := make([]float64, len(p.Edges))
+			setout := make([]float64, len(p.Edges))
+			for i, e := range p.Edges {
+				bevels[i], setout[i] = e.BevelDeg, e.LengthMM
+			}
+			row = appendN(row, bevels, k)
+			s := spec[p.Type]
+			if s == nil {
+				s = &PanelSpec{}
+			}
+			row = append(row, s.BuildUp, s.EdgeWork, s.Coating, s.HeatTreatment, s.Grade)
+			row = appendN(row, setout, k)
+			row = appendDiagonals(row, p.Diagonals, p.Corners, diags)
+			row = appendN(row, p.AnglesDeg, k)
+			row = append(row, strings.Join(p.Corners, " "), p.ID, p.GrainDeg, p.FlatnessBeforeMM, p.FlatnessMM)
+			if err := add(row...); err != nil {
+				return err
+			}
+		}
+		return nil
+	}
+	return head, rows
+}
+
+// diagonalPairs lists the diagonals of a k-corner panel as corner index
+// pairs (i < j, not neighbours): those of a panel with fewer corners are
+// among them.
+func diagonalPairs(k int) [][2]int {
+	var out [][2]int
+	for i := 0; i < k; i++ {
+		for j := i + 2; j < k; j++ {
+			if i == 0 && j == k-1 {
+				continue
+			}
+			out = append(out, [2]int{i, j})
+		}
+	}
+	return out
+}
+
+// appendN appends vs and blank cells up to n values.
+func appendN(row []any, vs []float64, n int) []any {
+	for i := 0; i < n; i++ {
+		if i < len(vs) {
+			row = append(row, vs[i])
+		} else {
+			row = append(row, nil)
+		}
+	}
+	return row
+}
+
+// appendDiagonals appends a panel's diagonals in the columns of pairs,
+// finding each diagonal's corners by their node labels.
+func appendDiagonals(row []any, ds []DiagonalRow, corners []string, pairs [][2]int) []any {
+	at := map[string]int{}
+	for i, c := range corners {
+		at[c] = i
+	}
+	length := map[[2]int]float64{}
+	for _, d := range ds {
+		i, j := at[d.From], at[d.To]
+		length[[2]int{min(i, j), max(i, j)}] = d.MM
+	}
+	for _, p := range pairs {
+		if v, ok := length[p]; ok {
+			row = append(row, v)
+		} else {
+			row = append(row, nil)
+		}
+	}
+	return row
+}
