@@ -283,8 +283,7 @@ type grouper struct {
 	// tolerance, largest first: the order fit tries them in, so a box
 	// that does not fit is told early.
 	coordOrder []int
-	filter     []int  // filter keys
-	cands      []cand // eject's buffer
+	filter     []int // filter keys
 }
 
 // keySlack absorbs the rounding of keys computed from coordinates (such
@@ -747,7 +746,10 @@ func (g *grouper) place(i, t, also int, byKey []int, qlo0 []float64) bool {
 func (g *grouper) eject(i, t int, byKey []int, qlo0 []float64) bool {
 	it := &g.items[i]
 	from, to := g.window(it.qlo, it.qhi, qlo0)
-	cands := g.cands[:0]
+	// The ejectCandidates least overflowed (type, variant) pairs, in
+	// order of overflow, ties in the order met.
+	var top [ejectCandidates]cand
+	n := 0
 	for _, u := range byKey[from:to] {
 		tu := &g.types[u]
 		if u == t || !tu.alive || len(tu.items) < 2 {
@@ -764,15 +766,23 @@ func (g *grouper) eject(i, t int, byKey []int, qlo0 []float64) bool {
 					over += (r - tol) / (tol + keySlack)
 				}
 			}
-			cands = append(cands, cand{u, v, over})
+			k := n
+			for k > 0 && over < top[k-1].over {
+				k--
+			}
+			if k == ejectCandidates {
+				continue
+			}
+			if n < ejectCandidates {
+				n++
+			}
+			copy(top[k+1:n], top[k:n-1])
+			top[k] = cand{u, v, over}
 		}
 	}
-	g.cands = cands
-	slices.SortStableFunc(cands, func(a, b cand) int { return cmp.Compare(a.over, b.over) })
-	n := min(len(cands), ejectCandidates)
 	bu, bv, bn := -1, 0, MaxTypeEject+1
 	var out, best []int
-	for _, c := range cands[:n] {
+	for _, c := range top[:n] {
 		tu := &g.types[c.u]
 		xlo, xhi := g.ibox(i, c.v)
 		out = out[:0]

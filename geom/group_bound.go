@@ -64,21 +64,21 @@ func (g *grouper) sweepKey() int {
 // are compared for the sweep order.
 const SweepSpreadFraction = 0.125
 
-// bound returns the largest of three lower bounds on the number of types:
-// the largest cover count of a key, and two sets of parts no two of which agree
-// within the tolerances in any pair of variants (each needs its own type),
-// one found in sweep order and one by the smallest-degree-first greedy on
-// the graph of parts that agree (a standard heuristic for an independent
-// set; skipped when the graph would take more than apartPairsCap
-// comparisons a part).
+// bound returns the larger of two lower bounds on the number of types:
+// the largest cover count of a key, and the size of a set of parts no two
+// of which agree within the tolerances in any pair of variants (each
+// needs its own type). The set is found by the smallest-degree-first
+// greedy on the graph of parts that agree (a standard heuristic for an
+// independent set), or, when that graph would take more than
+// apartPairsCap comparisons a part, by taking parts in sweep order.
 func (g *grouper) bound() TypeBound {
 	b := TypeBound{Count: g.keyBound, Quantity: g.p.Keys[g.boundKey].Name}
-	const apart = "parts pairwise out of tolerance"
-	if n := g.apartSweep(); n > b.Count {
-		b = TypeBound{Count: n, Quantity: apart}
+	n, ok := g.apartGraph()
+	if !ok {
+		n = g.apartSweep()
 	}
-	if n, ok := g.apartGraph(); ok && n > b.Count {
-		b = TypeBound{Count: n, Quantity: apart}
+	if n > b.Count {
+		b = TypeBound{Count: n, Quantity: "parts pairwise out of tolerance"}
 	}
 	return b
 }
