@@ -364,18 +364,29 @@ func (g *grouper) makeItems() {
 	g.filter = g.keyOrder[1:min(len(g.keyOrder), 1+filterKeys)]
 	canon := make([]int, p.Parts)
 	order := make([]int, p.Parts)
-	nk := len(p.Keys)
-	rq := make([]float64, p.Parts*nk) // rounded keys of part i at i*nk, in key order
+	// The first two keys rounded once; the others, rarely needed, when
+	// compared.
+	rq := make([][2]float64, p.Parts)
+	round := func(k, i int) float64 { return math.Round(p.Keys[g.keyOrder[k]].Values[i] / TypeResolution) }
 	for i := range order {
 		order[i] = i
 		canon[i] = g.canonical(i)
-		for j, k := range g.keyOrder {
-			rq[i*nk+j] = math.Round(p.Keys[k].Values[i] / TypeResolution)
+		rq[i][0] = round(0, i)
+		if len(g.keyOrder) > 1 {
+			rq[i][1] = round(1, i)
 		}
 	}
 	slices.SortFunc(order, func(a, b int) int {
-		if c := slices.Compare(rq[a*nk:(a+1)*nk], rq[b*nk:(b+1)*nk]); c != 0 {
+		if c := cmp.Compare(rq[a][0], rq[b][0]); c != 0 {
 			return c
+		}
+		if c := cmp.Compare(rq[a][1], rq[b][1]); c != 0 {
+			return c
+		}
+		for k := 2; k < len(g.keyOrder); k++ {
+			if c := cmp.Compare(round(k, a), round(k, b)); c != 0 {
+				return c
+			}
 		}
 		if c := rounded(g.vec(a, canon[a]), g.vec(b, canon[b])); c != 0 {
 			return c
@@ -913,7 +924,7 @@ func (g *grouper) result() []TypeGroup {
 		}
 		frame := g.p.Compose[t.frame][bestH]
 		type pv struct{ p, v int }
-		var pvs []pv
+		pvs := make([]pv, 0, t.size)
 		for k, i := range t.items {
 			e := g.p.Compose[t.shifts[k]][frame]
 			for _, p := range parts[start[i]:start[i+1]] {
@@ -921,10 +932,9 @@ func (g *grouper) result() []TypeGroup {
 			}
 		}
 		slices.SortFunc(pvs, func(a, b pv) int { return cmp.Compare(a.p, b.p) })
-		var tg TypeGroup
-		for _, x := range pvs {
-			tg.Parts = append(tg.Parts, x.p)
-			tg.Variants = append(tg.Variants, x.v)
+		tg := TypeGroup{Parts: make([]int, len(pvs)), Variants: make([]int, len(pvs))}
+		for k, x := range pvs {
+			tg.Parts[k], tg.Variants[k] = x.p, x.v
 		}
 		b := g.at(t.box, bestH)
 		tg.Min, tg.Max = slices.Clone(b[:g.D]), slices.Clone(b[g.D:])

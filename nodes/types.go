@@ -157,10 +157,9 @@ type NodeType struct {
 	MaxDevDeg float64
 }
 
-// armsByAzimuth returns the indices of a node's arms sorted by azimuth
-// (ties by elevation, then member).
-func armsByAzimuth(nd Node) []int {
-	idx := make([]int, len(nd.Arms))
+// armsByAzimuth fills idx with the indices of a node's arms sorted by
+// azimuth (ties by elevation, then member).
+func armsByAzimuth(idx []int, nd Node) {
 	for i := range idx {
 		idx[i] = i
 	}
@@ -174,7 +173,6 @@ func armsByAzimuth(nd Node) []int {
 		}
 		return cmp.Compare(x.Member, y.Member)
 	})
-	return idx
 }
 
 // nodeCoords appends the coordinates of a node read from its s-th arm by
@@ -244,9 +242,11 @@ func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, geom.TypeBound, error)
 			p.Keys = append(p.Keys, geom.TypeKey{Name: fmt.Sprintf("%s angle between neighbouring arms at nodes with %d members", ordinal(j, k, "smallest", "largest"), k), Tol: 2 * A, Values: make([]float64, len(idx))})
 		}
 		sorted := make([][]int, len(idx))
+		sortedAll := make([]int, len(idx)*k)
 		el, gap := make([]float64, k), make([]float64, k)
 		for n, i := range idx {
-			sorted[n] = armsByAzimuth(nds[i])
+			sorted[n] = sortedAll[n*k : (n+1)*k : (n+1)*k]
+			armsByAzimuth(sorted[n], nds[i])
 			for s := range k {
 				p.Coords = nodeCoords(p.Coords, nds[i], sorted[n], s)
 			}
@@ -282,9 +282,10 @@ func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, geom.TypeBound, error)
 			for d := range dim {
 				nt.MaxDevDeg = max(nt.MaxDevDeg, (g.Max[d]-g.Min[d])/2)
 			}
+			orders := make([]int, len(g.Parts)*k)
 			for e, n := range g.Parts {
 				i := idx[n]
-				order := make([]int, k)
+				order := orders[e*k : (e+1)*k : (e+1)*k]
 				for j := range k {
 					order[j] = sorted[n][(g.Variants[e]+j)%k]
 				}
