@@ -217,7 +217,7 @@ type item struct {
 
 // filterKeys is the number of keys besides the sweep key whose ranges
 // items and types keep, to tell quickly that two cannot share a type.
-const filterKeys = 3
+const filterKeys = 5
 
 // keyRanges holds the ranges of the filter keys.
 type keyRanges [filterKeys][2]float64
