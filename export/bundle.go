@@ -34,6 +34,10 @@ type Bundle struct {
 	Flats          []panels.Flat // one per face
 	PanelTypes     []panels.Type
 	PanelTypeBound geom.TypeBound
+	// PanelTypeSetOut is each panel type's nominal set-out outline (its
+	// nominal cut outline grown by the edge inset), for the drawings.
+	PanelTypeSetOut []geom.Polygon
+	HubRadiusMM     float64
 
 	Stocks  []nest.Stock
 	Nesting *nest.Result // part i is face i
@@ -44,8 +48,9 @@ type Bundle struct {
 	MemberMaterial    string
 	MemberDensityKgM3 float64
 
-	PanelSpec PanelSpec            // for every panel type
-	TypeSpecs map[string]PanelSpec // overrides for named panel types
+	PanelMaterial panels.Material
+	PanelSpec     PanelSpec            // for every panel type
+	TypeSpecs     map[string]PanelSpec // overrides for named panel types
 
 	Cost *Cost // nil when the job gives no rates
 }

@@ -226,9 +226,9 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 <table>
 <tr><th>Job file</th><td>{{.R.Job}}</td></tr><tr><th>Net file</th><td>{{.R.Net}}</td></tr>
 {{range .R.Settings}}<tr><th>{{.Name}}</th><td>{{.Value}}</td></tr>{{end}}
-<tr><th>Nodes</th><td class="num">{{.R.Counts.Nodes}} in {{.R.Counts.NodeTypes}} types</td></tr>
-<tr><th>Members</th><td class="num">{{.R.Counts.Members}} in {{.R.Counts.MemberTypes}} types</td></tr>
-<tr><th>Panels</th><td class="num">{{.R.Counts.Panels}} in {{.R.Counts.PanelTypes}} types</td></tr>
+<tr><th>Nodes</th><td class="num">{{.R.Counts.Nodes}} in {{.R.Counts.NodeTypes}} types (no grouping can have fewer than {{.R.Counts.NodeTypesBound.Count}})</td></tr>
+<tr><th>Members</th><td class="num">{{.R.Counts.Members}} in {{.R.Counts.MemberTypes}} types (no grouping can have fewer than {{.R.Counts.MemberTypesBound.Count}})</td></tr>
+<tr><th>Panels</th><td class="num">{{.R.Counts.Panels}} in {{.R.Counts.PanelTypes}} types (no grouping can have fewer than {{.R.Counts.PanelTypesBound.Count}})</td></tr>
 <tr><th>Stock sheets</th><td class="num">{{.R.Counts.Sheets}} ({{.R.Counts.Unplaced}} panels unplaced)</td></tr>
 <tr><th>Flatness before / after (max, mm)</th><td class="num">{{.R.Planarity.FlatBeforeMM.Max}} / {{.R.Planarity.FlatAfterMM.Max}} (tolerance {{.R.Planarity.ToleranceMM}})</td></tr>
 <tr><th>Largest / RMS node move (mm)</th><td class="num">{{.R.Planarity.MaxMoveMM}} / {{.R.Planarity.RMSMoveMM}}</td></tr>
@@ -247,11 +247,12 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 <div class="plots">{{range .Plots}}{{.}}{{end}}</div>
 <h2>Types</h2>
 <details><summary>Member types: {{len .R.MemberTypes}} for {{.R.Counts.Members}} members</summary>
-<table><tr><th>Type</th><th>Count</th><th>Cut length (mm)</th></tr>{{range .R.MemberTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
+<p>Every two parts of a type agree within the type tolerances; the values are the nominal part (the middle of the parts' values): what is cut. The deviation is the largest of any part from it.</p>
+<table><tr><th>Type</th><th>Count</th><th>Cut length (mm)</th><th>Blank (mm)</th><th>A mitre / bevel (°)</th><th>B mitre / bevel (°)</th><th>Twist (°)</th><th>Deviation (mm / °)</th><th>Total (m)</th></tr>{{range .R.MemberTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.CutLengthMM}}</td><td class="num">{{.BlankMM}}</td><td class="num">{{(index .Ends 0).MitreDeg}} / {{(index .Ends 0).BevelDeg}}</td><td class="num">{{(index .Ends 1).MitreDeg}} / {{(index .Ends 1).BevelDeg}}</td><td class="num">{{.TwistDeg}}</td><td class="num">{{.MaxDevMM}} / {{.MaxDevDeg}}</td><td class="num">{{.TotalM}}</td></tr>{{end}}</table></details>
 <details><summary>Node types: {{len .R.NodeTypes}} for {{.R.Counts.Nodes}} nodes</summary>
-<table><tr><th>Type</th><th>Count</th><th>Members at node</th></tr>{{range .R.NodeTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
+<table><tr><th>Type</th><th>Count</th><th>Members at node</th><th>Arms (azimuth from arm 1 / elevation, °)</th><th>Deviation (°)</th></tr>{{range .R.NodeTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.MembersAtNode}}</td><td>{{range .Arms}}{{.AzimuthDeg}} / {{.ElevationDeg}}; {{end}}</td><td class="num">{{.MaxDevDeg}}</td></tr>{{end}}</table></details>
 <details><summary>Panel types: {{len .R.PanelTypes}} for {{.R.Counts.Panels}} panels</summary>
-<table><tr><th>Type</th><th>Count</th><th>Area (m²)</th></tr>{{range .R.PanelTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.Size}}</td></tr>{{end}}</table></details>
+<table><tr><th>Type</th><th>Count</th><th>Cut edges (mm)</th><th>Corner angles (°)</th><th>Area (m²)</th><th>Deviation (mm / °)</th><th>Total area (m²)</th></tr>{{range .R.PanelTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{range .EdgesMM}}{{.}} {{end}}</td><td class="num">{{range .AnglesDeg}}{{.}} {{end}}</td><td class="num">{{.AreaM2}}</td><td class="num">{{.MaxDevMM}} / {{.MaxDevDeg}}</td><td class="num">{{.TotalAreaM2}}</td></tr>{{end}}</table></details>
 <h2>Stock sheets</h2>
 <table><tr><th>Stock</th><th>Sheets</th><th>Fewest sheets by area</th><th>Cost</th></tr>{{range .R.Stocks}}<tr><td>{{.Name}}</td><td class="num">{{.Sheets}}</td><td class="num">{{.AreaBound}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
 {{with .R.Unplaced}}<h3>Unplaced panels</h3><ul>{{range .}}<li>{{.Panel}}: {{.Reason}}</li>{{end}}</ul>{{end}}

@@ -9,12 +9,14 @@ import (
 
 // Output file names inside the build folder.
 const (
-	FileSchedule = "schedule.xlsx"
-	FileAssembly = "assembly-plan.dxf"
-	FileNet      = "net-flat.obj"
-	FileReport   = "report.json"
-	FileHTML     = "report.html"
-	DirSheets    = "sheets"
+	FileSchedule   = "schedule.xlsx"
+	FileAssembly   = "assembly-plan.dxf"
+	FileNet        = "net-flat.obj"
+	FileReport     = "report.json"
+	FileHTML       = "report.html"
+	DirSheets      = "sheets"
+	DirPanelTypes  = "panel-types"
+	DirMemberTypes = "member-types"
 )
 
 // Progress is told how many output files are done of how many.
@@ -25,12 +27,12 @@ type Progress func(done, total int, what string)
 // (the DXF drawings one after another, as the DXF library needs).
 func WriteBuild(dir string, opt WriteOptions, b *Bundle, rep *Report, progress Progress) error {
 	return WriteFolder(dir, opt, func(tmp string) error {
-		for _, d := range []string{DirSheets, DirSite} {
+		for _, d := range []string{DirSheets, DirSite, DirPanelTypes, DirMemberTypes} {
 			if err := os.Mkdir(filepath.Join(tmp, d), 0o755); err != nil {
 				return err
 			}
 		}
-		total := 5 + SiteFiles + len(rep.Sheets)
+		total := 5 + SiteFiles + len(rep.Sheets) + len(rep.PanelTypes) + len(rep.MemberTypes)
 		var mu sync.Mutex
 		done := 0
 		step := func(what string) {
@@ -67,6 +69,16 @@ func WriteBuild(dir string, opt WriteOptions, b *Bundle, rep *Report, progress P
 				for i := range rep.Sheets {
 					name := filepath.Join(DirSheets, SheetFile(i, len(rep.Sheets)))
 					if err := file(name, func(w io.Writer) error { return WriteSheetDXF(w, rep, i) })(); err != nil {
+						return err
+					}
+				}
+				for i, t := range rep.PanelTypes {
+					if err := file(filepath.Join(DirPanelTypes, t.Name+".dxf"), func(w io.Writer) error { return WritePanelTypeDXF(w, rep, i) })(); err != nil {
+						return err
+					}
+				}
+				for i, t := range rep.MemberTypes {
+					if err := file(filepath.Join(DirMemberTypes, t.Name+".dxf"), func(w io.Writer) error { return WriteMemberTypeDXF(w, rep, i) })(); err != nil {
 						return err
 					}
 				}

@@ -31,9 +31,9 @@ type Report struct {
 	Nodes       []NodeRow         `json:"nodes"`
 	Members     []MemberRow       `json:"members"`
 	Panels      []PanelRow        `json:"panels"`
-	MemberTypes []TypeRow         `json:"member_types"`
-	NodeTypes   []TypeRow         `json:"node_types"`
-	PanelTypes  []TypeRow         `json:"panel_types"`
+	MemberTypes []MemberTypeRow   `json:"member_types"`
+	NodeTypes   []NodeTypeRow     `json:"node_types"`
+	PanelTypes  []PanelTypeRow    `json:"panel_types"`
 	Section     Section           `json:"member_section_mm"`
 	Sheets      []SheetRow        `json:"sheets"`
 	Unplaced    []UnplacedRow     `json:"unplaced"`
@@ -41,6 +41,7 @@ type Report struct {
 	// Member material, bar stock and the members' cutting plan (empty
 	// without bar stock), panel specification, and the weights.
 	MemberMaterial MemberMaterial `json:"member_material"`
+	PanelMaterial  PanelMaterial  `json:"panel_material"`
 	BarStocks      []BarStockRow  `json:"bar_stocks"`
 	Bars           []BarRow       `json:"bars"`
 	PanelSpec      PanelSpec      `json:"panel_spec"`
@@ -67,6 +68,11 @@ type Counts struct {
 	MemberTypes int `json:"member_types"`
 	NodeTypes   int `json:"node_types"`
 	PanelTypes  int `json:"panel_types"`
+	// Lower bounds on the type counts: no grouping that keeps the
+	// tolerances can have fewer types.
+	MemberTypesBound TypeBoundRow `json:"member_types_lower_bound"`
+	NodeTypesBound   TypeBoundRow `json:"node_types_lower_bound"`
+	PanelTypesBound  TypeBoundRow `json:"panel_types_lower_bound"`
 }
 
 // Planarity sums up the planarization.
@@ -170,6 +176,14 @@ type CutRow struct {
 	BoxMM     [2]float64    `json:"box_mm"`
 }
 
+// PanelMaterial is what the panels are cut from.
+type PanelMaterial struct {
+	Name        string  `json:"name"`
+	ThicknessMM float64 `json:"thickness_mm"`
+	DensityKgM3 float64 `json:"density_kg_m3"`
+	EdgeInsetMM float64 `json:"edge_inset_mm"`
+}
+
 // MemberMaterial is the members' material and density.
 type MemberMaterial struct {
 	Name        string  `json:"name"`
@@ -197,15 +211,6 @@ type DiagonalRow struct {
 	From string  `json:"from"`
 	To   string  `json:"to"`
 	MM   float64 `json:"length_mm"`
-}
-
-// TypeRow is one type of part.
-type TypeRow struct {
-	Name  string     `json:"name"`
-	Count int        `json:"count"`
-	Size  float64    `json:"size"` // cut length (mm), members at node, or area (m²)
-	Parts []string   `json:"parts"`
-	Spec  *PanelSpec `json:"spec,omitempty"` // panel types
 }
 
 // SheetRow is one stock sheet.

@@ -22,7 +22,8 @@ func BuildReport(b *Bundle) *Report {
 	nodeLabel := func(i int) string { return s.Nodes[i].Label }
 	rep.Section = Section{WidthMM: s.Section.WidthMM, DepthMM: s.Section.DepthMM}
 	rep.Counts = Counts{Nodes: len(n.Nodes), Members: len(s.Members), Panels: len(n.Faces),
-		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), PanelTypes: len(b.PanelTypes)}
+		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), PanelTypes: len(b.PanelTypes),
+		MemberTypesBound: boundRow(s.MemberTypeBound), NodeTypesBound: boundRow(s.NodeTypeBound), PanelTypesBound: boundRow(b.PanelTypeBound)}
 	pl := b.Planarize
 	rep.Planarity = Planarity{ToleranceMM: b.TolMM, Converged: pl.Converged, Iterations: pl.Iterations,
 		MaxMoveMM: r(pl.MaxMoveMM, 3), RMSMoveMM: r(pl.RMSMoveMM, 3),
@@ -52,6 +53,8 @@ func BuildReport(b *Bundle) *Report {
 	}
 	rep.MemberMaterial = MemberMaterial{Name: b.MemberMaterial, DensityKgM3: b.MemberDensityKgM3}
 	rep.PanelSpec = b.PanelSpec
+	rep.PanelMaterial = PanelMaterial{Name: b.PanelMaterial.Name, ThicknessMM: b.PanelMaterial.ThicknessMM,
+		DensityKgM3: b.PanelMaterial.DensityKgM3, EdgeInsetMM: b.PanelMaterial.EdgeInsetMM}
 	sheetOf := b.sheetOf()
 	for f, fl := range b.Flats {
 		face := n.Faces[f]
@@ -86,28 +89,7 @@ func BuildReport(b *Bundle) *Report {
 		row.Outline = points(fl.Cut)
 		rep.Panels = append(rep.Panels, row)
 	}
-	for _, t := range s.MemberTypes {
-		row := TypeRow{Name: t.Name, Count: len(t.Parts), Size: r(t.CutLengthMM, lenDigits)}
-		for _, i := range t.Parts {
-			row.Parts = append(row.Parts, s.Members[i].Label)
-		}
-		rep.MemberTypes = append(rep.MemberTypes, row)
-	}
-	for _, t := range s.NodeTypes {
-		row := TypeRow{Name: t.Name, Count: len(t.Parts), Size: float64(t.MembersAtNode)}
-		for _, i := range t.Parts {
-			row.Parts = append(row.Parts, s.Nodes[i].Label)
-		}
-		rep.NodeTypes = append(rep.NodeTypes, row)
-	}
-	for _, t := range b.PanelTypes {
-		spec := b.specOf(t.Name)
-		row := TypeRow{Name: t.Name, Count: len(t.Panels), Size: r(t.AreaM2, areaDigits), Spec: &spec}
-		for _, i := range t.Panels {
-			row.Parts = append(row.Parts, b.Flats[i].Label)
-		}
-		rep.PanelTypes = append(rep.PanelTypes, row)
-	}
+	rep.buildTypes(b)
 	if nr := b.Nesting; nr != nil {
 		for si, sh := range nr.Sheets {
 			st := b.Stocks[sh.Stock]

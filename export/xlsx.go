@@ -16,6 +16,7 @@ const (
 	SheetMembers     = "Members"
 	SheetNodes       = "Nodes"
 	SheetMemberTypes = "Member types"
+	SheetNodeTypes   = "Node types"
 	SheetPanelTypes  = "Panel types"
 	SheetSheets      = "Sheets"
 	SheetBars        = "Bars"
@@ -82,8 +83,9 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				}
 				return nil
 			}},
-		{SheetMemberTypes, []string{"Type", "Count", "Cut length (mm)", "Members"}, typeRows(rep.MemberTypes, SheetMembers)},
-		{SheetPanelTypes, []string{"Type", "Count", "Area (m²)", "Panels"}, typeRows(rep.PanelTypes, SheetPanels)},
+		{SheetMemberTypes, memberTypeHead, memberTypeRows(rep)},
+		{SheetNodeTypes, nodeTypeHead, nodeTypeRows(rep)},
+		{SheetPanelTypes, panelTypeHead(rep), panelTypeRows(rep)},
 		{SheetSheets, []string{"Sheet", "Stock", "Width (mm)", "Height (mm)", "Parts", "Utilization (%)", "Panels"},
 			func(add func(row ...any) error) error {
 				for _, s := range rep.Sheets {
@@ -126,17 +128,6 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 		return err
 	}
 	return writeSortedZip(w, buf.Bytes())
-}
-
-func typeRows(ts []TypeRow, partsSheet string) func(add func(row ...any) error) error {
-	return func(add func(row ...any) error) error {
-		for _, t := range ts {
-			if err := add(t.Name, t.Count, t.Size, partList(t.Parts, partsSheet)); err != nil {
-				return err
-			}
-		}
-		return nil
-	}
 }
 
 // partList joins part labels for one cell; a list too long for a cell is
@@ -254,9 +245,16 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("Nodes", c.Nodes) },
 		func() error { return put("Members", c.Members) },
 		func() error { return put("Panels", c.Panels) },
-		func() error { return put("Member types", c.MemberTypes) },
-		func() error { return put("Node types", c.NodeTypes) },
-		func() error { return put("Panel types", c.PanelTypes) },
+		func() error {
+			return put("Types (count, and fewest possible: a lower bound)", "count", "lower bound", "bound from")
+		},
+		func() error {
+			return put("Member types", c.MemberTypes, c.MemberTypesBound.Count, c.MemberTypesBound.Quantity)
+		},
+		func() error { return put("Node types", c.NodeTypes, c.NodeTypesBound.Count, c.NodeTypesBound.Quantity) },
+		func() error {
+			return put("Panel types", c.PanelTypes, c.PanelTypesBound.Count, c.PanelTypesBound.Quantity)
+		},
 		func() error { return put("Stock sheets", c.Sheets) },
 		func() error { return put("Unplaced panels", c.Unplaced) },
 		func() error { return put("Bars", len(rep.Bars)) },

@@ -45,8 +45,8 @@ func panelsTable(rep *Report) ([]string, func(add func(row ...any) error) error)
 	}
 	head = append(head, "Corner nodes", "Id", "Grain direction (°)", "Flatness before (mm)", "Flatness after (mm)")
 	spec := map[string]*PanelSpec{}
-	for _, t := range rep.PanelTypes {
-		spec[t.Name] = t.Spec
+	for i := range rep.PanelTypes {
+		spec[rep.PanelTypes[i].Name] = &rep.PanelTypes[i].Spec
 	}
 	rows := func(add func(row ...any) error) error {
 		for _, p := range rep.Panels {

@@ -111,6 +111,17 @@ func Members(n *geom.Net, topo *geom.Topology, axes []geom.Vec, opt MemberOption
 	return ms, nil
 }
 
+// SetbackMM returns the setback of a hub cut with the given mitre and
+// bevel at a hub of radius r: r / cos(elevation), where the member's
+// elevation above the hub plane satisfies tan² elevation = tan² mitre +
+// tan² bevel (the cut plane holds the node axis, so its normal in the
+// member frame is the member direction projected across the axis; see the
+// member type coordinates in types.go).
+func SetbackMM(r, mitreDeg, bevelDeg float64) float64 {
+	tm, tb := math.Tan(mitreDeg*math.Pi/180), math.Tan(bevelDeg*math.Pi/180)
+	return r * math.Sqrt(1+tm*tm+tb*tb)
+}
+
 // across returns unit(a − (a·e)e), the axis seen along the member.
 func across(a, e geom.Vec) (geom.Vec, error) {
 	u := r3.Sub(a, r3.Scale(r3.Dot(a, e), e))

@@ -257,3 +257,22 @@ func testOptions(axis AxisMethod, hubMM float64, bays geom.Bays) Options {
 	o.Axis, o.HubRadiusMM, o.Bays = axis, hubMM, bays
 	return o
 }
+
+// TestSetbackFromEndAngles: the setback computed from an end's mitre and
+// bevel alone equals the member's own setback r / cos(elevation) (DESIGN's
+// hub cut), on the least-twist wave where every end has both angles.
+func TestSetbackFromEndAngles(t *testing.T) {
+	n, _ := samples.Make("wave", 300)
+	bays, _ := geom.NewBays(n.Positions(), 6000, 6000)
+	s, err := Build(n, topoOf(t, n), testOptions(AxisLeastTwist, 55, bays))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, m := range s.Members {
+		for _, e := range []End{m.A, m.B} {
+			if got := SetbackMM(55, e.MitreDeg, e.BevelDeg); math.Abs(got-e.SetbackMM) > 1e-9 {
+				t.Fatalf("%s: setback %.12f from the angles, %.12f from the elevation", m.Label, got, e.SetbackMM)
+			}
+		}
+	}
+}

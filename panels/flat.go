@@ -155,6 +155,11 @@ func flatten(pts []geom.Vec) (Flat, error) {
 	return fl, nil
 }
 
+// OutlineNumbers returns a counter-clockwise outline's edge lengths (edge
+// k from corner k to k+1), inner corner angles (degrees) and diagonals
+// between every pair of non-adjacent corners, as Flatten measures panels.
+func OutlineNumbers(p geom.Polygon) (edges, anglesDeg []float64, diags []Diagonal) { return measure(p) }
+
 // measure returns a counter-clockwise outline's edge lengths (edge k runs
 // from corner k to k+1), inner corner angles (degrees) and diagonals
 // between every pair of non-adjacent corners.

@@ -63,6 +63,7 @@ func TestDemoReadBack(t *testing.T) {
 	}
 	readBack(t, "readback_dxf.py", dir)
 	readBack(t, "readback_xlsx.py", dir)
+	readBack(t, "readback_types.py", dir)
 	checkAccounting(t, dir)
 }
 

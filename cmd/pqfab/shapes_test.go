@@ -50,4 +50,5 @@ func TestPanelShapesInSchedule(t *testing.T) {
 		t.Fatalf("read back: %v\n%s", err, b)
 	}
 	readBack(t, "readback_dxf.py", out)
+	readBack(t, "readback_types.py", out)
 }

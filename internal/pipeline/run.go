@@ -38,6 +38,9 @@ type Result struct {
 	Flats          []panels.Flat
 	PanelTypes     []panels.Type
 	PanelTypeBound geom.TypeBound // lower bound on the number of panel types
+	// PanelTypeSetOut is each panel type's nominal set-out outline: its
+	// nominal cut outline grown by the edge inset.
+	PanelTypeSetOut []geom.Polygon
 
 	Stocks  []nest.Stock
 	Nesting *nest.Result
@@ -138,8 +141,16 @@ func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 		return nil, err
 	}
 	names := map[string]bool{}
+	inset := j.Material().EdgeInsetMM
 	for _, t := range res.PanelTypes {
 		names[t.Name] = true
+		out := t.Outline
+		if inset > 0 {
+			if grown, err := panels.Inset(t.Outline, -inset); err == nil {
+				out = grown
+			}
+		}
+		res.PanelTypeSetOut = append(res.PanelTypeSetOut, out)
 	}
 	for i, t := range j.PanelType {
 		if !names[t.Type] {
@@ -200,9 +211,9 @@ func (r *Result) Bundle() *export.Bundle {
 	return &export.Bundle{Title: r.Job.Title, JobFile: r.Job.File, NetFile: r.NetPath, Settings: settings(r.Job), Warnings: r.Warnings,
 		Net: r.Net, Bays: r.Bays, Supports: r.Supports, Planarize: r.Planarize, TolMM: r.Job.Flatness.TolMM,
 		Structure: r.Structure, Flats: r.Flats, PanelTypes: r.PanelTypes, PanelTypeBound: r.PanelTypeBound, Stocks: r.Stocks, Nesting: r.Nesting, Cost: r.Cost,
-		BarStocks: r.BarStocks, Blanks: r.Blanks, BarPlan: r.BarPlan,
+		BarStocks: r.BarStocks, Blanks: r.Blanks, BarPlan: r.BarPlan, HubRadiusMM: r.Job.Nodes.HubRadiusMM, PanelTypeSetOut: r.PanelTypeSetOut,
 		MemberMaterial: r.Job.Member.Material, MemberDensityKgM3: r.Job.Member.DensityKgM3,
-		PanelSpec: spec(r.Job.Panel.PanelSpec), TypeSpecs: typeSpecs(r.Job)}
+		PanelMaterial: r.Job.Material(), PanelSpec: spec(r.Job.Panel.PanelSpec), TypeSpecs: typeSpecs(r.Job)}
 }
 
 // Write writes every output of the result into the folder dir, atomically

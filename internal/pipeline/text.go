@@ -113,9 +113,9 @@ func (s *NestSummary) WriteText(w io.Writer) {
 func WriteBuildText(w io.Writer, dir string, rep *export.Report) {
 	c := rep.Counts
 	fmt.Fprintf(w, "built %s into %s\n", rep.Title, dir)
-	fmt.Fprintf(w, "  nodes    %6d in %d types\n", c.Nodes, c.NodeTypes)
-	fmt.Fprintf(w, "  members  %6d in %d types\n", c.Members, c.MemberTypes)
-	fmt.Fprintf(w, "  panels   %6d in %d types\n", c.Panels, c.PanelTypes)
+	fmt.Fprintf(w, "  nodes    %6d in %d types (no grouping can have fewer than %d)\n", c.Nodes, c.NodeTypes, c.NodeTypesBound.Count)
+	fmt.Fprintf(w, "  members  %6d in %d types (no grouping can have fewer than %d)\n", c.Members, c.MemberTypes, c.MemberTypesBound.Count)
+	fmt.Fprintf(w, "  panels   %6d in %d types (no grouping can have fewer than %d)\n", c.Panels, c.PanelTypes, c.PanelTypesBound.Count)
 	fmt.Fprintf(w, "  flatness before max %.3f mm, after max %.4f mm (tolerance %g mm); largest node move %.2f mm\n",
 		rep.Planarity.FlatBeforeMM.Max, rep.Planarity.FlatAfterMM.Max, rep.Planarity.ToleranceMM, rep.Planarity.MaxMoveMM)
 	fmt.Fprintf(w, "  largest member twist %.3f° (normal axes: %.3f°)\n", rep.Planarity.MaxTwistDeg, rep.Planarity.MaxTwistNormalDeg)

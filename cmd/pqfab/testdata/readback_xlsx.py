@@ -26,7 +26,7 @@ def main(out):
     with open(os.path.join(out, "report.json")) as f:
         rep = json.load(f)
     wb = openpyxl.load_workbook(os.path.join(out, "schedule.xlsx"))
-    want = ["Summary", "Panels", "Members", "Nodes", "Member types", "Panel types", "Sheets", "Bars"]
+    want = ["Summary", "Panels", "Members", "Nodes", "Member types", "Node types", "Panel types", "Sheets", "Bars"]
     if wb.sheetnames != want:
         fail("sheets %s" % wb.sheetnames)
     summary = [r for r in wb["Summary"].iter_rows(values_only=True)]
@@ -72,7 +72,7 @@ def main(out):
     for row, n in list(zip(nodes, rep["nodes"]))[:: max(1, len(nodes) // 25)]:
         if row[0] != n["label"] or row[col["Members at node"]] != n["members_at_node"] or abs(row[col["Z (mm)"]] - n["position_mm"][2]) > 1e-9:
             fail("Nodes: %s differs" % n["label"])
-    for name, key in (("Member types", "member_types"), ("Panel types", "panel_types")):
+    for name, key in (("Member types", "member_types"), ("Node types", "node_types"), ("Panel types", "panel_types")):
         _, data = rows(wb[name])
         if len(data) != len(rep[key]) or sum(r[1] for r in data) != sum(t["count"] for t in rep[key]):
             fail("%s: rows or counts differ" % name)

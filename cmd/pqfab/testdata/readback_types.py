@@ -1,0 +1,118 @@
+"""Read the type drawings back with ezdxf (Debian's python3-ezdxf) and
+check their numbers against report.json, recomputed independently:
+
+- panel-types/PT-*.dxf: the cut outline on layer PQ-PART equals the
+  type's drawing outline in report.json; every "edge k L", "angle k A" and
+  "diagonal i-j D" text on layer PQ-DIM equals the length, inner angle and
+  distance recomputed here from those coordinates (0.01 mm, 0.01°); the
+  corner angles sum to (k-2)*180° (elementary geometry).
+- member-types/MT-*.dxf: the "cut length", "blank length", "end A/B:
+  mitre/bevel/setback" and "twist" texts equal report.json's member type.
+
+Usage: readback_types.py OUTPUT_FOLDER
+"""
+import json
+import math
+import os
+import re
+import sys
+
+import ezdxf
+
+
+def fail(msg):
+    print("FAIL:", msg)
+    sys.exit(1)
+
+
+NUM = r"(-?[0-9]+(?:\.[0-9]+)?)"
+
+
+def texts(doc, layer):
+    out = []
+    for t in doc.modelspace().query('TEXT[layer=="%s"]' % layer):
+        out.append(ezdxf.decode_dxf_unicode(t.dxf.text))
+    return out
+
+
+def panel_types(out, rep):
+    for t in rep["panel_types"]:
+        path = os.path.join(out, "panel-types", t["name"] + ".dxf")
+        doc = ezdxf.readfile(path)
+        if doc.audit().has_errors:
+            fail("%s: audit errors" % path)
+        pts = t["drawing"]["cut_outline_mm"]
+        k = len(pts)
+        polys = doc.modelspace().query('LWPOLYLINE[layer=="PQ-PART"]')
+        if len(polys) != 1:
+            fail("%s: %d cut outlines" % (path, len(polys)))
+        got = [p[:2] for p in polys[0].get_points("xy")]
+        if len(got) != k or any(math.dist(a, b) > 0.01 for a, b in zip(got, pts)):
+            fail("%s: cut outline differs from report.json" % path)
+        dims = texts(doc, "PQ-DIM")
+        edges = {}
+        angles = {}
+        diags = {}
+        for s in dims:
+            m = re.fullmatch(r"edge ([0-9]+) " + NUM, s)
+            if m:
+                edges[int(m.group(1))] = float(m.group(2))
+            m = re.fullmatch(r"angle ([0-9]+) " + NUM + "°", s)
+            if m:
+                angles[int(m.group(1))] = float(m.group(2))
+            m = re.fullmatch(r"diagonal ([0-9]+)-([0-9]+) " + NUM, s)
+            if m:
+                diags[(int(m.group(1)), int(m.group(2)))] = float(m.group(3))
+        if sorted(edges) != list(range(1, k + 1)) or sorted(angles) != list(range(1, k + 1)) or len(diags) != k * (k - 3) // 2:
+            fail("%s: %d edges, %d angles, %d diagonals written for %d corners" % (path, len(edges), len(angles), len(diags), k))
+        for i in range(k):
+            a, b, c = pts[i - 1], pts[i], pts[(i + 1) % k]
+            e = math.dist(b, c)
+            if abs(edges[i + 1] - e) > 0.01:
+                fail("%s: edge %d says %.2f, the outline has %.4f" % (path, i + 1, edges[i + 1], e))
+            u = (a[0] - b[0], a[1] - b[1])
+            v = (c[0] - b[0], c[1] - b[1])
+            ang = math.degrees(math.atan2(v[0] * u[1] - v[1] * u[0], v[0] * u[0] + v[1] * u[1])) % 360
+            if abs(angles[i + 1] - ang) > 0.01:
+                fail("%s: angle %d says %.2f, the outline has %.4f" % (path, i + 1, angles[i + 1], ang))
+        if abs(sum(angles.values()) - (k - 2) * 180) > 0.01 * k:
+            fail("%s: corner angles sum to %.3f" % (path, sum(angles.values())))
+        for (i, j), dv in diags.items():
+            if abs(dv - math.dist(pts[i - 1], pts[j - 1])) > 0.01:
+                fail("%s: diagonal %d-%d differs" % (path, i, j))
+
+
+def member_types(out, rep):
+    for t in rep["member_types"]:
+        path = os.path.join(out, "member-types", t["name"] + ".dxf")
+        doc = ezdxf.readfile(path)
+        if doc.audit().has_errors:
+            fail("%s: audit errors" % path)
+        dims = " | ".join(texts(doc, "PQ-DIM"))
+        want = {
+            r"cut length " + NUM + " mm": t["cut_length_mm"],
+            r"blank length " + NUM + " mm": t["blank_length_mm"],
+            r"twist " + NUM + "°": t["twist_deg"],
+        }
+        for i, end in enumerate("AB"):
+            e = t["ends"][i]
+            want[r"end %s: mitre " % end + NUM + "°"] = e["mitre_deg"]
+            want[r"end %s: bevel " % end + NUM + "°"] = e["bevel_deg"]
+            want[r"end %s: setback " % end + NUM + " mm"] = e["setback_mm"]
+        for pat, v in want.items():
+            m = re.search(pat, dims)
+            if not m or abs(float(m.group(1)) - v) > 0.0051:
+                fail("%s: %s: %r, want %r" % (path, pat, m and m.group(1), v))
+
+
+def main(out):
+    with open(os.path.join(out, "report.json")) as f:
+        rep = json.load(f)
+    panel_types(out, rep)
+    member_types(out, rep)
+    print("%d panel types, %d member types" % (len(rep["panel_types"]), len(rep["member_types"])))
+    print("ok")
+
+
+if __name__ == "__main__":
+    main(sys.argv[1])

@@ -1,0 +1,114 @@
+package export
+
+import (
+	"strconv"
+
+	"pqfab/geom"
+	"pqfab/nodes"
+	"pqfab/nodes/bars"
+	"pqfab/panels"
+)
+
+func boundRow(b geom.TypeBound) TypeBoundRow {
+	return TypeBoundRow{Count: b.Count, Quantity: b.Quantity}
+}
+
+// buildTypes fills the type rows: the nominal part of every type, its
+// deviation, totals and parts.
+func (rep *Report) buildTypes(b *Bundle) {
+	s := b.Structure
+	area := s.Section.WidthMM * s.Section.DepthMM / 1e6 // m²
+	rep.MemberTypes = make([]MemberTypeRow, 0, len(s.MemberTypes))
+	for _, t := range s.MemberTypes {
+		row := MemberTypeRow{Name: t.Name, Count: len(t.Parts), CutLengthMM: r(t.CutLengthMM, lenDigits),
+			TwistDeg: r(t.TwistDeg, angleDigits), MaxDevMM: r(t.MaxDevMM, lenDigits), MaxDevDeg: r(t.MaxDevDeg, angleDigits),
+			TotalM: r(t.TotalCutLengthMM/1000, 3), WeightKg: r(area*t.TotalCutLengthMM/1000*b.MemberDensityKgM3, weightDigits),
+			ReadFromB: []string{}}
+		blank := t.CutLengthMM
+		for k, e := range []struct{ MitreDeg, BevelDeg float64 }{{t.A.MitreDeg, t.A.BevelDeg}, {t.B.MitreDeg, t.B.BevelDeg}} {
+			row.Ends[k] = TypeEndRow{MitreDeg: r(e.MitreDeg, angleDigits), BevelDeg: r(e.BevelDeg, angleDigits),
+				SetbackMM: r(nodes.SetbackMM(b.HubRadiusMM, e.MitreDeg, e.BevelDeg), lenDigits)}
+			blank += bars.EndAllowanceMM(s.Section.WidthMM, s.Section.DepthMM, e.MitreDeg, e.BevelDeg)
+		}
+		row.BlankMM = r(blank, lenDigits)
+		for k, i := range t.Parts {
+			row.Parts = append(row.Parts, s.Members[i].Label)
+			if t.Reversed[k] {
+				row.ReadFromB = append(row.ReadFromB, s.Members[i].Label)
+			}
+		}
+		rep.MemberTypes = append(rep.MemberTypes, row)
+	}
+	rep.NodeTypes = make([]NodeTypeRow, 0, len(s.NodeTypes))
+	for _, t := range s.NodeTypes {
+		row := NodeTypeRow{Name: t.Name, Count: len(t.Parts), MembersAtNode: t.MembersAtNode, MaxDevDeg: r(t.MaxDevDeg, angleDigits)}
+		for _, a := range t.Arms {
+			row.Arms = append(row.Arms, TypeArmRow{AzimuthDeg: r(a.AzimuthDeg, angleDigits), ElevationDeg: r(a.ElevationDeg, angleDigits)})
+		}
+		for _, i := range t.Parts {
+			row.Parts = append(row.Parts, s.Nodes[i].Label)
+		}
+		rep.NodeTypes = append(rep.NodeTypes, row)
+	}
+	rep.PanelTypes = make([]PanelTypeRow, 0, len(b.PanelTypes))
+	for ti, t := range b.PanelTypes {
+		k := len(t.EdgeMM)
+		row := PanelTypeRow{Name: t.Name, Count: len(t.Panels), EdgesMM: round(t.EdgeMM, lenDigits), AnglesDeg: round(t.AngleDeg, angleDigits),
+			AreaM2: r(t.AreaM2, areaDigits), PerimeterMM: r(t.PerimeterMM, lenDigits), MaxDevMM: r(t.MaxDevMM, lenDigits),
+			MaxDevDeg: r(t.MaxDevDeg, angleDigits), TotalAreaM2: r(t.TotalAreaM2, areaDigits), WeightKg: r(t.TotalWeightKg, weightDigits),
+			Spec: b.specOf(t.Name), Diagonals: cornerDiagonals(t.Diagonals), Mirrored: []string{}}
+		row.BevelsDeg = make([][2]float64, k)
+		for e := 0; e < k; e++ {
+			row.BevelsDeg[e] = [2]float64{1e9, -1e9}
+		}
+		for n, f := range t.Panels {
+			fl := b.Flats[f]
+			row.Parts = append(row.Parts, fl.Label)
+			if t.Mirrored[n] {
+				row.Mirrored = append(row.Mirrored, fl.Label)
+			}
+			for e := 0; e < k; e++ {
+				// Type edge e runs from type corner e to e+1: the panel's
+				// edge from corner Corner(n, e) forward, or back.
+				pe := t.Corner(n, e)
+				if t.Mirrored[n] {
+					pe = (pe - 1 + k) % k
+				}
+				bv := fl.BevelDeg[pe]
+				row.BevelsDeg[e] = [2]float64{min(row.BevelsDeg[e][0], bv), max(row.BevelsDeg[e][1], bv)}
+			}
+		}
+		for e := range row.BevelsDeg {
+			row.BevelsDeg[e] = [2]float64{r(row.BevelsDeg[e][0], 2), r(row.BevelsDeg[e][1], 2)}
+		}
+		edges, angles, diags := panels.OutlineNumbers(t.Outline)
+		row.Drawing = PanelDrawingRow{CutMM: pointsTo(t.Outline, drawingDigits), EdgesMM: round(edges, lenDigits), AnglesDeg: round(angles, angleDigits),
+			Diagonals: cornerDiagonals(diags)}
+		if ti < len(b.PanelTypeSetOut) {
+			row.Drawing.SetOutMM = pointsTo(b.PanelTypeSetOut[ti], drawingDigits)
+		}
+		rep.PanelTypes = append(rep.PanelTypes, row)
+	}
+}
+
+// drawingDigits: the type drawings' outlines are given to 0.001 mm, so
+// that lengths measured on them agree with the drawings' texts (0.01 mm).
+const drawingDigits = 3
+
+// pointsTo writes a polygon's corners rounded to d decimals.
+func pointsTo(p geom.Polygon, d int) [][2]float64 {
+	out := make([][2]float64, len(p))
+	for i, v := range p {
+		out[i] = [2]float64{r(v.X, d), r(v.Y, d)}
+	}
+	return out
+}
+
+// cornerDiagonals lists diagonals between corner numbers (from 1).
+func cornerDiagonals(ds []panels.Diagonal) []DiagonalRow {
+	out := make([]DiagonalRow, len(ds))
+	for i, d := range ds {
+		out[i] = DiagonalRow{From: strconv.Itoa(d.I + 1), To: strconv.Itoa(d.J + 1), MM: r(d.MM, lenDigits)}
+	}
+	return out
+}
