@@ -61,14 +61,18 @@ func BuildReport(b *Bundle) *Report {
 		row := PanelRow{Label: fl.Label, ID: face.ID, AreaM2: r(fl.AreaM2, areaDigits), PerimeterMM: r(fl.PerimeterMM, lenDigits),
 			WeightKg: r(fl.WeightKg, weightDigits), FlatnessBeforeMM: r(pl.Before[f], 3), FlatnessMM: r(pl.After[f], 4),
 			Type: b.PanelTypes[fl.Type].Name}
-		for _, c := range face.Corners {
-			row.Corners = append(row.Corners, nodeLabel(c))
+		// The flat's corner i is the face's corner Start+i (corner 1 of
+		// the panel is corner 1 of its type).
+		kc := len(face.Corners)
+		corner := func(i int) string { return nodeLabel(face.Corners[(fl.Start+i)%kc]) }
+		for i := range face.Corners {
+			row.Corners = append(row.Corners, corner(i))
 		}
 		row.Diagonals = []DiagonalRow{}
 		row.Cut = CutRow{EdgesMM: round(fl.CutEdgeMM, lenDigits), AnglesDeg: round(fl.CutAngleDeg, angleDigits), Diagonals: []DiagonalRow{},
 			BoxMM: [2]float64{r(fl.BoxMM[0], lenDigits), r(fl.BoxMM[1], lenDigits)}}
 		for _, d := range fl.CutDiagonals {
-			row.Cut.Diagonals = append(row.Cut.Diagonals, DiagonalRow{From: nodeLabel(face.Corners[d.I]), To: nodeLabel(face.Corners[d.J]), MM: r(d.MM, lenDigits)})
+			row.Cut.Diagonals = append(row.Cut.Diagonals, DiagonalRow{From: corner(d.I), To: corner(d.J), MM: r(d.MM, lenDigits)})
 		}
 		row.GrainDeg = r(fl.GrainDeg, angleDigits)
 		rep.Weights.PanelsKg += fl.WeightKg
@@ -81,7 +85,7 @@ func BuildReport(b *Bundle) *Report {
 			row.AnglesDeg = append(row.AnglesDeg, r(fl.AngleDeg[k], angleDigits))
 		}
 		for _, d := range fl.Diagonals {
-			row.Diagonals = append(row.Diagonals, DiagonalRow{From: nodeLabel(face.Corners[d.I]), To: nodeLabel(face.Corners[d.J]), MM: r(d.MM, lenDigits)})
+			row.Diagonals = append(row.Diagonals, DiagonalRow{From: corner(d.I), To: corner(d.J), MM: r(d.MM, lenDigits)})
 		}
 		if sheetOf[f] >= 0 {
 			row.Sheet = SheetName(sheetOf[f], len(b.Nesting.Sheets))

@@ -132,8 +132,10 @@ func fixed(x float64, d int) string { return string(AppendFixed(nil, x, d)) }
 func partTextHeight(size float64) float64 { return math.Max(10, math.Min(80, size/12)) }
 
 // partMarks draws a ring inside corner 1 and the number of each edge
-// inside its midpoint. A mirrored part's outline runs corner 1, k, k−1, …,
-// so its edges are numbered back to the panel's own.
+// inside its midpoint. Corner 1 of a panel is corner 1 of its type, and a
+// part cut turned over (mirrored) runs corner 1, k, k−1, … of the panel,
+// which is its type's order; so the placed outline's order numbers the
+// edges as the type drawing does, for every part.
 func partMarks(d *drawing.Drawing, p PlacementRow) error {
 	_, _, size := labelSpot(p.Outline)
 	h := 0.5 * partTextHeight(size)
@@ -144,7 +146,7 @@ func partMarks(d *drawing.Drawing, p PlacementRow) error {
 	}
 	for j := 0; j < k; j++ {
 		_, ang, in := edgeSpot(p.Outline, j, 1.2*h)
-		if err := text(d, fmt.Sprint(panelEdge(j, k, p.Mirrored)+1), in[0], in[1], 0, h, ang); err != nil {
+		if err := text(d, fmt.Sprint(j+1), in[0], in[1], 0, h, ang); err != nil {
 			return err
 		}
 	}

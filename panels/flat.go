@@ -15,6 +15,10 @@ import (
 type Flat struct {
 	Face  int
 	Label string
+	// Start is the corner of the net's face that is this flat panel's
+	// corner 1: the flat's corner i is the face's corner (Start + i) mod k.
+	// Flatten starts at the face's first corner; StartAt moves it.
+	Start int
 	Plane geom.Plane
 	// Frame maps the 2D outline back to 3D: origin at the first corner
 	// projected on the plane, X along the first edge, Z the plane normal.
@@ -67,26 +71,11 @@ func Flatten(n *geom.Net, topo *geom.Topology, mat Material, labels []string) ([
 	var pts []geom.Vec
 	for f := range n.Faces {
 		pts = n.FacePoints(pts[:0], f)
-		fl, err := flatten(pts)
+		fl, err := layFlat(n, f, pts, mat)
 		if err != nil {
-			return nil, faceErr(n, f, nil, "%v", err)
+			return nil, err
 		}
-		fl.Face = f
 		fl.Label = labels[f]
-		if mat.EdgeInsetMM > 0 {
-			if fl.Cut, err = Inset(fl.Outline, mat.EdgeInsetMM); err != nil {
-				return nil, faceErr(n, f, ErrInsetTooLarge, "%v", err)
-			}
-		} else {
-			fl.Cut = fl.Outline
-		}
-		fl.CutEdgeMM, fl.CutAngleDeg, fl.CutDiagonals = measure(fl.Cut)
-		long, short, _ := fl.Cut.MinAreaRect()
-		fl.BoxMM = [2]float64{long, short}
-		fl.GrainDeg = mat.Grain.direction(fl)
-		fl.AreaM2 = fl.Cut.Area() / 1e6
-		fl.PerimeterMM = fl.Cut.Perimeter()
-		fl.WeightKg = fl.AreaM2 * mat.ThicknessMM / 1000 * mat.DensityKgM3
 		flats[f] = fl
 	}
 	// Folds and bevels across every edge.
@@ -116,6 +105,67 @@ func Flatten(n *geom.Net, topo *geom.Topology, mat Material, labels []string) ([
 		}
 	}
 	return flats, nil
+}
+
+// layFlat lays the panel with corners pts (face f of n, from its corner
+// 1) flat in material mat: plane, frame, outlines and their numbers.
+func layFlat(n *geom.Net, f int, pts []geom.Vec, mat Material) (Flat, error) {
+	fl, err := flatten(pts)
+	if err != nil {
+		return Flat{}, faceErr(n, f, nil, "%v", err)
+	}
+	fl.Face = f
+	if mat.EdgeInsetMM > 0 {
+		if fl.Cut, err = Inset(fl.Outline, mat.EdgeInsetMM); err != nil {
+			return Flat{}, faceErr(n, f, ErrInsetTooLarge, "%v", err)
+		}
+	} else {
+		fl.Cut = fl.Outline
+	}
+	fl.CutEdgeMM, fl.CutAngleDeg, fl.CutDiagonals = measure(fl.Cut)
+	long, short, _ := fl.Cut.MinAreaRect()
+	fl.BoxMM = [2]float64{long, short}
+	fl.GrainDeg = mat.Grain.direction(fl)
+	fl.AreaM2 = fl.Cut.Area() / 1e6
+	fl.PerimeterMM = fl.Cut.Perimeter()
+	fl.WeightKg = fl.AreaM2 * mat.ThicknessMM / 1000 * mat.DensityKgM3
+	return fl, nil
+}
+
+// StartAt lays flat panel fl (made by Flatten from n with mat) flat again
+// with its corner start as corner 1, so that a panel's corner 1 can be its
+// type's corner 1 on every drawing: the frame, outlines and every per-corner
+// and per-edge number follow (edge i of the result is edge start+i).
+func StartAt(n *geom.Net, mat Material, fl *Flat, start int) error {
+	k := len(fl.Outline)
+	start = ((start % k) + k) % k
+	if start == 0 {
+		return nil
+	}
+	face := n.Faces[fl.Face].Corners
+	pts := make([]geom.Vec, k)
+	for i := range pts {
+		pts[i] = n.Nodes[face[(fl.Start+start+i)%k]].Pos
+	}
+	nf, err := layFlat(n, fl.Face, pts, mat)
+	if err != nil {
+		return err
+	}
+	nf.Label, nf.Type, nf.Start = fl.Label, fl.Type, (fl.Start+start)%k
+	turn := func(xs []float64) []float64 {
+		out := make([]float64, k)
+		for i := range out {
+			out[i] = xs[(start+i)%k]
+		}
+		return out
+	}
+	nf.FoldDeg, nf.BevelDeg = turn(fl.FoldDeg), turn(fl.BevelDeg)
+	nf.Neighbour = make([]int, k)
+	for i := range nf.Neighbour {
+		nf.Neighbour[i] = fl.Neighbour[(start+i)%k]
+	}
+	*fl = nf
+	return nil
 }
 
 // faceErr names panel f of n by file, line and id, wrapping cause (may be

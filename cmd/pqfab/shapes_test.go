@@ -52,3 +52,31 @@ func TestPanelShapesInSchedule(t *testing.T) {
 	readBack(t, "readback_dxf.py", out)
 	readBack(t, "readback_types.py", out)
 }
+
+// TestTurnedOverPanels: with mirrored panels allowed the symmetric canopy
+// has panels cut from their type's shape turned over; the type drawings,
+// the schedule and report.json agree on every panel's corner 1 and edges
+// (readback_types.py, Debian's ezdxf).
+func TestTurnedOverPanels(t *testing.T) {
+	dir := t.TempDir()
+	if _, _, err := runCmd(t, "sample", "canopy", "--panels", "96", "-o", filepath.Join(dir, "c.obj")); err != nil {
+		t.Fatal(err)
+	}
+	job := "[net]\nfile = \"c.obj\"\n[panel]\nmirror = true\nedge_inset_mm = 5\n" + goodStock + "mirror = true\n"
+	if err := os.WriteFile(filepath.Join(dir, "job.toml"), []byte(job), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out := filepath.Join(dir, "out")
+	if _, _, err := runCmd(t, "build", "-q", filepath.Join(dir, "job.toml"), "-o", out); err != nil {
+		t.Fatal(err)
+	}
+	turned := 0
+	for _, pt := range loadReport(t, out).PanelTypes {
+		turned += len(pt.Mirrored)
+	}
+	if turned == 0 {
+		t.Fatal("no panel cut turned over")
+	}
+	readBack(t, "readback_types.py", out)
+	readBack(t, "readback_dxf.py", out)
+}

@@ -140,6 +140,17 @@ func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 	if res.PanelTypes, res.PanelTypeBound, err = panels.Group(res.Flats, j.PanelTypeOptions()); err != nil {
 		return nil, err
 	}
+	// Every panel's corner 1 is its type's corner 1, so that the type
+	// drawing, the cut sheets and the schedule number corners and edges
+	// alike.
+	for _, t := range res.PanelTypes {
+		for n, f := range t.Panels {
+			if err := panels.StartAt(res.Net, j.Material(), &res.Flats[f], t.Start[n]); err != nil {
+				return nil, err
+			}
+			t.Start[n] = 0
+		}
+	}
 	names := map[string]bool{}
 	inset := j.Material().EdgeInsetMM
 	for _, t := range res.PanelTypes {

@@ -82,6 +82,22 @@ def panel_types(out, rep):
                 fail("%s: diagonal %d-%d differs" % (path, i, j))
 
 
+def corners_agree(rep):
+    """Corner 1 of every panel is corner 1 of its type: edge i of a panel
+    (edge i of its type, or for a panel cut turned over edge k-1-i, read
+    the other way) lies within the type's largest deviation of the type's
+    nominal edge."""
+    types = {t["name"]: t for t in rep["panel_types"]}
+    for p in rep["panels"]:
+        t = types[p["type"]]
+        k = len(t["edges_mm"])
+        turned = p["label"] in t["turned_over"]
+        for i in range(k):
+            e = p["cut"]["edges_mm"][(k - 1 - i) % k if turned else i]
+            if abs(e - t["edges_mm"][i]) > t["max_deviation_mm"] + 0.011:
+                fail("%s: edge %d is %.2f, its type %s has %.2f (deviation %.2f): corner 1 differs" % (p["label"], i + 1, e, t["name"], t["edges_mm"][i], t["max_deviation_mm"]))
+
+
 def member_types(out, rep):
     for t in rep["member_types"]:
         path = os.path.join(out, "member-types", t["name"] + ".dxf")
@@ -109,6 +125,7 @@ def main(out):
     with open(os.path.join(out, "report.json")) as f:
         rep = json.load(f)
     panel_types(out, rep)
+    corners_agree(rep)
     member_types(out, rep)
     print("%d panel types, %d member types" % (len(rep["panel_types"]), len(rep["member_types"])))
     print("ok")
