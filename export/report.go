@@ -1,9 +1,6 @@
 package export
 
 import (
-	"encoding/json"
-	"io"
-
 	"pqfab/panels"
 )
 
@@ -247,9 +244,4 @@ type StockRow struct {
 	Sheets    int     `json:"sheets"`
 	AreaBound int     `json:"area_bound"`
 	Cost      float64 `json:"cost"`
-}
-
-// WriteJSON writes report.json, compact (it is for machines).
-func WriteJSON(w io.Writer, rep *Report) error {
-	return json.NewEncoder(w).Encode(rep)
 }
