@@ -75,46 +75,43 @@ func WriteAssemblyDXF(w io.Writer, rep *Report) error {
 	if err != nil {
 		return err
 	}
-	dxfMu.Lock()
-	defer dxfMu.Unlock()
-	d, err := newDrawing([]dxfLayer{{LayerGridText, color.Magenta}, {LayerPlanFrame, color.Grey128},
-		{LayerPlanMember, color.White}, {LayerPlanPanel, color.Grey128}, {LayerPlanBar, color.Cyan},
-		{LayerNodeMark, color.Red}, {LayerNodeLabel, color.Red}, {LayerNodeInfo, color.Red},
-		{LayerMemberLabel, color.Yellow}, {LayerPanelLabel, color.Green}, {LayerLeader, color.Grey128},
-		{Layer3DMember, color.Blue}, {LayerLegend, color.White}, {LayerTitle, color.White}})
-	if err != nil {
-		return err
-	}
-	if _, err := d.AddLayer(LayerGrid, color.Grey128, table.LT_DASHDOT, false); err != nil {
-		return err
-	}
+	layers := []dxfLayer{{LayerGridText, color.Magenta, nil}, {LayerPlanFrame, color.Grey128, nil},
+		{LayerPlanMember, color.White, nil}, {LayerPlanPanel, color.Grey128, nil}, {LayerPlanBar, color.Cyan, nil},
+		{LayerNodeMark, color.Red, nil}, {LayerNodeLabel, color.Red, nil}, {LayerNodeInfo, color.Red, nil},
+		{LayerMemberLabel, color.Yellow, nil}, {LayerPanelLabel, color.Green, nil}, {LayerLeader, color.Grey128, nil},
+		{Layer3DMember, color.Blue, nil}, {LayerLegend, color.White, nil}, {LayerTitle, color.White, nil},
+		{LayerGrid, color.Grey128, table.LT_DASHDOT}}
 	ps := newPlanScale(m.spanMM, rep.Section.WidthMM)
-	// Dash-dot pattern of the grid lines: a dash of about two label heights.
-	d.Header().LtScale = r(4*ps.h, 0)
 	pl := newAssemblyLayout(m, ps)
+	// Dash-dot pattern of the grid lines: a dash of about two label heights.
+	return writeDXF(w, layers, r(4*ps.h, 0), func(d *dxfDoc) error { return drawAssembly(d, rep, m, ps, pl) })
+}
+
+// drawAssembly draws the assembly plan.
+func drawAssembly(d *dxfDoc, rep *Report, m *siteModel, ps planScale, pl *assemblyLayout) error {
 	var steps []func() error
 	add := func(f func() error) { steps = append(steps, f) }
 	layer := func(name string) { add(func() error { return useLayer(d, name) }) }
 	line := func(a, b [3]float64) {
 		add(func() error {
-			_, err := d.Line(r(a[0], dxfDigits), r(a[1], dxfDigits), r(a[2], dxfDigits), r(b[0], dxfDigits), r(b[1], dxfDigits), r(b[2], dxfDigits))
+			_, err := d.Line(a[0], a[1], a[2], b[0], b[1], b[2])
 			return err
 		})
 	}
 	circle := func(x, y, rad float64) {
 		add(func() error {
-			_, err := d.Circle(r(x, dxfDigits), r(y, dxfDigits), 0, r(rad, dxfDigits))
+			_, err := d.Circle(x, y, 0, rad)
 			return err
 		})
 	}
 	txt := func(s string, x, y, h, rot float64) {
-		add(func() error { return text(d, dxfText(s), x, y, 0, r(h, 3), rot) })
+		add(func() error { return text(d, s, x, y, 0, r(h, 3), rot) })
 	}
 	// Left-aligned lines: the insert point is the left end of the
 	// baseline (TEXT's default alignment).
 	txtLeft := func(s string, x, y, h float64) {
 		add(func() error {
-			_, err := d.Text(dxfText(s), r(x, dxfDigits), r(y, dxfDigits), 0, r(h, 3))
+			_, err := d.Text(s, x, y, 0, r(h, 3))
 			return err
 		})
 	}
@@ -203,9 +200,7 @@ func WriteAssemblyDXF(w io.Writer, rep *Report) error {
 			return err
 		}
 	}
-	d.SetExt()
-	_, err = d.WriteTo(w)
-	return err
+	return nil
 }
 
 // lineCentre returns the centre of line k of a placed label: the lines

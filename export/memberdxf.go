@@ -7,7 +7,6 @@ import (
 	"strings"
 
 	"github.com/yofu/dxf/color"
-	"github.com/yofu/dxf/drawing"
 )
 
 // Layers of the type drawings (member and panel types).
@@ -20,8 +19,8 @@ const (
 )
 
 // typeLayers are the layers of every type drawing.
-var typeLayers = []dxfLayer{{LayerPart, color.Red}, {LayerSetOut, color.Grey128}, {LayerBlank, color.Cyan},
-	{LayerDim, color.Yellow}, {LayerNote, color.Green}, {LayerTitle, color.White}}
+var typeLayers = []dxfLayer{{LayerPart, color.Red, nil}, {LayerSetOut, color.Grey128, nil}, {LayerBlank, color.Cyan, nil},
+	{LayerDim, color.Yellow, nil}, {LayerNote, color.Green, nil}, {LayerTitle, color.White, nil}}
 
 // Texts of the member type drawings start with these words, so a reader
 // can find each number (the read-back tests do).
@@ -58,12 +57,11 @@ func endOffset(e TypeEndRow, y, z float64) float64 {
 // bevel and setback, cut and blank lengths, the twist, every member of the
 // type and a title block with the caution.
 func writeMemberDXF(w io.Writer, m memberDrawing) error {
-	dxfMu.Lock()
-	defer dxfMu.Unlock()
-	d, err := newDrawing(typeLayers)
-	if err != nil {
-		return err
-	}
+	return writeDXF(w, typeLayers, 0, func(d *dxfDoc) error { return drawMember(d, m) })
+}
+
+// drawMember draws a member type.
+func drawMember(d *dxfDoc, m memberDrawing) error {
 	L, wd, dp := m.CutLengthMM, m.WidthMM, m.DepthMM
 	a, b := m.Ends[0], m.Ends[1]
 	h := math.Max(12, math.Min(60, L/60)) // text height
@@ -148,9 +146,7 @@ func writeMemberDXF(w io.Writer, m memberDrawing) error {
 			return err
 		}
 	}
-	d.SetExt()
-	_, err = d.WriteTo(w)
-	return err
+	return nil
 }
 
 // endAllowance returns how far a member's blank reaches past an end cut's
@@ -161,14 +157,14 @@ func endAllowance(e TypeEndRow, w, d float64) float64 {
 }
 
 // line draws a line in the drawing's plane.
-func line(d *drawing.Drawing, x0, y0, x1, y1 float64) error {
-	_, err := d.Line(r(x0, dxfDigits), r(y0, dxfDigits), 0, r(x1, dxfDigits), r(y1, dxfDigits), 0)
+func line(d *dxfDoc, x0, y0, x1, y1 float64) error {
+	_, err := d.Line(x0, y0, 0, x1, y1, 0)
 	return err
 }
 
 // dimension draws a dimension line between x0 and x1 at height y, with
 // ticks and the label above its middle.
-func dimension(d *drawing.Drawing, x0, x1, y, h float64, label string) error {
+func dimension(d *dxfDoc, x0, x1, y, h float64, label string) error {
 	if err := line(d, x0, y, x1, y); err != nil {
 		return err
 	}

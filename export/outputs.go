@@ -4,6 +4,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"runtime"
 	"sync"
 )
 
@@ -23,8 +24,8 @@ const (
 type Progress func(done, total int, what string)
 
 // WriteBuild writes every output of a build into dir, atomically and only
-// where opt allows (see WriteFolder). The files are written side by side
-// (the DXF drawings one after another, as the DXF library needs).
+// where opt allows (see WriteFolder). The files are written side by side,
+// as many at a time as there are processors.
 func WriteBuild(dir string, opt WriteOptions, b *Bundle, rep *Report, progress Progress) error {
 	return WriteFolder(dir, opt, func(tmp string) error {
 		for _, d := range []string{DirSheets, DirSite, DirPanelTypes, DirMemberTypes} {
@@ -52,48 +53,45 @@ func WriteBuild(dir string, opt WriteOptions, b *Bundle, rep *Report, progress P
 				return nil
 			}
 		}
+		// Every file is a job; the largest first. Workers, as many as
+		// there are processors, take them in order; each file's bytes
+		// depend only on the report, never on which worker wrote it.
 		jobs := []func() error{
-			file(FileReport, func(w io.Writer) error { return WriteJSON(w, rep) }),
+			file(FileAssembly, func(w io.Writer) error { return WriteAssemblyDXF(w, rep) }),
 			file(FileSchedule, func(w io.Writer) error { return WriteSchedule(w, rep) }),
+			file(FileReport, func(w io.Writer) error { return WriteJSON(w, rep) }),
 			file(FileHTML, func(w io.Writer) error { return WriteHTML(w, rep) }),
+			file(FileView, func(w io.Writer) error { return WriteView(w, rep) }),
 			file(FilePlanPDF, func(w io.Writer) error { return WritePlanPDF(w, rep) }),
 			file(FileTagsPDF, func(w io.Writer) error { return WriteTagsPDF(w, rep) }),
-			file(FileView, func(w io.Writer) error { return WriteView(w, rep) }),
-			func() error {
-				if err := file(FileNet, func(w io.Writer) error { return WriteOBJ(w, b.Net, "pqfab planarized net: "+b.Title, b.Warnings...) })(); err != nil {
-					return err
-				}
-				if err := file(FileAssembly, func(w io.Writer) error { return WriteAssemblyDXF(w, rep) })(); err != nil {
-					return err
-				}
-				for i := range rep.Sheets {
-					name := filepath.Join(DirSheets, SheetFile(i, len(rep.Sheets)))
-					if err := file(name, func(w io.Writer) error { return WriteSheetDXF(w, rep, i) })(); err != nil {
-						return err
-					}
-				}
-				for i, t := range rep.PanelTypes {
-					if err := file(filepath.Join(DirPanelTypes, t.Name+".dxf"), func(w io.Writer) error { return WritePanelTypeDXF(w, rep, i) })(); err != nil {
-						return err
-					}
-				}
-				for i, t := range rep.MemberTypes {
-					if err := file(filepath.Join(DirMemberTypes, t.Name+".dxf"), func(w io.Writer) error { return WriteMemberTypeDXF(w, rep, i) })(); err != nil {
-						return err
-					}
-				}
-				return nil
-			},
+			file(FileNet, func(w io.Writer) error { return WriteOBJ(w, b.Net, "pqfab planarized net: "+b.Title, b.Warnings...) }),
+		}
+		for i := range rep.Sheets {
+			name := filepath.Join(DirSheets, SheetFile(i, len(rep.Sheets)))
+			jobs = append(jobs, file(name, func(w io.Writer) error { return WriteSheetDXF(w, rep, i) }))
+		}
+		for i, t := range rep.PanelTypes {
+			jobs = append(jobs, file(filepath.Join(DirPanelTypes, t.Name+".dxf"), func(w io.Writer) error { return WritePanelTypeDXF(w, rep, i) }))
+		}
+		for i, t := range rep.MemberTypes {
+			jobs = append(jobs, file(filepath.Join(DirMemberTypes, t.Name+".dxf"), func(w io.Writer) error { return WriteMemberTypeDXF(w, rep, i) }))
 		}
 		errs := make([]error, len(jobs))
+		next := make(chan int)
 		var wg sync.WaitGroup
-		for i, j := range jobs {
+		for range max(1, runtime.GOMAXPROCS(0)) {
 			wg.Add(1)
 			go func() {
 				defer wg.Done()
-				errs[i] = j()
+				for i := range next {
+					errs[i] = jobs[i]()
+				}
 			}()
 		}
+		for i := range jobs {
+			next <- i
+		}
+		close(next)
 		wg.Wait()
 		for _, err := range errs {
 			if err != nil {

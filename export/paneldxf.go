@@ -43,12 +43,11 @@ type panelDrawing struct {
 // and each edge's number, and each edge's bevel; notes with the
 // specification and the parts; a title block with the caution.
 func writePanelDXF(w io.Writer, p panelDrawing) error {
-	dxfMu.Lock()
-	defer dxfMu.Unlock()
-	d, err := newDrawing(typeLayers)
-	if err != nil {
-		return err
-	}
+	return writeDXF(w, typeLayers, 0, func(d *dxfDoc) error { return drawPanel(d, p) })
+}
+
+// drawPanel draws a panel type.
+func drawPanel(d *dxfDoc, p panelDrawing) error {
 	_, _, size := labelSpot(p.Cut)
 	h := math.Max(12, math.Min(50, size/40))
 	k := len(p.Cut)
@@ -105,7 +104,7 @@ func writePanelDXF(w io.Writer, p panelDrawing) error {
 	}
 	add(func() error {
 		c := inward(p.Cut, 0, 2.5*h)
-		if _, err := d.Circle(r(c[0], dxfDigits), r(c[1], dxfDigits), 0, r(0.8*h, dxfDigits)); err != nil {
+		if _, err := d.Circle(c[0], c[1], 0, 0.8*h); err != nil {
 			return err
 		}
 		return text(d, "1", c[0], c[1], 0, 0.8*h, 0)
@@ -142,9 +141,7 @@ func writePanelDXF(w io.Writer, p panelDrawing) error {
 			return err
 		}
 	}
-	d.SetExt()
-	_, err = d.WriteTo(w)
-	return err
+	return nil
 }
 
 // bounds returns the lower-left and upper-right corners of points.

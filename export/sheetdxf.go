@@ -6,7 +6,6 @@ import (
 	"math"
 
 	"github.com/yofu/dxf/color"
-	"github.com/yofu/dxf/drawing"
 )
 
 // Layers of the cut sheets: one concept each, colour by layer.
@@ -32,15 +31,15 @@ const (
 // It is safe to call from several goroutines: drawings are built one at a
 // time (the DXF library keeps package-level state).
 func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
-	dxfMu.Lock()
-	defer dxfMu.Unlock()
+	layers := []dxfLayer{{LayerSheetEdge, color.Grey128, nil}, {LayerSheetMargin, color.Cyan, nil},
+		{LayerCut, color.Red, nil}, {LayerEngrave, color.Green, nil}, {LayerPartMark, color.Magenta, nil}, {LayerBevel, color.Yellow, nil},
+		{LayerGrain, color.Blue, nil}, {LayerTitle, color.White, nil}}
+	return writeDXF(w, layers, 0, func(d *dxfDoc) error { return drawSheet(d, rep, sheet) })
+}
+
+// drawSheet draws cut sheet number sheet.
+func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 	s := rep.Sheets[sheet]
-	d, err := newDrawing([]dxfLayer{{LayerSheetEdge, color.Grey128}, {LayerSheetMargin, color.Cyan},
-		{LayerCut, color.Red}, {LayerEngrave, color.Green}, {LayerPartMark, color.Magenta}, {LayerBevel, color.Yellow},
-		{LayerGrain, color.Blue}, {LayerTitle, color.White}})
-	if err != nil {
-		return err
-	}
 	panel := rep.panelRows()
 	grain := s.Rotation == "grain"
 	m := s.MarginMM
@@ -120,9 +119,7 @@ func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
 			return err
 		}
 	}
-	d.SetExt()
-	_, err = d.WriteTo(w)
-	return err
+	return nil
 }
 
 // fixed formats x with d decimals, never as a negative zero.
@@ -136,12 +133,12 @@ func partTextHeight(size float64) float64 { return math.Max(10, math.Min(80, siz
 // part cut turned over (mirrored) runs corner 1, k, k−1, … of the panel,
 // which is its type's order; so the placed outline's order numbers the
 // edges as the type drawing does, for every part.
-func partMarks(d *drawing.Drawing, p PlacementRow) error {
+func partMarks(d *dxfDoc, p PlacementRow) error {
 	_, _, size := labelSpot(p.Outline)
 	h := 0.5 * partTextHeight(size)
 	k := len(p.Outline)
 	c := inward(p.Outline, 0, 1.6*h)
-	if _, err := d.Circle(r(c[0], dxfDigits), r(c[1], dxfDigits), 0, r(0.6*h, dxfDigits)); err != nil {
+	if _, err := d.Circle(c[0], c[1], 0, 0.6*h); err != nil {
 		return err
 	}
 	for j := 0; j < k; j++ {
@@ -154,7 +151,7 @@ func partMarks(d *drawing.Drawing, p PlacementRow) error {
 }
 
 // bevelTexts writes each edge's bevel along it, inside the edge number.
-func bevelTexts(d *drawing.Drawing, p PlacementRow, panel PanelRow) error {
+func bevelTexts(d *dxfDoc, p PlacementRow, panel PanelRow) error {
 	_, _, size := labelSpot(p.Outline)
 	h := 0.4 * partTextHeight(size)
 	k := len(p.Outline)
@@ -226,15 +223,15 @@ func unit2(x, y float64) [2]float64 {
 
 // arrow draws a line from (x0, y0) to (x1, y1) with a head of size h at
 // its end.
-func arrow(d *drawing.Drawing, x0, y0, x1, y1, h float64) error {
-	if _, err := d.Line(r(x0, dxfDigits), r(y0, dxfDigits), 0, r(x1, dxfDigits), r(y1, dxfDigits), 0); err != nil {
+func arrow(d *dxfDoc, x0, y0, x1, y1, h float64) error {
+	if _, err := d.Line(x0, y0, 0, x1, y1, 0); err != nil {
 		return err
 	}
 	u := unit2(x1-x0, y1-y0)
 	for _, side := range []float64{1, -1} {
 		hx := x1 - h*u[0] - side*0.5*h*u[1]
 		hy := y1 - h*u[1] + side*0.5*h*u[0]
-		if _, err := d.Line(r(x1, dxfDigits), r(y1, dxfDigits), 0, r(hx, dxfDigits), r(hy, dxfDigits), 0); err != nil {
+		if _, err := d.Line(x1, y1, 0, hx, hy, 0); err != nil {
 			return err
 		}
 	}
