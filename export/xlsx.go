@@ -1,7 +1,9 @@
 package export
 
 import (
+	"archive/zip"
 	"bytes"
+	"compress/flate"
 	"fmt"
 	"io"
 	"strings"
@@ -28,6 +30,14 @@ const (
 // are streamed, so big nets need little memory.
 func WriteSchedule(w io.Writer, rep *Report) (err error) {
 	f := excelize.NewFile()
+	// The fastest deflate level: a schedule of a large net is mostly
+	// numbers, and compressing it harder costs more time than it saves
+	// space. Output stays the same for the same input.
+	f.SetZipWriter(func(w io.Writer) excelize.ZipWriter {
+		zw := zip.NewWriter(w)
+		zw.RegisterCompressor(zip.Deflate, func(out io.Writer) (io.WriteCloser, error) { return flate.NewWriter(out, flate.BestSpeed) })
+		return zw
+	})
 	defer func() {
 		if cerr := f.Close(); err == nil {
 			err = cerr
