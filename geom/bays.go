@@ -26,7 +26,7 @@ type Bays struct {
 // of the points' plan bounding box, rounded down to LabelResolutionMM.
 func NewBays(pts []Vec, sizeX, sizeY float64) (Bays, error) {
 	if !(sizeX > 0) || !(sizeY > 0) || math.IsInf(sizeX, 0) || math.IsInf(sizeY, 0) {
-		return Bays{}, fmt.Errorf("geom: bay size %g × %g mm must be positive", sizeX, sizeY)
+		return Bays{}, fmt.Errorf("bay size %g × %g mm must be positive", sizeX, sizeY)
 	}
 	lo := Vec2{math.Inf(1), math.Inf(1)}
 	for _, p := range pts {

@@ -48,10 +48,10 @@ func Describe(name string) string { return catalogue[name].desc }
 func Make(name string, panels int) (*geom.Net, error) {
 	c, ok := catalogue[name]
 	if !ok {
-		return nil, fmt.Errorf("samples: unknown sample %q (have %v)", name, Names())
+		return nil, fmt.Errorf("unknown sample %q (have %v)", name, Names())
 	}
 	if panels < MinPanels || panels > MaxPanels {
-		return nil, fmt.Errorf("samples: %d panels is outside %d to %d", panels, MinPanels, MaxPanels)
+		return nil, fmt.Errorf("%d panels is outside %d to %d", panels, MinPanels, MaxPanels)
 	}
 	return c.gen(panels), nil
 }
