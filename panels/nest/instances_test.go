@@ -153,3 +153,49 @@ var glassSheets = []Stock{
 	{Name: "jumbo", WidthMM: 6000, HeightMM: 3210, Rotation: Free},
 	{Name: "split", WidthMM: 3210, HeightMM: 2250, Rotation: Free},
 }
+
+// loadOptBins returns the parts of each bin of the published optimum, each
+// moved to start at its lowest corner (placement undone).
+func loadOptBins(tb testing.TB, name string) [][]Part {
+	tb.Helper()
+	path := filepath.Join("testdata", "convex-bins", "OpT"+name+".txt")
+	b, err := os.ReadFile(path)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	var rows [][]float64
+	for _, line := range strings.Split(string(b), "\n") {
+		var row []float64
+		for _, w := range strings.Fields(line) {
+			v, err := strconv.ParseFloat(w, 64)
+			if err != nil {
+				tb.Fatalf("%s: %v", path, err)
+			}
+			row = append(row, v)
+		}
+		if len(row) > 0 {
+			rows = append(rows, row)
+		}
+	}
+	nb := int(rows[0][0])
+	var out [][]Part
+	k := 2
+	for b := 0; b < nb; b++ {
+		var bin []Part
+		for i := 0; i < int(rows[0][1+b]); i++ {
+			r := rows[k]
+			k++
+			var p geom.Polygon
+			for j := 0; j < int(r[0]); j++ {
+				p = append(p, geom.Vec2{X: r[1+2*j], Y: r[2+2*j]})
+			}
+			if !p.CCW() {
+				p = p.Reversed()
+			}
+			lo, _ := p.Bounds()
+			bin = append(bin, Part{Label: fmt.Sprintf("%s-b%d-%d", name, b+1, i+1), Outline: p.Translate(geom.Vec2{X: -lo.X, Y: -lo.Y})})
+		}
+		out = append(out, bin)
+	}
+	return out
+}

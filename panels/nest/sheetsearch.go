@@ -1,0 +1,215 @@
+package nest
+
+import (
+	"cmp"
+	"math"
+	"os"
+	"slices"
+)
+
+// sheetSearch fills one sheet with the free-piece packer by a tree search
+// over moves. At each step it takes one free piece that some part still
+// fits (the one whose best move scores highest) and tries the best few
+// moves into it, each with its best orders of cuts, least waste first, and
+// last leaving the piece empty.
+//
+// As in the bin-oriented heuristic of Djang and Finch (1998), which
+// López-Camacho, Ochoa, Terashima-Marín and Burke (2013) carried over to
+// irregular pieces, the search first asks for a sheet with no waste and
+// allows more waste step by step: a branch is cut when the area placed
+// plus the room left in pieces some part fits falls short of the target.
+// Within a step the tree is searched by limited discrepancy (Harvey and
+// Ginsberg 1995): first the path of best moves, then the paths that leave
+// it once, twice, and so on, so that early choices are revised as often
+// as late ones. The search keeps the sheet with the most part area and
+// stops after a fixed number of steps, so its result depends on nothing
+// but the input.
+type sheetSearch struct {
+	g         *gPacker
+	budget    int // expansions left
+	visits    int // visits left (revisits are cheap but not free)
+	branch    int // moves tried per step
+	look      int // moves looked at per step
+	orders    int // cut orders tried per move
+	best      *gState
+	target    float64 // least area a branch must be able to reach
+	leftArea  float64 // area of the parts left
+	exhausted bool    // no branch was cut by the discrepancy limit
+}
+
+// wasteSteps are the shares of the sheet (or of the parts left, when they
+// do not fill it) that the search allows to go unused, one after another.
+var wasteSteps = []float64{0, 0.02, 0.05, 0.1, 0.2, 1}
+
+// maxDiscrepancy bounds the discrepancies of the search.
+const maxDiscrepancy = 60
+
+// visitsPerStep: the search may revisit this many nodes per expansion of
+// its budget.
+const visitsPerStep = 50
+
+// gKid is a branch of a search node: the state after a move of a part of
+// shape (or after leaving the piece empty, shape −1).
+type gKid struct {
+	st    *gState
+	shape int
+}
+
+func (g *gPacker) fillSheet(budget, branch, look, orders int) *gState {
+	s := &sheetSearch{g: g, branch: branch, look: look, orders: orders, visits: visitsPerStep * budget}
+	for si, sh := range g.shapes {
+		if !g.convex || sh.convex {
+			s.leftArea += float64(g.left[si]) * sh.area
+		}
+	}
+	full := math.Min(g.usable, s.leftArea)
+	root := g.emptySheet()
+	s.best = root
+	for i, w := range wasteSteps {
+		s.target = full * (1 - w)
+		if s.reached() {
+			break
+		}
+		// Each step gets an equal share of what is left; the last gets the rest.
+		s.budget = budget / (len(wasteSteps) - i)
+		budget -= s.budget
+		for d := 0; s.budget > 0 && s.visits > 0 && !s.reached() && d <= maxDiscrepancy; d++ {
+			s.exhausted = true
+			s.dfs(root, d)
+			if s.exhausted {
+				break
+			}
+		}
+		budget += s.budget
+	}
+	return s.best
+}
+
+func (s *sheetSearch) reached() bool { return s.best.area >= s.target*(1-1e-12) }
+
+// minArea returns the area of the smallest shape with parts left.
+func (g *gPacker) minArea() float64 {
+	m := math.Inf(1)
+	for si, sh := range g.shapes {
+		if g.left[si] > 0 && sh.area < m {
+			m = sh.area
+		}
+	}
+	return m
+}
+
+// firstMove returns the best move into pc of a shape with parts left.
+func (s *sheetSearch) firstMove(pc *freePiece) (gMove, bool) {
+	for _, m := range pc.moves {
+		if s.g.left[m.shape] > 0 {
+			return m, true
+		}
+	}
+	return gMove{}, false
+}
+
+func (s *sheetSearch) dfs(st *gState, disc int) {
+	if st.area > s.best.area {
+		s.best = st
+	}
+	if s.reached() || s.visits <= 0 {
+		return
+	}
+	s.visits--
+	if !st.expanded {
+		if s.budget <= 0 {
+			s.exhausted = false
+			return
+		}
+		s.budget--
+		s.expand(st)
+	}
+	if st.area+math.Min(st.room, s.leftArea) < s.target*(1-1e-12) {
+		return
+	}
+	for i, k := range st.kids {
+		if i > disc {
+			s.exhausted = false
+			return
+		}
+		if k.shape >= 0 {
+			s.g.left[k.shape]--
+			s.leftArea -= s.g.shapes[k.shape].area
+		}
+		s.dfs(k.st, disc-i)
+		if k.shape >= 0 {
+			s.g.left[k.shape]++
+			s.leftArea += s.g.shapes[k.shape].area
+		}
+		if s.reached() || s.visits <= 0 {
+			return
+		}
+	}
+}
+
+// expand works out the branches of a node.
+func (s *sheetSearch) expand(st *gState) {
+	st.expanded = true
+	pick := -1
+	var pickScore float64
+	pickN := 0
+	for i := range st.pieces {
+		pc := &st.pieces[i]
+		m, ok := s.firstMove(pc)
+		if !ok {
+			continue
+		}
+		st.room += pc.area
+		n := 0
+		if os.Getenv("PICK") == "2" {
+			for _, mm := range pc.moves {
+				if s.g.left[mm.shape] > 0 {
+					n++
+				}
+			}
+		}
+		if pick < 0 || n < pickN || (n == pickN && (m.score > pickScore || (m.score == pickScore && pc.area > st.pieces[pick].area))) {
+			pick, pickScore, pickN = i, m.score, n
+		}
+	}
+	if pick < 0 {
+		return
+	}
+	pc := &st.pieces[pick]
+	// The best few moves by score, each with its best orders of cuts,
+	// tried least waste first.
+	type branch struct {
+		m    gMove
+		plan cutPlan
+	}
+	var bs []branch
+	looked := 0
+	for _, m := range pc.moves {
+		if s.g.left[m.shape] == 0 {
+			continue
+		}
+		if looked >= s.look {
+			break
+		}
+		looked++
+		s.g.left[m.shape]--
+		minArea := s.g.minArea()
+		s.g.left[m.shape]++
+		for _, p := range s.g.cutOrders(pc, m, needCuts(pc, m), minArea, s.orders) {
+			bs = append(bs, branch{m, p})
+		}
+	}
+	slices.SortStableFunc(bs, func(a, b branch) int { return cmp.Compare(a.plan.waste, b.plan.waste) })
+	if len(bs) > s.branch {
+		bs = bs[:s.branch]
+	}
+	for _, b := range bs {
+		s.g.left[b.m.shape]--
+		st.kids = append(st.kids, gKid{s.g.child(st, pick, b.m, b.plan.order, s.g.minArea()), b.m.shape})
+		s.g.left[b.m.shape]++
+	}
+	// Leave the piece empty.
+	c := &gState{placed: st.placed, cuts: st.cuts, area: st.area}
+	c.pieces = append(append(make([]freePiece, 0, len(st.pieces)-1), st.pieces[:pick]...), st.pieces[pick+1:]...)
+	st.kids = append(st.kids, gKid{c, -1})
+}
