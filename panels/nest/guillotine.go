@@ -12,61 +12,139 @@ import (
 // The free-piece packer builds layouts whose parts are all released by
 // edge-to-edge cuts: it puts one part at a time into a convex piece of
 // the sheet, flush with the piece's edges, and cuts it free along its own
-// edges; each cut runs across the whole piece it splits and leaves convex
-// pieces for the next parts. This is the one-stage approach of Han,
-// Bennell, Zhao and Song, "Construction heuristics for two-dimensional
-// irregular shape bin packing with guillotine constraints", European
-// Journal of Operational Research 230(3), 2013, with our own scores and
-// search (see sheetsearch.go).
+// edges (cuts.go); each cut runs across the whole piece it splits and
+// leaves convex pieces for the next parts. This is the one-stage approach
+// of Han, Bennell, Zhao and Song, "Construction heuristics for
+// two-dimensional irregular shape bin packing with guillotine
+// constraints", European Journal of Operational Research 230(3), 2013,
+// with our own move scores and search (sheetsearch.go). Parts that are not
+// convex are placed by their hulls.
 
-// gOrient is a part shape's hull turned (and maybe mirrored), with the
-// shape's origin at the origin.
-type gOrient struct {
-	deg    float64
+// gMove puts a part of a shape into a free piece: the shape's hull,
+// mirrored if mirror, turned by the angle whose cosine and sine are c and
+// s, its origin at t.
+type gMove struct {
+	shape  int
 	mirror bool
+	c, s   float64
+	t      geom.Vec2
+	score  float64
+}
+
+// deg returns the move's turn in degrees, in [0, 360).
+func (m gMove) deg() float64 {
+	return normDeg(math.Atan2(m.s, m.c) * 180 / math.Pi)
+}
+
+// turned is a shape's hull turned, with its edges and bounds.
+type turned struct {
 	poly   geom.Polygon
 	e      []edge
 	lo, hi geom.Vec2
 }
 
-type orientKey struct {
-	deg    float64
-	mirror bool
-}
-
-// gMove puts a part of a shape into a free piece: the shape's hull turned
-// by o, its origin at t.
-type gMove struct {
-	shape int
-	o     *gOrient
-	t     geom.Vec2
-	score float64
+// turnInto sets dst to hull h (with edges he) turned by (c, s), reusing
+// dst's memory.
+func turnInto(dst *turned, h geom.Polygon, he []edge, c, s float64) {
+	rot := func(v geom.Vec2) geom.Vec2 { return geom.Vec2{X: c*v.X - s*v.Y, Y: s*v.X + c*v.Y} }
+	dst.poly = dst.poly[:0]
+	dst.lo = geom.Vec2{X: math.Inf(1), Y: math.Inf(1)}
+	dst.hi = geom.Vec2{X: math.Inf(-1), Y: math.Inf(-1)}
+	for _, v := range h {
+		w := rot(v)
+		dst.poly = append(dst.poly, w)
+		dst.lo.X, dst.lo.Y = min(dst.lo.X, w.X), min(dst.lo.Y, w.Y)
+		dst.hi.X, dst.hi.Y = max(dst.hi.X, w.X), max(dst.hi.Y, w.Y)
+	}
+	dst.e = dst.e[:0]
+	for _, e := range he {
+		d := rot(e.d)
+		dst.e = append(dst.e, edge{a: rot(e.a), d: d, n: d.Perp(), l: e.l, h: e.h})
+	}
 }
 
 // gWeights weigh the terms of a move's score.
 type gWeights struct {
-	fit  float64 // share of the part's perimeter on the piece's edges
+	fit  float64 // share of the part's hull perimeter on the piece's edges
 	fill float64 // part area / piece area
 	size float64 // part area / usable sheet area
 }
 
 // gPacker places the parts of the shapes on sheets of one stock.
 type gPacker struct {
-	stock        Stock
-	shapes       []*shape
-	left         []int // parts of each shape still to place
-	w            gWeights
-	usable       float64
-	orients      []map[orientKey]*gOrient
-	hullE        [][2][]edge       // per shape, edges of the hull (plain, mirrored)
-	edgeTurns    [][2][][]*gOrient // per shape, mirror and hull edge: the orientations used
-	extra        [][]float64       // per shape, extra turns that let it fit the empty sheet
-	mirrors      []bool
-	convex       bool // only convex shapes may be placed (edge-to-edge cuts)
-	fit          fitter
-	cache        map[uint64][]movesEntry
-	hits, misses int
+	stock   Stock
+	shapes  []*shape
+	left    []int // parts of each shape still to place (shared with other stocks' packers)
+	w       gWeights
+	usable  float64
+	hulls   [][2]geom.Polygon // per shape, the hull plain and mirrored
+	hullE   [][2][]edge       // and their edges
+	extra   [][]float64       // per shape, extra turns that let it fit the empty sheet
+	mirrors []bool
+	convex  bool  // only convex shapes may be placed (edge-to-edge cuts)
+	window  []int // the shapes looked at
+	fit     fitter
+	tmp     turned
+	cache   map[uint64][]movesEntry
 }
+
+func newGPacker(st Stock, shapes []*shape, w gWeights, convexOnly bool) *gPacker {
+	g := &gPacker{stock: st, shapes: shapes, w: w, convex: convexOnly, usable: st.usableArea()}
+	g.left = make([]int, len(shapes))
+	g.cache = map[uint64][]movesEntry{}
+	g.hulls = make([][2]geom.Polygon, len(shapes))
+	g.hullE = make([][2][]edge, len(shapes))
+	g.extra = make([][]float64, len(shapes))
+	g.mirrors = []bool{false}
+	if st.Mirror {
+		g.mirrors = append(g.mirrors, true)
+	}
+	for i, s := range shapes {
+		g.left[i] = len(s.parts)
+		g.hulls[i][0] = s.hull
+		g.hulls[i][1] = orient(s.hull, true, 0, geom.Vec2{})
+		for mi := range 2 {
+			g.hullE[i][mi] = edgesOf(g.hulls[i][mi])
+		}
+	}
+	return g
+}
+
+// placed returns the hull of the part a move places, where it lies.
+func (g *gPacker) placed(m gMove) *turned {
+	mi := 0
+	if m.mirror {
+		mi = 1
+	}
+	tr := &turned{}
+	turnInto(tr, g.hulls[m.shape][mi], g.hullE[m.shape][mi], m.c, m.s)
+	for i := range tr.poly {
+		tr.poly[i] = tr.poly[i].Add(m.t)
+	}
+	for i := range tr.e {
+		tr.e[i].a = tr.e[i].a.Add(m.t)
+	}
+	tr.lo, tr.hi = tr.lo.Add(m.t), tr.hi.Add(m.t)
+	return tr
+}
+
+// normDeg brings a turn into [0, 360), whole quarter turns within 1e-9°
+// exactly.
+func normDeg(a float64) float64 {
+	a = math.Mod(a, 360)
+	if a < 0 {
+		a += 360
+	}
+	for _, q := range []float64{0, 90, 180, 270, 360} {
+		if math.Abs(a-q) < 1e-9 {
+			return math.Mod(q, 360)
+		}
+	}
+	return a
+}
+
+// fixedTurns are the turns of the stocks that allow only some.
+var fixedTurns = map[Rotation][]float64{Grain: {0, 180}, Quarter: {0, 90, 180, 270}}
 
 // movesEntry is the moves into a piece of a given usable area, kept
 // because the same piece comes up again in other branches of the search
@@ -77,7 +155,7 @@ type movesEntry struct {
 }
 
 // maxCached bounds the pieces whose moves are kept.
-const maxCached = 1 << 16
+const maxCached = 1 << 15
 
 // cachedMoves is movesInto, looked up first among pieces of the same
 // usable area met before. A move's score does not depend on the parts
@@ -95,11 +173,9 @@ func (g *gPacker) cachedMoves(pc *freePiece) []gMove {
 	key := h.Sum64()
 	for _, e := range g.cache[key] {
 		if slices.Equal(e.use, pc.use) {
-			g.hits++
 			return e.moves
 		}
 	}
-	g.misses++
 	m := g.movesInto(pc)
 	if len(g.cache) >= maxCached {
 		clear(g.cache)
@@ -108,96 +184,40 @@ func (g *gPacker) cachedMoves(pc *freePiece) []gMove {
 	return m
 }
 
-func newGPacker(st Stock, shapes []*shape, w gWeights, convexOnly bool) *gPacker {
-	g := &gPacker{stock: st, shapes: shapes, w: w, convex: convexOnly,
-		usable: (st.WidthMM - 2*st.MarginMM) * (st.HeightMM - 2*st.MarginMM)}
-	g.left = make([]int, len(shapes))
-	g.cache = map[uint64][]movesEntry{}
-	g.orients = make([]map[orientKey]*gOrient, len(shapes))
-	g.hullE = make([][2][]edge, len(shapes))
-	g.edgeTurns = make([][2][][]*gOrient, len(shapes))
-	g.extra = make([][]float64, len(shapes))
-	g.mirrors = []bool{false}
-	if st.Mirror {
-		g.mirrors = append(g.mirrors, true)
-	}
-	for i, s := range shapes {
-		g.left[i] = len(s.parts)
-		g.orients[i] = map[orientKey]*gOrient{}
-		for mi, m := range []bool{false, true} {
-			h := s.hull
-			if m {
-				h = orient(h, true, 0, geom.Vec2{})
-			}
-			g.hullE[i][mi] = edgesOf(h)
-			g.edgeTurns[i][mi] = make([][]*gOrient, len(g.hullE[i][mi]))
+// setWindow picks the shapes the packer looks at for the next sheet: all
+// of them, or for more than allShapes the first pieceWindow with parts
+// left. The
+// moves kept for pieces are dropped when the window changes.
+func (g *gPacker) setWindow() {
+	var w []int
+	for si := range g.shapes {
+		if len(g.shapes) <= allShapes || g.left[si] > 0 {
+			w = append(w, si)
+		}
+		if len(g.shapes) > allShapes && len(w) == pieceWindow {
+			break
 		}
 	}
-	return g
+	if !slices.Equal(w, g.window) {
+		clear(g.cache)
+		g.window = w
+	}
 }
 
-// orientation returns shape si's hull turned by deg (cached).
-func (g *gPacker) orientation(si int, deg float64, mirror bool) *gOrient {
-	k := orientKey{deg, mirror}
-	if o, ok := g.orients[si][k]; ok {
-		return o
-	}
-	p := orient(g.shapes[si].hull, mirror, deg, geom.Vec2{})
-	lo, hi := p.Bounds()
-	o := &gOrient{deg: deg, mirror: mirror, poly: p, e: edgesOf(p), lo: lo, hi: hi}
-	g.orients[si][k] = o
-	return o
-}
-
-// edgeOrientation is orientation for a turn that lays hull edge i of
-// shape si along a piece's edge, looked up first among the few turns
-// that edge has taken before.
-func (g *gPacker) edgeOrientation(si, mi, i int, deg float64) *gOrient {
-	c := &g.edgeTurns[si][mi][i]
-	for _, o := range *c {
-		if o.deg == deg {
-			return o
-		}
-	}
-	o := g.orientation(si, deg, mi == 1)
-	*c = append(*c, o)
-	return o
-}
-
-// angleRes: free turns are rounded to this many degrees, so that equal
-// turns found from different edges are one turn.
-const angleRes = 1e-10
-
-// normDeg rounds a turn to angleRes and brings it into [0, 360).
-func normDeg(a float64) float64 {
-	a = math.Mod(a, 360)
-	if a < 0 {
-		a += 360
-	}
-	a = math.Round(a/angleRes) * angleRes
-	if a >= 360 {
-		a -= 360
-	}
-	return a
-}
-
-// movesInto returns the best move of every shape with parts left into
-// piece pc, best first.
+// movesInto returns the best move of every shape in the window into piece
+// pc, best first.
 func (g *gPacker) movesInto(pc *freePiece) []gMove {
 	var out []gMove
-	for si := range g.shapes {
-		if g.left[si] == 0 {
-			continue
-		}
+	for _, si := range g.window {
 		if m, ok := g.bestMove(pc, si); ok {
 			out = append(out, m)
 		}
 	}
 	slices.SortStableFunc(out, func(a, b gMove) int {
-		if a.score != b.score {
-			if a.score > b.score {
-				return -1
-			}
+		switch {
+		case a.score > b.score:
+			return -1
+		case a.score < b.score:
 			return 1
 		}
 		return a.shape - b.shape
@@ -205,70 +225,84 @@ func (g *gPacker) movesInto(pc *freePiece) []gMove {
 	return out
 }
 
+// bestMove returns the best move of shape si into piece pc: for free
+// rotation each hull edge laid along each edge of the piece's usable area
+// that can hold it (no shorter than the edge, and as high over it as the
+// part), at both ends of where it can slide along that edge; for the
+// fixed turns the corners of the region where the part fits. Moves score
+// by the share of the hull's perimeter on the piece's edges and by the
+// part's area against the piece's and the sheet's; the lower, then
+// further left, wins a tie.
 func (g *gPacker) bestMove(pc *freePiece, si int) (gMove, bool) {
 	sh := g.shapes[si]
 	var best gMove
+	var bestLo geom.Vec2
 	found := false
-	if sh.area > pc.area*(1+1e-9) || (g.convex && !sh.convex) {
+	if sh.area > pc.area+2*fitSlackMM*sh.hullPerim || (g.convex && !sh.convex) {
 		return best, false
 	}
-	consider := func(o *gOrient, t geom.Vec2) {
-		fit := contact(o.e, t, pc.ue, contactTolMM) / sh.hullPerim
-		sc := g.w.fit*fit + g.w.fill*sh.area/pc.area + g.w.size*sh.area/g.usable
-		if !found || sc > best.score || (sc == best.score && lowerLeft(t.Add(o.lo), best.t.Add(best.o.lo))) {
-			best, found = gMove{shape: si, o: o, t: t, score: sc}, true
+	tr := &g.tmp
+	base := g.w.fill*sh.area/pc.area + g.w.size*sh.area/g.usable
+	consider := func(m bool, c, s float64, t geom.Vec2) {
+		sc := g.w.fit*contact(tr.e, t, pc.ue, contactTolMM)/sh.hullPerim + base
+		lo := t.Add(tr.lo)
+		if !found || sc > best.score || (sc == best.score && lowerLeft(lo, bestLo)) {
+			best, bestLo, found = gMove{shape: si, mirror: m, c: c, s: s, t: t, score: sc}, lo, true
 		}
 	}
 	for mi, m := range g.mirrors {
+		h, he := g.hulls[si][mi], g.hullE[si][mi]
 		if g.stock.Rotation != Free {
 			for _, a := range fixedTurns[g.stock.Rotation] {
-				o := g.orientation(si, a, m)
-				for _, t := range positions(&g.fit, o, pc) {
-					consider(o, t)
+				s, c := turn(a)
+				turnInto(tr, h, he, c, s)
+				for _, t := range positions(&g.fit, tr, pc) {
+					consider(m, c, s, t)
 				}
 			}
 			continue
 		}
-		// Each hull edge laid along each edge of the piece that can hold
-		// it (no shorter than the edge, and as high over it as the part),
-		// at both ends of where it can slide along that edge.
-		for i, e := range g.hullE[si][mi] {
+		for i, e := range he {
 			for j := range pc.ue {
 				f := &pc.ue[j]
 				if e.l > f.l+2*fitSlackMM || e.h > f.h+2*fitSlackMM {
 					continue
 				}
-				o := g.edgeOrientation(si, mi, i, normDeg(f.deg-e.deg))
-				if t0, t1, ok := flush(o, i, pc, j); ok {
-					consider(o, t0)
+				c, s := e.d.Dot(f.d), e.d.Cross(f.d)
+				turnInto(tr, h, he, c, s)
+				if t0, t1, ok := flush(tr, i, pc, j); ok {
+					consider(m, c, s, t0)
 					if t1 != t0 {
-						consider(o, t1)
+						consider(m, c, s, t1)
 					}
 				}
 			}
 		}
 		for _, a := range g.extra[si] {
-			o := g.orientation(si, a, m)
-			for _, t := range positions(&g.fit, o, pc) {
-				consider(o, t)
+			s, c := turn(a)
+			turnInto(tr, h, he, c, s)
+			for _, t := range positions(&g.fit, tr, pc) {
+				consider(m, c, s, t)
 			}
 		}
 	}
 	return best, found
 }
 
-// fixedTurns are the turns of the stocks that allow only some.
-var fixedTurns = map[Rotation][]float64{Grain: {0, 180}, Quarter: {0, 90, 180, 270}}
+// lowerLeft reports whether a is lower than b, or as low and further left.
+func lowerLeft(a, b geom.Vec2) bool {
+	return a.Y < b.Y || (a.Y == b.Y && a.X < b.X)
+}
 
-// flush returns the two ends of the stretch along which edge i of o can
-// slide on edge j of the piece's usable area with o inside it. When o
+// flush returns the two ends of the stretch along which edge i of tr can
+// slide on edge j of the piece's usable area with tr inside it. When tr
 // fits only within fitSlackMM, both ends are the middle of that slack.
-func flush(o *gOrient, i int, pc *freePiece, j int) (geom.Vec2, geom.Vec2, bool) {
+func flush(tr *turned, i int, pc *freePiece, j int) (geom.Vec2, geom.Vec2, bool) {
 	f := &pc.ue[j]
-	t0 := f.a.Sub(o.e[i].a)
-	s0, s1, ok := flushSpan(o, pc, j, t0, 0)
+	t0 := f.a.Sub(tr.e[i].a)
+	s0, s1, ok := flushSpan(tr, pc, j, t0, 0)
 	if !ok {
-		if s0, s1, ok = flushSpan(o, pc, j, t0, fitSlackMM); !ok {
+		if s0, s1, ok = flushSpan(tr, pc, j, t0, fitSlackMM); !ok {
 			return t0, t0, false
 		}
 		s0 = (s0 + s1) / 2
@@ -281,7 +315,7 @@ func flush(o *gOrient, i int, pc *freePiece, j int) (geom.Vec2, geom.Vec2, bool)
 // direction is below this are taken as parallel to it.
 const parallelCos = 1e-12
 
-func flushSpan(o *gOrient, pc *freePiece, j int, t0 geom.Vec2, slack float64) (float64, float64, bool) {
+func flushSpan(tr *turned, pc *freePiece, j int, t0 geom.Vec2, slack float64) (float64, float64, bool) {
 	f := &pc.ue[j]
 	lo, hi := math.Inf(-1), math.Inf(1)
 	for k := range pc.ue {
@@ -290,7 +324,7 @@ func flushSpan(o *gOrient, pc *freePiece, j int, t0 geom.Vec2, slack float64) (f
 		}
 		u := &pc.ue[k]
 		lowest := math.Inf(1)
-		for _, v := range o.poly {
+		for _, v := range tr.poly {
 			if d := u.n.X*v.X + u.n.Y*v.Y; d < lowest {
 				lowest = d
 			}
@@ -300,13 +334,9 @@ func flushSpan(o *gOrient, pc *freePiece, j int, t0 geom.Vec2, slack float64) (f
 		q := u.n.Dot(f.d)
 		switch {
 		case q > parallelCos:
-			if r/q > lo {
-				lo = r / q
-			}
+			lo = max(lo, r/q)
 		case q < -parallelCos:
-			if r/q < hi {
-				hi = r / q
-			}
+			hi = min(hi, r/q)
 		case r > 0:
 			return 0, 0, false
 		}
@@ -320,23 +350,18 @@ func flushSpan(o *gOrient, pc *freePiece, j int, t0 geom.Vec2, slack float64) (f
 	return lo, hi, true
 }
 
-// lowerLeft reports whether a is lower than b, or as low and further left.
-func lowerLeft(a, b geom.Vec2) bool {
-	return a.Y < b.Y || (a.Y == b.Y && a.X < b.X)
-}
-
-// positions returns the corners of the region of positions at which o
+// positions returns the corners of the region of positions at which tr
 // lies in the piece's usable area: where it touches two of its edges.
-func positions(fit *fitter, o *gOrient, pc *freePiece) []geom.Vec2 {
-	lo := pc.lo.Sub(o.lo)
-	hi := pc.hi.Sub(o.hi)
+func positions(fit *fitter, tr *turned, pc *freePiece) []geom.Vec2 {
+	lo := pc.lo.Sub(tr.lo)
+	hi := pc.hi.Sub(tr.hi)
 	if pc.rect {
 		x0, x1, okx := span(lo.X, hi.X)
 		y0, y1, oky := span(lo.Y, hi.Y)
 		if !okx || !oky {
 			return nil
 		}
-		out := []geom.Vec2{{X: x0, Y: y0}}
+		out := append(fit.out[:0], geom.Vec2{X: x0, Y: y0})
 		if x1 != x0 {
 			out = append(out, geom.Vec2{X: x1, Y: y0})
 		}
@@ -346,12 +371,13 @@ func positions(fit *fitter, o *gOrient, pc *freePiece) []geom.Vec2 {
 				out = append(out, geom.Vec2{X: x1, Y: y1})
 			}
 		}
+		fit.out = out
 		return out
 	}
 	if lo.X > hi.X+2*fitSlackMM || lo.Y > hi.Y+2*fitSlackMM {
 		return nil
 	}
-	return fit.innerFit(o.poly, o.lo, o.hi, pc.ue, pc.lo, pc.hi)
+	return fit.innerFit(tr.poly, tr.lo, tr.hi, pc.ue, pc.lo, pc.hi)
 }
 
 // span returns the interval [lo, hi], or its middle when it is empty by
@@ -365,172 +391,4 @@ func span(lo, hi float64) (float64, float64, bool) {
 		return m, m, true
 	}
 	return 0, 0, false
-}
-
-// gPlaced is a part shape placed by the free-piece packer.
-type gPlaced struct {
-	shape int
-	o     *gOrient
-	t     geom.Vec2
-}
-
-// gState is a sheet being filled: its free pieces, the parts placed and
-// the cuts made so far. States are values: a child shares nothing that
-// it changes with its parent.
-type gState struct {
-	pieces []freePiece
-	placed []gPlaced
-	cuts   []Cut
-	area   float64
-
-	// Filled in by the search when it expands the state.
-	expanded bool
-	room     float64 // area of the free pieces some part fits
-	kids     []gKid
-}
-
-func (g *gPacker) emptySheet() *gState {
-	s := g.stock
-	sheet := geom.Polygon{{X: 0, Y: 0}, {X: s.WidthMM, Y: 0}, {X: s.WidthMM, Y: s.HeightMM}, {X: 0, Y: s.HeightMM}}
-	m := s.MarginMM
-	use := geom.Polygon{{X: m, Y: m}, {X: s.WidthMM - m, Y: m}, {X: s.WidthMM - m, Y: s.HeightMM - m}, {X: m, Y: s.HeightMM - m}}
-	pc := newFreePiece(0, sheet, use)
-	pc.moves = g.cachedMoves(&pc)
-	return &gState{pieces: []freePiece{pc}}
-}
-
-// needCuts returns the edges of the part placed by m that are not on the
-// piece's edge: each needs a cut.
-func needCuts(pc *freePiece, m gMove) []int {
-	var need []int
-	for i, e := range m.o.e {
-		a := e.a.Add(m.t)
-		if !onBoundary(pc.se, a, a.Add(e.d.Scale(e.l)), 2*fitSlackMM) {
-			need = append(need, i)
-		}
-	}
-	return need
-}
-
-// cutPlan is an order of the cuts that free a placed part, with the
-// area it leaves in pieces too small for any part (waste) and a score
-// that prefers large free pieces (the sum of the squares of their usable
-// areas).
-type cutPlan struct {
-	order []int
-	waste float64
-	score float64
-}
-
-// cutOrders returns up to max orders of the needed cuts, least waste
-// first, then largest free pieces.
-func (g *gPacker) cutOrders(pc *freePiece, m gMove, need []int, minArea float64, max int) []cutPlan {
-	var plans []cutPlan
-	permute(need, func(order []int) {
-		use := pc.use
-		var p cutPlan
-		for _, i := range order {
-			e := m.o.e[i]
-			a := e.a.Add(m.t)
-			far := clipHalf(use, e.n.Scale(-1), -e.n.Dot(a)+g.stock.SpacingMM)
-			if far != nil {
-				if ar := far.Area(); ar >= minArea {
-					p.score += ar * ar
-				} else {
-					p.waste += ar
-				}
-			}
-			if use = clipHalf(use, e.n, e.n.Dot(a)); use == nil {
-				break
-			}
-		}
-		p.order = slices.Clone(order)
-		plans = append(plans, p)
-	})
-	slices.SortStableFunc(plans, func(a, b cutPlan) int {
-		switch {
-		case a.waste < b.waste:
-			return -1
-		case a.waste > b.waste:
-			return 1
-		case a.score > b.score:
-			return -1
-		case a.score < b.score:
-			return 1
-		}
-		return 0
-	})
-	if len(plans) > max {
-		plans = plans[:max]
-	}
-	return plans
-}
-
-// permute calls f with every order of a (Heap's algorithm); f must not
-// keep its argument.
-func permute(a []int, f func([]int)) {
-	b := slices.Clone(a)
-	var gen func(k int)
-	gen = func(k int) {
-		if k <= 1 {
-			f(b)
-			return
-		}
-		for i := 0; i < k; i++ {
-			gen(k - 1)
-			if k%2 == 0 {
-				b[i], b[k-1] = b[k-1], b[i]
-			} else {
-				b[0], b[k-1] = b[k-1], b[0]
-			}
-		}
-	}
-	gen(len(b))
-}
-
-// child returns the state after move m into piece k with the cuts in the
-// given order. Free pieces smaller than minArea are dropped as waste.
-func (g *gPacker) child(st *gState, k int, m gMove, order []int, minArea float64) *gState {
-	pc := &st.pieces[k]
-	c := &gState{area: st.area + g.shapes[m.shape].area}
-	c.placed = append(st.placed[:len(st.placed):len(st.placed)], gPlaced{shape: m.shape, o: m.o, t: m.t})
-	c.cuts = st.cuts[:len(st.cuts):len(st.cuts)]
-	c.pieces = make([]freePiece, 0, len(st.pieces)+len(order))
-	c.pieces = append(c.pieces, st.pieces[:k]...)
-	c.pieces = append(c.pieces, st.pieces[k+1:]...)
-	shapeP, useP := pc.shape, pc.use
-	cur := pc.id
-	first := len(c.pieces)
-	for _, i := range order {
-		e := m.o.e[i]
-		a := e.a.Add(m.t)
-		from, to, ok := chord(shapeP, a, e.d)
-		if !ok {
-			continue
-		}
-		id := len(c.cuts)
-		c.cuts = append(c.cuts, Cut{Piece: cur, From: from, To: to})
-		cur = 2*id + 1
-		farShape := clipHalf(shapeP, e.n.Scale(-1), -e.n.Dot(a))
-		farUse := clipHalf(useP, e.n.Scale(-1), -e.n.Dot(a)+g.stock.SpacingMM)
-		if farShape != nil && farUse != nil && farUse.Area() >= minArea {
-			c.pieces = append(c.pieces, newFreePiece(2*id+2, farShape, farUse))
-		}
-		shapeP = clipHalf(shapeP, e.n, e.n.Dot(a))
-		useP = clipHalf(useP, e.n, e.n.Dot(a))
-		if shapeP == nil {
-			break
-		}
-	}
-	for i := first; i < len(c.pieces); i++ {
-		c.pieces[i].moves = g.cachedMoves(&c.pieces[i])
-	}
-	return c
-}
-
-// Cut is one straight cut across a whole piece of a sheet, from edge to
-// edge of that piece, in sheet coordinates (mm).
-type Cut struct {
-	Piece    int // the piece it splits (see Sheet.Cuts for the numbering)
-	From, To geom.Vec2
 }

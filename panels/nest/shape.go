@@ -21,8 +21,9 @@ const orderResMM = 1e-6
 // shape is a set of parts with the same outline up to translation and
 // the corner it starts at.
 type shape struct {
-	poly      geom.Polygon // outline from its lowest (then leftmost) corner, that corner at the origin
-	hull      geom.Polygon // convex hull of poly
+	poly      geom.Polygon   // outline from its lowest (then leftmost) corner, that corner at the origin
+	hull      geom.Polygon   // convex hull of poly
+	pieces    []geom.Polygon // convex pieces that tile poly
 	convex    bool
 	area      float64
 	perim     float64
@@ -103,6 +104,7 @@ func shapesOf(parts []Part) []*shape {
 func newShape(poly geom.Polygon) *shape {
 	s := &shape{poly: poly, hull: geom.ConvexHull(poly), area: poly.Area(), perim: poly.Perimeter()}
 	s.hullPerim = s.hull.Perimeter()
+	s.pieces = convexParts(poly)
 	s.convex = poly.Convex()
 	s.minW = minWidth(s.hull)
 	r := func(v float64) float64 { return math.Round(v / orderResMM) }

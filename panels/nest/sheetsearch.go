@@ -2,14 +2,15 @@ package nest
 
 import (
 	"cmp"
+	"context"
 	"math"
-	"os"
 	"slices"
 )
 
 // sheetSearch fills one sheet with the free-piece packer by a tree search
 // over moves. At each step it takes one free piece that some part still
-// fits (the one whose best move scores highest) and tries the best few
+// fits (the one the fewest parts fit, then the one whose best move scores
+// highest: the most constrained piece first) and tries the best few
 // moves into it, each with its best orders of cuts, least waste first, and
 // last leaving the piece empty.
 //
@@ -35,7 +36,13 @@ type sheetSearch struct {
 	target    float64 // least area a branch must be able to reach
 	leftArea  float64 // area of the parts left
 	exhausted bool    // no branch was cut by the discrepancy limit
+	dive      bool    // the first descent: no budget applies
+	expanded  int     // states worked out
+	ctx       context.Context
 }
+
+// ctxEvery: the search looks at its context every this many steps.
+const ctxEvery = 64
 
 // wasteSteps are the shares of the sheet (or of the parts left, when they
 // do not fill it) that the search allows to go unused, one after another.
@@ -55,8 +62,12 @@ type gKid struct {
 	shape int
 }
 
-func (g *gPacker) fillSheet(budget, branch, look, orders int) *gState {
-	s := &sheetSearch{g: g, branch: branch, look: look, orders: orders, visits: visitsPerStep * budget}
+// fillSheet searches a layout for one sheet and returns it with the steps
+// it took. It always finishes the path of best moves, whatever the
+// budget; when ctx ends it stops searching beyond that.
+func (g *gPacker) fillSheet(budget, branch, look, orders int, ctx context.Context) (*gState, int) {
+	g.setWindow()
+	s := &sheetSearch{g: g, branch: branch, look: look, orders: orders, visits: visitsPerStep * budget, ctx: ctx}
 	for si, sh := range g.shapes {
 		if !g.convex || sh.convex {
 			s.leftArea += float64(g.left[si]) * sh.area
@@ -65,6 +76,12 @@ func (g *gPacker) fillSheet(budget, branch, look, orders int) *gState {
 	full := math.Min(g.usable, s.leftArea)
 	root := g.emptySheet()
 	s.best = root
+	// The path of best moves first, whatever the budget.
+	s.target = full
+	s.dive = true
+	s.dfs(root, 0)
+	s.dive = false
+	budget -= s.expanded
 	for i, w := range wasteSteps {
 		s.target = full * (1 - w)
 		if s.reached() {
@@ -82,7 +99,7 @@ func (g *gPacker) fillSheet(budget, branch, look, orders int) *gState {
 		}
 		budget += s.budget
 	}
-	return s.best
+	return s.best, s.expanded
 }
 
 func (s *sheetSearch) reached() bool { return s.best.area >= s.target*(1-1e-12) }
@@ -112,19 +129,27 @@ func (s *sheetSearch) dfs(st *gState, disc int) {
 	if st.area > s.best.area {
 		s.best = st
 	}
-	if s.reached() || s.visits <= 0 {
+	if s.reached() || (s.visits <= 0 && !s.dive) {
 		return
 	}
-	s.visits--
+	if !s.dive {
+		s.visits--
+	}
 	if !st.expanded {
-		if s.budget <= 0 {
-			s.exhausted = false
-			return
+		if !s.dive {
+			if s.budget <= 0 {
+				s.exhausted = false
+				return
+			}
+			s.budget--
+			if s.expanded%ctxEvery == 0 && s.ctx.Err() != nil {
+				s.budget, s.visits = 0, 0
+			}
 		}
-		s.budget--
+		s.expanded++
 		s.expand(st)
 	}
-	if st.area+math.Min(st.room, s.leftArea) < s.target*(1-1e-12) {
+	if !s.dive && st.area+math.Min(st.room, s.leftArea) < s.target*(1-1e-12) {
 		return
 	}
 	for i, k := range st.kids {
@@ -141,7 +166,7 @@ func (s *sheetSearch) dfs(st *gState, disc int) {
 			s.g.left[k.shape]++
 			s.leftArea += s.g.shapes[k.shape].area
 		}
-		if s.reached() || s.visits <= 0 {
+		if s.reached() || (s.visits <= 0 && !s.dive) {
 			return
 		}
 	}
@@ -161,11 +186,9 @@ func (s *sheetSearch) expand(st *gState) {
 		}
 		st.room += pc.area
 		n := 0
-		if os.Getenv("PICK") == "2" {
-			for _, mm := range pc.moves {
-				if s.g.left[mm.shape] > 0 {
-					n++
-				}
+		for _, mm := range pc.moves {
+			if s.g.left[mm.shape] > 0 {
+				n++
 			}
 		}
 		if pick < 0 || n < pickN || (n == pickN && (m.score > pickScore || (m.score == pickScore && pc.area > st.pieces[pick].area))) {
@@ -180,6 +203,7 @@ func (s *sheetSearch) expand(st *gState) {
 	// tried least waste first.
 	type branch struct {
 		m    gMove
+		tr   *turned
 		plan cutPlan
 	}
 	var bs []branch
@@ -195,8 +219,9 @@ func (s *sheetSearch) expand(st *gState) {
 		s.g.left[m.shape]--
 		minArea := s.g.minArea()
 		s.g.left[m.shape]++
-		for _, p := range s.g.cutOrders(pc, m, needCuts(pc, m), minArea, s.orders) {
-			bs = append(bs, branch{m, p})
+		tr := s.g.placed(m)
+		for _, p := range s.g.cutOrders(pc, tr, needCuts(pc, tr), minArea, s.orders) {
+			bs = append(bs, branch{m, tr, p})
 		}
 	}
 	slices.SortStableFunc(bs, func(a, b branch) int { return cmp.Compare(a.plan.waste, b.plan.waste) })
@@ -205,7 +230,7 @@ func (s *sheetSearch) expand(st *gState) {
 	}
 	for _, b := range bs {
 		s.g.left[b.m.shape]--
-		st.kids = append(st.kids, gKid{s.g.child(st, pick, b.m, b.plan.order, s.g.minArea()), b.m.shape})
+		st.kids = append(st.kids, gKid{s.g.child(st, pick, b.m, b.tr, b.plan.order, s.g.minArea()), b.m.shape})
 		s.g.left[b.m.shape]++
 	}
 	// Leave the piece empty.

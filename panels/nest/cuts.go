@@ -1,0 +1,199 @@
+package nest
+
+import (
+	"slices"
+
+	"pqfab/geom"
+)
+
+// Cutting a placed part free in the free-piece packer: which of its edges
+// need a cut, in which order, and the pieces the cuts leave.
+
+// gState is a sheet being filled: its free pieces, the parts placed and
+// the cuts made so far. States are values: a child shares nothing that
+// it changes with its parent.
+type gState struct {
+	pieces []freePiece
+	placed []gMove
+	cuts   []Cut
+	area   float64
+
+	// Filled in by the search when it expands the state.
+	expanded bool
+	room     float64 // area of the free pieces some part fits
+	kids     []gKid
+}
+
+func (g *gPacker) emptySheet() *gState {
+	s := g.stock
+	sheet := geom.Polygon{{X: 0, Y: 0}, {X: s.WidthMM, Y: 0}, {X: s.WidthMM, Y: s.HeightMM}, {X: 0, Y: s.HeightMM}}
+	m := s.MarginMM
+	use := geom.Polygon{{X: m, Y: m}, {X: s.WidthMM - m, Y: m}, {X: s.WidthMM - m, Y: s.HeightMM - m}, {X: m, Y: s.HeightMM - m}}
+	pc := newFreePiece(0, sheet, use)
+	pc.moves = g.cachedMoves(&pc)
+	return &gState{pieces: []freePiece{pc}}
+}
+
+// needCuts returns the edges of the placed hull tr that do not lie on the
+// piece's edge: each needs a cut.
+func needCuts(pc *freePiece, tr *turned) []int {
+	var need []int
+	for i, e := range tr.e {
+		if !onBoundary(pc.se, e.a, e.a.Add(e.d.Scale(e.l)), 2*fitSlackMM) {
+			need = append(need, i)
+		}
+	}
+	return need
+}
+
+// cutPlan is an order of the cuts that free a placed part, with the
+// area it leaves in pieces too small for any part (waste) and a score
+// that prefers large free pieces (the sum of the squares of their usable
+// areas).
+type cutPlan struct {
+	order []int
+	waste float64
+	score float64
+}
+
+// maxPermuted: up to this many needed cuts, cutOrders tries every order;
+// beyond it, it builds one order cut by cut.
+const maxPermuted = 3
+
+// cutOrders returns up to max orders of the needed cuts, least waste
+// first, then largest free pieces.
+func (g *gPacker) cutOrders(pc *freePiece, tr *turned, need []int, minArea float64, max int) []cutPlan {
+	// far returns the usable area beyond cut i of what is left, and what
+	// is left on the part's side.
+	far := func(use geom.Polygon, i int) (float64, geom.Polygon) {
+		e := tr.e[i]
+		a := e.a
+		var ar float64
+		if f := clipHalf(use, e.n.Scale(-1), -e.n.Dot(a)+g.stock.SpacingMM); f != nil {
+			ar = f.Area()
+		}
+		return ar, clipHalf(use, e.n, e.n.Dot(a))
+	}
+	tally := func(p *cutPlan, ar float64) {
+		if ar >= minArea {
+			p.score += ar * ar
+		} else {
+			p.waste += ar
+		}
+	}
+	if len(need) > maxPermuted {
+		// Greedily: each time the cut that leaves the largest piece.
+		var p cutPlan
+		use := pc.use
+		rest := slices.Clone(need)
+		for len(rest) > 0 && use != nil {
+			bi, ba := 0, -1.0
+			for k, i := range rest {
+				if ar, _ := far(use, i); ar > ba {
+					bi, ba = k, ar
+				}
+			}
+			i := rest[bi]
+			rest = append(rest[:bi], rest[bi+1:]...)
+			p.order = append(p.order, i)
+			ar, next := far(use, i)
+			tally(&p, ar)
+			use = next
+		}
+		p.order = append(p.order, rest...)
+		return []cutPlan{p}
+	}
+	var plans []cutPlan
+	permute(need, func(order []int) {
+		use := pc.use
+		var p cutPlan
+		for _, i := range order {
+			ar, next := far(use, i)
+			tally(&p, ar)
+			if use = next; use == nil {
+				break
+			}
+		}
+		p.order = slices.Clone(order)
+		plans = append(plans, p)
+	})
+	slices.SortStableFunc(plans, func(a, b cutPlan) int {
+		switch {
+		case a.waste < b.waste:
+			return -1
+		case a.waste > b.waste:
+			return 1
+		case a.score > b.score:
+			return -1
+		case a.score < b.score:
+			return 1
+		}
+		return 0
+	})
+	if len(plans) > max {
+		plans = plans[:max]
+	}
+	return plans
+}
+
+// permute calls f with every order of a (Heap's algorithm); f must not
+// keep its argument.
+func permute(a []int, f func([]int)) {
+	b := slices.Clone(a)
+	var gen func(k int)
+	gen = func(k int) {
+		if k <= 1 {
+			f(b)
+			return
+		}
+		for i := 0; i < k; i++ {
+			gen(k - 1)
+			if k%2 == 0 {
+				b[i], b[k-1] = b[k-1], b[i]
+			} else {
+				b[0], b[k-1] = b[k-1], b[0]
+			}
+		}
+	}
+	gen(len(b))
+}
+
+// child returns the state after move m into piece k with the cuts in the
+// given order. Free pieces smaller than minArea are dropped as waste.
+func (g *gPacker) child(st *gState, k int, m gMove, tr *turned, order []int, minArea float64) *gState {
+	pc := &st.pieces[k]
+	c := &gState{area: st.area + g.shapes[m.shape].area}
+	c.placed = append(st.placed[:len(st.placed):len(st.placed)], m)
+	c.cuts = st.cuts[:len(st.cuts):len(st.cuts)]
+	c.pieces = make([]freePiece, 0, len(st.pieces)+len(order))
+	c.pieces = append(c.pieces, st.pieces[:k]...)
+	c.pieces = append(c.pieces, st.pieces[k+1:]...)
+	shapeP, useP := pc.shape, pc.use
+	cur := pc.id
+	first := len(c.pieces)
+	for _, i := range order {
+		e := tr.e[i]
+		a := e.a
+		from, to, ok := chord(shapeP, a, e.d)
+		if !ok {
+			continue
+		}
+		id := len(c.cuts)
+		c.cuts = append(c.cuts, Cut{Piece: cur, From: from, To: to})
+		cur = 2*id + 1
+		farShape := clipHalf(shapeP, e.n.Scale(-1), -e.n.Dot(a))
+		farUse := clipHalf(useP, e.n.Scale(-1), -e.n.Dot(a)+g.stock.SpacingMM)
+		if farShape != nil && farUse != nil && farUse.Area() >= minArea {
+			c.pieces = append(c.pieces, newFreePiece(2*id+2, farShape, farUse))
+		}
+		shapeP = clipHalf(shapeP, e.n, e.n.Dot(a))
+		useP = clipHalf(useP, e.n, e.n.Dot(a))
+		if shapeP == nil {
+			break
+		}
+	}
+	for i := first; i < len(c.pieces); i++ {
+		c.pieces[i].moves = g.cachedMoves(&c.pieces[i])
+	}
+	return c
+}
