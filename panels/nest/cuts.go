@@ -21,6 +21,7 @@ type gState struct {
 	// Filled in by the search when it expands the state.
 	expanded bool
 	room     float64 // area of the free pieces some part fits
+	pick     int     // the free piece its branches fill
 	kids     []gKid
 }
 

@@ -55,11 +55,15 @@ const maxDiscrepancy = 60
 // its budget.
 const visitsPerStep = 50
 
-// gKid is a branch of a search node: the state after a move of a part of
-// shape (or after leaving the piece empty, shape −1).
+// gKid is a branch of a search node: a move into the node's chosen piece
+// with an order of cuts, or leaving that piece empty (shape −1). The
+// state it leads to is worked out when the search first goes there.
 type gKid struct {
 	st    *gState
 	shape int
+	m     gMove
+	tr    *turned
+	order []int
 }
 
 // fillSheet searches a layout for one sheet and returns it with the steps
@@ -152,10 +156,22 @@ func (s *sheetSearch) dfs(st *gState, disc int) {
 	if !s.dive && st.area+math.Min(st.room, s.leftArea) < s.target*(1-1e-12) {
 		return
 	}
-	for i, k := range st.kids {
+	for i := range st.kids {
 		if i > disc {
 			s.exhausted = false
 			return
+		}
+		k := &st.kids[i]
+		if k.st == nil {
+			if k.shape >= 0 {
+				s.g.left[k.shape]--
+				k.st = s.g.child(st, st.pick, k.m, k.tr, k.order, s.g.minArea())
+				s.g.left[k.shape]++
+			} else {
+				c := &gState{placed: st.placed, cuts: st.cuts, area: st.area}
+				c.pieces = append(append(make([]freePiece, 0, len(st.pieces)-1), st.pieces[:st.pick]...), st.pieces[st.pick+1:]...)
+				k.st = c
+			}
 		}
 		if k.shape >= 0 {
 			s.g.left[k.shape]--
@@ -228,13 +244,10 @@ func (s *sheetSearch) expand(st *gState) {
 	if len(bs) > s.branch {
 		bs = bs[:s.branch]
 	}
+	st.pick = pick
 	for _, b := range bs {
-		s.g.left[b.m.shape]--
-		st.kids = append(st.kids, gKid{s.g.child(st, pick, b.m, b.tr, b.plan.order, s.g.minArea()), b.m.shape})
-		s.g.left[b.m.shape]++
+		st.kids = append(st.kids, gKid{shape: b.m.shape, m: b.m, tr: b.tr, order: b.plan.order})
 	}
-	// Leave the piece empty.
-	c := &gState{placed: st.placed, cuts: st.cuts, area: st.area}
-	c.pieces = append(append(make([]freePiece, 0, len(st.pieces)-1), st.pieces[:pick]...), st.pieces[pick+1:]...)
-	st.kids = append(st.kids, gKid{c, -1})
+	// Last, leave the piece empty.
+	st.kids = append(st.kids, gKid{shape: -1})
 }
