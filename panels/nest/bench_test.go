@@ -46,7 +46,7 @@ func TestWaveNestQuality(t *testing.T) {
 	}
 	checkResult(t, parts, []Stock{floatGlass}, r)
 	ratio := float64(len(r.Sheets)) / float64(r.Stocks[0].AreaBound)
-	t.Logf("wave 1000: %d sheets, area bound %d, ratio %.3f, %s", len(r.Sheets), r.Stocks[0].AreaBound, ratio, r.Method)
+	t.Logf("wave 1000: %d sheets, area bound %d, ratio %.3f, %s", len(r.Sheets), r.Stocks[0].AreaBound, ratio, r.Ordering)
 	if ratio > 1.4 {
 		t.Errorf("sheets/area bound %.3f", ratio)
 	}

@@ -64,16 +64,20 @@ const maxPermuted = 3
 // cutOrders returns up to max orders of the needed cuts, least waste
 // first, then largest free pieces.
 func (g *gPacker) cutOrders(pc *freePiece, tr *turned, need []int, minArea float64, max int) []cutPlan {
-	// far returns the usable area beyond cut i of what is left, and what
-	// is left on the part's side.
+	// far returns the usable area beyond cut i of what is left (use), and
+	// what is left on the part's side, in scratch memory: in g.cbuf[1] or
+	// g.cbuf[2], whichever use is not.
 	far := func(use geom.Polygon, i int) (float64, geom.Polygon) {
 		e := tr.e[i]
-		a := e.a
 		var ar float64
-		if f := clipHalf(use, e.n.Scale(-1), -e.n.Dot(a)+g.stock.SpacingMM); f != nil {
+		if f := clipInto(g.cbuf[0], use, e.n.Scale(-1), -e.n.Dot(e.a)+g.stock.SpacingMM); f != nil {
 			ar = f.Area()
 		}
-		return ar, clipHalf(use, e.n, e.n.Dot(a))
+		dst := g.cbuf[1]
+		if len(use) > 0 && len(dst) > 0 && &use[0] == &dst[0] {
+			dst = g.cbuf[2]
+		}
+		return ar, clipInto(dst, use, e.n, e.n.Dot(e.a))
 	}
 	tally := func(p *cutPlan, ar float64) {
 		if ar >= minArea {

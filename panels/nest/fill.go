@@ -93,17 +93,6 @@ func dominated(info []nfpShape, a int, failed []int) bool {
 	return false
 }
 
-// nfpFits reports whether shape sh fits an empty sheet of stock si.
-func nfpFits(info []nfpShape, sh int, s Stock, si int) bool {
-	st := &sheetState{stock: s}
-	for oi := range info[sh].orients[si] {
-		if _, _, ok := st.place(&info[sh].orients[si][oi], nil); ok {
-			return true
-		}
-	}
-	return false
-}
-
 // runNFP nests the parts in the given order (shape indices, one entry a
 // part, of parts known to fit some allowed stock) sheet after sheet.
 // Stocks not in allowed are not used.

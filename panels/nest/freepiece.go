@@ -46,12 +46,23 @@ type freePiece struct {
 	area   float64
 	lo, hi geom.Vec2 // bounds of use
 	rect   bool      // use is a rectangle with edges along the axes
+	minW   float64   // least width of use over all directions
+	diam   float64   // greatest distance between two corners of use
 	moves  []gMove   // the best move of each part shape into this piece, best first
 }
 
 func newFreePiece(id int, shape, use geom.Polygon) freePiece {
 	lo, hi := use.Bounds()
 	pc := freePiece{id: id, shape: shape, use: use, se: edgesOf(shape), ue: edgesOf(use), area: use.Area(), lo: lo, hi: hi}
+	pc.minW, pc.diam = math.Inf(1), 0
+	for _, e := range pc.ue {
+		pc.minW = min(pc.minW, e.h)
+	}
+	for i, a := range use {
+		for _, b := range use[i+1:] {
+			pc.diam = max(pc.diam, b.Sub(a).Norm())
+		}
+	}
 	pc.rect = len(pc.ue) == 4
 	for _, e := range pc.ue {
 		if e.d.X != 0 && e.d.Y != 0 {

@@ -1,6 +1,7 @@
 package nest
 
 import (
+	"cmp"
 	"encoding/binary"
 	"hash/fnv"
 	"math"
@@ -86,12 +87,18 @@ type gPacker struct {
 	fit     fitter
 	tmp     turned
 	cache   map[uint64][]movesEntry
+	cbuf    [3]geom.Polygon // scratch for cutOrders
+	pairs   []flushPair
+	low     []float64
 }
 
 func newGPacker(st Stock, shapes []*shape, w gWeights, convexOnly bool) *gPacker {
 	g := &gPacker{stock: st, shapes: shapes, w: w, convex: convexOnly, usable: st.usableArea()}
 	g.left = make([]int, len(shapes))
 	g.cache = map[uint64][]movesEntry{}
+	for i := range g.cbuf {
+		g.cbuf[i] = make(geom.Polygon, 0, 16)
+	}
 	g.hulls = make([][2]geom.Polygon, len(shapes))
 	g.hullE = make([][2][]edge, len(shapes))
 	g.extra = make([][]float64, len(shapes))
@@ -112,11 +119,15 @@ func newGPacker(st Stock, shapes []*shape, w gWeights, convexOnly bool) *gPacker
 
 // placed returns the hull of the part a move places, where it lies.
 func (g *gPacker) placed(m gMove) *turned {
+	return g.placedInto(&turned{}, m)
+}
+
+// placedInto is placed, reusing the memory of tr.
+func (g *gPacker) placedInto(tr *turned, m gMove) *turned {
 	mi := 0
 	if m.mirror {
 		mi = 1
 	}
-	tr := &turned{}
 	turnInto(tr, g.hulls[m.shape][mi], g.hullE[m.shape][mi], m.c, m.s)
 	for i := range tr.poly {
 		tr.poly[i] = tr.poly[i].Add(m.t)
@@ -207,7 +218,7 @@ func (g *gPacker) setWindow() {
 // movesInto returns the best move of every shape in the window into piece
 // pc, best first.
 func (g *gPacker) movesInto(pc *freePiece) []gMove {
-	var out []gMove
+	out := make([]gMove, 0, len(g.window))
 	for _, si := range g.window {
 		if m, ok := g.bestMove(pc, si); ok {
 			out = append(out, m)
@@ -238,7 +249,9 @@ func (g *gPacker) bestMove(pc *freePiece, si int) (gMove, bool) {
 	var best gMove
 	var bestLo geom.Vec2
 	found := false
-	if sh.area > pc.area+2*fitSlackMM*sh.hullPerim || (g.convex && !sh.convex) {
+	// A convex part fits a convex piece only if it is no wider in any
+	// direction, so no wider at its narrowest, and no longer.
+	if sh.area > pc.area+2*fitSlackMM*sh.hullPerim || sh.minW > pc.minW+2*fitSlackMM || sh.diam > pc.diam+2*fitSlackMM || (g.convex && !sh.convex) {
 		return best, false
 	}
 	tr := &g.tmp
@@ -262,15 +275,56 @@ func (g *gPacker) bestMove(pc *freePiece, si int) (gMove, bool) {
 			}
 			continue
 		}
+		// Pairs of a hull edge and a piece edge that can hold it, grouped
+		// by the turn that lays one along the other.
+		pairs := g.pairs[:0]
 		for i, e := range he {
 			for j := range pc.ue {
 				f := &pc.ue[j]
 				if e.l > f.l+2*fitSlackMM || e.h > f.h+2*fitSlackMM {
 					continue
 				}
-				c, s := e.d.Dot(f.d), e.d.Cross(f.d)
-				turnInto(tr, h, he, c, s)
-				if t0, t1, ok := flush(tr, i, pc, j); ok {
+				pairs = append(pairs, flushPair{i: i, j: j, c: e.d.Dot(f.d), s: e.d.Cross(f.d)})
+			}
+		}
+		slices.SortFunc(pairs, func(a, b flushPair) int {
+			if c := cmp.Compare(a.c, b.c); c != 0 {
+				return c
+			}
+			if c := cmp.Compare(a.s, b.s); c != 0 {
+				return c
+			}
+			return cmp.Compare(a.i*len(pc.ue)+a.j, b.i*len(pc.ue)+b.j)
+		})
+		g.pairs = pairs
+		for a := 0; a < len(pairs); {
+			c, s := pairs[a].c, pairs[a].s
+			b := a
+			for b < len(pairs) && pairs[b].c == c && pairs[b].s == s {
+				b++
+			}
+			group := pairs[a:b]
+			a = b
+			turnInto(tr, h, he, c, s)
+			// Contact is at most the length of the edges that run along
+			// some piece edge: skip the turn if even that cannot win.
+			if found {
+				var most float64
+				for _, e := range tr.e {
+					for _, f := range pc.ue {
+						if e.d.Dot(f.d) > 0 && math.Abs(e.d.Cross(f.d)) <= parallelSin {
+							most += e.l
+							break
+						}
+					}
+				}
+				if g.w.fit*most/sh.hullPerim+base < best.score {
+					continue
+				}
+			}
+			support(tr, pc, &g.low)
+			for _, p := range group {
+				if t0, t1, ok := flush(tr, p.i, pc, p.j, g.low); ok {
 					consider(m, c, s, t0)
 					if t1 != t0 {
 						consider(m, c, s, t1)
@@ -294,15 +348,39 @@ func lowerLeft(a, b geom.Vec2) bool {
 	return a.Y < b.Y || (a.Y == b.Y && a.X < b.X)
 }
 
+// flushPair is a hull edge i laid along piece edge j by the turn (c, s).
+type flushPair struct {
+	i, j int
+	c, s float64
+}
+
+// support sets low[k] to the least of n·v over the corners v of tr, n the
+// inward normal of the piece's usable edge k.
+func support(tr *turned, pc *freePiece, low *[]float64) {
+	l := (*low)[:0]
+	for k := range pc.ue {
+		n := pc.ue[k].n
+		lowest := math.Inf(1)
+		for _, v := range tr.poly {
+			if d := n.X*v.X + n.Y*v.Y; d < lowest {
+				lowest = d
+			}
+		}
+		l = append(l, lowest)
+	}
+	*low = l
+}
+
 // flush returns the two ends of the stretch along which edge i of tr can
-// slide on edge j of the piece's usable area with tr inside it. When tr
-// fits only within fitSlackMM, both ends are the middle of that slack.
-func flush(tr *turned, i int, pc *freePiece, j int) (geom.Vec2, geom.Vec2, bool) {
+// slide on edge j of the piece's usable area with tr inside it (low from
+// support). When tr fits only within fitSlackMM, both ends are the middle
+// of that slack.
+func flush(tr *turned, i int, pc *freePiece, j int, low []float64) (geom.Vec2, geom.Vec2, bool) {
 	f := &pc.ue[j]
 	t0 := f.a.Sub(tr.e[i].a)
-	s0, s1, ok := flushSpan(tr, pc, j, t0, 0)
+	s0, s1, ok := flushSpan(pc, j, t0, low, 0)
 	if !ok {
-		if s0, s1, ok = flushSpan(tr, pc, j, t0, fitSlackMM); !ok {
+		if s0, s1, ok = flushSpan(pc, j, t0, low, fitSlackMM); !ok {
 			return t0, t0, false
 		}
 		s0 = (s0 + s1) / 2
@@ -315,7 +393,7 @@ func flush(tr *turned, i int, pc *freePiece, j int) (geom.Vec2, geom.Vec2, bool)
 // direction is below this are taken as parallel to it.
 const parallelCos = 1e-12
 
-func flushSpan(tr *turned, pc *freePiece, j int, t0 geom.Vec2, slack float64) (float64, float64, bool) {
+func flushSpan(pc *freePiece, j int, t0 geom.Vec2, low []float64, slack float64) (float64, float64, bool) {
 	f := &pc.ue[j]
 	lo, hi := math.Inf(-1), math.Inf(1)
 	for k := range pc.ue {
@@ -323,14 +401,8 @@ func flushSpan(tr *turned, pc *freePiece, j int, t0 geom.Vec2, slack float64) (f
 			continue
 		}
 		u := &pc.ue[k]
-		lowest := math.Inf(1)
-		for _, v := range tr.poly {
-			if d := u.n.X*v.X + u.n.Y*v.Y; d < lowest {
-				lowest = d
-			}
-		}
-		// u.n·(t0 + s f.d) ≥ u.n·u.a − lowest − slack
-		r := u.n.Dot(u.a) - lowest - slack - u.n.Dot(t0)
+		// u.n·(t0 + s f.d) ≥ u.n·u.a − low[k] − slack
+		r := u.n.Dot(u.a) - low[k] - slack - u.n.Dot(t0)
 		q := u.n.Dot(f.d)
 		switch {
 		case q > parallelCos:

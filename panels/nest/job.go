@@ -162,11 +162,16 @@ func (j *job) run() *Result {
 		}
 		lays[i] = l
 	}
-	wg.Add(1)
-	go func() {
-		defer wg.Done()
-		keep(0, j.runPieces(fitsSome, j.steps))
-	}()
+	// The free-piece packer is the only method for edge-to-edge cuts; for
+	// other stocks it runs beside the no-fit polygon driver unless the
+	// parts are many (where it is slow and rarely wins).
+	if anyCut || len(j.parts) <= manyParts {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			keep(0, j.runPieces(fitsSome, j.steps))
+		}()
+	}
 	if !anyCut {
 		wg.Add(1)
 		go func() {
@@ -211,16 +216,18 @@ func (j *job) runOrders(fitsSome []bool) *layout {
 	orderings := []struct {
 		name string
 		key  func(si int) float64
+		idx  []int // the shapes in this order
 	}{
-		{"no-fit polygons, largest area first", func(si int) float64 { return info[si].area }},
-		{"no-fit polygons, longest short side first", func(si int) float64 { return info[si].height }},
-		{"no-fit polygons, longest perimeter first", func(si int) float64 { return j.shapes[si].perim }},
+		{"no-fit polygons, largest area first", func(si int) float64 { return info[si].area }, nil},
+		{"no-fit polygons, longest short side first", func(si int) float64 { return info[si].height }, nil},
+		{"no-fit polygons, longest perimeter first", func(si int) float64 { return j.shapes[si].perim }, nil},
 	}
 	if len(j.parts) > manyParts {
 		orderings = orderings[:1]
 	}
 	var best *layout
-	for _, o := range orderings {
+	for oi := range orderings {
+		o := &orderings[oi]
 		// Shapes are in geometric order already; a stable sort keeps it
 		// on ties.
 		idx := make([]int, len(j.shapes))
@@ -228,6 +235,7 @@ func (j *job) runOrders(fitsSome []bool) *layout {
 			idx[i] = i
 		}
 		slices.SortStableFunc(idx, func(a, b int) int { return cmp.Compare(o.key(b), o.key(a)) })
+		o.idx = idx
 		var order []int
 		for _, si := range idx {
 			if !fitsSome[si] {
@@ -245,6 +253,36 @@ func (j *job) runOrders(fitsSome []bool) *layout {
 		if l.stopped {
 			break
 		}
+	}
+	// The improvement phase repacks pairs of sheets by each ordering in
+	// turn and keeps the sheet with the most part area; filling a sheet
+	// with n parts costs n²/4 steps (its work grows with the square of the
+	// parts, and so it takes about as long as that many search steps of
+	// the free-piece packer).
+	repack := func(pool []int, k, _ int) (layoutSheet, int) {
+		var bestSheet layoutSheet
+		steps := 0
+		for _, o := range orderings {
+			var order []int
+			for _, si := range o.idx {
+				for c := 0; c < pool[si]; c++ {
+					order = append(order, si)
+				}
+			}
+			steps += max(1, len(order)*len(order)/4)
+			st, _ := fill(info, j.stocks[k], k, order, make([]bool, len(order)), 0)
+			if st.area > bestSheet.area {
+				bestSheet = layoutSheet{stock: k, area: st.area}
+				for _, p := range st.placed {
+					bestSheet.parts = append(bestSheet.parts, placedShape{shape: p.shape, deg: p.o.rot, mirror: p.o.mirrored, t: p.t})
+				}
+			}
+		}
+		bestSheet.stock = k
+		return bestSheet, steps
+	}
+	if best != nil && !best.stopped {
+		j.improve(best, j.steps, 0, repack)
 	}
 	return best
 }
@@ -280,7 +318,7 @@ func (j *job) better(a, b *layout) bool {
 // result turns a layout by shapes into placements of parts: the parts of
 // a shape take its places in index order, sheet by sheet.
 func (j *job) result(l *layout) *Result {
-	res := &Result{Method: l.method}
+	res := &Result{Ordering: l.method}
 	next := make([]int, len(j.shapes))
 	take := func(si int) (int, geom.Vec2) {
 		k := next[si]

@@ -2,6 +2,7 @@ package nest
 
 import (
 	"context"
+	"fmt"
 	"math"
 
 	"pqfab/geom"
@@ -115,7 +116,7 @@ type Result struct {
 	Stocks      []StockUse
 	PartAreaMM2 float64 // all parts, placed or not
 	Cost        float64
-	Method      string // the method whose layout won
+	Ordering    string // the method (and order of the parts) whose layout won
 	Steps       int    // search steps taken
 	Stopped     bool   // the context ended the search before its steps were used up
 }
@@ -180,4 +181,9 @@ func NestWith(ctx context.Context, parts []Part, stocks []Stock, opt Options) (*
 
 func (s Stock) usableArea() float64 {
 	return (s.WidthMM - 2*s.MarginMM) * (s.HeightMM - 2*s.MarginMM)
+}
+
+// Describe returns a one-line summary of a stock size.
+func (s Stock) Describe() string {
+	return fmt.Sprintf("%s %g × %g mm", s.Name, s.WidthMM, s.HeightMM)
 }

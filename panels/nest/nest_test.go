@@ -331,7 +331,7 @@ func TestRandomConvex(t *testing.T) {
 			t.Errorf("used %d of %d %s sheets", u.Sheets, stocks[u.Stock].Count, stocks[u.Stock].Name)
 		}
 	}
-	t.Logf("%d sheets (%s), cost %g, stocks %+v", total, r.Method, r.Cost, r.Stocks)
+	t.Logf("%d sheets (%s), cost %g, stocks %+v", total, r.Ordering, r.Cost, r.Stocks)
 }
 
 // TestCountLimit: when stock runs out the rest is unplaced, with reason.

@@ -1,6 +1,9 @@
 package nest
 
-import "math"
+import (
+	"math"
+	"slices"
+)
 
 // The free-piece driver fills sheet after sheet with the free-piece packer
 // (guillotine.go) and its search (sheetsearch.go): for each new sheet it
@@ -10,9 +13,9 @@ import "math"
 
 // Search settings of the free-piece driver.
 const (
-	maxSheetSteps = 1500 // steps of the search for one sheet, at most
-	searchBranch  = 6    // moves tried per step
-	searchLook    = 6    // moves looked at per step
+	maxSheetSteps = 3000 // steps of the search for one sheet, at most
+	searchBranch  = 12   // moves tried per step
+	searchLook    = 12   // moves looked at per step
 	searchOrders  = 2    // orders of cuts tried per move
 	allShapes     = 128  // up to this many shapes, the packer looks at all of them
 	pieceWindow   = 32   // for more, it looks at this many: the first with parts left
@@ -59,9 +62,10 @@ func (j *job) runPieces(fitsSome []bool, budget int) *layout {
 			lay.stopped = true
 			budget = 0
 		}
-		// Share what is left of the budget among the sheets still to come.
+		// Share half of what is left of the budget among the sheets still
+		// to come; the rest is for the improvement phase.
 		est := math.Max(1, math.Ceil(leftArea/most)) * float64(len(j.stocks))
-		per := int(math.Min(maxSheetSteps, float64(budget)/est))
+		per := int(math.Min(float64(maxSheetSteps), float64(budget)/2/est))
 		var best *gState
 		bestStock, bestScore := -1, math.Inf(-1)
 		for k, st := range j.stocks {
@@ -88,19 +92,35 @@ func (j *job) runPieces(fitsSome []bool, budget int) *layout {
 		if sheetsLeft[bestStock] > 0 {
 			sheetsLeft[bestStock]--
 		}
-		ls := layoutSheet{stock: bestStock, area: best.area, cuts: best.cuts}
-		for _, p := range best.placed {
-			ls.parts = append(ls.parts, placedShape{shape: p.shape, deg: p.deg(), mirror: p.mirror, t: p.t})
+		ls := sheetOf(bestStock, best)
+		for _, p := range ls.parts {
 			left[p.shape]--
 			leftArea -= j.shapes[p.shape].area
 			partsLeft--
 		}
 		lay.sheets = append(lay.sheets, ls)
 	}
+	repack := func(pool []int, k, b int) (layoutSheet, int) {
+		saved := slices.Clone(left)
+		copy(left, pool)
+		s, n := packers[k].fillSheet(b, searchBranch, searchLook, searchOrders, j.ctx)
+		copy(left, saved)
+		return sheetOf(k, s), n
+	}
+	j.improve(lay, budget, maxSheetSteps, repack)
 	for si := range j.shapes {
 		for ; left[si] > 0; left[si]-- {
 			lay.unplaced = append(lay.unplaced, unplacedShape{si, ReasonNoStock})
 		}
 	}
 	return lay
+}
+
+// sheetOf turns a free-piece packer's sheet into a layout sheet.
+func sheetOf(k int, s *gState) layoutSheet {
+	ls := layoutSheet{stock: k, area: s.area, cuts: s.cuts}
+	for _, p := range s.placed {
+		ls.parts = append(ls.parts, placedShape{shape: p.shape, deg: p.deg(), mirror: p.mirror, t: p.t})
+	}
+	return ls
 }

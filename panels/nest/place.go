@@ -57,9 +57,7 @@ func nOrientations(sh *shape, s Stock, extra []float64) []nOrient {
 				add(q - e.deg)
 			}
 		}
-		for _, a := range extra {
-			angles = append(angles, a)
-		}
+		angles = append(angles, extra...)
 	} else {
 		angles = fixedTurns[s.Rotation]
 	}

@@ -29,6 +29,7 @@ type shape struct {
 	perim     float64
 	hullPerim float64
 	minW      float64 // least width over all directions (of the hull)
+	diam      float64 // greatest distance between two corners
 	parts     []int   // the parts of this shape, in index order
 	starts    []geom.Vec2
 	key       []float64 // ordering key: rounded area, perimeter, sorted edge lengths
@@ -107,6 +108,11 @@ func newShape(poly geom.Polygon) *shape {
 	s.pieces = convexParts(poly)
 	s.convex = poly.Convex()
 	s.minW = minWidth(s.hull)
+	for i, a := range s.hull {
+		for _, b := range s.hull[i+1:] {
+			s.diam = max(s.diam, b.Sub(a).Norm())
+		}
+	}
 	r := func(v float64) float64 { return math.Round(v / orderResMM) }
 	var edges []float64
 	for i := range poly {

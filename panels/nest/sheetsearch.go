@@ -39,14 +39,18 @@ type sheetSearch struct {
 	dive      bool    // the first descent: no budget applies
 	expanded  int     // states worked out
 	ctx       context.Context
+	bs        []branch // scratch of expand
+	tr        turned   // scratch of expand
 }
 
 // ctxEvery: the search looks at its context every this many steps.
 const ctxEvery = 64
 
 // wasteSteps are the shares of the sheet (or of the parts left, when they
-// do not fill it) that the search allows to go unused, one after another.
-var wasteSteps = []float64{0, 0.02, 0.05, 0.1, 0.2, 1}
+// do not fill it) that the search allows to go unused, one after another,
+// each with its share of the search's steps: most go to a sheet without
+// waste.
+var wasteSteps = [...]struct{ waste, steps float64 }{{0, 0.6}, {0.03, 0.2}, {1, 0.2}}
 
 // maxDiscrepancy bounds the discrepancies of the search.
 const maxDiscrepancy = 60
@@ -62,8 +66,13 @@ type gKid struct {
 	st    *gState
 	shape int
 	m     gMove
-	tr    *turned
 	order []int
+}
+
+// branch is a move with an order of cuts, while a node is expanded.
+type branch struct {
+	m    gMove
+	plan cutPlan
 }
 
 // fillSheet searches a layout for one sheet and returns it with the steps
@@ -86,13 +95,17 @@ func (g *gPacker) fillSheet(budget, branch, look, orders int, ctx context.Contex
 	s.dfs(root, 0)
 	s.dive = false
 	budget -= s.expanded
-	for i, w := range wasteSteps {
-		s.target = full * (1 - w)
+	shares := 0.0
+	for _, w := range wasteSteps {
+		shares += w.steps
+	}
+	for _, w := range wasteSteps {
+		s.target = full * (1 - w.waste)
 		if s.reached() {
 			break
 		}
-		// Each step gets an equal share of what is left; the last gets the rest.
-		s.budget = budget / (len(wasteSteps) - i)
+		s.budget = int(float64(budget) * w.steps / shares)
+		shares -= w.steps
 		budget -= s.budget
 		for d := 0; s.budget > 0 && s.visits > 0 && !s.reached() && d <= maxDiscrepancy; d++ {
 			s.exhausted = true
@@ -165,7 +178,7 @@ func (s *sheetSearch) dfs(st *gState, disc int) {
 		if k.st == nil {
 			if k.shape >= 0 {
 				s.g.left[k.shape]--
-				k.st = s.g.child(st, st.pick, k.m, k.tr, k.order, s.g.minArea())
+				k.st = s.g.child(st, st.pick, k.m, s.g.placed(k.m), k.order, s.g.minArea())
 				s.g.left[k.shape]++
 			} else {
 				c := &gState{placed: st.placed, cuts: st.cuts, area: st.area}
@@ -200,7 +213,7 @@ func (s *sheetSearch) expand(st *gState) {
 		if !ok {
 			continue
 		}
-		st.room += pc.area
+		st.room += s.room(pc)
 		n := 0
 		for _, mm := range pc.moves {
 			if s.g.left[mm.shape] > 0 {
@@ -217,12 +230,7 @@ func (s *sheetSearch) expand(st *gState) {
 	pc := &st.pieces[pick]
 	// The best few moves by score, each with its best orders of cuts,
 	// tried least waste first.
-	type branch struct {
-		m    gMove
-		tr   *turned
-		plan cutPlan
-	}
-	var bs []branch
+	bs := s.bs[:0]
 	looked := 0
 	for _, m := range pc.moves {
 		if s.g.left[m.shape] == 0 {
@@ -235,19 +243,59 @@ func (s *sheetSearch) expand(st *gState) {
 		s.g.left[m.shape]--
 		minArea := s.g.minArea()
 		s.g.left[m.shape]++
-		tr := s.g.placed(m)
+		tr := s.g.placedInto(&s.tr, m)
 		for _, p := range s.g.cutOrders(pc, tr, needCuts(pc, tr), minArea, s.orders) {
-			bs = append(bs, branch{m, tr, p})
+			bs = append(bs, branch{m, p})
 		}
 	}
 	slices.SortStableFunc(bs, func(a, b branch) int { return cmp.Compare(a.plan.waste, b.plan.waste) })
 	if len(bs) > s.branch {
 		bs = bs[:s.branch]
 	}
+	s.bs = bs
 	st.pick = pick
+	st.kids = make([]gKid, 0, len(bs)+1)
 	for _, b := range bs {
-		st.kids = append(st.kids, gKid{shape: b.m.shape, m: b.m, tr: b.tr, order: b.plan.order})
+		st.kids = append(st.kids, gKid{shape: b.m.shape, m: b.m, order: b.plan.order})
 	}
 	// Last, leave the piece empty.
 	st.kids = append(st.kids, gKid{shape: -1})
+}
+
+// room returns how much part area a free piece can take at most: its
+// area, or when it can hold no more than two parts (by the area of the
+// smallest part that fits it), the largest area of one or two parts that
+// fit it one by one.
+func (s *sheetSearch) room(pc *freePiece) float64 {
+	least := math.Inf(1)
+	for _, m := range pc.moves {
+		if s.g.left[m.shape] > 0 {
+			least = min(least, s.g.shapes[m.shape].area)
+		}
+	}
+	if pc.area >= 3*least {
+		return pc.area
+	}
+	// Parts may reach fitSlackMM past the piece.
+	tol := 2 * fitSlackMM * (pc.hi.X - pc.lo.X + pc.hi.Y - pc.lo.Y) * 2
+	var best float64
+	for i, m := range pc.moves {
+		if s.g.left[m.shape] == 0 {
+			continue
+		}
+		a := s.g.shapes[m.shape].area
+		if a > pc.area+tol {
+			continue
+		}
+		best = max(best, a)
+		for _, n := range pc.moves[i:] {
+			if s.g.left[n.shape] == 0 || (n.shape == m.shape && s.g.left[m.shape] < 2) {
+				continue
+			}
+			if b := a + s.g.shapes[n.shape].area; b <= pc.area+tol {
+				best = max(best, b)
+			}
+		}
+	}
+	return min(best, pc.area)
 }
