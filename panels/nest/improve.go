@@ -102,6 +102,5 @@ func (j *job) improve(lay *layout, budget, per int, repack repacker) int {
 			clear(tried)
 		}
 	}
-	lay.steps += used
 	return used
 }

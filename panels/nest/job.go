@@ -44,13 +44,19 @@ type unplacedShape struct {
 	reason string
 }
 
-// layout is a method's answer, by shapes.
+// layout is a method's answer, by shapes, with what its improvement
+// phase needs: the method's repacker, the steps it may still take and at
+// most how many for one sheet.
 type layout struct {
 	sheets   []layoutSheet
 	unplaced []unplacedShape
 	method   string
 	steps    int
 	stopped  bool
+
+	repack    repacker
+	budget    int
+	perRepack int
 }
 
 func newJob(ctx context.Context, parts []Part, stocks []Stock, steps int) *job {
@@ -180,6 +186,7 @@ func (j *job) run() *Result {
 		}()
 	}
 	wg.Wait()
+	// The improvement phase works on the better layout only.
 	var best *layout
 	steps, stopped := 0, false
 	for _, l := range lays {
@@ -191,6 +198,10 @@ func (j *job) run() *Result {
 		if best == nil || j.better(l, best) {
 			best = l
 		}
+	}
+	if !best.stopped && best.repack != nil {
+		steps += j.improve(best, best.budget, best.perRepack, best.repack)
+		stopped = stopped || best.stopped
 	}
 	best.unplaced = append(best.unplaced, base.unplaced...)
 	res := j.result(best)
@@ -281,9 +292,7 @@ func (j *job) runOrders(fitsSome []bool) *layout {
 		bestSheet.stock = k
 		return bestSheet, steps
 	}
-	if best != nil && !best.stopped {
-		j.improve(best, j.steps, 0, repack)
-	}
+	best.repack, best.budget, best.perRepack = repack, j.steps, j.steps
 	return best
 }
 

@@ -13,7 +13,8 @@ import (
 
 // Search settings of the free-piece driver.
 const (
-	maxSheetSteps = 3000 // steps of the search for one sheet, at most
+	maxSheetSteps = 8000 // steps of the search for one sheet, at most
+	repackSteps   = 3000 // the same in the improvement phase
 	searchBranch  = 12   // moves tried per step
 	searchLook    = 12   // moves looked at per step
 	searchOrders  = 2    // orders of cuts tried per move
@@ -62,10 +63,10 @@ func (j *job) runPieces(fitsSome []bool, budget int) *layout {
 			lay.stopped = true
 			budget = 0
 		}
-		// Share half of what is left of the budget among the sheets still
-		// to come; the rest is for the improvement phase.
+		// Share what is left of the budget among the sheets still to come;
+		// what they leave is for the improvement phase.
 		est := math.Max(1, math.Ceil(leftArea/most)) * float64(len(j.stocks))
-		per := int(math.Min(float64(maxSheetSteps), float64(budget)/2/est))
+		per := int(math.Min(maxSheetSteps, float64(budget)/est))
 		var best *gState
 		bestStock, bestScore := -1, math.Inf(-1)
 		for k, st := range j.stocks {
@@ -107,7 +108,7 @@ func (j *job) runPieces(fitsSome []bool, budget int) *layout {
 		copy(left, saved)
 		return sheetOf(k, s), n
 	}
-	j.improve(lay, budget, maxSheetSteps, repack)
+	lay.repack, lay.budget, lay.perRepack = repack, max(budget, 0), repackSteps
 	for si := range j.shapes {
 		for ; left[si] > 0; left[si]-- {
 			lay.unplaced = append(lay.unplaced, unplacedShape{si, ReasonNoStock})
