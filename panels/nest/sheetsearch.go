@@ -46,11 +46,11 @@ type sheetSearch struct {
 // ctxEvery: the search looks at its context every this many steps.
 const ctxEvery = 64
 
-// wasteSteps are the shares of the sheet (or of the parts left, when they
-// do not fill it) that the search allows to go unused, one after another,
-// each with its share of the search's steps: most go to a sheet without
-// waste.
-var wasteSteps = [...]struct{ waste, steps float64 }{{0, 0.6}, {0.03, 0.2}, {1, 0.2}}
+// wasteSteps are the waste the search allows, one after another, as
+// shares of the waste of the first descent (the path of best moves), each
+// with its share of the search's steps: most go to a sheet without waste,
+// the rest to closing the gap to it by thirds.
+var wasteSteps = []struct{ waste, steps float64 }{{0, 0.6}, {0.3, 0.15}, {0.6, 0.15}, {1, 0.1}}
 
 // maxDiscrepancy bounds the discrepancies of the search.
 const maxDiscrepancy = 60
@@ -96,11 +96,12 @@ func (g *gPacker) fillSheet(budget, branch, look, orders int, ctx context.Contex
 	s.dive = false
 	budget -= s.expanded
 	shares := 0.0
+	dive := s.best.area
 	for _, w := range wasteSteps {
 		shares += w.steps
 	}
 	for _, w := range wasteSteps {
-		s.target = full * (1 - w.waste)
+		s.target = full - w.waste*(full-dive)
 		if s.reached() {
 			break
 		}
