@@ -1,6 +1,7 @@
 package nest
 
 import (
+	"math"
 	"slices"
 
 	"pqfab/geom"
@@ -61,8 +62,14 @@ type cutPlan struct {
 // beyond it, it builds one order cut by cut.
 const maxPermuted = 3
 
-// cutOrders returns up to max orders of the needed cuts, least waste
-// first, then largest free pieces.
+// flatRes: cuts whose directions' y components (sines of their slopes)
+// agree to this are equally flat.
+const flatRes = 1e-6
+
+// cutOrders returns up to max orders of the needed cuts: least waste
+// first, then those that begin with the flattest cut (along the sheet's
+// x axis, as glass is first cut into strips across the sheet), then
+// those that leave the largest free pieces.
 func (g *gPacker) cutOrders(pc *freePiece, tr *turned, need []int, minArea float64, max int) []cutPlan {
 	// far returns the usable area beyond cut i of what is left (use), and
 	// what is left on the part's side, in scratch memory: in g.cbuf[1] or
@@ -92,10 +99,13 @@ func (g *gPacker) cutOrders(pc *freePiece, tr *turned, need []int, minArea float
 		use := pc.use
 		rest := slices.Clone(need)
 		for len(rest) > 0 && use != nil {
-			bi, ba := 0, -1.0
+			bi, ba := 0, math.Inf(-1)
 			for k, i := range rest {
-				if ar, _ := far(use, i); ar > ba {
-					bi, ba = k, ar
+				// The flattest cut first, then the one that leaves the
+				// largest piece.
+				ar, _ := far(use, i)
+				if key := ar/(ar+1) - 2*math.Round(math.Abs(tr.e[i].d.Y)/flatRes); key > ba {
+					bi, ba = k, key
 				}
 			}
 			i := rest[bi]
@@ -123,10 +133,15 @@ func (g *gPacker) cutOrders(pc *freePiece, tr *turned, need []int, minArea float
 		plans = append(plans, p)
 	})
 	slices.SortStableFunc(plans, func(a, b cutPlan) int {
+		ha, hb := math.Abs(tr.e[a.order[0]].d.Y), math.Abs(tr.e[b.order[0]].d.Y)
 		switch {
 		case a.waste < b.waste:
 			return -1
 		case a.waste > b.waste:
+			return 1
+		case math.Round(ha/flatRes) < math.Round(hb/flatRes):
+			return -1
+		case math.Round(ha/flatRes) > math.Round(hb/flatRes):
 			return 1
 		case a.score > b.score:
 			return -1
