@@ -79,6 +79,9 @@ func (g *gPacker) cutOrders(pc *freePiece, tr *turned, need []int, minArea float
 		var ar float64
 		if f := clipInto(g.cbuf[0], use, e.n.Scale(-1), -e.n.Dot(e.a)+g.stock.SpacingMM); f != nil {
 			ar = f.Area()
+			if useCanHold && ar >= minArea && !g.canHold(f, ar) {
+				ar = -ar // no part fits it: waste
+			}
 		}
 		dst := g.cbuf[1]
 		if len(use) > 0 && len(dst) > 0 && &use[0] == &dst[0] {
@@ -87,9 +90,12 @@ func (g *gPacker) cutOrders(pc *freePiece, tr *turned, need []int, minArea float
 		return ar, clipInto(dst, use, e.n, e.n.Dot(e.a))
 	}
 	tally := func(p *cutPlan, ar float64) {
-		if ar >= minArea {
+		switch {
+		case ar < 0:
+			p.waste -= ar
+		case ar >= minArea:
 			p.score += ar * ar
-		} else {
+		default:
 			p.waste += ar
 		}
 	}
@@ -104,6 +110,7 @@ func (g *gPacker) cutOrders(pc *freePiece, tr *turned, need []int, minArea float
 				// The flattest cut first, then the one that leaves the
 				// largest piece.
 				ar, _ := far(use, i)
+				ar = math.Abs(ar)
 				if key := ar/(ar+1) - 2*math.Round(math.Abs(tr.e[i].d.Y)/flatRes); key > ba {
 					bi, ba = k, key
 				}
@@ -216,4 +223,39 @@ func (g *gPacker) child(st *gState, k int, m gMove, tr *turned, order []int, min
 		c.pieces[i].moves = g.cachedMoves(&c.pieces[i])
 	}
 	return c
+}
+
+var useCanHold = true
+
+// canHold reports whether some shape in the window with parts left may
+// fit convex polygon p of the given area: it is no larger, no wider at its
+// narrowest and no longer (necessary, not sufficient).
+func (g *gPacker) canHold(p geom.Polygon, area float64) bool {
+	minW, diam := math.Inf(1), 0.0
+	for i, a := range p {
+		b := p[(i+1)%len(p)]
+		d := b.Sub(a)
+		l := d.Norm()
+		if l == 0 {
+			continue
+		}
+		n := d.Perp().Scale(1 / l)
+		h := 0.0
+		for _, v := range p {
+			h = max(h, n.Dot(v.Sub(a)))
+			diam = max(diam, v.Sub(a).Norm())
+		}
+		minW = min(minW, h)
+	}
+	tol := 2 * fitSlackMM
+	for _, si := range g.window {
+		sh := g.shapes[si]
+		if g.left[si] == 0 || (g.convex && !sh.convex) {
+			continue
+		}
+		if sh.area <= area+tol*sh.hullPerim && sh.minW <= minW+tol && sh.diam <= diam+tol {
+			return true
+		}
+	}
+	return false
 }

@@ -69,6 +69,7 @@ type gWeights struct {
 	fit  float64 // share of the part's hull perimeter on the piece's edges
 	fill float64 // part area / piece area
 	size float64 // part area / usable sheet area
+	tall float64 // the part's height over the piece edge it lies on / the piece's
 }
 
 // gPacker places the parts of the shapes on sheets of one stock.
@@ -256,8 +257,8 @@ func (g *gPacker) bestMove(pc *freePiece, si int) (gMove, bool) {
 	}
 	tr := &g.tmp
 	base := g.w.fill*sh.area/pc.area + g.w.size*sh.area/g.usable
-	consider := func(m bool, c, s float64, t geom.Vec2) {
-		sc := g.w.fit*contact(tr.e, t, pc.ue, contactTolMM)/sh.hullPerim + base
+	consider := func(m bool, c, s float64, t geom.Vec2, tall float64) {
+		sc := g.w.fit*contact(tr.e, t, pc.ue, contactTolMM)/sh.hullPerim + base + g.w.tall*tall
 		lo := t.Add(tr.lo)
 		if !found || sc > best.score || (sc == best.score && lowerLeft(lo, bestLo)) {
 			best, bestLo, found = gMove{shape: si, mirror: m, c: c, s: s, t: t, score: sc}, lo, true
@@ -270,7 +271,7 @@ func (g *gPacker) bestMove(pc *freePiece, si int) (gMove, bool) {
 				s, c := turn(a)
 				turnInto(tr, h, he, c, s)
 				for _, t := range positions(&g.fit, tr, pc) {
-					consider(m, c, s, t)
+					consider(m, c, s, t, 0)
 				}
 			}
 			continue
@@ -325,9 +326,10 @@ func (g *gPacker) bestMove(pc *freePiece, si int) (gMove, bool) {
 			support(tr, pc, &g.low)
 			for _, p := range group {
 				if t0, t1, ok := flush(tr, p.i, pc, p.j, g.low); ok {
-					consider(m, c, s, t0)
+					tall := he[p.i].h / pc.ue[p.j].h
+					consider(m, c, s, t0, tall)
 					if t1 != t0 {
-						consider(m, c, s, t1)
+						consider(m, c, s, t1, tall)
 					}
 				}
 			}
@@ -336,7 +338,7 @@ func (g *gPacker) bestMove(pc *freePiece, si int) (gMove, bool) {
 			s, c := turn(a)
 			turnInto(tr, h, he, c, s)
 			for _, t := range positions(&g.fit, tr, pc) {
-				consider(m, c, s, t)
+				consider(m, c, s, t, 0)
 			}
 		}
 	}

@@ -23,7 +23,7 @@ const (
 )
 
 // pieceWeights weigh the move score of the free-piece packer.
-var pieceWeights = gWeights{fit: 1, fill: 1, size: 1}
+var pieceWeights = gWeights{fit: 1, fill: 1, size: 1, tall: 1}
 
 // runPieces nests the parts that fit some stock with the free-piece
 // packer, spending at most budget search steps.
