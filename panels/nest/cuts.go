@@ -79,7 +79,7 @@ func (g *gPacker) cutOrders(pc *freePiece, tr *turned, need []int, minArea float
 		var ar float64
 		if f := clipInto(g.cbuf[0], use, e.n.Scale(-1), -e.n.Dot(e.a)+g.stock.SpacingMM); f != nil {
 			ar = f.Area()
-			if useCanHold && ar >= minArea && !g.canHold(f, ar) {
+			if ar >= minArea && !g.canHold(f, ar) {
 				ar = -ar // no part fits it: waste
 			}
 		}
@@ -225,29 +225,40 @@ func (g *gPacker) child(st *gState, k int, m gMove, tr *turned, order []int, min
 	return c
 }
 
-var useCanHold = true
-
 // canHold reports whether some shape in the window with parts left may
 // fit convex polygon p of the given area: it is no larger, no wider at its
 // narrowest and no longer (necessary, not sufficient).
 func (g *gPacker) canHold(p geom.Polygon, area float64) bool {
-	minW, diam := math.Inf(1), 0.0
+	tol := 2 * fitSlackMM
+	// Cheapest first: some shape no larger.
+	some := false
+	for _, si := range g.window {
+		if sh := g.shapes[si]; g.left[si] > 0 && sh.area <= area+tol*sh.hullPerim && (!g.convex || sh.convex) {
+			some = true
+			break
+		}
+	}
+	if !some {
+		return false
+	}
+	minW, diam2 := math.Inf(1), 0.0
 	for i, a := range p {
 		b := p[(i+1)%len(p)]
-		d := b.Sub(a)
-		l := d.Norm()
+		dx, dy := b.X-a.X, b.Y-a.Y
+		l := math.Sqrt(dx*dx + dy*dy)
 		if l == 0 {
 			continue
 		}
-		n := d.Perp().Scale(1 / l)
+		nx, ny := -dy/l, dx/l
 		h := 0.0
 		for _, v := range p {
-			h = max(h, n.Dot(v.Sub(a)))
-			diam = max(diam, v.Sub(a).Norm())
+			wx, wy := v.X-a.X, v.Y-a.Y
+			h = max(h, nx*wx+ny*wy)
+			diam2 = max(diam2, wx*wx+wy*wy)
 		}
 		minW = min(minW, h)
 	}
-	tol := 2 * fitSlackMM
+	diam := math.Sqrt(diam2)
 	for _, si := range g.window {
 		sh := g.shapes[si]
 		if g.left[si] == 0 || (g.convex && !sh.convex) {

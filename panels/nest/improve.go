@@ -56,7 +56,8 @@ func (j *job) improve(lay *layout, budget, per int, repack repacker) int {
 		kept := false
 		partners := 0
 		for _, s := range idx {
-			if s == w {
+			// A full sheet cannot take more.
+			if s == w || lay.sheets[s].area >= j.stocks[lay.sheets[s].stock].usableArea()*(1-gainTol) {
 				continue
 			}
 			if budget-used <= 0 || partners == maxPartners {

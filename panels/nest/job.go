@@ -267,9 +267,9 @@ func (j *job) runOrders(fitsSome []bool) *layout {
 	}
 	// The improvement phase repacks pairs of sheets by each ordering in
 	// turn and keeps the sheet with the most part area; filling a sheet
-	// with n parts costs n²/4 steps (its work grows with the square of the
-	// parts, and so it takes about as long as that many search steps of
-	// the free-piece packer).
+	// with n parts costs n² steps (its work grows with the square of the
+	// parts; a step takes about as long as a search step of the free-piece
+	// packer or longer).
 	repack := func(pool []int, k, _ int) (layoutSheet, int) {
 		var bestSheet layoutSheet
 		steps := 0
@@ -280,7 +280,7 @@ func (j *job) runOrders(fitsSome []bool) *layout {
 					order = append(order, si)
 				}
 			}
-			steps += max(1, len(order)*len(order)/4)
+			steps += max(1, len(order)*len(order))
 			st, _ := fill(info, j.stocks[k], k, order, make([]bool, len(order)), 0)
 			if st.area > bestSheet.area {
 				bestSheet = layoutSheet{stock: k, area: st.area}

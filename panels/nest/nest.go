@@ -132,7 +132,7 @@ type Options struct {
 // DefaultSteps is the search effort when Options.Steps is 0: about two
 // seconds for ten thousand panels on jumbo glass sheets on a 2-core
 // machine of 2026, and less than a second for a hundred parts.
-const DefaultSteps = 15000
+const DefaultSteps = 60000
 
 // maxSteps bounds Options.Steps.
 const maxSteps = 1e9
