@@ -1,6 +1,7 @@
 package nest
 
 import (
+	"context"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -130,7 +131,7 @@ func TestEdgeToEdgeRandom(t *testing.T) {
 	}
 	for _, rot := range []Rotation{Free, Quarter, Grain} {
 		stocks := []Stock{{Name: "float", WidthMM: 3210, HeightMM: 2250, MarginMM: 15, SpacingMM: 4, Rotation: rot, Cuts: EdgeToEdge}}
-		r, err := Nest(parts, stocks)
+		r, err := NestWith(context.Background(), parts, stocks, Options{Steps: 8000})
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -1,6 +1,7 @@
 package nest
 
 import (
+	"context"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -316,7 +317,7 @@ func TestRandomConvex(t *testing.T) {
 		{Name: "small", WidthMM: 2000, HeightMM: 1500, MarginMM: 15, SpacingMM: 6, Rotation: Free, Price: 40},
 		{Name: "large", WidthMM: 3210, HeightMM: 2250, MarginMM: 20, SpacingMM: 6, Rotation: Quarter, Mirror: true, Price: 90, Count: 5},
 	}
-	r, err := Nest(parts, stocks)
+	r, err := NestWith(context.Background(), parts, stocks, Options{Steps: 8000})
 	if err != nil {
 		t.Fatal(err)
 	}

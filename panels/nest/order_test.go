@@ -1,6 +1,7 @@
 package nest
 
 import (
+	"context"
 	"fmt"
 	"math"
 	"math/rand/v2"
@@ -75,7 +76,7 @@ func TestSameStructureSameAnswer(t *testing.T) {
 		}},
 	}
 	for _, tc := range cases {
-		base, err := Nest(tc.parts, tc.stocks)
+		base, err := NestWith(context.Background(), tc.parts, tc.stocks, Options{Steps: 10000})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -84,7 +85,7 @@ func TestSameStructureSameAnswer(t *testing.T) {
 		for seed := uint64(1); seed <= 2; seed++ {
 			shuffled := slices.Clone(tc.parts)
 			rand.New(rand.NewPCG(seed, 99)).Shuffle(len(shuffled), func(i, j int) { shuffled[i], shuffled[j] = shuffled[j], shuffled[i] })
-			r, err := Nest(shuffled, tc.stocks)
+			r, err := NestWith(context.Background(), shuffled, tc.stocks, Options{Steps: 10000})
 			if err != nil {
 				t.Fatal(err)
 			}
