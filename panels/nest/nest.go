@@ -129,9 +129,9 @@ type Options struct {
 	Steps int
 }
 
-// DefaultSteps is the search effort when Options.Steps is 0: about two
-// seconds for ten thousand panels on jumbo glass sheets on a 2-core
-// machine of 2026, and less than a second for a hundred parts.
+// DefaultSteps is the search effort when Options.Steps is 0: on a 2-core
+// machine of 2026 about two seconds for ten thousand panels on jumbo
+// glass sheets, and up to a second or two for a hundred parts.
 const DefaultSteps = 60000
 
 // maxSteps bounds Options.Steps.

@@ -109,7 +109,7 @@ func strictlyInside(p geom.Polygon, lo, hi geom.Vec2, v geom.Vec2, tol float64) 
 	for i := range p {
 		a, b := p[i], p[(i+1)%k]
 		e := b.Sub(a)
-		if e.Cross(v.Sub(a)) <= tol*e.Norm() {
+		if e.Cross(v.Sub(a)) <= tol*math.Sqrt(e.X*e.X+e.Y*e.Y) {
 			return false
 		}
 	}

@@ -168,13 +168,13 @@ func (st *sheetState) place(o *nOrient, bound *score) (geom.Vec2, score, bool) {
 	cands = cands[:0]
 	for k := range nfps {
 		for l := k + 1; l < len(nfps); l++ {
-			lox, loy := math.Max(nlo[k].X, nlo[l].X), math.Max(nlo[k].Y, nlo[l].Y)
-			hix, hiy := math.Min(nhi[k].X, nhi[l].X), math.Min(nhi[k].Y, nhi[l].Y)
+			lox, loy := max(nlo[k].X, nlo[l].X), max(nlo[k].Y, nlo[l].Y)
+			hix, hiy := min(nhi[k].X, nhi[l].X), min(nhi[k].Y, nhi[l].Y)
 			if lox > hix || loy > hiy || lox > ihi.X || hix < ilo.X || loy > ihi.Y || hiy < ilo.Y {
 				continue
 			}
 			if bound != nil {
-				y, x := math.Max(loy, ilo.Y), math.Max(lox, ilo.X)
+				y, x := max(loy, ilo.Y), max(lox, ilo.X)
 				lb := score{band: st.band(o, y), right: x + o.hi.X, top: y + o.hi.Y}
 				if !lb.less(*bound) {
 					continue
@@ -185,12 +185,12 @@ func (st *sheetState) place(o *nOrient, bound *score) (geom.Vec2, score, bool) {
 			f, g := nfps[k], nfps[l]
 			for i := range f {
 				p, q := f[i], f[(i+1)%len(f)]
-				if math.Max(p.X, q.X) < lox || math.Min(p.X, q.X) > hix || math.Max(p.Y, q.Y) < loy || math.Min(p.Y, q.Y) > hiy {
+				if max(p.X, q.X) < lox || min(p.X, q.X) > hix || max(p.Y, q.Y) < loy || min(p.Y, q.Y) > hiy {
 					continue
 				}
 				for m := range g {
 					a, b := g[m], g[(m+1)%len(g)]
-					if math.Max(a.X, b.X) < lox || math.Min(a.X, b.X) > hix || math.Max(a.Y, b.Y) < loy || math.Min(a.Y, b.Y) > hiy {
+					if max(a.X, b.X) < lox || min(a.X, b.X) > hix || max(a.Y, b.Y) < loy || min(a.Y, b.Y) > hiy {
 						continue
 					}
 					cands = lineHits(cands, p, q, a, b)
@@ -219,7 +219,7 @@ func (st *sheetState) firstFree(o *nOrient, cands []geom.Vec2, ilo, ihi geom.Vec
 		if c.X < ilo.X-touchTol || c.X > ihi.X+touchTol || c.Y < ilo.Y-touchTol || c.Y > ihi.Y+touchTol {
 			continue
 		}
-		c = geom.Vec2{X: math.Min(math.Max(c.X, ilo.X), ihi.X), Y: math.Min(math.Max(c.Y, ilo.Y), ihi.Y)}
+		c = geom.Vec2{X: min(max(c.X, ilo.X), ihi.X), Y: min(max(c.Y, ilo.Y), ihi.Y)}
 		sc := st.score(o, c)
 		if (found || bound != nil) && !sc.less(bestScore) {
 			continue
