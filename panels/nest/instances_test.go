@@ -154,9 +154,9 @@ var glassSheets = []Stock{
 	{Name: "split", WidthMM: 3210, HeightMM: 2250, Rotation: Free},
 }
 
-// loadOptBins returns the parts of each bin of the published optimum, each
-// moved to start at its lowest corner (placement undone).
-func loadOptBins(tb testing.TB, name string) [][]Part {
+// loadOptBins returns the pieces of each bin of the published optimum
+// where they lie in the bin.
+func loadOptBins(tb testing.TB, name string) [][]geom.Polygon {
 	tb.Helper()
 	path := filepath.Join("testdata", "convex-bins", "OpT"+name+".txt")
 	b, err := os.ReadFile(path)
@@ -178,10 +178,10 @@ func loadOptBins(tb testing.TB, name string) [][]Part {
 		}
 	}
 	nb := int(rows[0][0])
-	var out [][]Part
+	var out [][]geom.Polygon
 	k := 2
 	for b := 0; b < nb; b++ {
-		var bin []Part
+		var bin []geom.Polygon
 		for i := 0; i < int(rows[0][1+b]); i++ {
 			r := rows[k]
 			k++
@@ -192,8 +192,7 @@ func loadOptBins(tb testing.TB, name string) [][]Part {
 			if !p.CCW() {
 				p = p.Reversed()
 			}
-			lo, _ := p.Bounds()
-			bin = append(bin, Part{Label: fmt.Sprintf("%s-b%d-%d", name, b+1, i+1), Outline: p.Translate(geom.Vec2{X: -lo.X, Y: -lo.Y})})
+			bin = append(bin, p)
 		}
 		out = append(out, bin)
 	}

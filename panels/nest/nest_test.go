@@ -452,3 +452,62 @@ func TestExactFit(t *testing.T) {
 		t.Errorf("too wide: unplaced %+v", r.Unplaced)
 	}
 }
+
+// TestCheckerOnOptima: the checker accepts the published optimal layouts
+// of a few convex-bins instances (Terashima-Marín et al. 2010, OpT files,
+// testdata/README.md), whose pieces tile their bins exactly and so touch
+// along whole edges, and finds an overlap wherever a piece is moved 0.1 mm
+// into its neighbours.
+func TestCheckerOnOptima(t *testing.T) {
+	for _, name := range []string{"A001", "E001", "P001"} {
+		in := loadBinInstance(t, name)
+		stocks := []Stock{{Name: "bin", WidthMM: in.widthMM, HeightMM: in.heightMM, Rotation: Free}}
+		var parts []Part
+		r := &Result{}
+		for _, bin := range loadOptBins(t, name) {
+			sh := Sheet{}
+			for _, p := range bin {
+				lo, _ := p.Bounds()
+				parts = append(parts, Part{Label: name, Outline: p.Translate(geom.Vec2{X: -lo.X, Y: -lo.Y})})
+				sh.Placements = append(sh.Placements, Placement{Part: len(parts) - 1, X: lo.X, Y: lo.Y, Outline: p})
+				sh.PartAreaMM2 += p.Area()
+			}
+			sh.Utilization = sh.PartAreaMM2 / (in.widthMM * in.heightMM)
+			r.Sheets = append(r.Sheets, sh)
+		}
+		checkResult(t, parts, stocks, r)
+		// Moved 0.1 mm left, a piece off the bin's left edge overlaps a
+		// neighbour by more than the checker's slack.
+		moved := 0
+		for _, sh := range r.Sheets {
+			for i, pl := range sh.Placements {
+				if lo, _ := pl.Outline.Bounds(); lo.X == 0 {
+					continue
+				}
+				b := pl.Outline.Translate(geom.Vec2{X: -0.1})
+				for j, q := range sh.Placements {
+					if j != i && overlapArea(b, q.Outline) > 1e-6*b.Perimeter() {
+						moved++
+						break
+					}
+				}
+			}
+		}
+		if want := countOffLeft(r); moved != want {
+			t.Errorf("%s: %d of %d pieces overlap a neighbour when moved 0.1 mm left", name, moved, want)
+		}
+	}
+}
+
+// countOffLeft counts the placed parts that do not touch x = 0.
+func countOffLeft(r *Result) int {
+	n := 0
+	for _, sh := range r.Sheets {
+		for _, pl := range sh.Placements {
+			if lo, _ := pl.Outline.Bounds(); lo.X != 0 {
+				n++
+			}
+		}
+	}
+	return n
+}
