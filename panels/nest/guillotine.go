@@ -380,9 +380,9 @@ func support(tr *turned, pc *freePiece, low *[]float64) {
 func flush(tr *turned, i int, pc *freePiece, j int, low []float64) (geom.Vec2, geom.Vec2, bool) {
 	f := &pc.ue[j]
 	t0 := f.a.Sub(tr.e[i].a)
-	s0, s1, ok := flushSpan(pc, j, t0, low, 0)
+	s0, s1, ok := flushSpan(tr, pc, j, t0, low, 0)
 	if !ok {
-		if s0, s1, ok = flushSpan(pc, j, t0, low, fitSlackMM); !ok {
+		if s0, s1, ok = flushSpan(tr, pc, j, t0, low, fitSlackMM); !ok {
 			return t0, t0, false
 		}
 		s0 = (s0 + s1) / 2
@@ -395,7 +395,7 @@ func flush(tr *turned, i int, pc *freePiece, j int, low []float64) (geom.Vec2, g
 // direction is below this are taken as parallel to it.
 const parallelCos = 1e-12
 
-func flushSpan(pc *freePiece, j int, t0 geom.Vec2, low []float64, slack float64) (float64, float64, bool) {
+func flushSpan(tr *turned, pc *freePiece, j int, t0 geom.Vec2, low []float64, slack float64) (float64, float64, bool) {
 	f := &pc.ue[j]
 	lo, hi := math.Inf(-1), math.Inf(1)
 	for k := range pc.ue {
@@ -418,7 +418,25 @@ func flushSpan(pc *freePiece, j int, t0 geom.Vec2, low []float64, slack float64)
 			return lo, hi, false
 		}
 	}
-	if math.IsInf(lo, 0) || math.IsInf(hi, 0) {
+	// The piece's bounding box too: where the piece ends in a sharp corner
+	// the slack of its edges would let a part reach farther out than the
+	// slack.
+	for _, c := range [4]struct{ q, r float64 }{
+		{f.d.X, pc.lo.X - slack - t0.X - tr.lo.X},
+		{-f.d.X, -(pc.hi.X + slack - t0.X - tr.hi.X)},
+		{f.d.Y, pc.lo.Y - slack - t0.Y - tr.lo.Y},
+		{-f.d.Y, -(pc.hi.Y + slack - t0.Y - tr.hi.Y)},
+	} {
+		switch {
+		case c.q > parallelCos:
+			lo = max(lo, c.r/c.q)
+		case c.q < -parallelCos:
+			hi = min(hi, c.r/c.q)
+		case c.r > 0:
+			return 0, 0, false
+		}
+	}
+	if lo > hi || math.IsInf(lo, 0) || math.IsInf(hi, 0) {
 		return lo, hi, false
 	}
 	return lo, hi, true
