@@ -11,6 +11,7 @@
 package pqfab
 
 import (
+	"context"
 	"pqfab/export"
 	"pqfab/internal/job"
 	"pqfab/internal/pipeline"
@@ -37,8 +38,9 @@ type Policy = pipeline.Policy
 func ParseJob(data []byte, file string) (*Job, error) { return job.Parse(data, file) }
 
 // Run runs a job; open reads the net (pipeline.OpenFile reads from disk).
-func Run(j *Job, open Opener, obs Observer, pol Policy) (*Result, error) {
-	return pipeline.Run(j, open, obs, pol)
+// A deadline on ctx stops the nesting's search early (with a warning).
+func Run(ctx context.Context, j *Job, open Opener, obs Observer, pol Policy) (*Result, error) {
+	return pipeline.Run(ctx, j, open, obs, pol)
 }
 
 // Write writes every output of a result into the folder dir, atomically,

@@ -220,6 +220,19 @@ type SheetRow struct {
 	Rotation    string         `json:"rotation"` // free, quarter or grain (the grain runs along x)
 	Utilization float64        `json:"utilization"`
 	Placements  []PlacementRow `json:"placements"`
+	// Cuts are the straight cuts that release every part (stock with
+	// edge-to-edge cuts only), in cutting order: cut i splits piece
+	// Piece (0 the whole sheet) into pieces 2i+1, left of From→To, and
+	// 2i+2, right of it; each runs from edge to edge of its piece.
+	Cuts        []SheetCutRow `json:"cuts,omitempty"`
+	CutLengthMM float64       `json:"cut_length_mm,omitempty"`
+}
+
+// SheetCutRow is one cut of a sheet's cutting sequence (mm).
+type SheetCutRow struct {
+	Piece int        `json:"piece"`
+	From  [2]float64 `json:"from_mm"`
+	To    [2]float64 `json:"to_mm"`
 }
 
 // PlacementRow is one part on a sheet.

@@ -99,6 +99,10 @@ func BuildReport(b *Bundle) *Report {
 			st := b.Stocks[sh.Stock]
 			row := SheetRow{Name: SheetName(si, len(nr.Sheets)), Stock: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM,
 				MarginMM: st.MarginMM, Rotation: string(st.Rotation), Utilization: r(sh.Utilization, 4)}
+			for _, c := range sh.Cuts {
+				row.Cuts = append(row.Cuts, SheetCutRow{Piece: c.Piece, From: [2]float64{r(c.From.X, 3), r(c.From.Y, 3)}, To: [2]float64{r(c.To.X, 3), r(c.To.Y, 3)}})
+			}
+			row.CutLengthMM = r(sh.CutLengthMM, lenDigits)
 			for _, p := range sh.Placements {
 				row.Placements = append(row.Placements, PlacementRow{Panel: b.Flats[p.Part].Label, X: r(p.X, lenDigits), Y: r(p.Y, lenDigits),
 					RotationDeg: r(p.RotationDeg, angleDigits), Mirrored: p.Mirrored, Outline: points(p.Outline)})

@@ -17,6 +17,7 @@ const (
 	LayerPartMark    = "PQ-PART-MARK"    // corner 1 (a ring) and the edge numbers of every part
 	LayerBevel       = "PQ-BEVEL"        // the bevel of each edge, as text along the edge
 	LayerGrain       = "PQ-GRAIN"        // grain direction arrows (stock with rotation "grain")
+	LayerCutOrder    = "PQ-CUT-ORDER"    // glass: the straight cuts in cutting order, each numbered at its middle
 )
 
 // WriteSheetDXF writes one stock sheet as a cut sheet in mm: the sheet
@@ -33,7 +34,7 @@ const (
 func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
 	layers := []dxfLayer{{LayerSheetEdge, color.Grey128, nil}, {LayerSheetMargin, color.Cyan, nil},
 		{LayerCut, color.Red, nil}, {LayerEngrave, color.Green, nil}, {LayerPartMark, color.Magenta, nil}, {LayerBevel, color.Yellow, nil},
-		{LayerGrain, color.Blue, nil}, {LayerTitle, color.White, nil}}
+		{LayerGrain, color.Blue, nil}, {LayerCutOrder, color.Magenta, nil}, {LayerTitle, color.White, nil}}
 	return writeDXF(w, layers, 0, func(d *dxfDoc) error { return drawSheet(d, rep, sheet) })
 }
 
@@ -101,7 +102,25 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 			})
 		}
 	}
+	if len(s.Cuts) > 0 {
+		add(func() error { return useLayer(d, LayerCutOrder) })
+		for i, c := range s.Cuts {
+			add(func() error {
+				if _, err := d.Line(c.From[0], c.From[1], 0, c.To[0], c.To[1], 0); err != nil {
+					return err
+				}
+				mx, my := (c.From[0]+c.To[0])/2, (c.From[1]+c.To[1])/2
+				return text(d, fmt.Sprint(i+1), mx, my, 0, 40, 0)
+			})
+		}
+	}
 	add(func() error { return useLayer(d, LayerTitle) })
+	if len(s.Cuts) > 0 {
+		add(func() error {
+			return text(d, fmt.Sprintf("%d straight cuts edge to edge, %s m, in the numbered order (layer %s)", len(s.Cuts), fixed(s.CutLengthMM/1000, 3), LayerCutOrder),
+				s.WidthMM/2, -240, 0, 20, 0)
+		})
+	}
 	add(func() error {
 		return text(d, fmt.Sprintf("%s  %s  %s %g x %g mm  %d parts  %.1f %%", rep.Title, s.Name, s.Stock, s.WidthMM, s.HeightMM, len(s.Placements), 100*s.Utilization),
 			s.WidthMM/2, -60, 0, 30, 0)

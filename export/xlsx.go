@@ -96,19 +96,23 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 		{SheetMemberTypes, memberTypeHead, memberTypeRows(rep)},
 		{SheetNodeTypes, nodeTypeHead, nodeTypeRows(rep)},
 		{SheetPanelTypes, panelTypeHead(rep), panelTypeRows(rep)},
-		{SheetSheets, []string{"Sheet", "Stock", "Width (mm)", "Height (mm)", "Parts", "Utilization (%)", "Panels"},
+		{SheetSheets, []string{"Sheet", "Stock", "Width (mm)", "Height (mm)", "Parts", "Utilization (%)", "Cuts", "Cut length (m)", "Panels"},
 			func(add func(row ...any) error) error {
 				for _, s := range rep.Sheets {
 					var labels []string
 					for _, p := range s.Placements {
 						labels = append(labels, p.Panel)
 					}
-					if err := add(s.Name, s.Stock, s.WidthMM, s.HeightMM, len(s.Placements), r(100*s.Utilization, 2), strings.Join(labels, " ")); err != nil {
+					var cuts, cutM any
+					if len(s.Cuts) > 0 {
+						cuts, cutM = len(s.Cuts), r(s.CutLengthMM/1000, 3)
+					}
+					if err := add(s.Name, s.Stock, s.WidthMM, s.HeightMM, len(s.Placements), r(100*s.Utilization, 2), cuts, cutM, strings.Join(labels, " ")); err != nil {
 						return err
 					}
 				}
 				for _, u := range rep.Unplaced {
-					if err := add("unplaced", u.Reason, nil, nil, 1, nil, u.Panel); err != nil {
+					if err := add("unplaced", u.Reason, nil, nil, 1, nil, nil, nil, u.Panel); err != nil {
 						return err
 					}
 				}

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"context"
 	"errors"
 	"flag"
 	"fmt"
@@ -17,6 +18,7 @@ import (
 type buildFlags struct {
 	out                string
 	quiet, cont, force bool
+	nestSeconds        float64
 }
 
 func (bf *buildFlags) register(fs *flag.FlagSet) {
@@ -24,6 +26,7 @@ func (bf *buildFlags) register(fs *flag.FlagSet) {
 	fs.BoolVar(&bf.quiet, "q", false, "no progress bars")
 	fs.BoolVar(&bf.cont, "continue", false, "build even when some panels miss the flatness tolerance or fit no sheet")
 	fs.BoolVar(&bf.force, "force", false, "replace an existing output folder that pqfab did not write")
+	fs.Float64Var(&bf.nestSeconds, "nest-seconds", -1, "stop the nesting search after this many seconds (default: the job's nesting.seconds; 0: no limit)")
 }
 
 // parseBuild parses the flags of build or demo.
@@ -76,12 +79,15 @@ func build(j *job.Job, open pipeline.Opener, keep []string, bf buildFlags, stdou
 	defer stop()
 	defer tmp.Done() // waits for a signal handler that has begun: it exits
 	opt := export.WriteOptions{Force: bf.force, Keep: keep, OnTemp: tmp.Set}
-	rep, err := pipeline.Build(j, open, bf.out, opt, pipeline.Policy{Continue: bf.cont}, obs)
+	if bf.nestSeconds >= 0 {
+		j.Nesting.Seconds = bf.nestSeconds // the flag overrides the job
+	}
+	rep, err := pipeline.Build(context.Background(), j, open, bf.out, opt, pipeline.Policy{Continue: bf.cont}, obs)
 	var pf *pipeline.PlanarityFailure
 	switch {
 	case errors.As(err, &pf):
 		return obs.attach(fmt.Errorf("%v; nothing built (diagnostic report: %s; --continue builds anyway)", err, pf.Path))
-	case errors.Is(err, pipeline.ErrUnplaced):
+	case errors.Is(err, pipeline.ErrUnplaced), errors.Is(err, pipeline.ErrMembersUnplaced):
 		return obs.attach(fmt.Errorf("%w; add a larger or more stock, or --continue lists them as unplaced", err))
 	case err != nil:
 		return obs.attach(err)

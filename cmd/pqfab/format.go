@@ -29,20 +29,18 @@ func show(w io.Writer, asJSON bool, v interface{ WriteText(io.Writer) }) error {
 // so that a *geom.FieldError from an options Validate names the flag.
 type fieldFlags map[string]string
 
-// float registers a float flag for the option field at p (its value now
-// is the default).
+// float, text and integer register a flag for the option field at p
+// (its value now is the default).
 func (m fieldFlags) float(fs *flag.FlagSet, p *float64, name, field, usage string) {
 	fs.Float64Var(p, name, *p, usage)
 	m[field] = name
 }
 
-// text registers a text flag for the option field at p.
 func (m fieldFlags) text(fs *flag.FlagSet, p *string, name, field, usage string) {
 	fs.StringVar(p, name, *p, usage)
 	m[field] = name
 }
 
-// integer registers a whole-number flag for the option field at p.
 func (m fieldFlags) integer(fs *flag.FlagSet, p *int, name, field, usage string) {
 	fs.IntVar(p, name, *p, usage)
 	m[field] = name

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"context"
 	"fmt"
 	"io"
 	"strconv"
@@ -52,18 +53,15 @@ func runNest(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	sum, worst, err := pipeline.NestNet(in, mat, []nest.Stock{stock}, *bay)
+	sum, worst, err := pipeline.NestNet(context.Background(), in, mat, []nest.Stock{stock}, *bay)
 	if err != nil {
 		return err
 	}
 	if worst > panels.DefaultFlatTolMM {
 		fmt.Fprintf(stderr, "pqfab: warning: panels are up to %.2f mm off flat; outlines are their projections (run planarize first)\n", worst)
 	}
-	if err := show(stdout, *asJSON, sum); err != nil {
+	if err := show(stdout, *asJSON, sum); err != nil || len(sum.Unplaced) == 0 {
 		return err
 	}
-	if n := len(sum.Unplaced); n > 0 {
-		return fmt.Errorf("%d of %d panels fit no sheet (listed above)", n, sum.Parts)
-	}
-	return nil
+	return fmt.Errorf("%d of %d panels fit no sheet (listed above)", len(sum.Unplaced), sum.Parts)
 }

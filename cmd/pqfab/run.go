@@ -5,6 +5,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+
 	"pqfab/export"
 )
 
@@ -61,14 +62,11 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) error {
 }
 
 func printUsage(w io.Writer) {
-	fmt.Fprintln(w, "pqfab: fabrication data for planar-quad gridshells")
-	fmt.Fprintln(w, "\nUsage: pqfab COMMAND [options]")
-	fmt.Fprintln(w, "\nCommands:")
+	fmt.Fprint(w, "pqfab: fabrication data for planar-quad gridshells\n\nUsage: pqfab COMMAND [options]\n\nCommands:\n")
 	for _, c := range commands() {
 		fmt.Fprintf(w, "  %-10s %-22s %s\n", c.name, c.args, c.help)
 	}
-	fmt.Fprintln(w, "\nRun `pqfab COMMAND -h` for a command's options.")
-	fmt.Fprintln(w, "\nCaution: "+export.Caution)
+	fmt.Fprint(w, "\nRun `pqfab COMMAND -h` for a command's options.\n\nCaution: "+export.Caution+"\n")
 }
 
 // newFlags returns a flag set that reports errors instead of exiting.

@@ -80,3 +80,25 @@ func TestTurnedOverPanels(t *testing.T) {
 	readBack(t, "readback_types.py", out)
 	readBack(t, "readback_dxf.py", out)
 }
+
+// TestGlassCutsReplay: on glass stock whose parts must come free by
+// straight cuts from edge to edge, every sheet's cutting sequence is
+// replayed with shapely (replay_cuts.py): each cut splits one uncut piece
+// edge to edge, crosses no part, and every part comes free whole and
+// alone; the schedule's Sheets sheet gives each sheet's cuts.
+func TestGlassCutsReplay(t *testing.T) {
+	dir := t.TempDir()
+	if _, _, err := runCmd(t, "sample", "dome", "--panels", "80", "-o", filepath.Join(dir, "d.obj")); err != nil {
+		t.Fatal(err)
+	}
+	job := "[net]\nfile = \"d.obj\"\n[panel]\nedge_inset_mm = 5\n[[stock]]\nname = \"float\"\nwidth_mm = 3210\nheight_mm = 2250\nmargin_mm = 10\nspacing_mm = 4\ncuts = \"edge-to-edge\"\n"
+	if err := os.WriteFile(filepath.Join(dir, "job.toml"), []byte(job), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out := filepath.Join(dir, "out")
+	if _, _, err := runCmd(t, "build", "-q", filepath.Join(dir, "job.toml"), "-o", out); err != nil {
+		t.Fatal(err)
+	}
+	readBack(t, "replay_cuts.py", out)
+	readBack(t, "readback_dxf.py", out)
+}

@@ -23,6 +23,7 @@ type Job struct {
 	Panel    Panel    `toml:"panel"`
 	Types    Types    `toml:"types"`
 	Stock    []Stock  `toml:"stock"`
+	Nesting  Nesting  `toml:"nesting"`
 	Bar      []Bar    `toml:"bar"`
 	Rates    *Rates   `toml:"rates"`
 	// PanelType overrides the panel specification for named panel types.
@@ -121,7 +122,17 @@ type Stock struct {
 	Mirror    bool    `toml:"mirror"`
 	Count     int     `toml:"count"`
 	Price     float64 `toml:"price"`
+	Cuts      string  `toml:"cuts"` // "" (any cuts) or "edge-to-edge" (glass: every cut across the whole piece)
 }
+
+// Nesting is the [nesting] table: how hard the nesting searches.
+type Nesting struct {
+	Steps   int     `toml:"steps"`   // search effort; the layout depends on it, never on the clock
+	Seconds float64 `toml:"seconds"` // 0: no time limit; else the search stops after this long
+}
+
+// NestOptions returns the nesting's search options.
+func (j *Job) NestOptions() nest.Options { return nest.Options{Steps: j.Nesting.Steps} }
 
 // Rates is the optional [rates] table.
 type Rates struct {
@@ -153,11 +164,12 @@ const (
 // Limits on what a job may ask for: beyond them a value is a mistake and
 // the outputs would overflow.
 const (
-	MaxStocks    = 100   // [[stock]] tables, and [[bar]] tables
-	MaxRate      = 1e9   // any rate or price
-	MaxTextLen   = 1000  // title, names, material (characters)
-	MaxSupports  = 1e6   // node ids in supports.nodes
-	MaxTypeSpecs = 10000 // [[panel_type]] tables
+	MaxStocks      = 100     // [[stock]] tables, and [[bar]] tables
+	MaxRate        = 1e9     // any rate or price
+	MaxTextLen     = 1000    // title, names, material (characters)
+	MaxSupports    = 1e6     // node ids in supports.nodes
+	MaxTypeSpecs   = 10000   // [[panel_type]] tables
+	MaxNestSeconds = 86400.0 // nesting.seconds: a day
 )
 
 // defaults returns a job with every default set.
@@ -170,6 +182,7 @@ func defaults(file string) *Job {
 		Nodes:    Nodes{Axis: string(nodes.AxisLeastTwist), BayMM: geom.DefaultBaySizeMM},
 		Member:   Member{Material: "glulam", WidthMM: nodes.DefaultSectionWidthMM, DepthMM: nodes.DefaultSectionDepthMM, DensityKgM3: DefaultMemberDensityKgM3},
 		Panel:    Panel{Material: "float glass", ThicknessMM: panels.DefaultThicknessMM, DensityKgM3: panels.DefaultDensityKgM3},
+		Nesting:  Nesting{Steps: nest.DefaultSteps},
 		Types:    Types{LengthTolMM: nodes.DefaultTypeLengthTolMM, AngleTolDeg: nodes.DefaultTypeAngleTolDeg, PanelTolMM: panels.DefaultTypeTolMM},
 	}
 }
@@ -248,7 +261,7 @@ func (j *Job) Stocks() []nest.Stock {
 	out := make([]nest.Stock, len(j.Stock))
 	for i, s := range j.Stock {
 		out[i] = nest.Stock{Name: s.Name, WidthMM: s.WidthMM, HeightMM: s.HeightMM, MarginMM: s.MarginMM, SpacingMM: s.SpacingMM,
-			Rotation: nest.Rotation(s.Rotation), Mirror: s.Mirror, Count: s.Count, Price: s.Price}
+			Rotation: nest.Rotation(s.Rotation), Mirror: s.Mirror, Count: s.Count, Price: s.Price, Cuts: nest.CutRule(s.Cuts)}
 	}
 	return out
 }
@@ -268,7 +281,8 @@ var (
 	panelTypeKeys = map[string]string{"TolMM": "types.panel_tol_mm", "AngleTolDeg": "types.angle_tol_deg"}
 	validateKeys  = map[string]string{"CoincidentTolMM": "net.merge_tol_mm"}
 	stockKeys     = map[string]string{"Name": "name", "WidthMM": "width_mm", "HeightMM": "height_mm", "MarginMM": "margin_mm",
-		"SpacingMM": "spacing_mm", "Rotation": "rotation", "Mirror": "mirror", "Count": "count", "Price": "price"}
+		"SpacingMM": "spacing_mm", "Rotation": "rotation", "Mirror": "mirror", "Count": "count", "Price": "price", "Cuts": "cuts"}
+	nestKeys = map[string]string{"Steps": "nesting.steps"}
 )
 
 // fieldErr turns a *geom.FieldError into an error naming the job key
@@ -346,6 +360,12 @@ func (j *Job) check() error {
 	}
 	if err := j.checkStocks(); err != nil {
 		return err
+	}
+	if err := j.fieldErr(j.NestOptions().Validate(), nestKeys, ""); err != nil {
+		return err
+	}
+	if sec := j.Nesting.Seconds; !(sec >= 0) || sec > MaxNestSeconds {
+		return j.Errorf("nesting.seconds", "%g must be between 0 (no time limit) and %g", sec, MaxNestSeconds)
 	}
 	if err := j.checkBars(); err != nil {
 		return err

@@ -1,6 +1,7 @@
 package pipeline
 
 import (
+	"context"
 	"encoding/json"
 	"errors"
 	"fmt"
@@ -21,7 +22,7 @@ func DiagnosticPath(dir string) string { return filepath.Clean(dir) + "-planarit
 // missed and pol.Continue is false it writes only the diagnostic report
 // and returns the *PlanarityFailure with Path set. A successful build
 // removes a stale diagnostic report that pqfab wrote for dir earlier.
-func Build(j *job.Job, open Opener, dir string, opt export.WriteOptions, pol Policy, obs Observer) (*export.Report, error) {
+func Build(ctx context.Context, j *job.Job, open Opener, dir string, opt export.WriteOptions, pol Policy, obs Observer) (*export.Report, error) {
 	diag := DiagnosticPath(dir)
 	diagOpt := export.WriteOptions{Force: opt.Force, Keep: opt.Keep}
 	if err := export.CheckFolder(dir, opt); err != nil {
@@ -30,7 +31,7 @@ func Build(j *job.Job, open Opener, dir string, opt export.WriteOptions, pol Pol
 	if err := export.CheckFiles(diagOpt, diag); err != nil {
 		return nil, err
 	}
-	res, err := Run(j, open, obs, pol)
+	res, err := Run(ctx, j, open, obs, pol)
 	var pf *PlanarityFailure
 	if errors.As(err, &pf) {
 		pf.Path = diag

@@ -1,6 +1,7 @@
 package pipeline_test
 
 import (
+	"context"
 	"fmt"
 	"io"
 	"io/fs"
@@ -39,7 +40,7 @@ height_mm = 2250
 		fmt.Println(err)
 		return
 	}
-	res, err := pipeline.Run(j, open, pipeline.Quiet{}, pipeline.Policy{})
+	res, err := pipeline.Run(context.Background(), j, open, pipeline.Quiet{}, pipeline.Policy{})
 	if err != nil {
 		fmt.Println(err)
 		return

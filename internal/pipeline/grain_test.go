@@ -1,6 +1,7 @@
 package pipeline_test
 
 import (
+	"context"
 	"fmt"
 	"io"
 	"io/fs"
@@ -50,7 +51,7 @@ mirror = true
 	if err != nil {
 		t.Fatal(err)
 	}
-	res, err := pipeline.Run(j, open, pipeline.Quiet{}, pipeline.Policy{})
+	res, err := pipeline.Run(context.Background(), j, open, pipeline.Quiet{}, pipeline.Policy{})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -1,17 +1,19 @@
 package pipeline
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"math"
 	"path/filepath"
-	"pqfab/nodes/bars"
 	"strings"
+	"time"
 
 	"pqfab/export"
 	"pqfab/geom"
 	"pqfab/internal/job"
 	"pqfab/nodes"
+	"pqfab/nodes/bars"
 	"pqfab/panels"
 	"pqfab/panels/nest"
 )
@@ -78,7 +80,12 @@ var (
 // Run runs job j: it reads the net through open, checks and planarizes it,
 // computes nodes, members, panels and types, and nests the panels. Errors
 // name the file, the line and the element or job key.
-func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
+//
+// ctx, and the job's nesting.seconds when not 0, bound the nesting's
+// search in time: when either ends, the search stops early and a warning
+// says so (the layout then depends on the machine;
+// without a deadline it depends only on the job).
+func Run(ctx context.Context, j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 	res := &Result{Job: j, NetPath: j.NetPath(), Stocks: j.Stocks()}
 	warn := func(msg string) {
 		res.Warnings = append(res.Warnings, msg)
@@ -169,9 +176,18 @@ func Run(j *job.Job, open Opener, obs Observer, pol Policy) (*Result, error) {
 		}
 	}
 
-	res.Nesting, err = Nest(Parts(res.Flats), res.Flats, res.Stocks, obs)
+	if j.Nesting.Seconds > 0 {
+		var cancel context.CancelFunc
+		ctx, cancel = context.WithTimeout(ctx, time.Duration(j.Nesting.Seconds*float64(time.Second)))
+		defer cancel()
+	}
+	res.Nesting, err = Nest(ctx, Parts(res.Flats), res.Flats, res.Stocks, j.NestOptions(), obs)
 	if err != nil {
 		return nil, err
+	}
+	if res.Nesting.Stopped {
+		warn(fmt.Sprintf("the nesting search was stopped by its time limit after %d of its %d steps: this layout depends on the machine's speed; without a time limit it depends only on the job",
+			res.Nesting.Steps, j.NestOptions().Steps))
 	}
 	if un := res.Nesting.Unplaced; len(un) > 0 {
 		u := un[0]

@@ -1,6 +1,7 @@
 package pipeline
 
 import (
+	"context"
 	"fmt"
 	"math"
 
@@ -54,12 +55,13 @@ func Parts(flats []panels.Flat) []nest.Part {
 	return parts
 }
 
-// Nest places the parts (made by Parts from flats) on the stock sheets,
-// reporting to obs as stage "nest". Placement turns are given for the
-// panels' own cut outlines.
-func Nest(parts []nest.Part, flats []panels.Flat, stocks []nest.Stock, obs Observer) (*nest.Result, error) {
+// Nest places the parts (made by Parts from flats) on the stock sheets
+// with the search options opt, reporting to obs as stage "nest"; when ctx
+// ends, the search stops early (Result.Stopped). Placement turns are given
+// for the panels' own cut outlines.
+func Nest(ctx context.Context, parts []nest.Part, flats []panels.Flat, stocks []nest.Stock, opt nest.Options, obs Observer) (*nest.Result, error) {
 	obs.Step("nest", 0, 1, fmt.Sprintf("nest: %d panels on %d stock sizes", len(parts), len(stocks)))
-	res, err := nest.Nest(parts, stocks)
+	res, err := nest.NestWith(ctx, parts, stocks, opt)
 	obs.Step("nest", 1, 1, "nest: done")
 	if err != nil {
 		return nil, err

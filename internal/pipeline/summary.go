@@ -1,6 +1,7 @@
 package pipeline
 
 import (
+	"context"
 	"fmt"
 	"math"
 	"sort"
@@ -221,7 +222,7 @@ func SummarizeNest(res *nest.Result, stocks []nest.Stock, parts []nest.Part) *Ne
 // panels by bays of bayMM, lays them flat in material mat and nests them
 // on stocks. worstMM is the panels' largest flatness deviation: above the
 // flatness tolerance the outlines are only projections of warped panels.
-func NestNet(in *Loaded, mat panels.Material, stocks []nest.Stock, bayMM float64) (sum *NestSummary, worstMM float64, err error) {
+func NestNet(ctx context.Context, in *Loaded, mat panels.Material, stocks []nest.Stock, bayMM float64) (sum *NestSummary, worstMM float64, err error) {
 	bays, err := geom.NewBays(in.Net.Positions(), bayMM, bayMM)
 	if err != nil {
 		return nil, 0, err
@@ -235,7 +236,7 @@ func NestNet(in *Loaded, mat panels.Material, stocks []nest.Stock, bayMM float64
 		worstMM = math.Max(worstMM, f.FlatnessMM)
 	}
 	parts := Parts(flats)
-	res, err := Nest(parts, flats, stocks, Quiet{})
+	res, err := Nest(ctx, parts, flats, stocks, nest.Options{}, Quiet{})
 	if err != nil {
 		return nil, 0, err
 	}

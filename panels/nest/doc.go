@@ -1,9 +1,26 @@
-// Package nest places flat outlines on stock sheets: no-fit polygons of
-// convex outlines (their hulls for non-convex parts), bottom-left
-// placement, a few part orderings, and the cheapest mix of stock sizes
-// that fits. It knows nothing about 3D.
+// Package nest places flat outlines on stock sheets. It knows nothing about
+// 3D.
+//
+// Two methods lay the parts out and the better layout wins (fewer parts
+// unplaced, then lower cost, then less sheet area):
+//
+//   - The free-piece packer (guillotine.go, cuts.go, sheetsearch.go,
+//     pack.go) fills one sheet at a time by a tree search: each part goes
+//     flush into a corner of a convex piece of the sheet and is cut free
+//     along its edges, each cut straight across the whole piece it splits.
+//     Its layouts are the ones stocks with edge-to-edge cuts (float and
+//     laminated glass) need, and it also serves other stocks.
+//   - The no-fit polygon driver (place.go, fill.go) places parts by their
+//     true outlines (split into convex pieces), bottom-left, in a few
+//     orders of the parts; a part may lie in the notch of another.
+//
+// An improvement phase (improve.go) then tries to empty the worst sheets
+// by laying their parts onto others. The effort is counted in steps
+// (Options.Steps), never in time: the same input gives the same layout,
+// whatever the machine; a context deadline only stops the search early,
+// and the result says so.
 //
 // Lengths are millimetres in the sheet's frame: x along the sheet's width,
-// y along its height, origin at the lower-left corner. Rotations are
-// degrees, counter-clockwise.
+// y along its height, origin at the lower-left corner. Outlines run
+// counter-clockwise. Rotations are degrees, counter-clockwise.
 package nest

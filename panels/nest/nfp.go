@@ -65,25 +65,39 @@ func nfp(a, b geom.Polygon) geom.Polygon {
 }
 
 // inflate moves every edge of a convex counter-clockwise polygon outward
-// by d, keeping mitred corners: the result contains every point within d
-// of the polygon.
+// by d, keeping mitred corners where they reach no farther than
+// chamferRatio·d from the corner and cutting sharper corners square to
+// their bisector at distance d: either way the result contains every point
+// within d of the polygon.
 func inflate(p geom.Polygon, d float64) geom.Polygon {
 	if d == 0 {
 		return p
 	}
 	k := len(p)
-	out := make(geom.Polygon, k)
+	out := make(geom.Polygon, 0, k)
 	for i := range p {
 		prev, cur, next := p[(i+k-1)%k], p[i], p[(i+1)%k]
-		n1 := cur.Sub(prev).Perp().Scale(-1 / cur.Sub(prev).Norm())
-		n2 := next.Sub(cur).Perp().Scale(-1 / next.Sub(cur).Norm())
+		e1 := cur.Sub(prev).Scale(1 / cur.Sub(prev).Norm())
+		e2 := next.Sub(cur).Scale(1 / next.Sub(cur).Norm())
+		n1, n2 := e1.Perp().Scale(-1), e2.Perp().Scale(-1)
 		bis := n1.Add(n2)
 		// Offset along the bisector so both edges move by d.
 		c := bis.Dot(n1)
-		out[i] = cur.Add(bis.Scale(d / c))
+		if m := bis.Scale(d / c); m.Norm() <= chamferRatio*d {
+			out = append(out, cur.Add(m))
+			continue
+		}
+		u := bis.Scale(1 / bis.Norm())
+		s := d * (1 - u.Dot(n1)) / u.Dot(e1)
+		r := d * (1 - u.Dot(n2)) / u.Dot(e2)
+		out = append(out, cur.Add(n1.Scale(d)).Add(e1.Scale(s)), cur.Add(n2.Scale(d)).Add(e2.Scale(r)))
 	}
 	return out
 }
+
+// chamferRatio: inflate cuts corners whose mitre would reach farther than
+// this many offsets from the corner (corners sharper than a right angle).
+const chamferRatio = math.Sqrt2
 
 // strictlyInside reports whether v lies inside convex counter-clockwise p
 // by more than tol from every edge.
@@ -95,7 +109,7 @@ func strictlyInside(p geom.Polygon, lo, hi geom.Vec2, v geom.Vec2, tol float64) 
 	for i := range p {
 		a, b := p[i], p[(i+1)%k]
 		e := b.Sub(a)
-		if e.Cross(v.Sub(a)) <= tol*e.Norm() {
+		if e.Cross(v.Sub(a)) <= tol*math.Sqrt(e.X*e.X+e.Y*e.Y) {
 			return false
 		}
 	}

@@ -1,0 +1,100 @@
+"""Replay the glass cutting sequence of every cut sheet with shapely (a
+general-purpose geometry library from Debian's python3-shapely), written
+independently of pqfab's nesting code.
+
+For each sheets/*.dxf (read with Debian's python3-ezdxf) whose stock cuts
+edge to edge: start from the sheet; take the cuts on layer PQ-CUT-ORDER in
+their numbered order; each cut must split a piece that exists and has not
+been split before (nothing is cut twice) into exactly two pieces, running
+from edge to edge of it (both ends on its boundary), and must not enter a
+part. At the end every part (layer PQ-CUT) must lie inside one final
+piece, alone (every part released whole). The cuts must also be the ones
+report.json lists, with the same pieces.
+
+Usage: replay_cuts.py OUTPUT_FOLDER
+"""
+import glob
+import json
+import os
+import sys
+
+import ezdxf
+from shapely.geometry import LineString, Polygon
+from shapely.ops import split
+
+TOL = 1e-3  # mm
+# Part outlines are written to 0.01 mm and a cut may run along a part's
+# edge (glass is scored on the edge): a part's inside is taken 0.02 mm in.
+PART_TOL = 0.02  # mm
+
+
+def fail(msg):
+    print("FAIL:", msg)
+    sys.exit(1)
+
+
+def main(out):
+    with open(os.path.join(out, "report.json")) as f:
+        rep = json.load(f)
+    files = sorted(glob.glob(os.path.join(out, "sheets", "sheet-*.dxf")))
+    checked = 0
+    for path, sheet in zip(files, rep["sheets"]):
+        msp = ezdxf.readfile(path).modelspace()
+        lines = list(msp.query('LINE[layer=="PQ-CUT-ORDER"]'))
+        if not sheet.get("cuts"):
+            if lines:
+                fail("%s: cut lines on a sheet without cuts" % path)
+            continue
+        if len(lines) != len(sheet["cuts"]):
+            fail("%s: %d cut lines, report lists %d" % (path, len(lines), len(sheet["cuts"])))
+        numbers = [t.dxf.text for t in msp.query('TEXT[layer=="PQ-CUT-ORDER"]')]
+        if numbers != [str(i + 1) for i in range(len(lines))]:
+            fail("%s: cuts are not numbered 1 to %d in order" % (path, len(lines)))
+        edge = msp.query('LWPOLYLINE[layer=="PQ-SHEET-EDGE"]')[0]
+        pieces = {0: Polygon([p[:2] for p in edge.get_points("xy")])}
+        parts = [Polygon([p[:2] for p in e.get_points("xy")]) for e in msp.query('LWPOLYLINE[layer=="PQ-CUT"]')]
+        inner = [p.buffer(-PART_TOL) for p in parts]
+        for i, (ln, c) in enumerate(zip(lines, sheet["cuts"])):
+            a = (ln.dxf.start.x, ln.dxf.start.y)
+            b = (ln.dxf.end.x, ln.dxf.end.y)
+            if max(abs(a[0] - c["from_mm"][0]), abs(a[1] - c["from_mm"][1]), abs(b[0] - c["to_mm"][0]), abs(b[1] - c["to_mm"][1])) > 0.01:
+                fail("%s: cut %d differs from report.json" % (path, i + 1))
+            k = c["piece"]
+            if k not in pieces:
+                fail("%s: cut %d splits piece %d, which does not exist or was cut before" % (path, i + 1, k))
+            piece = pieces.pop(k)
+            seg = LineString([a, b])
+            if piece.exterior.distance(LineString([a, a])) > TOL or piece.exterior.distance(LineString([b, b])) > TOL:
+                fail("%s: cut %d does not run from edge to edge of piece %d" % (path, i + 1, k))
+            for j, p in enumerate(inner):
+                if seg.intersects(p):
+                    fail("%s: cut %d crosses part %d" % (path, i + 1, j + 1))
+            # Extend the cut a little past the piece so that it splits it
+            # cleanly despite rounding of its ends.
+            dx, dy = b[0] - a[0], b[1] - a[1]
+            n = (dx * dx + dy * dy) ** 0.5
+            ext = LineString([(a[0] - dx / n * 0.01, a[1] - dy / n * 0.01), (b[0] + dx / n * 0.01, b[1] + dy / n * 0.01)])
+            halves = [g for g in split(piece, ext).geoms if g.area > TOL]
+            if len(halves) != 2:
+                fail("%s: cut %d splits piece %d into %d pieces" % (path, i + 1, k, len(halves)))
+            left = [h for h in halves if (dx * (h.representative_point().y - a[1]) - dy * (h.representative_point().x - a[0])) > 0]
+            right = [h for h in halves if h not in left]
+            if len(left) != 1 or len(right) != 1:
+                fail("%s: cut %d: cannot tell its sides" % (path, i + 1))
+            pieces[2 * i + 1], pieces[2 * i + 2] = left[0], right[0]
+        for j, p in enumerate(parts):
+            homes = [k for k, q in pieces.items() if q.buffer(PART_TOL).contains(p)]
+            if len(homes) != 1:
+                fail("%s: part %d lies in %d final pieces" % (path, j + 1, len(homes)))
+            others = [m for m, o in enumerate(parts) if m != j and pieces[homes[0]].buffer(PART_TOL).contains(o)]
+            if others:
+                fail("%s: parts %d and %d come free together" % (path, j + 1, others[0] + 1))
+        checked += 1
+    if checked == 0:
+        fail("no sheet with cuts")
+    print("%d sheets replayed" % checked)
+    print("ok")
+
+
+if __name__ == "__main__":
+    main(sys.argv[1])
