@@ -37,6 +37,7 @@ type layoutSheet struct {
 	parts []placedShape
 	cuts  []Cut
 	area  float64
+	state *gState // the free-piece packer's sheet, with its free pieces; nil from other methods
 }
 
 type unplacedShape struct {
@@ -55,6 +56,7 @@ type layout struct {
 	stopped  bool
 
 	repack    repacker
+	insert    inserter // nil if the method cannot
 	budget    int
 	perRepack int
 }
@@ -200,7 +202,7 @@ func (j *job) run() *Result {
 		}
 	}
 	if !best.stopped && best.repack != nil {
-		steps += j.improve(best, best.budget, best.perRepack, best.repack)
+		steps += j.improve(best, best.budget, best.perRepack, best.repack, best.insert)
 		stopped = stopped || best.stopped
 	}
 	best.unplaced = append(best.unplaced, base.unplaced...)
