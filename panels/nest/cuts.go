@@ -15,7 +15,6 @@ import (
 // it changes with its parent.
 type gState struct {
 	pieces []freePiece
-	spare  []freePiece // pieces the search left empty
 	placed []gMove
 	cuts   []Cut
 	area   float64
@@ -190,7 +189,7 @@ func permute(a []int, f func([]int)) {
 // given order. Free pieces smaller than minArea are dropped as waste.
 func (g *gPacker) child(st *gState, k int, m gMove, tr *turned, order []int, minArea float64) *gState {
 	pc := &st.pieces[k]
-	c := &gState{area: st.area + g.shapes[m.shape].area, spare: st.spare}
+	c := &gState{area: st.area + g.shapes[m.shape].area}
 	c.placed = append(st.placed[:len(st.placed):len(st.placed)], m)
 	c.cuts = st.cuts[:len(st.cuts):len(st.cuts)]
 	c.pieces = make([]freePiece, 0, len(st.pieces)+len(order))

@@ -6,9 +6,7 @@ import (
 )
 
 // The improvement phase works on a finished layout to empty its worst
-// sheets. It first tries to put every part of a poorly used sheet W into
-// the room the other sheets have left (their free pieces), and drops W
-// when that succeeds. Else it takes the parts of W and of one other
+// sheets: it takes the parts of a poorly used sheet W and of one other
 // sheet S, lays as many of them as it can on S, and the rest on W. The
 // change is kept when S then holds more part area than either held before
 // and the rest fits on one sheet; W goes when nothing is left for it.
@@ -22,19 +20,13 @@ import (
 // others (the emptiest).
 const maxPartners = 8
 
-// inserter tries to put every part of sheet w into the free pieces of
-// the other sheets of lay, leaving those sheets' parts where they are; it
-// reports whether it did (and then changed the other sheets) or not (and
-// changed nothing).
-type inserter func(lay *layout, w int) bool
-
 // repacker lays the parts counted in pool (per shape) on one sheet of
 // stock k and returns the sheet and the steps it took.
 type repacker func(pool []int, k, budget int) (layoutSheet, int)
 
 // improve runs the improvement phase on lay with at most budget steps and
 // at most per steps for each sheet laid out, and returns the steps taken.
-func (j *job) improve(lay *layout, budget, per int, repack repacker, insert inserter) int {
+func (j *job) improve(lay *layout, budget, per int, repack repacker) int {
 	used := 0
 	const gainTol = 1e-9    // relative gain in part area that counts
 	tried := map[int]bool{} // positions in idx of sheets tried as W since the last change

@@ -37,7 +37,6 @@ type layoutSheet struct {
 	parts []placedShape
 	cuts  []Cut
 	area  float64
-	state *gState // the free-piece packer's sheet, with its free pieces; nil from other methods
 }
 
 type unplacedShape struct {
@@ -56,7 +55,6 @@ type layout struct {
 	stopped  bool
 
 	repack    repacker
-	insert    inserter // nil if the method cannot
 	budget    int
 	perRepack int
 }
@@ -202,7 +200,7 @@ func (j *job) run() *Result {
 		}
 	}
 	if !best.stopped && best.repack != nil {
-		steps += j.improve(best, best.budget, best.perRepack, best.repack, best.insert)
+		steps += j.improve(best, best.budget, best.perRepack, best.repack)
 		stopped = stopped || best.stopped
 	}
 	best.unplaced = append(best.unplaced, base.unplaced...)

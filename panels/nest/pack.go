@@ -1,7 +1,6 @@
 package nest
 
 import (
-	"cmp"
 	"math"
 	"slices"
 )
@@ -111,7 +110,6 @@ func (j *job) runPieces(fitsSome []bool, budget int) *layout {
 		return sheetOf(k, s), n
 	}
 	lay.repack, lay.budget, lay.perRepack = repack, min(max(budget, 0), maxRepacks*repackSteps), repackSteps
-	lay.insert = func(lay *layout, w int) bool { return j.insertPieces(lay, w, packers) }
 	for si := range j.shapes {
 		for ; left[si] > 0; left[si]-- {
 			lay.unplaced = append(lay.unplaced, unplacedShape{si, ReasonNoStock})
@@ -122,68 +120,9 @@ func (j *job) runPieces(fitsSome []bool, budget int) *layout {
 
 // sheetOf turns a free-piece packer's sheet into a layout sheet.
 func sheetOf(k int, s *gState) layoutSheet {
-	ls := layoutSheet{stock: k, area: s.area, cuts: s.cuts, state: s}
+	ls := layoutSheet{stock: k, area: s.area, cuts: s.cuts}
 	for _, p := range s.placed {
 		ls.parts = append(ls.parts, placedShape{shape: p.shape, deg: p.deg(), mirror: p.mirror, t: p.t})
 	}
 	return ls
-}
-
-// insertPieces puts every part of sheet w of lay, largest first, into the
-// free piece of another sheet where it scores best (the sheets tried
-// fullest first), cutting it free there as on any sheet. It changes lay
-// only when all of them find room.
-func (j *job) insertPieces(lay *layout, w int, packers []*gPacker) bool {
-	W := lay.sheets[w]
-	parts := slices.Clone(W.parts)
-	slices.SortStableFunc(parts, func(a, b placedShape) int { return cmp.Compare(j.shapes[b.shape].area, j.shapes[a.shape].area) })
-	order := make([]int, 0, len(lay.sheets))
-	for i := range lay.sheets {
-		if i != w && lay.sheets[i].state != nil {
-			order = append(order, i)
-		}
-	}
-	slices.SortStableFunc(order, func(a, b int) int { return cmp.Compare(lay.sheets[b].area, lay.sheets[a].area) })
-	states := make([]*gState, len(lay.sheets)) // changed sheets
-	for _, p := range parts {
-		placed := false
-		for _, i := range order {
-			st := states[i]
-			if st == nil {
-				// The pieces the search left empty are room too.
-				s := *lay.sheets[i].state
-				s.pieces = append(slices.Clone(s.pieces), s.spare...)
-				s.spare = nil
-				st = &s
-			}
-			g := packers[lay.sheets[i].stock]
-			if j.stocks[lay.sheets[i].stock].Cuts == EdgeToEdge && !j.shapes[p.shape].convex {
-				continue
-			}
-			bk, bm, found := -1, gMove{}, false
-			for k := range st.pieces {
-				if m, ok := g.bestMove(&st.pieces[k], p.shape); ok && (!found || m.score > bm.score) {
-					bk, bm, found = k, m, true
-				}
-			}
-			if !found {
-				continue
-			}
-			pc := &st.pieces[bk]
-			tr := g.placed(bm)
-			plans := g.cutOrders(pc, tr, needCuts(pc, tr), 0, 1)
-			states[i] = g.child(st, bk, bm, tr, plans[0].order, 0)
-			placed = true
-			break
-		}
-		if !placed {
-			return false
-		}
-	}
-	for i, st := range states {
-		if st != nil {
-			lay.sheets[i] = sheetOf(lay.sheets[i].stock, st)
-		}
-	}
-	return true
 }

@@ -184,7 +184,6 @@ func (s *sheetSearch) dfs(st *gState, disc int) {
 			} else {
 				c := &gState{placed: st.placed, cuts: st.cuts, area: st.area}
 				c.pieces = append(append(make([]freePiece, 0, len(st.pieces)-1), st.pieces[:st.pick]...), st.pieces[st.pick+1:]...)
-				c.spare = append(st.spare[:len(st.spare):len(st.spare)], st.pieces[st.pick])
 				k.st = c
 			}
 		}
