@@ -14,7 +14,8 @@ import (
 // Search settings of the free-piece driver.
 const (
 	maxSheetSteps = 8000 // steps of the search for one sheet, at most
-	repackSteps   = 3000 // the same in the improvement phase
+	repackSteps   = 6000 // the same in the improvement phase
+	maxRepacks    = 5    // sheets the improvement phase searches, at most
 	searchBranch  = 12   // moves tried per step
 	searchLook    = 12   // moves looked at per step
 	searchOrders  = 2    // orders of cuts tried per move
@@ -108,7 +109,7 @@ func (j *job) runPieces(fitsSome []bool, budget int) *layout {
 		copy(left, saved)
 		return sheetOf(k, s), n
 	}
-	lay.repack, lay.budget, lay.perRepack = repack, max(budget, 0), repackSteps
+	lay.repack, lay.budget, lay.perRepack = repack, min(max(budget, 0), maxRepacks*repackSteps), repackSteps
 	for si := range j.shapes {
 		for ; left[si] > 0; left[si]-- {
 			lay.unplaced = append(lay.unplaced, unplacedShape{si, ReasonNoStock})
