@@ -6,6 +6,7 @@ import (
 	"compress/flate"
 	"fmt"
 	"io"
+	"math"
 	"strings"
 
 	"github.com/xuri/excelize/v2"
@@ -21,6 +22,7 @@ const (
 	SheetNodeTypes   = "Node types"
 	SheetPanelTypes  = "Panel types"
 	SheetSheets      = "Sheets"
+	SheetCuts        = "Cuts"
 	SheetBars        = "Bars"
 )
 
@@ -118,6 +120,18 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				}
 				return nil
 			}},
+		{SheetCuts, []string{"Sheet", "Cut", "Splits piece", "Piece left", "Piece right", "From x (mm)", "From y (mm)", "To x (mm)", "To y (mm)", "Length (mm)"},
+			func(add func(row ...any) error) error {
+				for _, s := range rep.Sheets {
+					for i, c := range s.Cuts {
+						l := math.Hypot(c.To[0]-c.From[0], c.To[1]-c.From[1])
+						if err := add(s.Name, i+1, c.Piece, 2*i+1, 2*i+2, c.From[0], c.From[1], c.To[0], c.To[1], r(l, 2)); err != nil {
+							return err
+						}
+					}
+				}
+				return nil
+			}},
 		{SheetBars, []string{"Bar", "Stock", "Stock length (mm)", "Members", "Members in cutting order (label, blank mm)",
 			"Used (mm)", "Offcut (mm)", "Waste (mm)"},
 			func(add func(row ...any) error) error {
@@ -172,6 +186,12 @@ func safeCells(row []any) error {
 // writeTable streams a header and rows into a sheet, freezes the header
 // and puts filters on it.
 func writeTable(f *excelize.File, sheet, table string, header []string, bold int, rows func(add func(row ...any) error) error) error {
+	// The stream writes the used range before the rows: count them first.
+	count, cols := 1, len(header)
+	_ = rows(func(row ...any) error { count, cols = count+1, max(cols, len(row)); return nil })
+	if err := setDimension(f, sheet, cols, count); err != nil {
+		return err
+	}
 	sw, err := f.NewStreamWriter(sheet)
 	if err != nil {
 		return err
@@ -220,9 +240,10 @@ func writeTable(f *excelize.File, sheet, table string, header []string, bold int
 // writeSummary writes the cautions, the job, the counts and the costs.
 func writeSummary(f *excelize.File, rep *Report, bold int) error {
 	sh := SheetSummary
-	row := 0
+	row, cols := 0, 1
 	put := func(vals ...any) error {
 		row++
+		cols = max(cols, len(vals))
 		cell, err := excelize.CoordinatesToCellName(1, row)
 		if err != nil {
 			return err
@@ -329,8 +350,21 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 			return err
 		}
 	}
+	if err := setDimension(f, sh, cols, row); err != nil {
+		return err
+	}
 	if err := f.SetColWidth(sh, "A", "A", 34); err != nil {
 		return err
 	}
 	return f.SetColWidth(sh, "B", "E", 18)
+}
+
+// setDimension records the range a sheet uses, A1 to column cols, row
+// rows: readers that read a sheet without loading it all trust it.
+func setDimension(f *excelize.File, sheet string, cols, rows int) error {
+	last, err := excelize.CoordinatesToCellName(cols, max(rows, 1))
+	if err != nil {
+		return err
+	}
+	return f.SetSheetDimension(sheet, "A1:"+last)
 }

@@ -122,7 +122,7 @@ type Stock struct {
 	Mirror    bool    `toml:"mirror"`
 	Count     int     `toml:"count"`
 	Price     float64 `toml:"price"`
-	Cuts      string  `toml:"cuts"` // "" (any cuts) or "edge-to-edge" (glass: every cut across the whole piece)
+	Cuts      string  `toml:"cuts"` // "any" (default) or "edge-to-edge" (glass: every cut across the whole piece)
 }
 
 // Nesting is the [nesting] table: how hard the nesting searches.
@@ -256,12 +256,18 @@ func (j *Job) BarStocks() []bars.Stock {
 	return out
 }
 
+// CutsAny is the stock key cuts for parts cut out in any way (the default).
+const CutsAny = "any"
+
 // Stocks returns the job's stock sheets for nesting.
 func (j *Job) Stocks() []nest.Stock {
 	out := make([]nest.Stock, len(j.Stock))
 	for i, s := range j.Stock {
 		out[i] = nest.Stock{Name: s.Name, WidthMM: s.WidthMM, HeightMM: s.HeightMM, MarginMM: s.MarginMM, SpacingMM: s.SpacingMM,
-			Rotation: nest.Rotation(s.Rotation), Mirror: s.Mirror, Count: s.Count, Price: s.Price, Cuts: nest.CutRule(s.Cuts)}
+			Rotation: nest.Rotation(s.Rotation), Mirror: s.Mirror, Count: s.Count, Price: s.Price}
+		if s.Cuts != CutsAny {
+			out[i].Cuts = nest.CutRule(s.Cuts)
+		}
 	}
 	return out
 }
@@ -436,6 +442,9 @@ func (j *Job) checkStocks() error {
 			return j.Errorf(prefix+"name", "%q is the name of stock %d too: give each stock its own name", short(s.Name), k+1)
 		}
 		names[s.Name] = i
+		if s.Cuts != CutsAny && s.Cuts != string(nest.EdgeToEdge) {
+			return j.Errorf(prefix+"cuts", "%q must be %q (parts cut out in any way) or %q (every cut runs across the whole piece, as glass is scored and broken)", short(s.Cuts), CutsAny, nest.EdgeToEdge)
+		}
 		if err := j.fieldErr(j.Stocks()[i].Validate(), stockKeys, prefix); err != nil {
 			return err
 		}

@@ -28,6 +28,9 @@ height_mm = 3210
 		{"zero stock", strings.Replace(base, "width_mm = 6000", "width_mm = 0", 1), "job.toml:4: key stock[1].width_mm: 0 mm must be a positive number"},
 		{"margin too big", base + "margin_mm = 2000\n", "job.toml:6: key stock[1].margin_mm"},
 		{"bad rotation", base + "rotation = \"sideways\"\n", "key stock[1].rotation"},
+		{"bad cuts", base + "cuts = \"guillotine\"\n", "job.toml:6: key stock[1].cuts: \"guillotine\" must be \"any\""},
+		{"long nesting", base + "[nesting]\nseconds = 1e6\n", "job.toml:7: key nesting.seconds"},
+		{"negative steps", base + "[nesting]\nsteps = -1\n", "job.toml:7: key nesting.steps"},
 		{"wrong type", base + "[flatness]\ntolerance_mm = \"small\"\n", "job.toml:7: key flatness.tolerance_mm: want a number, got text"},
 		{"syntax", "[net\nfile = 1\n", "job.toml:2: TOML syntax: expected '.' or ']'"},
 		{"empty", "", "job.toml: empty job file"},
@@ -43,5 +46,13 @@ height_mm = 3210
 	}
 	if _, err := Parse([]byte(base), "job.toml"); err != nil {
 		t.Errorf("minimal job: %v", err)
+	}
+	for _, c := range []struct{ key, want string }{{"", ""}, {"cuts = \"any\"\n", ""}, {"cuts = \"edge-to-edge\"\n", "edge-to-edge"}} {
+		j, err := Parse([]byte(base+c.key), "job.toml")
+		if err != nil {
+			t.Errorf("%q: %v", c.key, err)
+		} else if got := string(j.Stocks()[0].Cuts); got != c.want {
+			t.Errorf("%q: cut rule %q, want %q", c.key, got, c.want)
+		}
 	}
 }

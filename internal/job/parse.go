@@ -51,6 +51,9 @@ func Parse(data []byte, file string) (*Job, error) {
 		if j.Stock[i].Rotation == "" {
 			j.Stock[i].Rotation = string(nest.Free)
 		}
+		if j.Stock[i].Cuts == "" {
+			j.Stock[i].Cuts = CutsAny
+		}
 		if j.Stock[i].Name == "" {
 			j.Stock[i].Name = fmt.Sprintf("stock %d", i+1)
 		}

@@ -306,9 +306,14 @@ func settings(j *job.Job) []export.Setting {
 		{Name: "Type tolerances", Value: fmt.Sprintf("%g mm, %g°, panels %g mm", j.Types.LengthTolMM, j.Types.AngleTolDeg, j.Types.PanelTolMM)},
 	}
 	for _, st := range j.Stock {
-		s = append(s, export.Setting{Name: "Stock " + st.Name, Value: fmt.Sprintf("%g x %g mm, margin %g, spacing %g, rotation %s, mirror %v, count %d, price %g",
-			st.WidthMM, st.HeightMM, st.MarginMM, st.SpacingMM, st.Rotation, st.Mirror, st.Count, st.Price)})
+		s = append(s, export.Setting{Name: "Stock " + st.Name, Value: fmt.Sprintf("%g x %g mm, margin %g, spacing %g, rotation %s, mirror %v, cuts %s, count %d, price %g",
+			st.WidthMM, st.HeightMM, st.MarginMM, st.SpacingMM, st.Rotation, st.Mirror, st.Cuts, st.Count, st.Price)})
 	}
+	limit := "none"
+	if j.Nesting.Seconds > 0 {
+		limit = fmt.Sprintf("%g s", j.Nesting.Seconds)
+	}
+	s = append(s, export.Setting{Name: "Nesting search", Value: fmt.Sprintf("%d steps, time limit %s", j.NestOptions().Steps, limit)})
 	return s
 }
 

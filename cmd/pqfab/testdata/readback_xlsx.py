@@ -26,7 +26,7 @@ def main(out):
     with open(os.path.join(out, "report.json")) as f:
         rep = json.load(f)
     wb = openpyxl.load_workbook(os.path.join(out, "schedule.xlsx"))
-    want = ["Summary", "Panels", "Members", "Nodes", "Member types", "Node types", "Panel types", "Sheets", "Bars"]
+    want = ["Summary", "Panels", "Members", "Nodes", "Member types", "Node types", "Panel types", "Sheets", "Cuts", "Bars"]
     if wb.sheetnames != want:
         fail("sheets %s" % wb.sheetnames)
     summary = [r for r in wb["Summary"].iter_rows(values_only=True)]

@@ -9,7 +9,8 @@ been split before (nothing is cut twice) into exactly two pieces, running
 from edge to edge of it (both ends on its boundary), and must not enter a
 part. At the end every part (layer PQ-CUT) must lie inside one final
 piece, alone (every part released whole). The cuts must also be the ones
-report.json lists, with the same pieces.
+report.json lists, with the same pieces, and the rows of the schedule's
+Cuts sheet (read with Debian's python3-openpyxl).
 
 Usage: replay_cuts.py OUTPUT_FOLDER
 """
@@ -19,6 +20,7 @@ import os
 import sys
 
 import ezdxf
+import openpyxl
 from shapely.geometry import LineString, Polygon
 from shapely.ops import split
 
@@ -38,6 +40,15 @@ def main(out):
         rep = json.load(f)
     files = sorted(glob.glob(os.path.join(out, "sheets", "sheet-*.dxf")))
     checked = 0
+    ws = openpyxl.load_workbook(os.path.join(out, "schedule.xlsx"), read_only=True)["Cuts"]
+    rows = [r for r in ws.iter_rows(min_row=2, values_only=True)]
+    want = [(s["name"], i + 1, c["piece"], 2 * i + 1, 2 * i + 2) + tuple(c["from_mm"]) + tuple(c["to_mm"])
+            for s in rep["sheets"] for i, c in enumerate(s.get("cuts") or [])]
+    if [tuple(r[:9]) for r in rows] != want:
+        fail("schedule Cuts rows differ from report.json's cuts (%d rows, %d cuts)" % (len(rows), len(want)))
+    for r in rows:
+        if abs(r[9] - ((r[7] - r[5]) ** 2 + (r[8] - r[6]) ** 2) ** 0.5) > 0.01:
+            fail("schedule Cuts: sheet %s cut %d: length %s" % (r[0], r[1], r[9]))
     for path, sheet in zip(files, rep["sheets"]):
         msp = ezdxf.readfile(path).modelspace()
         lines = list(msp.query('LINE[layer=="PQ-CUT-ORDER"]'))
