@@ -46,7 +46,7 @@ type Report struct {
 	Cost           *Cost          `json:"cost,omitempty"`
 	Bays           BayGrid        `json:"bays"`
 
-	panelOf map[string]PanelRow // panel rows by label
+	panelOf map[string]*PanelRow // panel rows by label, into Panels
 }
 
 // Section is the members' cross-section (mm).

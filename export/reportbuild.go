@@ -29,10 +29,14 @@ func BuildReport(b *Bundle) *Report {
 		MaxMoveMM: r(pl.MaxMoveMM, 3), RMSMoveMM: r(pl.RMSMoveMM, 3),
 		FlatBeforeMM: spread(panels.SpreadOf(pl.Before), 3), FlatAfterMM: spread(panels.SpreadOf(pl.After), 4),
 		MaxTwistDeg: r(nodes.MaxAbsTwist(s.Members), angleDigits), MaxTwistNormalDeg: r(s.TwistNormalDeg, angleDigits)}
+	rep.Nodes = make([]NodeRow, 0, len(s.Nodes))
 	for i, nd := range s.Nodes {
 		row := NodeRow{Label: nd.Label, ID: n.Nodes[i].ID, Pos: vec(n.Nodes[i].Pos, lenDigits), Axis: vec(nd.Axis, 6),
 			MembersAtNode: nd.Valence, Type: s.NodeTypes[nd.Type].Name, Support: b.Supports[i],
 			MoveMM: r(r3.Norm(pl.Moves[i]), lenDigits), Move: vec(pl.Moves[i], lenDigits)}
+		if len(nd.Arms) > 0 {
+			row.Arms = make([]ArmRow, 0, len(nd.Arms))
+		}
 		for _, a := range nd.Arms {
 			row.Arms = append(row.Arms, ArmRow{Member: s.Members[a.Member].Label, AzimuthDeg: r(a.AzimuthDeg, angleDigits), ElevationDeg: r(a.ElevationDeg, angleDigits)})
 		}
@@ -40,6 +44,7 @@ func BuildReport(b *Bundle) *Report {
 	}
 	barOf := rep.buildBars(b)
 	area := s.Section.WidthMM * s.Section.DepthMM / 1e6 // m²
+	rep.Members = make([]MemberRow, 0, len(s.Members))
 	for k, m := range s.Members {
 		end := func(e nodes.End) EndRow {
 			return EndRow{Node: nodeLabel(e.Node), ElevationDeg: r(e.ElevationDeg, angleDigits), SetbackMM: r(e.SetbackMM, lenDigits), MitreDeg: r(e.MitreDeg, angleDigits), BevelDeg: r(e.BevelDeg, angleDigits)}
@@ -56,6 +61,7 @@ func BuildReport(b *Bundle) *Report {
 	rep.PanelMaterial = PanelMaterial{Name: b.PanelMaterial.Name, ThicknessMM: b.PanelMaterial.ThicknessMM,
 		DensityKgM3: b.PanelMaterial.DensityKgM3, EdgeInsetMM: b.PanelMaterial.EdgeInsetMM}
 	sheetOf := b.sheetOf()
+	rep.Panels = make([]PanelRow, 0, len(b.Flats))
 	for f, fl := range b.Flats {
 		face := n.Faces[f]
 		row := PanelRow{Label: fl.Label, ID: face.ID, AreaM2: r(fl.AreaM2, areaDigits), PerimeterMM: r(fl.PerimeterMM, lenDigits),
@@ -65,10 +71,10 @@ func BuildReport(b *Bundle) *Report {
 		// the panel is corner 1 of its type).
 		kc := len(face.Corners)
 		corner := func(i int) string { return nodeLabel(face.Corners[(fl.Start+i)%kc]) }
+		row.Corners = make([]string, kc)
 		for i := range face.Corners {
-			row.Corners = append(row.Corners, corner(i))
+			row.Corners[i] = corner(i)
 		}
-		row.Diagonals = []DiagonalRow{}
 		row.Cut = CutRow{EdgesMM: round(fl.CutEdgeMM, lenDigits), AnglesDeg: round(fl.CutAngleDeg, angleDigits), Diagonals: []DiagonalRow{},
 			BoxMM: [2]float64{r(fl.BoxMM[0], lenDigits), r(fl.BoxMM[1], lenDigits)}}
 		for _, d := range fl.CutDiagonals {
@@ -76,6 +82,7 @@ func BuildReport(b *Bundle) *Report {
 		}
 		row.GrainDeg = r(fl.GrainDeg, angleDigits)
 		rep.Weights.PanelsKg += fl.WeightKg
+		row.Edges, row.AnglesDeg = make([]EdgeRow, 0, kc), make([]float64, 0, kc)
 		for k := range face.Corners {
 			nb := ""
 			if g := fl.Neighbour[k]; g >= 0 {
@@ -84,6 +91,7 @@ func BuildReport(b *Bundle) *Report {
 			row.Edges = append(row.Edges, EdgeRow{LengthMM: r(fl.EdgeMM[k], lenDigits), FoldDeg: r(fl.FoldDeg[k], angleDigits), BevelDeg: r(fl.BevelDeg[k], angleDigits), Neighbour: nb})
 			row.AnglesDeg = append(row.AnglesDeg, r(fl.AngleDeg[k], angleDigits))
 		}
+		row.Diagonals = make([]DiagonalRow, 0, len(fl.Diagonals))
 		for _, d := range fl.Diagonals {
 			row.Diagonals = append(row.Diagonals, DiagonalRow{From: corner(d.I), To: corner(d.J), MM: r(d.MM, lenDigits)})
 		}
@@ -95,6 +103,7 @@ func BuildReport(b *Bundle) *Report {
 	}
 	rep.buildTypes(b)
 	if nr := b.Nesting; nr != nil {
+		rep.Sheets = make([]SheetRow, 0, len(nr.Sheets))
 		for si, sh := range nr.Sheets {
 			st := b.Stocks[sh.Stock]
 			row := SheetRow{Name: SheetName(si, len(nr.Sheets)), Stock: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM,
@@ -103,6 +112,9 @@ func BuildReport(b *Bundle) *Report {
 				row.Cuts = append(row.Cuts, SheetCutRow{Piece: c.Piece, From: [2]float64{r(c.From.X, 3), r(c.From.Y, 3)}, To: [2]float64{r(c.To.X, 3), r(c.To.Y, 3)}})
 			}
 			row.CutLengthMM = r(sh.CutLengthMM, lenDigits)
+			if len(sh.Placements) > 0 {
+				row.Placements = make([]PlacementRow, 0, len(sh.Placements))
+			}
 			for _, p := range sh.Placements {
 				row.Placements = append(row.Placements, PlacementRow{Panel: b.Flats[p.Part].Label, X: r(p.X, lenDigits), Y: r(p.Y, lenDigits),
 					RotationDeg: r(p.RotationDeg, angleDigits), Mirrored: p.Mirrored, Outline: points(p.Outline)})
@@ -118,9 +130,9 @@ func BuildReport(b *Bundle) *Report {
 		rep.Counts.Sheets = len(nr.Sheets)
 		rep.Counts.Unplaced = len(nr.Unplaced)
 	}
-	rep.panelOf = make(map[string]PanelRow, len(rep.Panels))
-	for _, p := range rep.Panels {
-		rep.panelOf[p.Label] = p
+	rep.panelOf = make(map[string]*PanelRow, len(rep.Panels))
+	for i := range rep.Panels {
+		rep.panelOf[rep.Panels[i].Label] = &rep.Panels[i]
 	}
 	rep.Weights = Weights{PanelsKg: r(rep.Weights.PanelsKg, weightDigits), MembersKg: r(rep.Weights.MembersKg, weightDigits),
 		TotalKg: r(rep.Weights.PanelsKg+rep.Weights.MembersKg, weightDigits)}

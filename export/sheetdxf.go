@@ -75,7 +75,7 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 	}
 	add(func() error { return useLayer(d, LayerBevel) })
 	for _, p := range s.Placements {
-		add(func() error { return bevelTexts(d, p, panel[p.Panel]) })
+		add(func() error { return bevelTexts(d, p, *panel[p.Panel]) })
 	}
 	if grain {
 		add(func() error { return useLayer(d, LayerGrain) })
@@ -258,7 +258,7 @@ func arrow(d *dxfDoc, x0, y0, x1, y1, h float64) error {
 }
 
 // panelRows maps panel labels to their rows (made by BuildReport).
-func (rep *Report) panelRows() map[string]PanelRow { return rep.panelOf }
+func (rep *Report) panelRows() map[string]*PanelRow { return rep.panelOf }
 
 // labelSpot returns the centroid of an outline and its size.
 func labelSpot(pts [][2]float64) (x, y, size float64) {

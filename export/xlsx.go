@@ -2,7 +2,6 @@ package export
 
 import (
 	"archive/zip"
-	"bytes"
 	"compress/flate"
 	"fmt"
 	"io"
@@ -151,11 +150,11 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 			return fmt.Errorf("schedule sheet %s: %w", t.name, err)
 		}
 	}
-	var buf bytes.Buffer
+	var buf chunks
 	if err := f.Write(&buf); err != nil {
 		return err
 	}
-	return writeSortedZip(w, buf.Bytes())
+	return writeSortedZip(w, &buf, buf.size)
 }
 
 // partList joins part labels for one cell; a list too long for a cell is

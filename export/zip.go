@@ -2,7 +2,6 @@ package export
 
 import (
 	"archive/zip"
-	"bytes"
 	"io"
 	"sort"
 )
@@ -12,8 +11,8 @@ import (
 // that the same content always gives the same bytes. excelize writes
 // streamed sheets in map order, which varies from run to run. Entries are
 // copied as they are compressed (no second compression).
-func writeSortedZip(w io.Writer, archive []byte) error {
-	zr, err := zip.NewReader(bytes.NewReader(archive), int64(len(archive)))
+func writeSortedZip(w io.Writer, archive io.ReaderAt, size int64) error {
+	zr, err := zip.NewReader(archive, size)
 	if err != nil {
 		return err
 	}

@@ -134,55 +134,20 @@ func Run(ctx context.Context, j *job.Job, open Opener, obs Observer, pol Policy)
 		return nil, err
 	}
 	res.Structure, res.Bays = st, bays
-	if err := cutPlan(j, res, obs, pol, warn); err != nil {
-		return nil, err
-	}
-	res.Flats, err = Panels(res.Net, topo, j.Material(), bays, NodeLabels(st))
-	switch {
-	case errors.Is(err, panels.ErrInsetTooLarge):
-		return nil, j.KeyError("panel.edge_inset_mm", err)
-	case err != nil:
-		return nil, err
-	}
-	if res.PanelTypes, res.PanelTypeBound, err = panels.Group(res.Flats, j.PanelTypeOptions()); err != nil {
-		return nil, err
-	}
-	// Every panel's corner 1 is its type's corner 1, so that the type
-	// drawing, the cut sheets and the schedule number corners and edges
-	// alike.
-	for _, t := range res.PanelTypes {
-		for n, f := range t.Panels {
-			if err := panels.StartAt(res.Net, j.Material(), &res.Flats[f], t.Start[n]); err != nil {
-				return nil, err
-			}
-			t.Start[n] = 0
-		}
-	}
-	names := map[string]bool{}
-	inset := j.Material().EdgeInsetMM
-	for _, t := range res.PanelTypes {
-		names[t.Name] = true
-		out := t.Outline
-		if inset > 0 {
-			if grown, err := panels.Inset(t.Outline, -inset); err == nil {
-				out = grown
-			}
-		}
-		res.PanelTypeSetOut = append(res.PanelTypeSetOut, out)
-	}
-	for i, t := range j.PanelType {
-		if !names[t.Type] {
-			return nil, j.Errorf(fmt.Sprintf("panel_type[%d].type", i+1), "%q is not a panel type of this net (it has PT-001 to %s)", t.Type, res.PanelTypes[len(res.PanelTypes)-1].Name)
-		}
-	}
-
-	if j.Nesting.Seconds > 0 {
-		var cancel context.CancelFunc
-		ctx, cancel = context.WithTimeout(ctx, time.Duration(j.Nesting.Seconds*float64(time.Second)))
-		defer cancel()
-	}
-	res.Nesting, err = Nest(ctx, Parts(res.Flats), res.Flats, res.Stocks, j.NestOptions(), obs)
+	// The members' cutting plan is worked out beside the panels and the
+	// nesting (neither needs the other); its outcome is taken in, and its
+	// warnings listed, before the nesting's.
+	waitBars, err := startCutPlan(j, res, obs)
 	if err != nil {
+		return nil, err
+	}
+	if err := panelsAndNest(ctx, j, res, obs); err != nil {
+		if berr := waitBars(pol, warn); berr != nil {
+			return nil, berr
+		}
+		return nil, err
+	}
+	if err := waitBars(pol, warn); err != nil {
 		return nil, err
 	}
 	if res.Nesting.Stopped {
@@ -204,22 +169,44 @@ func Run(ctx context.Context, j *job.Job, open Opener, obs Observer, pol Policy)
 	return res, nil
 }
 
-// cutPlan cuts the members' blanks from the job's bar stock, if it has any.
-func cutPlan(j *job.Job, res *Result, obs Observer, pol Policy, warn func(string)) error {
+// startCutPlan starts cutting the members' blanks from the job's bar
+// stock, if it has any, beside the caller, and returns the function (call
+// it once) that waits for the plan and takes it in: unplaced members end
+// the job, or are listed as warnings when the policy continues. Only the
+// caller's goroutine tells obs.
+func startCutPlan(j *job.Job, res *Result, obs Observer) (wait func(pol Policy, warn func(string)) error, err error) {
 	pieces, err := bars.MemberPieces(res.Structure.Members, res.Structure.Section)
 	if err != nil {
-		return err
+		return nil, err
 	}
 	res.Blanks, res.BarStocks = pieces, j.BarStocks()
 	if len(res.BarStocks) == 0 {
-		return nil
+		return func(Policy, func(string)) error { return nil }, nil
 	}
 	obs.Step("bars", 0, 1, fmt.Sprintf("bars: %d members on %d bar lengths", len(pieces), len(res.BarStocks)))
-	plan, err := bars.Solve(pieces, res.BarStocks, bars.Options{})
-	obs.Step("bars", 1, 1, "bars: done")
+	type solved struct {
+		plan *bars.Plan
+		err  error
+	}
+	ch := make(chan solved, 1)
+	stocks := res.BarStocks
+	go func() {
+		plan, err := bars.Solve(pieces, stocks, bars.Options{})
+		ch <- solved{plan, err}
+	}()
+	return func(pol Policy, warn func(string)) error {
+		got := <-ch
+		obs.Step("bars", 1, 1, "bars: done")
+		return takeCutPlan(j, res, got.plan, got.err, pol, warn)
+	}, nil
+}
+
+// takeCutPlan takes in the members' cutting plan (startCutPlan).
+func takeCutPlan(j *job.Job, res *Result, plan *bars.Plan, err error, pol Policy, warn func(string)) error {
 	if err != nil {
 		return j.KeyError("bar", err)
 	}
+	pieces := res.Blanks
 	if un := plan.Unplaced; len(un) > 0 {
 		if !pol.Continue {
 			return j.KeyError("bar", fmt.Errorf("%d %w; the first, %s (blank %.1f mm), is %s", len(un), ErrMembersUnplaced,
@@ -230,6 +217,61 @@ func cutPlan(j *job.Job, res *Result, obs Observer, pol Policy, warn func(string
 		}
 	}
 	res.BarPlan = plan
+	return nil
+}
+
+// panelsAndNest lays the panels flat, groups them into types and nests
+// them (Run).
+func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) error {
+	var err error
+	res.Flats, err = Panels(res.Net, res.Topo, j.Material(), res.Bays, NodeLabels(res.Structure))
+	switch {
+	case errors.Is(err, panels.ErrInsetTooLarge):
+		return j.KeyError("panel.edge_inset_mm", err)
+	case err != nil:
+		return err
+	}
+	if res.PanelTypes, res.PanelTypeBound, err = panels.Group(res.Flats, j.PanelTypeOptions()); err != nil {
+		return err
+	}
+	// Every panel's corner 1 is its type's corner 1, so that the type
+	// drawing, the cut sheets and the schedule number corners and edges
+	// alike.
+	for _, t := range res.PanelTypes {
+		for n, f := range t.Panels {
+			if err := panels.StartAt(res.Net, j.Material(), &res.Flats[f], t.Start[n]); err != nil {
+				return err
+			}
+			t.Start[n] = 0
+		}
+	}
+	names := map[string]bool{}
+	inset := j.Material().EdgeInsetMM
+	for _, t := range res.PanelTypes {
+		names[t.Name] = true
+		out := t.Outline
+		if inset > 0 {
+			if grown, err := panels.Inset(t.Outline, -inset); err == nil {
+				out = grown
+			}
+		}
+		res.PanelTypeSetOut = append(res.PanelTypeSetOut, out)
+	}
+	for i, t := range j.PanelType {
+		if !names[t.Type] {
+			return j.Errorf(fmt.Sprintf("panel_type[%d].type", i+1), "%q is not a panel type of this net (it has PT-001 to %s)", t.Type, res.PanelTypes[len(res.PanelTypes)-1].Name)
+		}
+	}
+
+	if j.Nesting.Seconds > 0 {
+		var cancel context.CancelFunc
+		ctx, cancel = context.WithTimeout(ctx, time.Duration(j.Nesting.Seconds*float64(time.Second)))
+		defer cancel()
+	}
+	res.Nesting, err = Nest(ctx, Parts(res.Flats), res.Flats, res.Stocks, j.NestOptions(), obs)
+	if err != nil {
+		return err
+	}
 	return nil
 }
 

@@ -2,6 +2,7 @@ package nest
 
 import (
 	"math"
+	"sync"
 
 	"pqfab/geom"
 )
@@ -120,15 +121,26 @@ func (j *job) runNFP(info []nfpShape, order []int, allowed []bool) *layout {
 		if j.ctx.Err() != nil {
 			lay.stopped = true
 		}
-		var best *sheetState
-		var bestUsed []int
-		bestStock, bestScore := -1, math.Inf(-1)
+		// The stocks' sheets are filled side by side (each fill only reads
+		// what the others read); the best is chosen in stock order.
+		fills := make([]struct {
+			st   *sheetState
+			used []int
+		}, len(j.stocks))
+		var wg sync.WaitGroup
 		for si, s := range j.stocks {
 			if left[si] == 0 || !allowed[si] {
 				continue
 			}
-			st, used := fill(info, s, si, order, done, start)
-			if len(st.placed) == 0 {
+			wg.Go(func() { fills[si].st, fills[si].used = fill(info, s, si, order, done, start) })
+		}
+		wg.Wait()
+		var best *sheetState
+		var bestUsed []int
+		bestStock, bestScore := -1, math.Inf(-1)
+		for si, s := range j.stocks {
+			st, used := fills[si].st, fills[si].used
+			if st == nil || len(st.placed) == 0 {
 				continue
 			}
 			score := st.area / (s.WidthMM * s.HeightMM)

@@ -82,14 +82,25 @@ func newJob(ctx context.Context, parts []Part, stocks []Stock, steps int) *job {
 	return j
 }
 
+// sameTurns reports whether stocks a and b give a shape the same
+// orientations for the placer (nOrientations): same turns, mirror and
+// spacing.
+func sameTurns(a, b Stock) bool {
+	return a.Rotation == b.Rotation && a.Mirror == b.Mirror && a.SpacingMM == b.SpacingMM
+}
+
 // fitsEmpty reports whether a shape fits an empty sheet of stock s in one
 // of the turns the placers try.
 func fitsEmpty(sh *shape, s Stock, extra []float64) bool {
-	for _, o := range nOrientations(sh, s, extra) {
-		_, _, okx := span(s.MarginMM-o.lo.X, s.WidthMM-s.MarginMM-o.hi.X)
-		_, _, oky := span(s.MarginMM-o.lo.Y, s.HeightMM-s.MarginMM-o.hi.Y)
-		if okx && oky {
-			return true
+	angles, mirrors := nTurns(sh, s, extra)
+	for _, m := range mirrors {
+		for _, a := range angles {
+			lo, hi := orient(sh.poly, m, a, geom.Vec2{}).Bounds()
+			_, _, okx := span(s.MarginMM-lo.X, s.WidthMM-s.MarginMM-hi.X)
+			_, _, oky := span(s.MarginMM-lo.Y, s.HeightMM-s.MarginMM-hi.Y)
+			if okx && oky {
+				return true
+			}
 		}
 	}
 	return false
@@ -216,8 +227,18 @@ func (j *job) runOrders(fitsSome []bool) *layout {
 	for si, sh := range j.shapes {
 		lo, hi := sh.poly.Bounds()
 		info[si] = nfpShape{area: sh.area, perim: sh.perim, height: math.Min(hi.X-lo.X, hi.Y-lo.Y), length: math.Max(hi.X-lo.X, hi.Y-lo.Y)}
+		info[si].orients = make([][]nOrient, len(j.stocks))
 		for k, st := range j.stocks {
-			info[si].orients = append(info[si].orients, nOrientations(sh, st, j.extra[si][k]))
+			// Stocks that turn, mirror and space parts alike share them.
+			for e := range k {
+				if sameTurns(j.stocks[e], st) && slices.Equal(j.extra[si][e], j.extra[si][k]) {
+					info[si].orients[k] = info[si].orients[e]
+					break
+				}
+			}
+			if info[si].orients[k] == nil {
+				info[si].orients[k] = nOrientations(sh, st, j.extra[si][k])
+			}
 		}
 	}
 	allowed := make([]bool, len(j.stocks))

@@ -38,10 +38,9 @@ type nOrient struct {
 	lo, hi   geom.Vec2      // bounds of the outline
 }
 
-// nOrientations returns the turns (and mirror images) of a shape that
-// stock s allows, with extra turns that let it fit the sheet.
-func nOrientations(sh *shape, s Stock, extra []float64) []nOrient {
-	var angles []float64
+// nTurns returns the turns (and mirror images) of a shape that stock s
+// allows, with extra turns that let it fit the sheet.
+func nTurns(sh *shape, s Stock, extra []float64) (angles []float64, mirrors []bool) {
 	add := func(a float64) {
 		a = normDeg(a)
 		for _, b := range angles {
@@ -61,15 +60,24 @@ func nOrientations(sh *shape, s Stock, extra []float64) []nOrient {
 	} else {
 		angles = fixedTurns[s.Rotation]
 	}
-	mirrors := []bool{false}
+	mirrors = []bool{false}
 	if s.Mirror {
 		mirrors = append(mirrors, true)
 	}
-	var out []nOrient
+	return angles, mirrors
+}
+
+// nOrientations returns the turns (and mirror images) of a shape that
+// stock s allows (nTurns), with the grown pieces the placer needs.
+func nOrientations(sh *shape, s Stock, extra []float64) []nOrient {
+	angles, mirrors := nTurns(sh, s, extra)
+	out := make([]nOrient, 0, len(mirrors)*len(angles))
 	for _, m := range mirrors {
 		for _, a := range angles {
 			o := nOrient{rot: a, mirrored: m}
 			o.lo, o.hi = orient(sh.poly, m, a, geom.Vec2{}).Bounds()
+			o.grown = make([]geom.Polygon, 0, len(sh.pieces))
+			o.negGrown = make([]geom.Polygon, 0, len(sh.pieces))
 			for _, piece := range sh.pieces {
 				g := startLowest(inflate(orient(piece, m, a, geom.Vec2{}), s.SpacingMM/2))
 				neg := make(geom.Polygon, len(g))
