@@ -6,6 +6,8 @@ import (
 	"path/filepath"
 	"runtime"
 	"sync"
+
+	"pqfab/geom"
 )
 
 // Output file names inside the build folder.
@@ -24,9 +26,12 @@ const (
 type Progress func(done, total int, what string)
 
 // WriteBuild writes every output of a build into dir, atomically and only
-// where opt allows (see WriteFolder). The files are written side by side,
-// as many at a time as there are processors.
-func WriteBuild(dir string, opt WriteOptions, b *Bundle, rep *Report, progress Progress) error {
+// where opt allows (see WriteFolder): all from the report, except
+// net-flat.obj, the planarized net with the build's warnings (the
+// bundle's, BuildReport) in its header. The files are written side by
+// side, as many at a time as there are processors. It holds nothing else
+// of the build, so the rest can be freed while it writes.
+func WriteBuild(dir string, opt WriteOptions, net *geom.Net, warnings []string, rep *Report, progress Progress) error {
 	return WriteFolder(dir, opt, func(tmp string) error {
 		for _, d := range []string{DirSheets, DirSite, DirPanelTypes, DirMemberTypes} {
 			if err := os.Mkdir(filepath.Join(tmp, d), 0o755); err != nil {
@@ -64,7 +69,7 @@ func WriteBuild(dir string, opt WriteOptions, b *Bundle, rep *Report, progress P
 			file(FileView, func(w io.Writer) error { return WriteView(w, rep) }),
 			file(FilePlanPDF, func(w io.Writer) error { return WritePlanPDF(w, rep) }),
 			file(FileTagsPDF, func(w io.Writer) error { return WriteTagsPDF(w, rep) }),
-			file(FileNet, func(w io.Writer) error { return WriteOBJ(w, b.Net, "pqfab planarized net: "+b.Title, b.Warnings...) }),
+			file(FileNet, func(w io.Writer) error { return WriteOBJ(w, net, "pqfab planarized net: "+rep.Title, warnings...) }),
 		}
 		for i := range rep.Sheets {
 			name := filepath.Join(DirSheets, SheetFile(i, len(rep.Sheets)))

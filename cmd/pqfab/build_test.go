@@ -12,6 +12,7 @@ import (
 
 	"pqfab/export"
 	"pqfab/geom"
+	"pqfab/samples"
 )
 
 // debianPython is Debian's interpreter, where python3-ezdxf and
@@ -296,35 +297,29 @@ func TestBuildErrors(t *testing.T) {
 	}
 }
 
+// benchBuild times a whole build (pqfab build -q) of the demo job's
+// settings on a wave sample net of about the given number of panels. Each
+// round writes a new output folder: replacing the last one would time the
+// file system's cleanup too. It reports the process's peak memory.
 func benchBuild(b *testing.B, panels int) {
 	dir := b.TempDir()
 	if _, _, err := runCmdB(b, "sample", "wave", "--panels", itoaB(panels), "-o", filepath.Join(dir, "wave.obj")); err != nil {
 		b.Fatal(err)
 	}
-	job := `title = "bench"
-[net]
-file = "wave.obj"
-[nodes]
-axis = "least-twist"
-hub_radius_mm = 60
-[panel]
-edge_inset_mm = 6
-[[stock]]
-name = "jumbo"
-width_mm = 6000
-height_mm = 3210
-margin_mm = 20
-spacing_mm = 6
-`
-	path := filepath.Join(dir, "job.toml")
-	if err := os.WriteFile(path, []byte(job), 0o644); err != nil {
+	job := filepath.Join(dir, "job.toml")
+	if err := os.WriteFile(job, samples.DemoJob(), 0o644); err != nil { // its net file is wave.obj
 		b.Fatal(err)
 	}
 	b.ReportAllocs()
+	round := 0
 	for b.Loop() {
-		if _, _, err := runCmdB(b, "build", "-q", path, "-o", filepath.Join(dir, "out")); err != nil {
+		round++
+		if _, _, err := runCmdB(b, "build", "-q", job, "-o", filepath.Join(dir, "out"+itoaB(round))); err != nil {
 			b.Fatal(err)
 		}
+	}
+	if mb := peakRSSMB(); mb > 0 {
+		b.ReportMetric(mb, "peak-RSS-MB")
 	}
 }
 
@@ -336,7 +331,9 @@ func runCmdB(b *testing.B, args ...string) (string, string, error) {
 
 func itoaB(i int) string { return strconv.Itoa(i) }
 
-// Targets: whole build of a 10k-panel wave job ≤ 10 s and ≤ 500 MB;
-// 100k panels ≤ 120 s.
+// Targets (demo job settings, wave net, this 2-core machine): 10k panels
+// ≤ 3 s and ≤ 250 MB peak; 100k panels ≤ 40 s and ≤ 1.5 GB. Measured
+// 2026-12: 10k 4.6 s, 245 MB (the time target is not met: nesting takes
+// 1.9 s of it); 100k 39 s, 1.45 GB.
 func BenchmarkBuild10k(b *testing.B)  { benchBuild(b, 10000) }
 func BenchmarkBuild100k(b *testing.B) { benchBuild(b, 100000) }

@@ -292,7 +292,7 @@ func (r *Result) Bundle() *export.Bundle {
 func Write(dir string, r *Result, opt export.WriteOptions, obs Observer) (*export.Report, error) {
 	b := r.Bundle()
 	rep := export.BuildReport(b)
-	err := export.WriteBuild(dir, opt, b, rep, func(done, total int, what string) { obs.Step("write", done, total, "write "+what) })
+	err := export.WriteBuild(dir, opt, b.Net, b.Warnings, rep, func(done, total int, what string) { obs.Step("write", done, total, "write "+what) })
 	if err != nil {
 		return nil, err
 	}
