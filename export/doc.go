@@ -1,6 +1,8 @@
-// Package export writes what pqfab computed: OBJ nets, and later DXF cut
-// sheets, XLSX schedules, JSON and HTML reports, into an output folder
-// written atomically. It computes no geometry. Lengths are millimetres
-// and angles degrees in every file; numbers have fixed precision so the
-// same input gives the same bytes.
+// Package export writes what pqfab computed into an output folder written
+// atomically: the report model (BuildReport), DXF cut sheets, panel and
+// member type drawings and the assembly plan, the XLSX schedule, JSON and
+// HTML reports, the site set (plan.pdf, tags.pdf, view.html) and the
+// planarized net as OBJ. It computes no geometry beyond what drawing
+// needs. Lengths are millimetres and angles degrees in every file; numbers
+// have fixed precision so the same input gives the same bytes.
 package export

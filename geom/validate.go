@@ -104,8 +104,11 @@ type ValidationError struct{ Problems []*InputError }
 // Error returns one line: the first problem and how many more there are.
 func (e *ValidationError) Error() string {
 	s := e.Problems[0].Error()
-	if len(e.Problems) > 1 {
-		s += fmt.Sprintf(" (and %d more problems)", len(e.Problems)-1)
+	switch n := len(e.Problems) - 1; {
+	case n == 1:
+		s += " (and 1 more problem)"
+	case n > 1:
+		s += fmt.Sprintf(" (and %d more problems)", n)
 	}
 	return s
 }

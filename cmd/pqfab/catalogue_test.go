@@ -37,7 +37,7 @@ func TestBadInputCatalogue(t *testing.T) {
 		{"flipped panels", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": strings.Replace(goodQuad, "f 2 5 6 3", "f 3 6 5 2", 1)}, "", []string{"n.obj:8", "panel 2", "flipped"}},
 		{"coincident nodes", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": goodQuad + "v 1500.001 0 0\nf 7 5 6\n"}, "", []string{"n.obj:9", "node 7", "coincides with node 2"}},
 		{"zero-area panel", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": goodQuad + "v 4500 0 0\nf 2 5 7\n"}, "", []string{"n.obj:10", "panel 3", "degenerate"}},
-		{"duplicate panel", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": goodQuad + "f 1 2 3 4\n"}, "", []string{"n.obj:9", "panel 3", "same corners as panel 1"}},
+		{"duplicate panel", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": goodQuad + "f 1 2 3 4\n"}, "", []string{"n.obj:9", "panel 3", "same corners as panel 1", "(and 1 more problem)"}},
 		{"two corners", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": goodQuad + "f 1 2\n"}, "", []string{"n.obj:9", "panel 3", "2 corners"}},
 		{"repeated corner", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": goodQuad + "f 1 2 2 4\n"}, "", []string{"n.obj:9", "panel 3", "same node"}},
 		{"OFF truncated", map[string]string{"job.toml": jobFor("n.off"), "n.off": "OFF\n4 2 0\n0 0 0\n1000 0 0\n1000 1000 0\n0 1000 0\n4 0 1 2 3\n"}, "", []string{"n.off:7", "panel 2", "file ends"}},
