@@ -1,6 +1,7 @@
 package samples
 
 import (
+	"math"
 	"testing"
 
 	"pqfab/geom"
@@ -95,15 +96,8 @@ func TestDemoNetCurrent(t *testing.T) {
 	for i := range want.Nodes {
 		d := want.Nodes[i].Pos
 		g := got.Nodes[i].Pos
-		if abs(d.X-g.X) > 1e-4 || abs(d.Y-g.Y) > 1e-4 || abs(d.Z-g.Z) > 1e-4 {
+		if math.Abs(d.X-g.X) > 1e-4 || math.Abs(d.Y-g.Y) > 1e-4 || math.Abs(d.Z-g.Z) > 1e-4 {
 			t.Fatalf("node %d: embedded %v, generator %v", i+1, g, d)
 		}
 	}
-}
-
-func abs(x float64) float64 {
-	if x < 0 {
-		return -x
-	}
-	return x
 }

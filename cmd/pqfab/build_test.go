@@ -303,7 +303,7 @@ func TestBuildErrors(t *testing.T) {
 // file system's cleanup too. It reports the process's peak memory.
 func benchBuild(b *testing.B, panels int) {
 	dir := b.TempDir()
-	if _, _, err := runCmdB(b, "sample", "wave", "--panels", itoaB(panels), "-o", filepath.Join(dir, "wave.obj")); err != nil {
+	if _, _, err := runCmdB(b, "sample", "wave", "--panels", strconv.Itoa(panels), "-o", filepath.Join(dir, "wave.obj")); err != nil {
 		b.Fatal(err)
 	}
 	job := filepath.Join(dir, "job.toml")
@@ -314,7 +314,7 @@ func benchBuild(b *testing.B, panels int) {
 	round := 0
 	for b.Loop() {
 		round++
-		if _, _, err := runCmdB(b, "build", "-q", job, "-o", filepath.Join(dir, "out"+itoaB(round))); err != nil {
+		if _, _, err := runCmdB(b, "build", "-q", job, "-o", filepath.Join(dir, "out"+strconv.Itoa(round))); err != nil {
 			b.Fatal(err)
 		}
 	}
@@ -329,7 +329,6 @@ func runCmdB(b *testing.B, args ...string) (string, string, error) {
 	return out.String(), errb.String(), err
 }
 
-func itoaB(i int) string { return strconv.Itoa(i) }
 
 // Targets (demo job settings, wave net, this 2-core machine): 10k panels
 // ≤ 3 s and ≤ 250 MB peak; 100k panels ≤ 40 s and ≤ 1.5 GB. Measured
