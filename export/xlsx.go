@@ -2,6 +2,7 @@ package export
 
 import (
 	"archive/zip"
+	"bytes"
 	"compress/flate"
 	"fmt"
 	"io"
@@ -150,11 +151,11 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 			return fmt.Errorf("schedule sheet %s: %w", t.name, err)
 		}
 	}
-	var buf chunks
-	if err := f.Write(&buf); err != nil {
+	buf, err := f.WriteToBuffer()
+	if err != nil {
 		return err
 	}
-	return writeSortedZip(w, &buf, buf.size)
+	return writeSortedZip(w, bytes.NewReader(buf.Bytes()), int64(buf.Len()))
 }
 
 // partList joins part labels for one cell; a list too long for a cell is

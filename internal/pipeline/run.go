@@ -137,11 +137,15 @@ func Run(ctx context.Context, j *job.Job, open Opener, obs Observer, pol Policy)
 	// The members' cutting plan is worked out beside the panels and the
 	// nesting (neither needs the other); its outcome is taken in, and its
 	// warnings listed, before the nesting's.
-	waitBars, err := startCutPlan(j, res, obs)
+	// A cutting plan that ends the job stops the nesting early: its
+	// error is the one reported, as when the bars were cut first.
+	nctx, stopNest := context.WithCancel(ctx)
+	defer stopNest()
+	waitBars, err := startCutPlan(j, res, obs, pol, stopNest)
 	if err != nil {
 		return nil, err
 	}
-	if err := panelsAndNest(ctx, j, res, obs); err != nil {
+	if err := panelsAndNest(nctx, j, res, obs); err != nil {
 		if berr := waitBars(pol, warn); berr != nil {
 			return nil, berr
 		}
@@ -172,9 +176,10 @@ func Run(ctx context.Context, j *job.Job, open Opener, obs Observer, pol Policy)
 // startCutPlan starts cutting the members' blanks from the job's bar
 // stock, if it has any, beside the caller, and returns the function (call
 // it once) that waits for the plan and takes it in: unplaced members end
-// the job, or are listed as warnings when the policy continues. Only the
+// the job, or are listed as warnings when the policy continues. When the
+// plan will end the job, stop is called as soon as that is known. Only the
 // caller's goroutine tells obs.
-func startCutPlan(j *job.Job, res *Result, obs Observer) (wait func(pol Policy, warn func(string)) error, err error) {
+func startCutPlan(j *job.Job, res *Result, obs Observer, pol Policy, stop func()) (wait func(pol Policy, warn func(string)) error, err error) {
 	pieces, err := bars.MemberPieces(res.Structure.Members, res.Structure.Section)
 	if err != nil {
 		return nil, err
@@ -192,11 +197,20 @@ func startCutPlan(j *job.Job, res *Result, obs Observer) (wait func(pol Policy, 
 	stocks := res.BarStocks
 	go func() {
 		plan, err := bars.Solve(pieces, stocks, bars.Options{})
+		if err != nil || (len(plan.Unplaced) > 0 && !pol.Continue) {
+			stop()
+		}
 		ch <- solved{plan, err}
 	}()
 	return func(pol Policy, warn func(string)) error {
-		got := <-ch
-		obs.Step("bars", 1, 1, "bars: done")
+		var got solved
+		select {
+		case got = <-ch:
+		default: // still cutting: say so while waiting
+			obs.Step("bars", 0, 1, fmt.Sprintf("bars: finishing the cutting plan of %d members", len(pieces)))
+			got = <-ch
+			obs.Step("bars", 1, 1, "bars: done")
+		}
 		return takeCutPlan(j, res, got.plan, got.err, pol, warn)
 	}, nil
 }
@@ -209,8 +223,7 @@ func takeCutPlan(j *job.Job, res *Result, plan *bars.Plan, err error, pol Policy
 	pieces := res.Blanks
 	if un := plan.Unplaced; len(un) > 0 {
 		if !pol.Continue {
-			return j.KeyError("bar", fmt.Errorf("%d %w; the first, %s (blank %.1f mm), is %s", len(un), ErrMembersUnplaced,
-				pieces[un[0].Piece].Label, pieces[un[0].Piece].LengthMM, un[0].Reason))
+			return j.KeyError("bar", fmt.Errorf("%d %w; the first is %s: %s", len(un), ErrMembersUnplaced, pieces[un[0].Piece].Label, un[0].Reason))
 		}
 		for _, u := range un {
 			warn(fmt.Sprintf("member %s is on no bar: %s", pieces[u.Piece].Label, u.Reason))
