@@ -331,8 +331,9 @@ func runCmdB(b *testing.B, args ...string) (string, string, error) {
 
 // Targets (demo job settings, wave net, this 2-core machine): 10k panels
 // ≤ 3 s and ≤ 250 MB peak; 100k panels ≤ 40 s and ≤ 1.5 GB. Measured
-// 2026-12 (three runs): 10k 4.2–4.8 s, 234–250 MB (the time target is not
-// met: nesting takes 1.9 s of it); 100k 39–46 s, 1.35–1.48 GB (the spread
-// is the file system's: some 20 000 files are created).
+// 2026-12: 10k 4.2–4.9 s, 225–250 MB (the time target is not met:
+// nesting takes 1.9 s of it); 100k 39–50 s over six runs (median 42.8 s),
+// 1.35–1.48 GB. Times vary with the machine's load and its file system
+// (some 20 000 files are created).
 func BenchmarkBuild10k(b *testing.B)  { benchBuild(b, 10000) }
 func BenchmarkBuild100k(b *testing.B) { benchBuild(b, 100000) }
