@@ -182,7 +182,6 @@ func sheetSVG(rep *Report, s SheetRow) string {
 	var b strings.Builder
 	fmt.Fprintf(&b, `<figure class="sheet"><svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 %.0f %.0f" width="%.0f" height="%.0f">`, w, h, w, h)
 	fmt.Fprintf(&b, `<rect x="0" y="0" width="%.1f" height="%.1f" fill="#eef3f5" stroke="#333" stroke-width="1"/>`, w, h)
-	rows := rep.panelRows()
 	index := map[string]int{}
 	for i, t := range rep.PanelTypes {
 		index[t.Name] = i
@@ -195,7 +194,7 @@ func sheetSVG(rep *Report, s SheetRow) string {
 			}
 			fmt.Fprintf(&b, "%.1f,%.1f", v[0]*scale, h-v[1]*scale)
 		}
-		fmt.Fprintf(&b, `" fill="%s" stroke="#222" stroke-width="0.6"/>`, typeColour(index[rows[p.Panel].Type]))
+		fmt.Fprintf(&b, `" fill="%s" stroke="#222" stroke-width="0.6"/>`, typeColour(index[rep.panelRow(p.Panel).Type]))
 		cx, cy, _ := labelSpot(p.Outline)
 		fmt.Fprintf(&b, `<text x="%.1f" y="%.1f" font-size="9" text-anchor="middle">%s</text>`, cx*scale, h-cy*scale, template.HTMLEscapeString(p.Panel))
 	}

@@ -41,7 +41,6 @@ func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
 // drawSheet draws cut sheet number sheet.
 func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 	s := rep.Sheets[sheet]
-	panel := rep.panelRows()
 	grain := s.Rotation == "grain"
 	m := s.MarginMM
 	var steps []func() error
@@ -62,7 +61,7 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 			if err := text(d, p.Panel, cx, cy+0.7*h, 0, h, 0); err != nil {
 				return err
 			}
-			second := panel[p.Panel].Type
+			second := rep.panelRow(p.Panel).Type
 			if p.Mirrored {
 				second += " inside face up"
 			}
@@ -75,7 +74,7 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 	}
 	add(func() error { return useLayer(d, LayerBevel) })
 	for _, p := range s.Placements {
-		add(func() error { return bevelTexts(d, p, *panel[p.Panel]) })
+		add(func() error { return bevelTexts(d, p, *rep.panelRow(p.Panel)) })
 	}
 	if grain {
 		add(func() error { return useLayer(d, LayerGrain) })
@@ -92,7 +91,7 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 				h := partTextHeight(size)
 				// The panel's grain direction where the part lies: its
 				// own direction, mirrored if the part is, then turned.
-				g := panel[p.Panel].GrainDeg
+				g := rep.panelRow(p.Panel).GrainDeg
 				if p.Mirrored {
 					g = 180 - g
 				}
@@ -257,8 +256,14 @@ func arrow(d *dxfDoc, x0, y0, x1, y1, h float64) error {
 	return nil
 }
 
-// panelRows maps panel labels to their rows (made by BuildReport).
-func (rep *Report) panelRows() map[string]*PanelRow { return rep.panelOf }
+// panelRow returns the row of the panel with this label (indexed by
+// BuildReport), or an empty row for a label the report does not hold.
+func (rep *Report) panelRow(label string) *PanelRow {
+	if p := rep.panelOf[label]; p != nil {
+		return p
+	}
+	return &PanelRow{Label: label}
+}
 
 // labelSpot returns the centroid of an outline and its size.
 func labelSpot(pts [][2]float64) (x, y, size float64) {
