@@ -3,6 +3,7 @@ package geom
 import (
 	"cmp"
 	"errors"
+	"fmt"
 	"math"
 	"slices"
 	"strings"
@@ -59,6 +60,29 @@ type TypeKey struct {
 	Name   string // such as "cut length"
 	Tol    float64
 	Values []float64
+}
+
+// Ordinal names the j-th of n sorted values for a TypeKey's name: first
+// ("lowest", "shortest", …), "2nd lowest", "3rd lowest", …, last.
+func Ordinal(j, n int, first, last string) string {
+	switch {
+	case j == 0:
+		return first
+	case j == n-1:
+		return last
+	}
+	suffix := "th"
+	if m := (j + 1) % 100; m < 11 || m > 13 {
+		switch m % 10 {
+		case 1:
+			suffix = "st"
+		case 2:
+			suffix = "nd"
+		case 3:
+			suffix = "rd"
+		}
+	}
+	return fmt.Sprintf("%d%s %s", j+1, suffix, first)
 }
 
 // TypeGroup is one type: its parts, the variant each is read in, and the

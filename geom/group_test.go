@@ -499,3 +499,16 @@ func TestTypeBoundAdd(t *testing.T) {
 		}
 	}
 }
+
+// Ordinal follows English ordinal suffixes (11th–13th, 21st, 22nd, …).
+func TestOrdinal(t *testing.T) {
+	for _, c := range []struct {
+		j, n int
+		want string
+	}{{0, 5, "lowest"}, {4, 5, "highest"}, {1, 5, "2nd lowest"}, {2, 5, "3rd lowest"}, {3, 30, "4th lowest"},
+		{10, 30, "11th lowest"}, {11, 30, "12th lowest"}, {12, 30, "13th lowest"}, {20, 30, "21st lowest"}, {21, 30, "22nd lowest"}, {22, 30, "23rd lowest"}} {
+		if got := Ordinal(c.j, c.n, "lowest", "highest"); got != c.want {
+			t.Errorf("Ordinal(%d, %d) = %q, want %q", c.j, c.n, got, c.want)
+		}
+	}
+}

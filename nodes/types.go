@@ -3,6 +3,7 @@ package nodes
 import (
 	"cmp"
 	"fmt"
+	"maps"
 	"slices"
 
 	"pqfab/geom"
@@ -208,11 +209,7 @@ func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, geom.TypeBound, error)
 	for i, nd := range nds {
 		byCount[len(nd.Arms)] = append(byCount[len(nd.Arms)], i)
 	}
-	counts := make([]int, 0, len(byCount))
-	for k := range byCount {
-		counts = append(counts, k)
-	}
-	slices.Sort(counts)
+	counts := slices.Sorted(maps.Keys(byCount))
 	var types []NodeType
 	var bound geom.TypeBound
 	for _, k := range counts {
@@ -236,10 +233,10 @@ func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, geom.TypeBound, error)
 		// gaps between arms sorted (each a difference of two azimuths
 		// measured from the first arm, so within twice the tolerance).
 		for j := range k {
-			p.Keys = append(p.Keys, geom.TypeKey{Name: fmt.Sprintf("%s arm elevation at nodes with %d members", ordinal(j, k, "lowest", "highest"), k), Tol: A, Values: make([]float64, len(idx))})
+			p.Keys = append(p.Keys, geom.TypeKey{Name: fmt.Sprintf("%s arm elevation at nodes with %d members", geom.Ordinal(j, k, "lowest", "highest"), k), Tol: A, Values: make([]float64, len(idx))})
 		}
 		for j := range k {
-			p.Keys = append(p.Keys, geom.TypeKey{Name: fmt.Sprintf("%s angle between neighbouring arms at nodes with %d members", ordinal(j, k, "smallest", "largest"), k), Tol: 2 * A, Values: make([]float64, len(idx))})
+			p.Keys = append(p.Keys, geom.TypeKey{Name: fmt.Sprintf("%s angle between neighbouring arms at nodes with %d members", geom.Ordinal(j, k, "smallest", "largest"), k), Tol: 2 * A, Values: make([]float64, len(idx))})
 		}
 		sorted := make([][]int, len(idx))
 		sortedAll := make([]int, len(idx)*k)
@@ -317,23 +314,4 @@ func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, geom.TypeBound, error)
 		types[t].Name = fmt.Sprintf("NT-%0*d", width, t+1)
 	}
 	return types, bound, nil
-}
-
-// ordinal names the j-th of k sorted values: "lowest", "2nd lowest", …,
-// "highest".
-func ordinal(j, k int, first, last string) string {
-	switch {
-	case j == 0:
-		return first
-	case j == k-1:
-		return last
-	}
-	suffix := "th"
-	switch j + 1 {
-	case 2:
-		suffix = "nd"
-	case 3:
-		suffix = "rd"
-	}
-	return fmt.Sprintf("%d%s %s", j+1, suffix, first)
 }

@@ -3,6 +3,7 @@ package panels
 import (
 	"cmp"
 	"fmt"
+	"maps"
 	"math"
 	"slices"
 
@@ -175,11 +176,7 @@ func Group(flats []Flat, opt TypeOptions) ([]Type, geom.TypeBound, error) {
 	for f, fl := range flats {
 		byCount[len(fl.Cut)] = append(byCount[len(fl.Cut)], f)
 	}
-	counts := make([]int, 0, len(byCount))
-	for k := range byCount {
-		counts = append(counts, k)
-	}
-	slices.Sort(counts)
+	counts := slices.Sorted(maps.Keys(byCount))
 	var types []Type
 	var bound geom.TypeBound
 	for _, k := range counts {
@@ -206,25 +203,6 @@ func Group(flats []Flat, opt TypeOptions) ([]Type, geom.TypeBound, error) {
 // areaResolutionM2 is the resolution to which nominal areas are rounded
 // when types are numbered (1 mm²); ties go by the nominal edges.
 const areaResolutionM2 = 1e-6
-
-// ordinal names the j-th of n sorted values: "shortest", "2nd
-// shortest", …, "longest".
-func ordinal(j, n int, first, last string) string {
-	switch {
-	case j == 0:
-		return first
-	case j == n-1:
-		return last
-	}
-	suffix := "th"
-	switch j + 1 {
-	case 2:
-		suffix = "nd"
-	case 3:
-		suffix = "rd"
-	}
-	return fmt.Sprintf("%d%s %s", j+1, suffix, first)
-}
 
 // groupShape groups the panels idx, all with the corners of s.
 func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type, geom.TypeBound, error) {
@@ -257,7 +235,7 @@ func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type,
 	nd := len(s.diags)
 	addKeys := func(n int, what, first, last string, tol float64) {
 		for j := range n {
-			name := fmt.Sprintf("%s %s of %d-corner panels", ordinal(j, n, first, last), what, k)
+			name := fmt.Sprintf("%s %s of %d-corner panels", geom.Ordinal(j, n, first, last), what, k)
 			p.Keys = append(p.Keys, geom.TypeKey{Name: name, Tol: tol, Values: make([]float64, len(idx))})
 		}
 	}
