@@ -19,30 +19,25 @@ func panelsTable(rep *Report) ([]string, func(add func(row ...any) error) error)
 		k = max(k, len(p.Corners))
 	}
 	diags := diagonalPairs(k)
-	head := []string{"Label", "Type", "Sheet"}
-	for i := 1; i <= k; i++ {
-		head = append(head, fmt.Sprintf("Cut edge %d (mm)", i))
+	// outline heads an outline's edges, diagonals and corner angles.
+	outline := func(head []string, what string) []string {
+		for i := 1; i <= k; i++ {
+			head = append(head, fmt.Sprintf("%s edge %d (mm)", what, i))
+		}
+		for _, d := range diags {
+			head = append(head, fmt.Sprintf("%s diagonal %d-%d (mm)", what, d[0]+1, d[1]+1))
+		}
+		for i := 1; i <= k; i++ {
+			head = append(head, fmt.Sprintf("%s angle %d (°)", what, i))
+		}
+		return head
 	}
-	for _, d := range diags {
-		head = append(head, fmt.Sprintf("Cut diagonal %d-%d (mm)", d[0]+1, d[1]+1))
-	}
-	for i := 1; i <= k; i++ {
-		head = append(head, fmt.Sprintf("Cut angle %d (°)", i))
-	}
+	head := outline([]string{"Label", "Type", "Sheet"}, "Cut")
 	head = append(head, "Cut rectangle long (mm)", "Cut rectangle short (mm)", "Cut area (m²)", "Cut perimeter (mm)", "Weight (kg)")
 	for i := 1; i <= k; i++ {
 		head = append(head, fmt.Sprintf("Bevel %d (°)", i))
 	}
-	head = append(head, "Build-up", "Edge work", "Coating", "Heat treatment", "Grade")
-	for i := 1; i <= k; i++ {
-		head = append(head, fmt.Sprintf("Set-out edge %d (mm)", i))
-	}
-	for _, d := range diags {
-		head = append(head, fmt.Sprintf("Set-out diagonal %d-%d (mm)", d[0]+1, d[1]+1))
-	}
-	for i := 1; i <= k; i++ {
-		head = append(head, fmt.Sprintf("Set-out angle %d (°)", i))
-	}
+	head = outline(append(head, "Build-up", "Edge work", "Coating", "Heat treatment", "Grade"), "Set-out")
 	head = append(head, "Corner nodes", "Id", "Grain direction (°)", "Flatness before (mm)", "Flatness after (mm)")
 	spec := map[string]*PanelSpec{}
 	for i := range rep.PanelTypes {
