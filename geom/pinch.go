@@ -30,24 +30,16 @@ func pinches(n *Net, t *Topology) []pinch {
 		}
 	}
 	local := make([]int, len(n.Faces)) // index of a face in the current node's list
-	var parent []int
-	find := func(x int) int {
-		for parent[x] != x {
-			parent[x] = parent[parent[x]]
-			x = parent[x]
-		}
-		return x
-	}
+	var u unionFind
 	var out []pinch
 	for v := range n.Nodes {
 		faces := at[start[v]:start[v+1]]
 		if len(faces) < 2 {
 			continue
 		}
-		parent = parent[:0]
+		u.reset(len(faces))
 		for i, f := range faces {
 			local[f] = i
-			parent = append(parent, i)
 		}
 		for i, f := range faces {
 			c := n.Faces[f].Corners
@@ -57,34 +49,20 @@ func pinches(n *Net, t *Topology) []pinch {
 			}
 			for _, e := range [2]int{t.FaceEdges[f][k], t.FaceEdges[f][(k+len(c)-1)%len(c)]} {
 				for _, g := range t.Edges[e].Faces {
-					if a, b := find(i), find(local[g]); a != b {
-						parent[max(a, b)] = min(a, b)
-					}
+					u.union(i, local[g])
 				}
 			}
 		}
 		roots := 0
 		for i := range faces {
-			if find(i) == i {
+			if u.find(i) == i {
 				roots++
 			}
 		}
 		if roots < 2 {
 			continue
 		}
-		groups := map[int]int{}
-		var gs [][]int
-		for i, f := range faces {
-			r := find(i)
-			g, ok := groups[r]
-			if !ok {
-				g = len(gs)
-				groups[r] = g
-				gs = append(gs, nil)
-			}
-			gs[g] = append(gs[g], f)
-		}
-		out = append(out, pinch{node: v, groups: gs})
+		out = append(out, pinch{node: v, groups: u.sets(func(i int) int { return faces[i] })})
 	}
 	return out
 }

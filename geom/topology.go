@@ -159,42 +159,14 @@ func (t *Topology) BoundaryNodes(nodes int) []bool {
 // Components returns the connected parts of the net as lists of faces
 // (faces joined through shared edges), ordered by their first face.
 func (t *Topology) Components(faces int) [][]int {
-	parent := make([]int, faces)
-	for i := range parent {
-		parent[i] = i
-	}
-	find := func(x int) int {
-		for parent[x] != x {
-			parent[x] = parent[parent[x]]
-			x = parent[x]
-		}
-		return x
-	}
+	var u unionFind
+	u.reset(faces)
 	for _, e := range t.Edges {
 		for _, f := range e.Faces[1:] {
-			a, b := find(e.Faces[0]), find(f)
-			if a != b {
-				if a < b {
-					parent[b] = a
-				} else {
-					parent[a] = b
-				}
-			}
+			u.union(e.Faces[0], f)
 		}
 	}
-	groups := map[int]int{}
-	var out [][]int
-	for f := 0; f < faces; f++ {
-		r := find(f)
-		g, ok := groups[r]
-		if !ok {
-			g = len(out)
-			groups[r] = g
-			out = append(out, nil)
-		}
-		out[g] = append(out[g], f)
-	}
-	return out
+	return u.sets(func(f int) int { return f })
 }
 
 // BoundaryLength returns the total length of the boundary edges (mm).
