@@ -10,6 +10,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/internal/testnets"
 	"pqfab/samples"
 )
 
@@ -332,35 +333,16 @@ const TypeResolutionMM = geom.TypeResolution
 // the types keep their promise and no two can be merged, checked by brute
 // force from the members' and nodes' own fields.
 func TestTypePromise(t *testing.T) {
-	type net struct {
-		name string
-		n    *geom.Net
-	}
-	var nets []net
-	for _, name := range samples.Names() {
-		n, _ := samples.Make(name, 400)
-		nets = append(nets, net{name, n})
-	}
-	rng := rand.New(rand.NewPCG(12, 2))
-	for k := range 3 {
-		n, _ := samples.Make("canopy", 300)
-		for i := range n.Nodes {
-			p := &n.Nodes[i].Pos
-			p.X += 4 * (rng.Float64() - 0.5)
-			p.Y += 4 * (rng.Float64() - 0.5)
-			p.Z += 4 * (rng.Float64() - 0.5)
-		}
-		nets = append(nets, net{fmt.Sprintf("canopy bumped %d", k), n})
-	}
+	nets := testnets.TypeNets(400, 300, 3, 2)
 	for _, nt := range nets {
 		for _, tol := range []TypeOptions{defaultTol, {LengthTolMM: 3, AngleTolDeg: 1.5}} {
 			o := testOptions(AxisLeastTwist, 50, geom.Bays{})
 			o.Types = tol
-			s, err := Build(nt.n, topoOf(t, nt.n), o)
+			s, err := Build(nt.Net, topoOf(t, nt.Net), o)
 			if err != nil {
 				t.Fatal(err)
 			}
-			name := fmt.Sprintf("%s %v", nt.name, tol)
+			name := fmt.Sprintf("%s %v", nt.Name, tol)
 			checkMemberTypes(t, name, s.Members, s.MemberTypes, tol)
 			checkNodeTypes(t, name, s.Nodes, s.NodeTypes, tol)
 			if s.MemberTypeBound.Count > len(s.MemberTypes) || s.NodeTypeBound.Count > len(s.NodeTypes) {

@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"pqfab/geom"
+	"pqfab/internal/testnets"
 	"pqfab/samples"
 )
 
@@ -105,36 +106,17 @@ func TestDomePanelTypes(t *testing.T) {
 // panels, the types keep their promise and no two can be merged, checked
 // by brute force from the cut outlines.
 func TestPanelTypePromise(t *testing.T) {
-	type net struct {
-		name string
-		n    *geom.Net
-	}
-	var nets []net
-	for _, name := range samples.Names() {
-		n, _ := samples.Make(name, 500)
-		nets = append(nets, net{name, n})
-	}
-	rng := rand.New(rand.NewPCG(12, 3))
-	for k := range 2 {
-		n, _ := samples.Make("canopy", 500)
-		for i := range n.Nodes {
-			p := &n.Nodes[i].Pos
-			p.X += 4 * (rng.Float64() - 0.5)
-			p.Y += 4 * (rng.Float64() - 0.5)
-			p.Z += 4 * (rng.Float64() - 0.5)
-		}
-		nets = append(nets, net{fmt.Sprintf("canopy bumped %d", k), n})
-	}
+	nets := testnets.TypeNets(500, 500, 2, 3)
 	mat := glass
 	mat.EdgeInsetMM = 6
 	for _, nt := range nets {
-		flats := flatsOf(t, nt.n, mat)
+		flats := flatsOf(t, nt.Net, mat)
 		for _, opt := range []TypeOptions{defaultTypes, {TolMM: 3, AngleTolDeg: 0.2, Mirror: true}, {TolMM: 0.5, AngleTolDeg: 2}} {
 			types, bound, err := Group(flats, opt)
 			if err != nil {
 				t.Fatal(err)
 			}
-			name := fmt.Sprintf("%s %+v", nt.name, opt)
+			name := fmt.Sprintf("%s %+v", nt.Name, opt)
 			if bound.Count > len(types) {
 				t.Errorf("%s: bound %d above %d types", name, bound.Count, len(types))
 			}
