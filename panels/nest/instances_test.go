@@ -25,38 +25,42 @@ type binInstance struct {
 	optimumCounts []int
 }
 
+// numberRows reads a file of numbers separated by white space, a row a
+// line, leaving out empty lines.
+func numberRows(tb testing.TB, path string) [][]float64 {
+	tb.Helper()
+	f, err := os.Open(path)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	defer f.Close()
+	var rows [][]float64
+	sc := bufio.NewScanner(f)
+	sc.Buffer(make([]byte, 1<<20), 1<<20)
+	for sc.Scan() {
+		var row []float64
+		for _, w := range strings.Fields(sc.Text()) {
+			v, err := strconv.ParseFloat(w, 64)
+			if err != nil {
+				tb.Fatalf("%s: %v", path, err)
+			}
+			row = append(row, v)
+		}
+		if len(row) > 0 {
+			rows = append(rows, row)
+		}
+	}
+	if err := sc.Err(); err != nil {
+		tb.Fatal(err)
+	}
+	return rows
+}
+
 // loadBinInstance reads T<name>.txt and OpT<name>.txt.
 func loadBinInstance(tb testing.TB, name string) binInstance {
 	tb.Helper()
-	fields := func(path string) [][]float64 {
-		f, err := os.Open(path)
-		if err != nil {
-			tb.Fatal(err)
-		}
-		defer f.Close()
-		var rows [][]float64
-		sc := bufio.NewScanner(f)
-		sc.Buffer(make([]byte, 1<<20), 1<<20)
-		for sc.Scan() {
-			var row []float64
-			for _, w := range strings.Fields(sc.Text()) {
-				v, err := strconv.ParseFloat(w, 64)
-				if err != nil {
-					tb.Fatalf("%s: %v", path, err)
-				}
-				row = append(row, v)
-			}
-			if len(row) > 0 {
-				rows = append(rows, row)
-			}
-		}
-		if err := sc.Err(); err != nil {
-			tb.Fatal(err)
-		}
-		return rows
-	}
 	dir := filepath.Join("testdata", "convex-bins")
-	rows := fields(filepath.Join(dir, "T"+name+".txt"))
+	rows := numberRows(tb, filepath.Join(dir, "T"+name+".txt"))
 	in := binInstance{name: name, class: name[:1], widthMM: rows[1][0], heightMM: rows[1][1]}
 	n := int(rows[0][0])
 	for i := 0; i < n; i++ {
@@ -71,7 +75,7 @@ func loadBinInstance(tb testing.TB, name string) binInstance {
 		}
 		in.parts = append(in.parts, Part{Label: fmt.Sprintf("%s-%d", name, i+1), Outline: p})
 	}
-	opt := fields(filepath.Join(dir, "OpT"+name+".txt"))
+	opt := numberRows(tb, filepath.Join(dir, "OpT"+name+".txt"))
 	in.optimum = int(opt[0][0])
 	for _, c := range opt[0][1 : 1+in.optimum] {
 		in.optimumCounts = append(in.optimumCounts, int(c))
@@ -158,25 +162,7 @@ var glassSheets = []Stock{
 // where they lie in the bin.
 func loadOptBins(tb testing.TB, name string) [][]geom.Polygon {
 	tb.Helper()
-	path := filepath.Join("testdata", "convex-bins", "OpT"+name+".txt")
-	b, err := os.ReadFile(path)
-	if err != nil {
-		tb.Fatal(err)
-	}
-	var rows [][]float64
-	for _, line := range strings.Split(string(b), "\n") {
-		var row []float64
-		for _, w := range strings.Fields(line) {
-			v, err := strconv.ParseFloat(w, 64)
-			if err != nil {
-				tb.Fatalf("%s: %v", path, err)
-			}
-			row = append(row, v)
-		}
-		if len(row) > 0 {
-			rows = append(rows, row)
-		}
-	}
+	rows := numberRows(tb, filepath.Join("testdata", "convex-bins", "OpT"+name+".txt"))
 	nb := int(rows[0][0])
 	var out [][]geom.Polygon
 	k := 2
