@@ -55,15 +55,20 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 		return err
 	}
 	panelHead, panelRows := panelsTable(rep)
+	cuts := 0
+	for _, s := range rep.Sheets {
+		cuts += len(s.Cuts)
+	}
 	tables := []struct {
 		name   string
 		header []string
+		n      int // rows, the header aside
 		rows   func(add func(row ...any) error) error
 	}{
-		{SheetPanels, panelHead, panelRows},
+		{SheetPanels, panelHead, len(rep.Panels), panelRows},
 		{SheetMembers, []string{"Label", "Type", "Node A", "Node B", "Cut length (mm)", "Blank length (mm)", "Bar",
 			"A mitre (°)", "A bevel (°)", "B mitre (°)", "B bevel (°)", "Twist (°)", "A setback (mm)", "B setback (mm)",
-			"A elevation (°)", "B elevation (°)", "System length (mm)", "Fold (°)", "Weight (kg)"},
+			"A elevation (°)", "B elevation (°)", "System length (mm)", "Fold (°)", "Weight (kg)"}, len(rep.Members),
 			func(add func(row ...any) error) error {
 				for _, m := range rep.Members {
 					a, b := m.Ends[0], m.Ends[1]
@@ -76,7 +81,7 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				return nil
 			}},
 		{SheetNodes, []string{"Label", "Id", "Type", "Members at node", "X (mm)", "Y (mm)", "Z (mm)", "Axis x", "Axis y", "Axis z",
-			"Support", "Move (mm)", "Move x (mm)", "Move y (mm)", "Move z (mm)", "Hub arms (member azimuth° elevation°)"},
+			"Support", "Move (mm)", "Move x (mm)", "Move y (mm)", "Move z (mm)", "Hub arms (member azimuth° elevation°)"}, len(rep.Nodes),
 			func(add func(row ...any) error) error {
 				for _, n := range rep.Nodes {
 					var arms []string
@@ -94,10 +99,11 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				}
 				return nil
 			}},
-		{SheetMemberTypes, memberTypeHead, memberTypeRows(rep)},
-		{SheetNodeTypes, nodeTypeHead, nodeTypeRows(rep)},
-		{SheetPanelTypes, panelTypeHead(rep), panelTypeRows(rep)},
+		{SheetMemberTypes, memberTypeHead, len(rep.MemberTypes), memberTypeRows(rep)},
+		{SheetNodeTypes, nodeTypeHead, len(rep.NodeTypes), nodeTypeRows(rep)},
+		{SheetPanelTypes, panelTypeHead(rep), len(rep.PanelTypes), panelTypeRows(rep)},
 		{SheetSheets, []string{"Sheet", "Stock", "Width (mm)", "Height (mm)", "Parts", "Utilization (%)", "Cuts", "Cut length (m)", "Panels"},
+			len(rep.Sheets) + len(rep.Unplaced),
 			func(add func(row ...any) error) error {
 				for _, s := range rep.Sheets {
 					var labels []string
@@ -119,7 +125,7 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				}
 				return nil
 			}},
-		{SheetCuts, []string{"Sheet", "Cut", "Splits piece", "Piece left", "Piece right", "From x (mm)", "From y (mm)", "To x (mm)", "To y (mm)", "Length (mm)"},
+		{SheetCuts, []string{"Sheet", "Cut", "Splits piece", "Piece left", "Piece right", "From x (mm)", "From y (mm)", "To x (mm)", "To y (mm)", "Length (mm)"}, cuts,
 			func(add func(row ...any) error) error {
 				for _, s := range rep.Sheets {
 					for i, c := range s.Cuts {
@@ -132,7 +138,7 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				return nil
 			}},
 		{SheetBars, []string{"Bar", "Stock", "Stock length (mm)", "Members", "Members in cutting order (label, blank mm)",
-			"Used (mm)", "Offcut (mm)", "Waste (mm)"},
+			"Used (mm)", "Offcut (mm)", "Waste (mm)"}, len(rep.Bars),
 			func(add func(row ...any) error) error {
 				for _, b := range rep.Bars {
 					if err := add(b.Name, b.Stock, b.LengthMM, len(b.Pieces), barUse(b), b.UsedMM, b.OffcutMM, b.WasteMM); err != nil {
@@ -146,7 +152,7 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 		if _, err := f.NewSheet(t.name); err != nil {
 			return err
 		}
-		if err := writeTable(f, t.name, fmt.Sprintf("t%d", i+1), t.header, bold, t.rows); err != nil {
+		if err := writeTable(f, t.name, fmt.Sprintf("t%d", i+1), t.header, t.n, bold, t.rows); err != nil {
 			return fmt.Errorf("schedule sheet %s: %w", t.name, err)
 		}
 	}
@@ -186,13 +192,11 @@ func safeCells(row []any) error {
 	return nil
 }
 
-// writeTable streams a header and rows into a sheet, freezes the header
-// and puts filters on it.
-func writeTable(f *excelize.File, sheet, table string, header []string, bold int, rows func(add func(row ...any) error) error) error {
-	// The stream writes the used range before the rows: count them first.
-	count, cols := 1, len(header)
-	_ = rows(func(row ...any) error { count, cols = count+1, max(cols, len(row)); return nil })
-	if err := setDimension(f, sheet, cols, count); err != nil {
+// writeTable streams a header and n rows, each no wider than the header,
+// into a sheet, freezes the header and puts filters on it.
+func writeTable(f *excelize.File, sheet, table string, header []string, n int, bold int, rows func(add func(row ...any) error) error) error {
+	// The stream writes the used range before the rows.
+	if err := setDimension(f, sheet, len(header), 1+n); err != nil {
 		return err
 	}
 	sw, err := f.NewStreamWriter(sheet)
@@ -212,23 +216,28 @@ func writeTable(f *excelize.File, sheet, table string, header []string, bold int
 	if err := sw.SetRow("A1", head); err != nil {
 		return err
 	}
-	n := 1
+	at := 1 // the row written last
 	err = rows(func(row ...any) error {
-		n++
-		cell, err := excelize.CoordinatesToCellName(1, n)
+		if at++; at > 1+n || len(row) > len(header) {
+			return fmt.Errorf("row %d: %d cells, beyond the %d rows of %d cells declared", at, len(row), n, len(header))
+		}
+		cell, err := excelize.CoordinatesToCellName(1, at)
 		if err != nil {
 			return err
 		}
 		if err := safeCells(row); err != nil {
-			return fmt.Errorf("row %d: %w", n, err)
+			return fmt.Errorf("row %d: %w", at, err)
 		}
 		return sw.SetRow(cell, row)
 	})
 	if err != nil {
 		return err
 	}
-	if n >= 2 {
-		last, err := excelize.CoordinatesToCellName(len(header), n)
+	if at != 1+n {
+		return fmt.Errorf("%d rows written, %d declared", at-1, n)
+	}
+	if n > 0 {
+		last, err := excelize.CoordinatesToCellName(len(header), at)
 		if err != nil {
 			return err
 		}
