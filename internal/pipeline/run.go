@@ -136,9 +136,9 @@ func Run(ctx context.Context, j *job.Job, open Opener, obs Observer, pol Policy)
 	res.Structure, res.Bays = st, bays
 	// The members' cutting plan is worked out beside the panels and the
 	// nesting (neither needs the other); its outcome is taken in, and its
-	// warnings listed, before the nesting's.
-	// A cutting plan that ends the job stops the nesting early: its
-	// error is the one reported, as when the bars were cut first.
+	// warnings listed, before the nesting's. A cutting plan that ends the
+	// job stops the nesting early: its error is the one reported, as when
+	// the bars were cut first.
 	nctx, stopNest := context.WithCancel(ctx)
 	defer stopNest()
 	waitBars, err := startCutPlan(j, res, obs, pol, stopNest)
@@ -146,12 +146,12 @@ func Run(ctx context.Context, j *job.Job, open Opener, obs Observer, pol Policy)
 		return nil, err
 	}
 	if err := panelsAndNest(nctx, j, res, obs); err != nil {
-		if berr := waitBars(pol, warn); berr != nil {
+		if berr := waitBars(warn); berr != nil {
 			return nil, berr
 		}
 		return nil, err
 	}
-	if err := waitBars(pol, warn); err != nil {
+	if err := waitBars(warn); err != nil {
 		return nil, err
 	}
 	if res.Nesting.Stopped {
@@ -179,14 +179,14 @@ func Run(ctx context.Context, j *job.Job, open Opener, obs Observer, pol Policy)
 // the job, or are listed as warnings when the policy continues. When the
 // plan will end the job, stop is called as soon as that is known. Only the
 // caller's goroutine tells obs.
-func startCutPlan(j *job.Job, res *Result, obs Observer, pol Policy, stop func()) (wait func(pol Policy, warn func(string)) error, err error) {
+func startCutPlan(j *job.Job, res *Result, obs Observer, pol Policy, stop func()) (wait func(warn func(string)) error, err error) {
 	pieces, err := bars.MemberPieces(res.Structure.Members, res.Structure.Section)
 	if err != nil {
 		return nil, err
 	}
 	res.Blanks, res.BarStocks = pieces, j.BarStocks()
 	if len(res.BarStocks) == 0 {
-		return func(Policy, func(string)) error { return nil }, nil
+		return func(func(string)) error { return nil }, nil
 	}
 	obs.Step("bars", 0, 1, fmt.Sprintf("bars: %d members on %d bar lengths", len(pieces), len(res.BarStocks)))
 	type solved struct {
@@ -202,7 +202,7 @@ func startCutPlan(j *job.Job, res *Result, obs Observer, pol Policy, stop func()
 		}
 		ch <- solved{plan, err}
 	}()
-	return func(pol Policy, warn func(string)) error {
+	return func(warn func(string)) error {
 		var got solved
 		select {
 		case got = <-ch:
