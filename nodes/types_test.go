@@ -425,22 +425,13 @@ func checkMemberTypes(t *testing.T, name string, ms []Member, types []MemberType
 		if math.Abs(total-ty.TotalCutLengthMM) > 1e-6 {
 			t.Errorf("%s %s: total cut length %g, type says %g", name, ty.Name, total, ty.TotalCutLengthMM)
 		}
-		idx := sample(len(vecs))
-		for a, i := range idx {
-			for _, j := range idx[a+1:] {
-				for d := range 6 {
-					if diff := math.Abs(vecs[i][d] - vecs[j][d]); diff > tols[d] {
-						t.Fatalf("%s %s: members %d and %d differ by %g in coordinate %d", name, ty.Name, ty.Parts[i], ty.Parts[j], diff, d)
-					}
-				}
-			}
+		rows := make([][]float64, len(vecs))
+		for k := range vecs {
+			rows[k] = vecs[k][:]
 		}
+		pairsWithin(t, name+" "+ty.Name, "members", ty.Parts, rows, func(d int) float64 { return tols[d] })
 	}
-	for i, c := range count {
-		if c != 1 {
-			t.Fatalf("%s: member %d in %d types", name, i, c)
-		}
-	}
+	eachOnce(t, name, "member", count)
 	for a := range types {
 		for b := a + 1; b < len(types); b++ {
 			for f := range 2 {
@@ -454,6 +445,33 @@ func checkMemberTypes(t *testing.T, name string, ms []Member, types []MemberType
 					t.Fatalf("%s: %s and %s could be one type", name, types[a].Name, types[b].Name)
 				}
 			}
+		}
+	}
+}
+
+// pairsWithin fails unless every pair of a sample of a type's parts
+// (their coordinates vecs) differs by at most tol(d) in each coordinate d.
+func pairsWithin(t *testing.T, name, what string, parts []int, vecs [][]float64, tol func(d int) float64) {
+	t.Helper()
+	idx := sample(len(vecs))
+	for a, i := range idx {
+		for _, j := range idx[a+1:] {
+			for d := range vecs[i] {
+				if diff := math.Abs(vecs[i][d] - vecs[j][d]); diff > tol(d) {
+					t.Fatalf("%s: %s %d and %d differ by %g in coordinate %d", name, what, parts[i], parts[j], diff, d)
+				}
+			}
+		}
+	}
+}
+
+// eachOnce fails unless every part is in exactly one type (count[i]
+// types).
+func eachOnce(t *testing.T, name, what string, count []int) {
+	t.Helper()
+	for i, c := range count {
+		if c != 1 {
+			t.Fatalf("%s: %s %d in %d types", name, what, i, c)
 		}
 	}
 }
@@ -544,22 +562,9 @@ func checkNodeTypes(t *testing.T, name string, nds []Node, types []NodeType, tol
 		if math.Abs(dev-ty.MaxDevDeg) > 1e-9 {
 			t.Errorf("%s %s: deviation %g°, type says %g", name, ty.Name, dev, ty.MaxDevDeg)
 		}
-		idx := sample(len(vecs))
-		for a, i := range idx {
-			for _, j := range idx[a+1:] {
-				for d := range vecs[i] {
-					if diff := math.Abs(vecs[i][d] - vecs[j][d]); diff > A {
-						t.Fatalf("%s %s: nodes %d and %d differ by %g° in coordinate %d", name, ty.Name, ty.Parts[i], ty.Parts[j], diff, d)
-					}
-				}
-			}
-		}
+		pairsWithin(t, name+" "+ty.Name, "nodes", ty.Parts, vecs, func(int) float64 { return A })
 	}
-	for i, c := range count {
-		if c != 1 {
-			t.Fatalf("%s: node %d in %d types", name, i, c)
-		}
-	}
+	eachOnce(t, name, "node", count)
 	for a := range types {
 		for b := a + 1; b < len(types); b++ {
 			k := types[a].MembersAtNode
