@@ -10,7 +10,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
-	"pqfab/internal/testnets"
+	"pqfab/internal/typenets"
 	"pqfab/samples"
 )
 
@@ -333,7 +333,7 @@ const TypeResolutionMM = geom.TypeResolution
 // the types keep their promise and no two can be merged, checked by brute
 // force from the members' and nodes' own fields.
 func TestTypePromise(t *testing.T) {
-	nets := testnets.TypeNets(400, 300, 3, 2)
+	nets := typenets.Nets(400, 300, 3, 2)
 	for _, nt := range nets {
 		for _, tol := range []TypeOptions{defaultTol, {LengthTolMM: 3, AngleTolDeg: 1.5}} {
 			o := testOptions(AxisLeastTwist, 50, geom.Bays{})

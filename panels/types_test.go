@@ -8,7 +8,7 @@ import (
 	"testing"
 
 	"pqfab/geom"
-	"pqfab/internal/testnets"
+	"pqfab/internal/typenets"
 	"pqfab/samples"
 )
 
@@ -106,7 +106,7 @@ func TestDomePanelTypes(t *testing.T) {
 // panels, the types keep their promise and no two can be merged, checked
 // by brute force from the cut outlines.
 func TestPanelTypePromise(t *testing.T) {
-	nets := testnets.TypeNets(500, 500, 2, 3)
+	nets := typenets.Nets(500, 500, 2, 3)
 	mat := glass
 	mat.EdgeInsetMM = 6
 	for _, nt := range nets {

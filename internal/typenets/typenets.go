@@ -1,4 +1,6 @@
-package testnets
+// Package typenets gives the type tests of several packages the same nets:
+// the samples, and canopies with their nodes moved a little (seeded).
+package typenets
 
 import (
 	"fmt"
@@ -14,11 +16,11 @@ type Named struct {
 	Net  *geom.Net
 }
 
-// TypeNets returns the nets the type tests group: every sample of about
+// Nets returns the nets the type tests group: every sample of about
 // panels panels, then k copies of the canopy of about canopyPanels panels
 // with every node moved by up to ±2 mm in x, y and z (seeded), which
 // splits types near their tolerances.
-func TypeNets(panels, canopyPanels, k int, seed uint64) []Named {
+func Nets(panels, canopyPanels, k int, seed uint64) []Named {
 	var nets []Named
 	for _, name := range samples.Names() {
 		n, _ := samples.Make(name, panels)
