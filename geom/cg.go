@@ -9,13 +9,21 @@ import "math"
 // steps, and returns x and the number of steps. Memory is a few vectors,
 // so it serves sparse systems of any size without storing the matrix.
 func SolveCG(mul func(v, out []float64), diag, b []float64, relTol float64, maxIter int) ([]float64, int) {
+	return SolvePCG(mul, func(r, z []float64) {
+		for i := range z {
+			z[i] = r[i] / diag[i]
+		}
+	}, b, relTol, maxIter)
+}
+
+// SolvePCG is SolveCG with any symmetric positive definite preconditioner:
+// pre(r, z) writes z = M⁻¹ r for a fixed M close to A.
+func SolvePCG(mul, pre func(v, out []float64), b []float64, relTol float64, maxIter int) ([]float64, int) {
 	m := len(b)
 	x := make([]float64, m)
 	r := append([]float64(nil), b...)
 	z := make([]float64, m)
-	for i := range z {
-		z[i] = r[i] / diag[i]
-	}
+	pre(r, z)
 	p := append([]float64(nil), z...)
 	ap := make([]float64, m)
 	rz := dotVec(r, z)
@@ -39,9 +47,7 @@ func SolveCG(mul func(v, out []float64), diag, b []float64, relTol float64, maxI
 		if math.Sqrt(dotVec(r, r)) <= relTol*r0 {
 			break
 		}
-		for i := range z {
-			z[i] = r[i] / diag[i]
-		}
+		pre(r, z)
 		rz2 := dotVec(r, z)
 		beta := rz2 / rz
 		rz = rz2

@@ -74,6 +74,7 @@ type Progress struct {
 	MaxIter     int
 	MaxFlatMM   float64 // worst flatness deviation now
 	OverTol     int     // panels still over the tolerance
+	ExcessMM    float64 // total flatness deviation over the tolerance (mm)
 	MaxMoveMM   float64 // largest node move so far
 	Description string
 }
@@ -88,6 +89,14 @@ type PlanarizeResult struct {
 	After      []float64 // and after
 	Iterations int
 	Converged  bool // every panel within tolerance and no move over the limit
+	// Stop names the limit that stopped a planarization short of the
+	// tolerance (StopMoveLimit, StopBudget, StopSupports or StopStalled);
+	// empty when it converged.
+	Stop string
+	// NeedMoveMM is, when the allowed move stopped it, the largest node
+	// move of a run without that limit that reached the tolerance (0 when
+	// that run did not reach it either).
+	NeedMoveMM float64
 }
 
 // PanelFailure names a panel that could not be made flat enough.
@@ -126,6 +135,10 @@ type PlanarizeError struct {
 	MaxIter   int
 	BestMM    float64 // largest flatness deviation reached
 	InputMM   float64 // largest flatness deviation in the input
+	// NeedMoveMM is the largest node move of a run without the move
+	// limit that reached the tolerance, when the limit stopped this one
+	// and that run succeeded; else 0.
+	NeedMoveMM float64
 }
 
 func (e *PlanarizeError) Error() string {
@@ -135,6 +148,9 @@ func (e *PlanarizeError) Error() string {
 	switch e.Stop {
 	case StopMoveLimit:
 		fmt.Fprintf(&b, "; stopped by the allowed node move of %.3g mm", e.MaxMoveMM)
+		if e.NeedMoveMM > 0 {
+			fmt.Fprintf(&b, " (without that limit every panel comes within the tolerance with a largest node move of %.1f mm)", e.NeedMoveMM)
+		}
 	case StopBudget:
 		fmt.Fprintf(&b, "; stopped by the iteration budget of %d steps", e.MaxIter)
 	case StopSupports:
@@ -161,23 +177,31 @@ func (e *PlanarizeError) Error() string {
 // Planarize moves the free nodes of n as little and as smoothly as it can
 // so that every panel's flatness deviation is within opt.TolMM.
 //
-// Method: penalty Gauss-Newton (Levenberg-Marquardt) on
+// Method: the augmented Lagrangian method (method of multipliers,
+// Hestenes 1969, Powell 1969) with a rising penalty, on
 //
-//	E(x) = Σ_c w_c g_c(x)² + |x − x⁰|² + λ |L(x − x⁰)|²
+//	E(x) = Σ_c w (g_c(x) + s_c)² + |x − x⁰|² + λ |L(x − x⁰)|²
 //
 // where g_c is the signed diagonal gap of each run of four consecutive
 // corners of a panel (for a quad, the one pair of diagonals; Liu et al.
-// 2006), L the umbrella Laplacian over the net's edges and λ the fairness.
-// Each step solves the sparse symmetric positive definite normal equations
-// by Jacobi-preconditioned conjugate gradients, matrix-free, so memory and
-// time per step are linear in the net's size. When the Gauss-Newton run
-// settles with panels still over the tolerance, the method of multipliers
-// (augmented Lagrangian) shifts each gap's target by its current value,
-// which drives the gaps to zero at a fixed, well-conditioned weight, so the
-// answer tends to the smallest, smoothest move that makes every panel flat.
+// 2006), L the umbrella Laplacian over the net's edges, λ the fairness
+// and s_c the multiplier shift of each gap. Each round minimises E by
+// Levenberg-Marquardt steps (Gauss-Newton damped by the diagonal); each
+// step solves the sparse symmetric positive definite normal equations by
+// Jacobi-preconditioned conjugate gradients, matrix-free, so memory and
+// time per step are linear in the net's size. Between rounds each shift
+// grows by its gap (the multiplier update) and, where the gaps did not
+// shrink to a quarter, the weight w rises tenfold (a continuation: the
+// answer follows the smallest, smoothest move as the panels come flat).
+// Progress is judged on the total flatness excess over the tolerance, not
+// only on the worst panel, and the state handed back is never worse than
+// the input in its largest flatness deviation or its count of panels over
+// the tolerance.
 //
 // It returns the result and, when the tolerance or the move limit is not
-// met, a *PlanarizeError beside it.
+// met, a *PlanarizeError beside it. When the allowed move stopped it, a
+// second run without the limit says how large a move the tolerance needs
+// (PlanarizeError.NeedMoveMM).
 func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*PlanarizeResult, error) {
 	if err := opt.Validate(); err != nil {
 		return nil, err
@@ -187,58 +211,8 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 	}
 	s := newSolver(n, topo, opt)
 	res := &PlanarizeResult{Before: s.flatness(s.x0)}
-	x := append([]float64(nil), s.x0...)
-	flat := res.Before
-	iter, lastGain := 0, 0
-	best := maxOf(flat)
-	// The best state so far: fewest panels over the tolerance, then the
-	// smallest largest deviation. Every iterate keeps within the allowed
-	// move, so the best state is never worse than the input.
-	bestX, bestOver, bestMax := x, countOver(flat, opt.TolMM), best
-	mu := initialDamping
-	energy := s.energy(x)
-	for {
-		over := countOver(flat, opt.TolMM)
-		if opt.Progress != nil {
-			opt.Progress(Progress{Iter: iter, MaxIter: opt.MaxIter, MaxFlatMM: maxOf(flat), OverTol: over, MaxMoveMM: s.maxMove(x), Description: "planarize"})
-		}
-		if over == 0 || iter >= opt.MaxIter {
-			break
-		}
-		if iter-lastGain > stallIters || mu > maxDamping {
-			break // no further progress
-		}
-		iter++
-		s.linearize(x)
-		step := s.solve(s.gradient(x), mu)
-		trial := make([]float64, len(x))
-		for i := range x {
-			trial[i] = x[i] - step[i]
-		}
-		s.clamp(trial, opt.MaxMoveMM)
-		e := s.energy(trial)
-		if e >= energy {
-			mu *= 8 // Levenberg-Marquardt: damp and retry
-			continue
-		}
-		decrease := (energy - e) / energy
-		x, energy = trial, e
-		mu = math.Max(mu/3, minDamping)
-		flat = s.flatness(x)
-		m := maxOf(flat)
-		if m < 0.99*best {
-			best, lastGain = m, iter
-		}
-		if o := countOver(flat, opt.TolMM); o < bestOver || (o == bestOver && m < bestMax) {
-			bestX, bestOver, bestMax = x, o, m
-		}
-		if decrease < gnConverged {
-			s.updateMultipliers(x)
-			energy = s.energy(x)
-		}
-	}
+	x, iter := s.run(res.Before, opt)
 	res.Iterations = iter
-	x = bestX
 	res.Positions = make([]geom.Vec, len(n.Nodes))
 	res.Moves = make([]geom.Vec, len(n.Nodes))
 	var sum float64
@@ -258,13 +232,133 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 	if res.Converged {
 		return res, nil
 	}
-	return res, failure(n, res, opt, iter)
+	pe := failure(n, res, opt, iter, s.clamped)
+	if pe.Stop == StopMoveLimit && opt.MaxMoveMM < MaxMoveMM {
+		// How large a move would do: the same run without the limit.
+		free := opt
+		free.MaxMoveMM, free.Progress = MaxMoveMM, nil
+		fs := newSolver(n, topo, free)
+		fx, _ := fs.run(res.Before, free)
+		if countOver(fs.flatness(fx), opt.TolMM) == 0 {
+			pe.NeedMoveMM = fs.maxMove(fx)
+		}
+	}
+	res.Stop, res.NeedMoveMM = pe.Stop, pe.NeedMoveMM
+	return res, pe
+}
+
+// state is one iterate's standing: panels over the tolerance, their total
+// excess over it and the largest flatness deviation.
+type state struct {
+	over        int
+	excess, max float64
+}
+
+func standing(flat []float64, tol float64) state {
+	st := state{over: countOver(flat, tol), max: maxOf(flat)}
+	for _, f := range flat {
+		st.excess += math.Max(0, f-tol)
+	}
+	return st
+}
+
+// run drives the rounds of the augmented Lagrangian method from the input
+// positions and returns the best state reached and the steps taken. The
+// best state is the one with the fewest panels over the tolerance, then
+// the least total excess, among the states no worse than the input in
+// both its count over the tolerance and its largest deviation.
+func (s *solver) run(before []float64, opt PlanarizeOptions) ([]float64, int) {
+	x := append([]float64(nil), s.x0...)
+	input := standing(before, opt.TolMM)
+	bestX, best := x, input
+	iter := 0
+	report := func(st state) {
+		if opt.Progress != nil {
+			opt.Progress(Progress{Iter: iter, MaxIter: opt.MaxIter, MaxFlatMM: st.max, OverTol: st.over,
+				ExcessMM: st.excess, MaxMoveMM: s.maxMove(x), Description: "planarize"})
+		}
+	}
+	report(input)
+	if input.over == 0 {
+		return x, 0
+	}
+	s.linearize(x)
+	viol := s.violation()
+	roundBest, stale := input.excess, 0
+	for iter < opt.MaxIter {
+		// One round: Levenberg-Marquardt at fixed weight and shifts, the
+		// damping steered by the gain ratio (Nielsen 1999).
+		energy := s.energy(x)
+		mu, nu := initialDamping, 2.0
+		for steps := 0; iter < opt.MaxIter && steps < roundSteps; steps++ {
+			iter++
+			s.linearize(x)
+			grad := s.gradient(x)
+			step := s.solve(grad, mu)
+			trial := make([]float64, len(x))
+			// The model's decrease of E: 2gᵀs − sᵀHs = gᵀs + μ sᵀDs.
+			var pred float64
+			for i := range x {
+				trial[i] = x[i] - step[i]
+				pred += grad[i]*step[i] + mu*s.diag[i]*step[i]*step[i]
+			}
+			s.clamp(trial, opt.MaxMoveMM)
+			e := s.energy(trial)
+			if !(e < energy) || !(pred > 0) {
+				mu *= nu
+				nu *= 2
+				report(best)
+				if mu > maxDamping {
+					break
+				}
+				continue
+			}
+			decrease := (energy - e) / energy
+			rho := (energy - e) / pred
+			mu = math.Max(mu*math.Max(1.0/3, 1-math.Pow(2*rho-1, 3)), minDamping)
+			nu = 2
+			x, energy = trial, e
+			st := standing(s.flatness(x), opt.TolMM)
+			if st.over <= input.over && st.max <= input.max &&
+				(st.over < best.over || (st.over == best.over && st.excess < best.excess)) {
+				bestX, best = x, st
+			}
+			report(st)
+			if st.over == 0 {
+				return x, iter
+			}
+			if decrease < gnConverged {
+				break
+			}
+		}
+		// Between rounds: progress on the total excess, then the
+		// multiplier update and, where the gaps shrank too little, a
+		// heavier weight.
+		if best.excess < (1-roundGain)*roundBest {
+			roundBest, stale = best.excess, 0
+		} else if stale++; stale >= stallRounds {
+			break
+		}
+		s.linearize(x)
+		v := s.violation()
+		for k := range s.cons {
+			s.cons[k].shift += s.cons[k].val
+		}
+		if v > violationShrink*viol {
+			if s.w*weightRise > maxGapWeight {
+				break
+			}
+			s.setWeight(s.w * weightRise)
+		}
+		viol = v
+	}
+	return bestX, iter
 }
 
 // failure explains a planarization that stopped short: which limit
-// stopped it, and the panels still over the tolerance with the move each
+// stopped it (the allowed move when any step was held back by it), and the panels still over the tolerance with the move each
 // needs.
-func failure(n *geom.Net, res *PlanarizeResult, opt PlanarizeOptions, iter int) *PlanarizeError {
+func failure(n *geom.Net, res *PlanarizeResult, opt PlanarizeOptions, iter int, clamped bool) *PlanarizeError {
 	pe := &PlanarizeError{Source: n.Source, Count: countOver(res.After, opt.TolMM), TolMM: opt.TolMM, MaxMoveMM: opt.MaxMoveMM,
 		MaxIter: opt.MaxIter, BestMM: maxOf(res.After), InputMM: maxOf(res.Before)}
 	var fails []PanelFailure
@@ -292,7 +386,7 @@ func failure(n *geom.Net, res *PlanarizeResult, opt PlanarizeOptions, iter int) 
 		fails = append(fails, pf)
 	}
 	switch {
-	case atLimit || anyNeedsMore(fails, opt.MaxMoveMM):
+	case atLimit || clamped || anyNeedsMore(fails, opt.MaxMoveMM):
 		pe.Stop = StopMoveLimit
 	case iter >= opt.MaxIter:
 		pe.Stop = StopBudget
@@ -369,3 +463,4 @@ func maxOf(xs []float64) float64 {
 	}
 	return m
 }
+

@@ -10,10 +10,15 @@ import (
 
 // Solver constants.
 const (
-	initialGapWeight = 100.0 // w_c at the start, against a closeness weight of 1
-	gnConverged      = 1e-3  // relative energy decrease that ends a Gauss-Newton run
-	stallIters       = 25    // steps without a 1 % gain in the worst flatness
-	initialDamping   = 1e-6  // Levenberg-Marquardt damping: start and bounds
+	initialGapWeight = 100.0 // w at the start, against a closeness weight of 1 (per mm²)
+	weightRise       = 10.0  // the weight's factor when a round shrank the gaps too little
+	maxGapWeight     = 1e12  // no heavier weight: the round after it ends the run
+	violationShrink  = 0.25  // a round that shrinks the largest gap below this share keeps the weight
+	gnConverged      = 1e-5  // relative energy decrease that ends a round
+	roundSteps       = 30    // steps that end a round
+	roundGain        = 0.01  // a round gains when it cuts the total excess by this share
+	stallRounds      = 4     // rounds in a row without a gain end the run
+	initialDamping   = 1e-6  // Levenberg-Marquardt damping (share of the diagonal): start and bounds
 	minDamping       = 1e-12
 	maxDamping       = 1e6
 	cgRelTol         = 1e-6 // conjugate gradients: relative residual
@@ -26,10 +31,14 @@ type gapCon struct {
 	node  [4]int32
 	face  int32
 	w     float64
-	shift float64 // augmented-Lagrangian shift: multiplier / w
+	shift float64 // augmented-Lagrangian shift: multiplier / (2w)
+	scale float64 // |d1 × d2| of the input (mm²): turns a volume into a gap
 	val   float64
 	grad  [4]geom.Vec
 }
+
+// conCorner is corner j of gap k.
+type conCorner struct{ k, j int32 }
 
 // solver holds the state of one planarization.
 type solver struct {
@@ -37,6 +46,14 @@ type solver struct {
 	x0    []float64 // initial positions, 3 per node
 	free  []float64 // 1 for a coordinate that may move, else 0
 	cons  []gapCon
+	w     float64 // the gap weight of the current round
+	diag  []float64
+	// nodeCons lists, per node, the gaps it is a corner of (gap k, its
+	// corner j).
+	nodeCons [][]conCorner
+	band     *bandPre // made at the first heavy round; nil where too costly
+	banded   bool     // band was made (or found too costly)
+	clamped  bool     // a step was held back by the allowed move
 	nbr   [][]int32 // neighbours of each node over the net's edges
 	fair  float64
 	ltlDg []float64 // diagonal of LᵀL per node
@@ -71,8 +88,17 @@ func newSolver(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) *solver {
 			for j := 0; j < 4; j++ {
 				c.node[j] = int32(face.Corners[(r+j)%k])
 			}
-			c.face, c.w = int32(f), initialGapWeight
+			c.face = int32(f)
+			p := func(j int) geom.Vec { return n.Nodes[c.node[j]].Pos }
+			c.scale = r3.Norm(r3.Cross(r3.Sub(p(2), p(0)), r3.Sub(p(3), p(1))))
 			s.cons = append(s.cons, c)
+		}
+	}
+	s.setWeight(initialGapWeight)
+	s.nodeCons = make([][]conCorner, len(n.Nodes))
+	for k, c := range s.cons {
+		for j, nd := range c.node {
+			s.nodeCons[nd] = append(s.nodeCons[nd], conCorner{int32(k), int32(j)})
 		}
 	}
 	s.nbr = make([][]int32, len(n.Nodes))
@@ -102,18 +128,23 @@ func vecAt(x []float64, i int32) geom.Vec {
 	return geom.Vec{X: x[3*i], Y: x[3*i+1], Z: x[3*i+2]}
 }
 
-// gapAndGrad returns the signed gap between lines ac and bd and its
-// gradient with the denominator |d1 × d2| held fixed (exact where the gap
-// is zero): gap = (b − a)·(d1 × d2) / |d1 × d2|, d1 = c − a, d2 = d − b.
-func gapAndGrad(a, b, c, d geom.Vec) (float64, [4]geom.Vec) {
+// gapAndGrad returns the planarity measure of the run a, b, c, d and its
+// gradient: the volume of the tetrahedron abcd (six times it,
+// e·(d1 × d2) with e = b − a, d1 = c − a, d2 = d − b) divided by the
+// length scale |d1 × d2| of the input, s0. Where the diagonals' cross
+// product keeps its input length this is the signed gap between lines ac
+// and bd (Liu et al. 2006); it is zero exactly when the four corners lie
+// in one plane. Being a polynomial of the corners, with s0 held, its
+// Gauss-Newton steps do not stall where a panel's normal turns, as the
+// gap's own normalisation makes them.
+func gapAndGrad(a, b, c, d geom.Vec, s0 float64) (float64, [4]geom.Vec) {
 	d1, d2, e := r3.Sub(c, a), r3.Sub(d, b), r3.Sub(b, a)
 	n := r3.Cross(d1, d2)
-	s := r3.Norm(n)
 	var g [4]geom.Vec
-	if s == 0 {
+	if s0 == 0 {
 		return 0, g
 	}
-	inv := 1 / s
+	inv := 1 / s0
 	gd1 := r3.Scale(inv, r3.Cross(d2, e)) // ∂/∂d1
 	gd2 := r3.Scale(inv, r3.Cross(e, d1)) // ∂/∂d2
 	ge := r3.Scale(inv, n)                // ∂/∂e
@@ -124,11 +155,33 @@ func gapAndGrad(a, b, c, d geom.Vec) (float64, [4]geom.Vec) {
 	return r3.Dot(e, n) * inv, g
 }
 
+// setWeight sets every gap's weight to w, keeping each multiplier
+// 2 w s_c as it is.
+func (s *solver) setWeight(w float64) {
+	for k := range s.cons {
+		c := &s.cons[k]
+		if c.w > 0 {
+			c.shift *= c.w / w
+		}
+		c.w = w
+	}
+	s.w = w
+}
+
+// violation returns the largest gap at the last linearization.
+func (s *solver) violation() float64 {
+	var v float64
+	for _, c := range s.cons {
+		v = math.Max(v, math.Abs(c.val))
+	}
+	return v
+}
+
 // linearize computes every constraint's value and gradient at x.
 func (s *solver) linearize(x []float64) {
 	for k := range s.cons {
 		c := &s.cons[k]
-		c.val, c.grad = gapAndGrad(vecAt(x, c.node[0]), vecAt(x, c.node[1]), vecAt(x, c.node[2]), vecAt(x, c.node[3]))
+		c.val, c.grad = gapAndGrad(vecAt(x, c.node[0]), vecAt(x, c.node[1]), vecAt(x, c.node[2]), vecAt(x, c.node[3]), c.scale)
 	}
 }
 
@@ -174,7 +227,7 @@ func (s *solver) lapTAdd(y, out []float64, scale float64) {
 func (s *solver) energy(x []float64) float64 {
 	var e float64
 	for _, c := range s.cons {
-		g, _ := gapAndGrad(vecAt(x, c.node[0]), vecAt(x, c.node[1]), vecAt(x, c.node[2]), vecAt(x, c.node[3]))
+		g, _ := gapAndGrad(vecAt(x, c.node[0]), vecAt(x, c.node[1]), vecAt(x, c.node[2]), vecAt(x, c.node[3]), c.scale)
 		e += c.w * (g + c.shift) * (g + c.shift)
 	}
 	u := make([]float64, len(x))
@@ -220,12 +273,12 @@ func (s *solver) gradient(x []float64) []float64 {
 	return g
 }
 
-// mul writes H v into out for the Gauss-Newton matrix
-// H = Σ w ∇g∇gᵀ + I + λLᵀL + μI, restricted to free coordinates
-// (identity on fixed ones).
+// mul writes H v into out for the damped Gauss-Newton matrix
+// H = Σ w ∇g∇gᵀ + I + λLᵀL + μD (D the diagonal of the undamped matrix,
+// Marquardt 1963), restricted to free coordinates (identity on fixed ones).
 func (s *solver) mul(v, out, tmp []float64, mu float64) {
 	for i := range v {
-		out[i] = (1 + mu) * v[i] * s.free[i]
+		out[i] = (1 + mu*s.diag[i]) * v[i] * s.free[i]
 	}
 	if s.fair > 0 {
 		s.lap(v, tmp)
@@ -254,9 +307,12 @@ func (s *solver) mul(v, out, tmp []float64, mu float64) {
 // conjugate gradients (g is zero on fixed coordinates, and so is the step).
 func (s *solver) solve(g []float64, mu float64) []float64 {
 	m := len(g)
-	diag := make([]float64, m)
+	if len(s.diag) != m {
+		s.diag = make([]float64, m)
+	}
+	diag := s.diag
 	for i := range diag {
-		diag[i] = 1 + mu + s.fair*s.ltlDg[i/3]
+		diag[i] = 1 + s.fair*s.ltlDg[i/3]
 	}
 	for _, c := range s.cons {
 		for j, nd := range c.node {
@@ -265,13 +321,23 @@ func (s *solver) solve(g []float64, mu float64) []float64 {
 			diag[3*nd+2] += c.w * c.grad[j].Z * c.grad[j].Z
 		}
 	}
+	pre := make([]float64, m)
 	for i := range diag {
+		pre[i] = (1 + mu) * diag[i]
 		if s.free[i] == 0 {
-			diag[i] = 1
+			pre[i] = 1
 		}
 	}
 	tmp := make([]float64, m)
-	x, _ := geom.SolveCG(func(v, out []float64) { s.mul(v, out, tmp, mu) }, diag, g, cgRelTol, cgMaxIter)
+	mul := func(v, out []float64) { s.mul(v, out, tmp, mu) }
+	if s.w > initialGapWeight && !s.banded {
+		s.band, s.banded = newBandPre(s), true
+	}
+	if s.band != nil && s.w > initialGapWeight && s.band.factorize(mu) {
+		x, _ := geom.SolvePCG(mul, s.band.apply, g, cgRelTol, cgMaxIter)
+		return x
+	}
+	x, _ := geom.SolveCG(mul, pre, g, cgRelTol, cgMaxIter)
 	return x
 }
 
@@ -311,6 +377,7 @@ func (s *solver) clamp(x []float64, limit float64) {
 	for i := 0; i < len(x); i += 3 {
 		dx, dy, dz := x[i]-s.x0[i], x[i+1]-s.x0[i+1], x[i+2]-s.x0[i+2]
 		if m := math.Sqrt(dx*dx + dy*dy + dz*dz); m > limit {
+			s.clamped = true
 			f := limit / m
 			x[i], x[i+1], x[i+2] = s.x0[i]+f*dx, s.x0[i+1]+f*dy, s.x0[i+2]+f*dz
 		}

@@ -16,7 +16,7 @@ import (
 // a *panels.PlanarizeError beside it.
 func Planarize(net *geom.Net, topo *geom.Topology, opt panels.PlanarizeOptions, obs Observer) (*panels.PlanarizeResult, error) {
 	opt.Progress = func(p panels.Progress) {
-		obs.Step("planarize", p.Iter, p.MaxIter, fmt.Sprintf("planarize: worst %.3f mm, %d over", p.MaxFlatMM, p.OverTol))
+		obs.Step("planarize", p.Iter, p.MaxIter, fmt.Sprintf("planarize: worst %.3f mm, %d over by %.1f mm in all", p.MaxFlatMM, p.OverTol, p.ExcessMM))
 	}
 	return panels.Planarize(net, topo, opt)
 }
@@ -33,19 +33,26 @@ func Moved(net *geom.Net, res *panels.PlanarizeResult) *geom.Net {
 // PlanarizeReport is the JSON report of a planarization: `planarize
 // --report`, and the diagnostic report a failed build writes.
 type PlanarizeReport struct {
-	WrittenBy  string          `json:"written_by"` // "pqfab": marks the file as pqfab's own
-	Net        string          `json:"net"`
-	TolMM      float64         `json:"tolerance_mm"`
-	Converged  bool            `json:"converged"`
-	Iterations int             `json:"iterations"`
-	Supports   int             `json:"supports"` // nodes held fixed
-	MaxMoveMM  float64         `json:"max_move_mm"`
-	RMSMoveMM  float64         `json:"rms_move_mm"`
-	FlatBefore panels.Spread   `json:"flatness_before_mm"`
-	FlatAfter  panels.Spread   `json:"flatness_after_mm"`
-	Nodes      []NodeMoveRow   `json:"nodes"`
-	Panels     []PanelFlatness `json:"panels"`
-	Caution    string          `json:"caution"`
+	WrittenBy string  `json:"written_by"` // "pqfab": marks the file as pqfab's own
+	Net       string  `json:"net"`
+	TolMM     float64 `json:"tolerance_mm"`
+	Converged bool    `json:"converged"`
+	// StoppedBy names the limit that stopped a planarization short of the
+	// tolerance; NeededMoveMM is the largest node move a run without the
+	// move limit needed to reach it (when the move limit stopped it and
+	// that run succeeded).
+	StoppedBy    string          `json:"stopped_by,omitempty"`
+	NeededMoveMM float64         `json:"needed_move_mm,omitempty"`
+	OverTol      int             `json:"panels_over_tolerance"`
+	Iterations   int             `json:"iterations"`
+	Supports     int             `json:"supports"` // nodes held fixed
+	MaxMoveMM    float64         `json:"max_move_mm"`
+	RMSMoveMM    float64         `json:"rms_move_mm"`
+	FlatBefore   panels.Spread   `json:"flatness_before_mm"`
+	FlatAfter    panels.Spread   `json:"flatness_after_mm"`
+	Nodes        []NodeMoveRow   `json:"nodes"`
+	Panels       []PanelFlatness `json:"panels"`
+	Caution      string          `json:"caution"`
 }
 
 // NodeMoveRow is one node's move.
@@ -68,7 +75,13 @@ func NewPlanarizeReport(net *geom.Net, opt panels.PlanarizeOptions, res *panels.
 	r := &PlanarizeReport{WrittenBy: "pqfab", Net: net.Source, TolMM: opt.TolMM, Converged: res.Converged, Iterations: res.Iterations,
 		MaxMoveMM: export.Round(res.MaxMoveMM, 3), RMSMoveMM: export.Round(res.RMSMoveMM, 3),
 		FlatBefore: export.RoundSpread(panels.SpreadOf(res.Before), 3), FlatAfter: export.RoundSpread(panels.SpreadOf(res.After), 4),
+		StoppedBy: res.Stop, NeededMoveMM: export.Round(res.NeedMoveMM, 1),
 		Caution: "Caution: " + export.Caution}
+	for _, f := range res.After {
+		if f > opt.TolMM {
+			r.OverTol++
+		}
+	}
 	for i, nd := range net.Nodes {
 		if opt.Fixed != nil && opt.Fixed[i] {
 			r.Supports++
