@@ -463,4 +463,3 @@ func maxOf(xs []float64) float64 {
 	}
 	return m
 }
-

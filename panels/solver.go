@@ -42,22 +42,22 @@ type conCorner struct{ k, j int32 }
 
 // solver holds the state of one planarization.
 type solver struct {
-	net   *geom.Net
-	x0    []float64 // initial positions, 3 per node
-	free  []float64 // 1 for a coordinate that may move, else 0
-	cons  []gapCon
-	w     float64 // the gap weight of the current round
-	diag  []float64
+	net  *geom.Net
+	x0   []float64 // initial positions, 3 per node
+	free []float64 // 1 for a coordinate that may move, else 0
+	cons []gapCon
+	w    float64 // the gap weight of the current round
+	diag []float64
 	// nodeCons lists, per node, the gaps it is a corner of (gap k, its
 	// corner j).
 	nodeCons [][]conCorner
-	band     *bandPre // made at the first heavy round; nil where too costly
-	banded   bool     // band was made (or found too costly)
-	clamped  bool     // a step was held back by the allowed move
-	nbr   [][]int32 // neighbours of each node over the net's edges
-	fair  float64
-	ltlDg []float64 // diagonal of LᵀL per node
-	pts   []geom.Vec
+	band     *bandPre  // made at the first heavy round; nil where too costly
+	banded   bool      // band was made (or found too costly)
+	clamped  bool      // a step was held back by the allowed move
+	nbr      [][]int32 // neighbours of each node over the net's edges
+	fair     float64
+	ltlDg    []float64 // diagonal of LᵀL per node
+	pts      []geom.Vec
 }
 
 func newSolver(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) *solver {
