@@ -341,17 +341,6 @@ func (s *solver) solve(g []float64, mu float64) []float64 {
 	return x
 }
 
-// updateMultipliers takes one augmented-Lagrangian step (method of
-// multipliers, Hestenes 1969, Powell 1969): each constraint's shift grows
-// by its current value, so the penalty pulls towards g = 0 exactly
-// without raising the weights.
-func (s *solver) updateMultipliers(x []float64) {
-	s.linearize(x)
-	for k := range s.cons {
-		s.cons[k].shift += s.cons[k].val
-	}
-}
-
 // flatness returns every panel's flatness deviation at x.
 func (s *solver) flatness(x []float64) []float64 {
 	out := make([]float64, len(s.net.Faces))
