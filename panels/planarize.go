@@ -90,9 +90,8 @@ type PlanarizeResult struct {
 	Iterations int
 	Converged  bool // every panel within tolerance and no move over the limit
 	// Stop names the limit that stopped a planarization short of the
-	// tolerance (StopMoveLimit, StopBudget, StopSupports or StopStalled);
-	// empty when it converged.
-	Stop string
+	// tolerance; StopNone when it converged.
+	Stop Stop
 	// NeedMoveMM is, when the allowed move stopped it, the largest node
 	// move of a run without that limit that reached the tolerance (0 when
 	// that run did not reach it either).
@@ -112,13 +111,34 @@ type PanelFailure struct {
 	Fixed  int // corners that are supports
 }
 
-// Why a planarization stopped short of the tolerance.
+// Stop is why a planarization stopped short of the tolerance.
+type Stop int
+
+// The limits that stop a planarization.
 const (
-	StopMoveLimit = "the allowed node move"
-	StopBudget    = "the iteration budget"
-	StopSupports  = "the supports"
-	StopStalled   = "no further progress"
+	StopNone      Stop = iota // it did not stop short: every panel is within the tolerance
+	StopMoveLimit             // the allowed node move held it back
+	StopBudget                // the iteration budget ran out
+	StopSupports              // the supports hold every corner of the failing panels
+	StopStalled               // the rounds made no further progress
 )
+
+// String names the limit in plain words.
+func (s Stop) String() string {
+	switch s {
+	case StopNone:
+		return "none"
+	case StopMoveLimit:
+		return "the allowed node move"
+	case StopBudget:
+		return "the iteration budget"
+	case StopSupports:
+		return "the supports"
+	case StopStalled:
+		return "no further progress"
+	}
+	return fmt.Sprintf("Stop(%d)", int(s))
+}
 
 // PlanarizeError reports a planarization that did not reach the tolerance
 // within the allowed move or the iteration budget. The best state reached
@@ -126,7 +146,7 @@ const (
 // panels still over the tolerance there.
 type PlanarizeError struct {
 	Source    string
-	Stop      string         // which limit stopped it: StopMoveLimit, StopBudget, StopSupports or StopStalled
+	Stop      Stop           // which limit stopped it
 	Worst     []PanelFailure // worst first, at most ten
 	Count     int            // panels over the tolerance
 	Names     []string       // panel names of Worst

@@ -75,8 +75,11 @@ func NewPlanarizeReport(net *geom.Net, opt panels.PlanarizeOptions, res *panels.
 	r := &PlanarizeReport{WrittenBy: "pqfab", Net: net.Source, TolMM: opt.TolMM, Converged: res.Converged, Iterations: res.Iterations,
 		MaxMoveMM: export.Round(res.MaxMoveMM, 3), RMSMoveMM: export.Round(res.RMSMoveMM, 3),
 		FlatBefore: export.RoundSpread(panels.SpreadOf(res.Before), 3), FlatAfter: export.RoundSpread(panels.SpreadOf(res.After), 4),
-		StoppedBy: res.Stop, NeededMoveMM: export.Round(res.NeedMoveMM, 1),
-		Caution: "Caution: " + export.Caution}
+		NeededMoveMM: export.Round(res.NeedMoveMM, 1),
+		Caution:      "Caution: " + export.Caution}
+	if res.Stop != panels.StopNone {
+		r.StoppedBy = res.Stop.String()
+	}
 	for _, f := range res.After {
 		if f > opt.TolMM {
 			r.OverTol++
