@@ -69,6 +69,6 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 		return perr // nothing written but the report asked for
 	}
 	return export.WriteFileAtomic(*out, wopt, func(w io.Writer) error {
-		return export.WriteOBJ(w, pipeline.Moved(in.Net, res), "pqfab planarized net from "+in.Net.Source)
+		return export.WriteOBJ(w, in.Order.Apply(pipeline.Moved(in.Net, res)), "pqfab planarized net from "+in.Net.Source)
 	})
 }
