@@ -6,6 +6,7 @@ import (
 	"strings"
 
 	"pqfab/geom"
+	"pqfab/internal/job"
 )
 
 // Loaded is a net read from a file and checked.
@@ -129,10 +130,10 @@ func LoadNet(open Opener, path string, unit geom.Unit, opt geom.ValidateOptions,
 func Supports(mode string, ids []string, net *geom.Net, topo *geom.Topology) ([]bool, error) {
 	fixed := make([]bool, len(net.Nodes))
 	switch mode {
-	case "none":
-	case "boundary":
+	case job.SupportsNone:
+	case job.SupportsBoundary:
 		copy(fixed, topo.BoundaryNodes(len(net.Nodes)))
-	case "file":
+	case job.SupportsFile:
 		n := 0
 		for i, nd := range net.Nodes {
 			fixed[i] = nd.Support
@@ -143,7 +144,7 @@ func Supports(mode string, ids []string, net *geom.Net, topo *geom.Topology) ([]
 		if n == 0 {
 			return nil, fmt.Errorf("\"file\" takes the supports from the net, but %s marks no node as a support (a support column of 1, true or yes in the nodes CSV)", net.Source)
 		}
-	case "list":
+	case job.SupportsList:
 		byID := make(map[string]int, len(net.Nodes))
 		for i, nd := range net.Nodes {
 			byID[nd.ID] = i
