@@ -179,6 +179,8 @@ func TestOFFVariants(t *testing.T) {
 		{"STOFF", "STOFF\n4 1 0\n0 0 0 0 0\n1000 0 0 1 0\n1000 1000 0 1 1\n0 1000 0 0 1\n4 0 1 2 3\n"},
 		{"counts on header line", "OFF 4 1 0\n\n\n0 0 0\n1000 0 0\n1000 1000 0\n0 1000 0\n4 0 1 2 3\n"},
 		{"no edge count", "OFF\n4 1\n0 0 0\n1000 0 0\n1000 1000 0\n0 1000 0\n4 0 1 2 3\n"},
+		// The keyword is optional (geomview manual, "OFF Files").
+		{"no keyword", "# square\n4 1 0\n0 0 0\n1000 0 0\n1000 1000 0\n0 1000 0\n4 0 1 2 3\n"},
 	}
 	for _, tc := range tests {
 		got, err := ReadOFF(strings.NewReader(tc.src), "v.off", MM)

@@ -42,8 +42,9 @@ func parseOFFKeyword(w string) (offFlavour, string) {
 }
 
 // ReadOFF reads an Object File Format net as Geomview's description of the
-// format gives it: a header keyword (counts may follow on the same line),
-// the counts "nodes faces [edges]", the nodes and the faces.
+// format gives it: a header keyword (counts may follow on the same line;
+// the keyword is optional, and a file without it is plain OFF), the counts
+// "nodes faces [edges]", the nodes and the faces.
 //
 // A node is x y z followed by the values its header keyword adds, in this
 // order: normals nx ny nz (N), a colour (C), texture coordinates s t (ST).
@@ -88,11 +89,14 @@ func ReadOFF(r io.Reader, file string, unit Unit) (*Net, error) {
 		return nil, &InputError{File: file, Msg: "no nodes and no panels (empty net)"}
 	}
 	f := strings.Fields(s)
-	fl, msg := parseOFFKeyword(f[0])
-	if msg != "" {
-		return nil, inputErr(file, lr.line, "", "%s", msg)
+	fl := offFlavour{name: "OFF"}
+	if !isCount(f[0]) { // the keyword is optional: a file may start with its counts
+		var msg string
+		if fl, msg = parseOFFKeyword(f[0]); msg != "" {
+			return nil, inputErr(file, lr.line, "", "%s", msg)
+		}
+		f = f[1:]
 	}
-	f = f[1:]
 	if len(f) > 0 && f[0] == "BINARY" {
 		return nil, inputErr(file, lr.line, "", "binary OFF is not supported; save the net as text OFF")
 	}

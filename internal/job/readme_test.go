@@ -10,6 +10,9 @@ import (
 	"testing"
 
 	"github.com/BurntSushi/toml"
+
+	"pqfab/nodes"
+	"pqfab/panels"
 )
 
 // readmeKey is one key of README.md's job-file block.
@@ -148,6 +151,22 @@ func sameValue(want, got any) bool {
 		return g.Kind() == reflect.Slice && len(w) == 0 && g.Len() == 0
 	}
 	return reflect.DeepEqual(want, reflect.ValueOf(got).Convert(reflect.TypeOf(want)).Interface())
+}
+
+// TestSharedDefaults: types.angle_tol_deg sets the angle tolerance of
+// members and nodes (nodes) and of panels (panels) alike, so the two
+// libraries' defaults must be one value.
+func TestSharedDefaults(t *testing.T) {
+	if nodes.DefaultTypeAngleTolDeg != panels.DefaultTypeAngleTolDeg {
+		t.Errorf("types.angle_tol_deg: nodes' default %g°, panels' %g°", nodes.DefaultTypeAngleTolDeg, panels.DefaultTypeAngleTolDeg)
+	}
+	j, err := Parse([]byte("[net]\nfile = \"n.obj\"\n[[stock]]\nwidth_mm = 6000\nheight_mm = 3210\n"), "job.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := j.PanelTypeOptions().AngleTolDeg; got != panels.DefaultTypeAngleTolDeg {
+		t.Errorf("panel types get %g°, panels' default is %g°", got, panels.DefaultTypeAngleTolDeg)
+	}
 }
 
 // TestReadmeDefaults: every default in README.md's job-file block is the
