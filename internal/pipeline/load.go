@@ -94,10 +94,11 @@ func (o *FileOrder) Apply(net *geom.Net) *geom.Net {
 // in unit), checks it (geom.Validate with opt) and, when reorient is set,
 // turns flipped panels to a consistent orientation. Nodes that belong to no
 // panel are left out (with a warning), and the net is put in its canonical
-// order (geom.Canonical): every later stage, and so every output, depends
-// only on the geometry, never on the order of nodes and panels in the file
-// or on which corner a panel starts at; Order maps it back to the file's
-// order for the nets written back to the design team. On failure the error is a
+// order (geom.Canonical): every later stage depends only on the geometry,
+// never on the order of nodes and panels in the file or on which corner a
+// panel starts at. Order maps the net back to the file's order, which the
+// nets written back to the design team keep (Result.FileNet); every other
+// output is independent of it. On failure the error is a
 // *geom.ValidationError listing every problem found, or the reader's
 // *geom.InputError.
 func LoadNet(open Opener, path string, unit geom.Unit, opt geom.ValidateOptions, reorient bool) (*Loaded, error) {
