@@ -13,10 +13,14 @@ import (
 const OBJDigits = 4
 
 // WriteOBJ writes the net as Wavefront OBJ in millimetres, one `v` line per
-// node and one `f` line per panel, in the net's order. Node and panel ids
-// go into comments only where they differ from the 1-based numbers; each
-// warning becomes a comment line after the title. Text from the job and
-// the net is kept to one line (oneLine), so it cannot add statements.
+// node and one `f` line per panel, in the net's order and with each
+// panel's corners in the net's order: `v x y z` and `f a b c …` and
+// nothing else, so that strict readers (which take a fourth number after
+// `v` as a weight, and may not stop at `#`) read it. Node and panel ids go
+// into comment lines of their own (`# node N12`, before the node's `v`
+// line) only where they differ from the 1-based numbers; each warning
+// becomes a comment line after the title. Text from the job and the net
+// is kept to one line (oneLine), so it cannot add statements.
 func WriteOBJ(w io.Writer, n *geom.Net, title string, warnings ...string) error {
 	bw := bufio.NewWriterSize(w, 1<<16)
 	buf := make([]byte, 0, 128)
@@ -34,29 +38,33 @@ func WriteOBJ(w io.Writer, n *geom.Net, title string, warnings ...string) error 
 		return err
 	}
 	for i, nd := range n.Nodes {
-		buf = append(buf[:0], "v "...)
+		buf = buf[:0]
+		if nd.ID != strconv.Itoa(i+1) {
+			buf = append(buf, "# node "...)
+			buf = append(buf, oneLine(nd.ID)...)
+			buf = append(buf, '\n')
+		}
+		buf = append(buf, "v "...)
 		buf = AppendFixed(buf, nd.Pos.X, OBJDigits)
 		buf = append(buf, ' ')
 		buf = AppendFixed(buf, nd.Pos.Y, OBJDigits)
 		buf = append(buf, ' ')
 		buf = AppendFixed(buf, nd.Pos.Z, OBJDigits)
-		if nd.ID != strconv.Itoa(i+1) {
-			buf = append(buf, " # node "...)
-			buf = append(buf, oneLine(nd.ID)...)
-		}
 		buf = append(buf, '\n')
 		if _, err := bw.Write(buf); err != nil {
 			return err
 		}
 	}
 	for i, f := range n.Faces {
-		buf = append(buf[:0], 'f')
+		buf = buf[:0]
+		if f.ID != strconv.Itoa(i+1) {
+			buf = append(buf, "# panel "...)
+			buf = append(buf, oneLine(f.ID)...)
+			buf = append(buf, '\n')
+		}
+		buf = append(buf, 'f')
 		for _, c := range f.Corners {
 			buf = strconv.AppendInt(append(buf, ' '), int64(c+1), 10)
-		}
-		if f.ID != strconv.Itoa(i+1) {
-			buf = append(buf, " # panel "...)
-			buf = append(buf, oneLine(f.ID)...)
 		}
 		buf = append(buf, '\n')
 		if _, err := bw.Write(buf); err != nil {

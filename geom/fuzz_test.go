@@ -86,6 +86,7 @@ func FuzzReadOBJ(f *testing.F) {
 func FuzzReadOFF(f *testing.F) {
 	seedFiles(f, "*.off")
 	f.Add([]byte("OFF\n4 1 0\n0 0 0\n1000 0 0\n1000 1000 0\n0 1000 0\n4 0 1 2 3\n"))
+	f.Add([]byte("NOFF\n4 1 0\n0 0\n0 0 0 1\n1000 0 0 0 0 1\n1000 1000 0 0 0 1\n0 1000 0 0 0 1\n4 0\n1\n2\n3 255 0 0\n"))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		n, err := ReadOFF(bytes.NewReader(data), "fuzz.off", MM)
 		checkRead(t, n, err)

@@ -41,19 +41,32 @@ func parseOFFKeyword(w string) (offFlavour, string) {
 	return fl, ""
 }
 
-// ReadOFF reads an Object File Format net: a header keyword (counts may
-// follow on the same line), a line "nodes faces [edges]", the node lines
-// "x y z" and the face lines "k i1 ... ik" with 0-based node indices.
+// ReadOFF reads an Object File Format net as Geomview's description of the
+// format gives it: a header keyword (counts may follow on the same line;
+// the keyword is optional, and a file without it is plain OFF), the counts
+// "nodes faces [edges]", the nodes and the faces.
 //
-// The keywords OFF, COFF, NOFF, CNOFF and STOFF (and their combinations
-// [ST][C][N]OFF) are read; the values they add after the coordinates
-// (normals nx ny nz, a colour of up to four values, texture coordinates
-// s t) are checked to be numbers and ignored, as is a colour of up to four
-// values after a face's indices (plain OFF files often carry colours too).
+// A node is x y z followed by the values its header keyword adds, in this
+// order: normals nx ny nz (N), a colour (C), texture coordinates s t (ST).
+// The keywords OFF, COFF, NOFF, CNOFF and STOFF (and the other combinations
+// [ST][C][N]OFF) are read; the added values are checked to be numbers and
+// ignored. A node's values are a run of numbers: a node starts on a new
+// line and, where that line holds fewer values than the node needs, takes
+// the rest from the lines that follow. Up to maxColourValues values left
+// on the line where a node's values end are a colour (other tools write
+// one after the coordinates whatever the keyword says, and COFF colours of
+// three values as well as four) and ignored; so two nodes on one line are
+// read as one node and its colour, and the counts then disagree.
+//
+// A face is "k i1 … ik" with 0-based node indices, followed by an optional
+// colour of up to maxColourValues numbers that runs to the end of the line
+// (ignored). The k indices may span lines: a face starts on a new line and
+// its colour is what is left on the line of its last index.
+//
 // Binary OFF and the 4D and n-dimensional forms (4OFF, nOFF) are refused.
 // The edge count is ignored. The file must hold exactly the declared nodes
-// and faces: a file that ends early, and a non-blank, non-comment line
-// after the last declared face, are errors naming the line.
+// and faces: a file that ends early, and values after the last declared
+// face, are errors. Errors name the line where the node or face starts.
 //
 // Lines may end in LF, CRLF or a lone CR; a byte-order mark at the start
 // is skipped; '#' starts a comment. Counts beyond MaxNodes or MaxPanels
@@ -76,11 +89,14 @@ func ReadOFF(r io.Reader, file string, unit Unit) (*Net, error) {
 		return nil, &InputError{File: file, Msg: "no nodes and no panels (empty net)"}
 	}
 	f := strings.Fields(s)
-	fl, msg := parseOFFKeyword(f[0])
-	if msg != "" {
-		return nil, inputErr(file, lr.line, "", "%s", msg)
+	fl := offFlavour{name: "OFF"}
+	if !isCount(f[0]) { // the keyword is optional: a file may start with its counts
+		var msg string
+		if fl, msg = parseOFFKeyword(f[0]); msg != "" {
+			return nil, inputErr(file, lr.line, "", "%s", msg)
+		}
+		f = f[1:]
 	}
-	f = f[1:]
 	if len(f) > 0 && f[0] == "BINARY" {
 		return nil, inputErr(file, lr.line, "", "binary OFF is not supported; save the net as text OFF")
 	}
@@ -106,50 +122,111 @@ func ReadOFF(r io.Reader, file string, unit Unit) (*Net, error) {
 		return nil, &InputError{File: file, Line: lr.line, Err: ErrTooLarge,
 			Msg: fmt.Sprintf("the header declares %s faces; pqfab takes at most %d", short(f[1]), MaxPanels)}
 	}
-	// Grow as lines arrive: a header may promise more than the file holds.
+	vs := &offValues{lr: lr}
+	counts := fmt.Sprintf("check the header's counts: %s, %s", plural(nv, "node"), plural(nf, "face"))
+	nodeHint := func(face int) string {
+		if face > 0 {
+			return ""
+		}
+		return fmt.Sprintf(" (is this a node line? the header declares %s)", plural(nv, "node"))
+	}
+	// Grow as nodes arrive: a header may promise more than the file holds.
 	n.Nodes = make([]Node, 0, min(nv, 1<<16))
 	for i := 0; i < nv; i++ {
 		id := strconv.Itoa(i + 1)
-		s, ok := lr.next()
-		if !ok {
-			if _, err := fail(); err != nil {
-				return nil, err
-			}
-			return nil, inputErr(file, lr.line, "node "+id, "file ends after %d of %d nodes", i, nv)
+		p, line, msg := readOFFNode(vs, fl, id, unit)
+		if lr.err != nil {
+			return nil, lr.err
 		}
-		p, msg := parseOFFNode(strings.Fields(s), fl, unit)
+		if line == 0 {
+			return nil, inputErr(file, lr.line, "node "+id, "file ends after %d of %d nodes (%s%s)", i, nv, counts, vs.span)
+		}
 		if msg != "" {
-			return nil, inputErr(file, lr.line, "node "+id, "%s", msg)
+			return nil, inputErr(file, line, "node "+id, "%s", msg)
 		}
-		n.Nodes = append(n.Nodes, Node{ID: id, Pos: p, Line: lr.line})
+		n.Nodes = append(n.Nodes, Node{ID: id, Pos: p, Line: line})
 	}
 	n.Faces = make([]Face, 0, min(nf, 1<<16))
 	for i := 0; i < nf; i++ {
 		id := strconv.Itoa(i + 1)
-		s, ok := lr.next()
-		if !ok {
-			if _, err := fail(); err != nil {
-				return nil, err
-			}
-			return nil, inputErr(file, lr.line, "panel "+id, "file ends after %d of %d faces (check the header's counts: %s, %s)", i, nf, plural(nv, "node"), plural(nf, "face"))
+		corners, line, msg := readOFFFace(vs, nv, id, nodeHint(i))
+		if lr.err != nil {
+			return nil, lr.err
 		}
-		f := strings.Fields(s)
-		corners, msg := parseOFFFace(f, nv)
+		if line == 0 {
+			return nil, inputErr(file, lr.line, "panel "+id, "file ends after %d of %d faces (%s%s)", i, nf, counts, vs.span)
+		}
 		if msg != "" {
-			if k, err := strconv.Atoi(f[0]); i == 0 && looksLikeNode(f) && (err != nil || k < MinCorners || k > MaxCorners) {
-				msg += fmt.Sprintf(" (is this a node line? the header declares %s)", plural(nv, "node"))
-			}
-			return nil, inputErr(file, lr.line, "panel "+id, "%s", msg)
+			return nil, inputErr(file, line, "panel "+id, "%s", msg)
 		}
-		n.Faces = append(n.Faces, Face{ID: id, Corners: corners, Line: lr.line})
+		n.Faces = append(n.Faces, Face{ID: id, Corners: corners, Line: line})
 	}
-	if _, ok := lr.next(); ok {
-		return nil, inputErr(file, lr.line, "", "the header declares %s but more follow", plural(nf, "face"))
+	if vs.begin() {
+		return nil, inputErr(file, vs.line, "", "the header declares %s but more follow (%s%s)", plural(nf, "face"), counts, vs.span)
 	}
 	if _, err := fail(); err != nil {
 		return nil, err
 	}
 	return finishRead(n, file)
+}
+
+// offValues hands out the values of an OFF file's nodes and faces. An
+// element (a node or a face) starts on a new line and may take values from
+// the lines after it.
+type offValues struct {
+	lr         *lineReader
+	fields     []string // values left on the current line
+	lineFields []string // every value of the current line
+	line       int      // the current line
+	// span says which element first took its values from more than one
+	// line, for messages about counts that disagree.
+	span string
+}
+
+// begin drops what is left of the current line and moves to the next line
+// holding values; false at the end of the file.
+func (v *offValues) begin() bool {
+	v.fields = nil
+	return v.fill()
+}
+
+// fill reads lines until one holds values; false at the end of the file.
+func (v *offValues) fill() bool {
+	for len(v.fields) == 0 {
+		s, ok := v.lr.next()
+		if !ok {
+			return false
+		}
+		v.fields = strings.Fields(s)
+		v.lineFields = v.fields
+		v.line = v.lr.line
+	}
+	return true
+}
+
+// next returns the next value, reading on to the next line when the
+// current one is used up; false at the end of the file.
+func (v *offValues) next() (string, bool) {
+	if !v.fill() {
+		return "", false
+	}
+	s := v.fields[0]
+	v.fields = v.fields[1:]
+	return s, true
+}
+
+// rest returns the values left on the current line and drops them.
+func (v *offValues) rest() []string {
+	r := v.fields
+	v.fields = nil
+	return r
+}
+
+// spanned notes an element that took values from the lines from to v.line.
+func (v *offValues) spanned(elem string, from int, what string) {
+	if v.span == "" && v.line > from {
+		v.span = fmt.Sprintf("; %s on line %d takes %s from lines %d to %d", elem, from, what, from, v.line)
+	}
 }
 
 // looksLikeNode reports whether a line starts with three numbers.
@@ -176,16 +253,11 @@ func plural(k int, noun string) string {
 // isCount reports whether s is a non-negative decimal integer.
 func isCount(s string) bool { return isInteger(s) && s[0] != '-' }
 
-// parseOFFNode reads a node line: x y z, then the values the flavour adds
-// (ignored), or for plain OFF up to maxColourValues colour values.
-func parseOFFNode(f []string, fl offFlavour, unit Unit) (Vec, string) {
-	if len(f) < 3 {
-		return Vec{}, "needs x y z"
-	}
-	p, err := parsePoint(f, unit)
-	if err != nil {
-		return Vec{}, err.Error()
-	}
+// values returns how many values a node of the flavour has before its
+// colour, and their names: x y z, then nx ny nz (N), then s t (ST). The
+// ST values follow the colour in the file, but every value after x y z is
+// ignored, so only their number counts.
+func (fl offFlavour) values() (int, string) {
 	need, want := 3, "x y z"
 	if fl.normal {
 		need, want = need+3, want+" nx ny nz"
@@ -193,54 +265,108 @@ func parseOFFNode(f []string, fl offFlavour, unit Unit) (Vec, string) {
 	if fl.texture {
 		need, want = need+2, want+" s t"
 	}
-	if len(f) < need {
-		return Vec{}, fmt.Sprintf("has %d values; %s wants %s", len(f), fl.name, want)
-	}
-	if len(f) > need+maxColourValues {
-		return Vec{}, fmt.Sprintf("has %d values; %s wants %s, then at most %d colour values", len(f), fl.name, want, maxColourValues)
-	}
-	for k, v := range f[3:] {
-		if _, ok := parsePlain(v); !ok {
-			return Vec{}, fmt.Sprintf("value %d %s is not a number", k+4, quote(v))
-		}
-	}
-	return p, ""
+	return need, want
 }
 
-// parseOFFFace reads a face line "k i1 … ik" and up to maxColourValues
-// colour values (ignored).
-func parseOFFFace(f []string, nv int) ([]int, string) {
-	if !isCount(f[0]) {
-		return nil, fmt.Sprintf("bad corner count %s", quote(f[0]))
+// maxNodeValues is the most values a node has before its colour (x y z,
+// nx ny nz, s t).
+const maxNodeValues = 8
+
+// readOFFNode reads the node that starts on the next line holding values:
+// x y z and the values the flavour adds, from as many lines as they take,
+// then up to maxColourValues colour values left on the line where they end
+// (ignored). It returns the line the node starts on (0 at the end of the
+// file) and a message for a bad node.
+func readOFFNode(v *offValues, fl offFlavour, id string, unit Unit) (Vec, int, string) {
+	if !v.begin() {
+		return Vec{}, 0, ""
 	}
-	k, err := strconv.Atoi(f[0])
-	if err != nil || k > MaxCorners {
-		return nil, fmt.Sprintf("says %s corners; pqfab takes panels of %d to %d corners", short(f[0]), MinCorners, MaxCorners)
-	}
-	if len(f)-1 < k {
-		return nil, fmt.Sprintf("says %d corners but lists %d", k, len(f)-1)
-	}
-	if extra := len(f) - 1 - k; extra > maxColourValues {
-		return nil, fmt.Sprintf("%d values after the corners; at most %d colour values may follow", extra, maxColourValues)
-	}
-	for _, v := range f[1+k:] {
-		if _, ok := parsePlain(v); !ok {
-			return nil, fmt.Sprintf("colour value %s is not a number", quote(v))
+	line := v.line
+	need, want := fl.values()
+	var buf [maxNodeValues]string
+	vals := buf[:0]
+	for len(vals) < need {
+		s, ok := v.next()
+		if !ok {
+			return Vec{}, line, fmt.Sprintf("file ends after %d of its %d values (%s wants %s)", len(vals), need, fl.name, want)
 		}
+		vals = append(vals, s)
+	}
+	p, err := parsePoint(vals, unit)
+	if err != nil {
+		return Vec{}, line, err.Error()
+	}
+	extra := v.rest()
+	if len(extra) > maxColourValues {
+		return Vec{}, line, fmt.Sprintf("has %d values; %s wants %s, then at most %d colour values", need+len(extra), fl.name, want, maxColourValues)
+	}
+	for k, s := range append(vals[3:], extra...) {
+		if _, ok := parsePlain(s); !ok {
+			return Vec{}, line, fmt.Sprintf("value %d %s is not a number", k+4, quote(s))
+		}
+	}
+	v.spanned("node "+id, line, fmt.Sprintf("its %d values (%s)", need, want))
+	return p, line, ""
+}
+
+// readOFFFace reads the face that starts on the next line holding values:
+// "k i1 … ik", the indices from as many lines as they take, then up to
+// maxColourValues colour values left on the line of the last index
+// (ignored). It returns the corners, the line the face starts on (0 at the
+// end of the file) and a message for a bad face; nodeHint is added to a
+// bad corner count on a line that looks like a node.
+func readOFFFace(v *offValues, nv int, id, nodeHint string) ([]int, int, string) {
+	if !v.begin() {
+		return nil, 0, ""
+	}
+	line := v.line
+	first := v.lineFields
+	s, _ := v.next()
+	hint := ""
+	if looksLikeNode(first) {
+		hint = nodeHint
+	}
+	if !isCount(s) {
+		return nil, line, fmt.Sprintf("bad corner count %s%s", quote(s), hint)
+	}
+	k, err := strconv.Atoi(s)
+	if err != nil || k > MaxCorners {
+		return nil, line, fmt.Sprintf("says %s corners; pqfab takes panels of %d to %d corners%s", short(s), MinCorners, MaxCorners, hint)
+	}
+	if msg := checkCornerCount(k); msg != "" {
+		return nil, line, msg + hint
 	}
 	corners := make([]int, k)
 	for j := range corners {
-		idx, err := strconv.Atoi(f[1+j])
-		if err != nil || !isInteger(f[1+j]) {
-			return nil, fmt.Sprintf("corner %d: bad node index %s", j+1, quote(f[1+j]))
+		s, ok := v.next()
+		if !ok {
+			return nil, line, fmt.Sprintf("says %d corners but the file ends after %d", k, j)
+		}
+		at := ""
+		if v.line != line {
+			at = fmt.Sprintf(" (on line %d)", v.line)
+		}
+		idx, err := strconv.Atoi(s)
+		if err != nil || !isInteger(s) {
+			return nil, line, fmt.Sprintf("corner %d: bad node index %s%s", j+1, quote(s), at)
 		}
 		if idx < 0 || idx >= nv {
-			return nil, fmt.Sprintf("corner %d: node index %d out of range 0..%d", j+1, idx, nv-1)
+			return nil, line, fmt.Sprintf("corner %d: node index %d out of range 0..%d%s", j+1, idx, nv-1, at)
 		}
 		corners[j] = idx
 	}
-	if msg := checkFaceCorners(corners); msg != "" {
-		return nil, msg
+	colour := v.rest()
+	if len(colour) > maxColourValues {
+		return nil, line, fmt.Sprintf("%d values after the corners; at most %d colour values may follow", len(colour), maxColourValues)
 	}
-	return corners, ""
+	for _, c := range colour {
+		if _, ok := parsePlain(c); !ok {
+			return nil, line, fmt.Sprintf("colour value %s is not a number", quote(c))
+		}
+	}
+	if msg := checkFaceCorners(corners); msg != "" {
+		return nil, line, msg
+	}
+	v.spanned("panel "+id, line, "its corners")
+	return corners, line, ""
 }

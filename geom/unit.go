@@ -12,6 +12,9 @@ const (
 	M  Unit = 1000
 )
 
+// DefaultUnit is the unit of a net file when none is given.
+const DefaultUnit = MM
+
 // ParseUnit reads "mm", "cm" or "m".
 func ParseUnit(s string) (Unit, error) {
 	switch s {

@@ -23,10 +23,17 @@ const (
 	DefaultSectionDepthMM = 120.0
 )
 
-// DefaultOptions returns normal axes, no hub, the default section, no
-// bays and the default type tolerances.
+// DefaultAxis is the node axis method, and DefaultHubRadiusMM the hub
+// radius (no hub: members run to the node point), when none is given.
+const (
+	DefaultAxis        = AxisLeastTwist
+	DefaultHubRadiusMM = 0.0
+)
+
+// DefaultOptions returns the default axes and hub, the default section,
+// no bays and the default type tolerances.
 func DefaultOptions() Options {
-	return Options{Axis: AxisNormal, Section: Section{WidthMM: DefaultSectionWidthMM, DepthMM: DefaultSectionDepthMM},
+	return Options{Axis: DefaultAxis, HubRadiusMM: DefaultHubRadiusMM, Section: Section{WidthMM: DefaultSectionWidthMM, DepthMM: DefaultSectionDepthMM},
 		Types: TypeOptions{LengthTolMM: DefaultTypeLengthTolMM, AngleTolDeg: DefaultTypeAngleTolDeg}}
 }
 

@@ -15,10 +15,19 @@ const (
 	DefaultDensityKgM3      = 2500.0 // soda-lime glass, common practice
 	DefaultEdgeInsetMM      = 0.0
 	DefaultBoundaryBevelDeg = 0.0
+	DefaultMaterialName     = "float glass"
+	DefaultGrain            = GrainFirstEdge
 	MaxThicknessMM          = 1000.0
 	MaxDensityKgM3          = 25000.0 // denser than any building material
 	MaxEdgeInsetMM          = 1000.0
 )
+
+// DefaultMaterial returns the default material: its name, thickness,
+// density, edge inset, boundary bevel and grain rule.
+func DefaultMaterial() Material {
+	return Material{Name: DefaultMaterialName, ThicknessMM: DefaultThicknessMM, DensityKgM3: DefaultDensityKgM3,
+		EdgeInsetMM: DefaultEdgeInsetMM, BoundaryBevelDeg: DefaultBoundaryBevelDeg, Grain: Grain{Rule: DefaultGrain}}
+}
 
 // Material is what panels are cut from.
 type Material struct {

@@ -12,10 +12,12 @@ import (
 // PanelPitchMM is the nominal panel size of every sample (invented).
 const PanelPitchMM = 1500.0
 
-// Limits on the panel count a sample is asked for.
+// Limits on the panel count a sample is asked for, and the count asked
+// for when none is given.
 const (
-	MinPanels = 10
-	MaxPanels = 100000
+	MinPanels     = 10
+	MaxPanels     = 100000
+	DefaultPanels = 1000
 )
 
 // Generator makes a sample net of about the given number of panels.

@@ -66,7 +66,7 @@ func TestBadInputCatalogue(t *testing.T) {
 		{"price beyond every budget", map[string]string{"job.toml": jobFor("n.obj") + "price = 1e308\n", "n.obj": goodQuad}, "", []string{"job.toml:10", "key stock[1].price", "at most 1e+12"}},
 		{"near-miss key", map[string]string{"job.toml": jobFor("n.obj") + "[flatness]\ntolerance = 0.5\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key flatness.tolerance", "did you mean flatness.tolerance_mm?"}},
 		{"text where a number goes", map[string]string{"job.toml": jobFor("n.obj") + "[nodes]\nbay_mm = \"six metres\"\n", "n.obj": goodQuad}, "", []string{"job.toml:11", "key nodes.bay_mm", "want a number, got text"}},
-		{"bars shorter than the members", map[string]string{"job.toml": jobFor("n.obj") + "[[bar]]\nname = \"1 m\"\nlength_mm = 1000\n", "n.obj": goodQuad}, "", []string{"job.toml:10", "key bar", "7 members are on no bar; the first is A1-M01: blank 1500 mm is longer than the longest usable bar length, 1000 mm"}},
+		{"bars shorter than the members", map[string]string{"job.toml": jobFor("n.obj") + "[[bar]]\nname = \"1 m\"\nlength_mm = 1000\n", "n.obj": goodQuad}, "", []string{"job.toml:10", "key bar", "7 members are on no bar; the first is A1-M01: blank 1500 mm is longer than the longest usable bar length, 970 mm"}}, // 1000 mm less the default trim at each end
 		{"job file is a folder", map[string]string{"job.toml/x": ""}, "", []string{"job.toml", "is a folder, not a file"}},
 		// Output folder.
 		{"output under a file", map[string]string{"job.toml": jobFor("n.obj"), "n.obj": goodQuad, "afile": "x"}, "afile/out", []string{"afile/out", "cannot write there"}},

@@ -18,7 +18,7 @@ type netFlags struct {
 }
 
 func (nf *netFlags) register(fs *flag.FlagSet) {
-	fs.StringVar(&nf.unit, "unit", "mm", "unit of the net file: mm, cm or m")
+	fs.StringVar(&nf.unit, "unit", geom.DefaultUnit.String(), "unit of the net file: mm, cm or m")
 	fs.BoolVar(&nf.reorient, "reorient", false, "turn flipped panels so all run counter-clockwise seen from above or outside")
 	fs.Float64Var(&nf.tol, "merge-tol", geom.DefaultCoincidentTolMM, "nodes closer than this (mm) are reported as coincident")
 }

@@ -29,13 +29,13 @@ func runNest(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	fs, names := newFlags("nest", "NET", stderr), fieldFlags{"WidthMM": "sheet", "HeightMM": "sheet"}
 	var nf netFlags
 	nf.register(fs)
-	sheet := fs.String("sheet", "6000x3210", "stock sheet WIDTHxHEIGHT (mm)")
-	stock := nest.Stock{Name: "sheet", MarginMM: 20, SpacingMM: 6, Rotation: nest.Free}
+	stock := nest.DefaultStock("sheet")
+	sheet := fs.String("sheet", fmt.Sprintf("%gx%g", stock.WidthMM, stock.HeightMM), "stock sheet WIDTHxHEIGHT (mm)")
 	names.float(fs, &stock.MarginMM, "margin", "MarginMM", "clear edge strip of the sheet (mm)")
 	names.float(fs, &stock.SpacingMM, "spacing", "SpacingMM", "least distance between parts: kerf plus clearance (mm)")
 	names.text(fs, (*string)(&stock.Rotation), "rotation", "Rotation", "turns allowed: free, quarter or grain (0/180 only)")
-	fs.BoolVar(&stock.Mirror, "mirror", false, "parts may be turned over")
-	mat := panels.Material{Name: "panel", ThicknessMM: panels.DefaultThicknessMM, DensityKgM3: panels.DefaultDensityKgM3}
+	fs.BoolVar(&stock.Mirror, "mirror", stock.Mirror, "parts may be turned over")
+	mat := panels.DefaultMaterial()
 	names.float(fs, &mat.EdgeInsetMM, "inset", "EdgeInsetMM", "edge inset of the cut outline (mm)")
 	bay := fs.Float64("bay", geom.DefaultBaySizeMM, "bay size for labels (mm)")
 	asJSON := fs.Bool("json", false, "print JSON for machines")

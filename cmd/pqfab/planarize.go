@@ -5,6 +5,7 @@ import (
 	"strings"
 
 	"pqfab/export"
+	"pqfab/internal/job"
 	"pqfab/internal/pipeline"
 	"pqfab/panels"
 )
@@ -18,8 +19,8 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	names.float(fs, &opt.MaxMoveMM, "max-move", "MaxMoveMM", "largest node move allowed (mm)")
 	names.float(fs, &opt.Fairness, "fairness", "Fairness", "weight of smooth moves against small moves (0: off)")
 	names.integer(fs, &opt.MaxIter, "max-iter", "MaxIter", "iteration budget")
-	fs.BoolVar(&opt.Vertical, "vertical", false, "move nodes only along z (plan layout fixed)")
-	supports := fs.String("supports", "boundary", "nodes that never move: boundary, none, file (flags in a CSV net) or node ids a,b,c")
+	fs.BoolVar(&opt.Vertical, "vertical", opt.Vertical, "move nodes only along z (plan layout fixed)")
+	supports := fs.String("supports", job.DefaultSupportsMode, "nodes that never move: boundary, none, file (flags in a CSV net) or node ids a,b,c")
 	out := fs.String("o", "", "planarized net, OBJ in mm (required)")
 	report := fs.String("report", "", "also write the full report (per node moves, per panel flatness) as JSON")
 	quiet := fs.Bool("q", false, "no progress bar")
@@ -44,8 +45,8 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 		return err
 	}
 	mode, ids := *supports, []string(nil)
-	if mode != "boundary" && mode != "none" && mode != "file" {
-		mode, ids = "list", strings.Split(*supports, ",")
+	if mode != job.SupportsBoundary && mode != job.SupportsNone && mode != job.SupportsFile {
+		mode, ids = job.SupportsList, strings.Split(*supports, ",")
 	}
 	if opt.Fixed, err = pipeline.Supports(mode, ids, in.Net, in.Topo); err != nil {
 		return usagef("--supports: %v", err)
@@ -69,6 +70,6 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 		return perr // nothing written but the report asked for
 	}
 	return export.WriteFileAtomic(*out, wopt, func(w io.Writer) error {
-		return export.WriteOBJ(w, pipeline.Moved(in.Net, res), "pqfab planarized net from "+in.Net.Source)
+		return export.WriteOBJ(w, in.Order.Apply(pipeline.Moved(in.Net, res)), "pqfab planarized net from "+in.Net.Source)
 	})
 }

@@ -13,7 +13,7 @@ func runSample(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	fs := newFlags("sample", "NAME -o FILE", stderr)
 	out := fs.String("o", "", "output OBJ file (required)")
 	force := fs.Bool("force", false, "replace an existing file that pqfab did not write")
-	count := fs.Int("panels", 1000, fmt.Sprintf("about how many panels (%d to %d)", samples.MinPanels, samples.MaxPanels))
+	count := fs.Int("panels", samples.DefaultPanels, fmt.Sprintf("about how many panels (%d to %d)", samples.MinPanels, samples.MaxPanels))
 	pos, err := parseCommand(fs, args, 1, "one name ("+strings.Join(samples.Names(), ", ")+")")
 	if err != nil {
 		return err

@@ -151,6 +151,14 @@ const (
 	SupportsList     = "list"
 )
 
+// Defaults of the job's own settings (the others are the libraries':
+// see defaults).
+const (
+	DefaultSupportsMode   = SupportsBoundary
+	DefaultMemberMaterial = "glulam"
+	DefaultNestSeconds    = 0.0 // no time limit
+)
+
 // Member densities (kg/m³): the default is glulam of strength class
 // GL24h, whose mean density EN 14080 gives as 420 kg/m³ (from memory;
 // check the supplier's figure); steel is 7850 kg/m³ (handbook value,
@@ -172,20 +180,38 @@ const (
 	MaxNestSeconds = 86400.0 // nesting.seconds: a day
 )
 
-// defaults returns a job with every default set.
+// defaults returns a job with every default set: the libraries' defaults
+// (the same the single-stage commands' flags take) and the job's own.
+// Tables that a job may repeat ([[stock]], [[bar]]) get theirs from
+// stockDefaults and barDefaults, key by key, once they are read.
 func defaults(file string) *Job {
+	po, no, mat := panels.DefaultPlanarizeOptions(), nodes.DefaultOptions(), panels.DefaultMaterial()
 	return &Job{
 		File:     file,
-		Net:      Net{Unit: "mm", MergeTolMM: geom.DefaultCoincidentTolMM},
-		Supports: Supports{Mode: SupportsBoundary},
-		Flatness: Flatness{TolMM: panels.DefaultFlatTolMM, MaxMoveMM: panels.DefaultMaxMoveMM, Fairness: panels.DefaultFairness, MaxIter: panels.DefaultMaxIter},
-		Nodes:    Nodes{Axis: string(nodes.AxisLeastTwist), BayMM: geom.DefaultBaySizeMM},
-		Member:   Member{Material: "glulam", WidthMM: nodes.DefaultSectionWidthMM, DepthMM: nodes.DefaultSectionDepthMM, DensityKgM3: DefaultMemberDensityKgM3},
-		Panel:    Panel{Material: "float glass", ThicknessMM: panels.DefaultThicknessMM, DensityKgM3: panels.DefaultDensityKgM3},
-		Nesting:  Nesting{Steps: nest.DefaultSteps},
-		Types:    Types{LengthTolMM: nodes.DefaultTypeLengthTolMM, AngleTolDeg: nodes.DefaultTypeAngleTolDeg, PanelTolMM: panels.DefaultTypeTolMM},
+		Net:      Net{Unit: geom.DefaultUnit.String(), MergeTolMM: geom.DefaultCoincidentTolMM},
+		Supports: Supports{Mode: DefaultSupportsMode},
+		Flatness: Flatness{TolMM: po.TolMM, MaxMoveMM: po.MaxMoveMM, Fairness: po.Fairness, VerticalOnly: po.Vertical, MaxIter: po.MaxIter},
+		Nodes:    Nodes{Axis: string(no.Axis), HubRadiusMM: no.HubRadiusMM, BayMM: geom.DefaultBaySizeMM},
+		Member: Member{Material: DefaultMemberMaterial, WidthMM: no.Section.WidthMM, DepthMM: no.Section.DepthMM,
+			DensityKgM3: DefaultMemberDensityKgM3},
+		Panel: Panel{Material: mat.Name, ThicknessMM: mat.ThicknessMM, DensityKgM3: mat.DensityKgM3, EdgeInsetMM: mat.EdgeInsetMM,
+			BoundaryBevelDeg: mat.BoundaryBevelDeg, Grain: mat.Grain.Rule, GrainPlanDeg: mat.Grain.PlanDeg},
+		Nesting: Nesting{Steps: nest.DefaultSteps, Seconds: DefaultNestSeconds},
+		Types:   Types{LengthTolMM: no.Types.LengthTolMM, AngleTolDeg: no.Types.AngleTolDeg, PanelTolMM: panels.DefaultTypeTolMM},
 	}
 }
+
+// stockDefaults is a [[stock]] table's defaults (its name, "stock N", is
+// set by Parse); width_mm and height_mm are required.
+func stockDefaults() Stock {
+	s := nest.DefaultStock("")
+	return Stock{MarginMM: s.MarginMM, SpacingMM: s.SpacingMM, Rotation: string(s.Rotation), Mirror: s.Mirror,
+		Count: s.Count, Price: s.Price, Cuts: CutsAny}
+}
+
+// barDefaults is a [[bar]] table's defaults (its name, "bar N", is set by
+// Parse); length_mm is required.
+func barDefaults() Bar { return Bar{KerfMM: bars.DefaultKerfMM, TrimMM: bars.DefaultTrimMM} }
 
 // Errorf returns an error naming the job file, the line of key and the key.
 func (j *Job) Errorf(key string, format string, args ...any) error {

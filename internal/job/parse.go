@@ -14,7 +14,6 @@ import (
 	"github.com/BurntSushi/toml"
 
 	"pqfab/geom"
-	"pqfab/panels/nest"
 )
 
 // MaxFileBytes is the largest job file read (1 MiB): a job is a page of
@@ -47,13 +46,22 @@ func Parse(data []byte, file string) (*Job, error) {
 	if j.Stock == nil {
 		return nil, &geom.InputError{File: file, Msg: "no [[stock]] sheet given: nesting needs at least one"}
 	}
+	// The keys each [[stock]] and [[bar]] table holds: the others take
+	// their defaults (a table read into a list starts from zero values).
+	var given struct {
+		Stock []map[string]any `toml:"stock"`
+		Bar   []map[string]any `toml:"bar"`
+	}
+	if _, err := toml.Decode(string(data), &given); err != nil {
+		return nil, decodeError(err, file)
+	}
 	for i := range j.Stock {
-		if j.Stock[i].Rotation == "" {
-			j.Stock[i].Rotation = string(nest.Free)
-		}
-		if j.Stock[i].Cuts == "" {
-			j.Stock[i].Cuts = CutsAny
-		}
+		fillDefaults(&j.Stock[i], stockDefaults(), given.Stock, i)
+	}
+	for i := range j.Bar {
+		fillDefaults(&j.Bar[i], barDefaults(), given.Bar, i)
+	}
+	for i := range j.Stock {
 		if j.Stock[i].Name == "" {
 			j.Stock[i].Name = fmt.Sprintf("stock %d", i+1)
 		}
@@ -62,6 +70,22 @@ func Parse(data []byte, file string) (*Job, error) {
 		return nil, err
 	}
 	return j, nil
+}
+
+// fillDefaults sets every field of *dst whose key tables[i] does not
+// hold to its value in def.
+func fillDefaults[T any](dst *T, def T, tables []map[string]any, i int) {
+	var keys map[string]any
+	if i < len(tables) {
+		keys = tables[i]
+	}
+	dv, fv := reflect.ValueOf(dst).Elem(), reflect.ValueOf(def)
+	for k := range dv.NumField() {
+		tag := dv.Type().Field(k).Tag.Get("toml")
+		if _, ok := keys[tag]; !ok && tag != "" && tag != "-" {
+			dv.Field(k).Set(fv.Field(k))
+		}
+	}
 }
 
 var tomlTypeErr = regexp.MustCompile(`^toml: line (\d+) \(last key "([^"]*)"\): (.*)$`)

@@ -29,7 +29,8 @@ type Policy struct {
 type Result struct {
 	Job       *job.Job
 	NetPath   string
-	Net       *geom.Net // planarized
+	Net       *geom.Net  // planarized, in canonical order
+	Order     *FileOrder // maps Net back to the net file's order (nil: Net is in it)
 	Topo      *geom.Topology
 	Supports  []bool
 	Warnings  []string
@@ -99,7 +100,7 @@ func Run(ctx context.Context, j *job.Job, open Opener, obs Observer, pol Policy)
 		warn(w)
 	}
 	net, topo := in.Net, in.Topo
-	res.Topo = topo
+	res.Topo, res.Order = topo, in.Order
 	if res.Supports, err = Supports(j.Supports.Mode, j.Supports.Nodes, net, topo); err != nil {
 		key := "supports.nodes"
 		if j.Supports.Mode != "list" {
@@ -288,6 +289,16 @@ func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) e
 	return nil
 }
 
+// FileNet returns the planarized net in the net file's order: node i and
+// panel j are the file's node i and panel j, each panel starting at the
+// file's first corner (see FileOrder).
+func (r *Result) FileNet() *geom.Net {
+	if r.Order == nil {
+		return r.Net
+	}
+	return r.Order.Apply(r.Net)
+}
+
 // Bundle returns what the writers need.
 func (r *Result) Bundle() *export.Bundle {
 	return &export.Bundle{Title: r.Job.Title, JobFile: r.Job.File, NetFile: r.NetPath, Settings: settings(r.Job), Warnings: r.Warnings,
@@ -301,11 +312,12 @@ func (r *Result) Bundle() *export.Bundle {
 // Write writes every output of the result into the folder dir, atomically
 // and only where opt allows (export.WriteFolder; list the job's files on
 // disk in opt.Keep, see InputFiles), reporting each file to obs as stage
-// "write", and returns the report.
+// "write", and returns the report. The planarized net (net-flat.obj) is
+// written in the net file's order (FileNet).
 func Write(dir string, r *Result, opt export.WriteOptions, obs Observer) (*export.Report, error) {
 	b := r.Bundle()
 	rep := export.BuildReport(b)
-	err := export.WriteBuild(dir, opt, b.Net, b.Warnings, rep, func(done, total int, what string) { obs.Step("write", done, total, "write "+what) })
+	err := export.WriteBuild(dir, opt, r.FileNet(), b.Warnings, rep, func(done, total int, what string) { obs.Step("write", done, total, "write "+what) })
 	if err != nil {
 		return nil, err
 	}

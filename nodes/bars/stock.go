@@ -13,6 +13,14 @@ const MaxLengthMM = 1e6
 // MaxCount is the largest number of bars a stock may list.
 const MaxCount = 10_000_000
 
+// Bar stock defaults (mm), for a stock that leaves them out: a saw kerf
+// of 4 mm and 15 mm trimmed off each bar end (common practice for timber
+// and steel sections cut to length; check the saw and the supplier).
+const (
+	DefaultKerfMM = 4.0
+	DefaultTrimMM = 15.0
+)
+
 // Stock is a bar length members are cut from.
 type Stock struct {
 	Name     string
