@@ -9,6 +9,7 @@ import (
 	"strings"
 
 	"pqfab/geom"
+	"pqfab/nodes"
 )
 
 // Output files for the site team.
@@ -33,10 +34,25 @@ const (
 )
 
 // HubFrameNote defines the hub angles for the people who read them; it is
-// on every node tag and in the legends of the plans.
-const HubFrameNote = "Hub angles: z = node axis; azimuth 0 = the first member listed (label order), " +
-	"projected on the plane normal to the axis; azimuth counter-clockwise seen from above the hub " +
-	"along the axis, 0 to 360°; elevation above (+) or below (-) the hub plane."
+// in the legends of the plans (HubFrameShort is on every node tag).
+const HubFrameNote = "Hub angles: z = node axis; azimuth 0 = grid north (+y of the plan) projected on the hub plane " +
+	"(the plane normal to the axis), found with the plan before any member is in and marked on the hub " +
+	"(up, +z, instead where the axis lies within 5° of the north-south line); azimuth counter-clockwise seen " +
+	"from above the hub along the axis, 0 to 360°, arms listed going round the hub; elevation above (+) or " +
+	"below (-) the hub plane. Axis tilt: the axis's angle from vertical and the plan direction it leans " +
+	"toward, counter-clockwise from grid north."
+
+// AxisTiltText says how a node's axis leans, for a tag.
+func AxisTiltText(n NodeRow) string {
+	s := fmt.Sprintf("axis tilt %.1f°", r(n.AxisTiltDeg, 1))
+	if r(n.AxisTiltDeg, 1) > 0 {
+		s += fmt.Sprintf(" toward %.0f° ccw from north", math.Mod(r(n.AxisTiltTowardDeg, 0), 360))
+	}
+	if n.AzimuthZero == nodes.ZeroUp {
+		s += "; az 0 = up (+z) on the hub plane"
+	}
+	return s
+}
 
 // NumberingNote says how parts are numbered inside a bay (geom.Bays.Label).
 const NumberingNote = "Numbering in a bay: row by row from the bay's lower-left corner, by x along a row. " +

@@ -83,6 +83,9 @@ func gridReport(t testing.TB, nx, ny int, sp, bay float64) *Report {
 		arms[e.a] = append(arms[e.a], ArmRow{Member: ml[k], AzimuthDeg: float64(90 * len(arms[e.a]))})
 		arms[e.b] = append(arms[e.b], ArmRow{Member: ml[k], AzimuthDeg: float64(90 * len(arms[e.b]))})
 	}
+	for k := range 7 {
+		rep.MemberTypes = append(rep.MemberTypes, MemberTypeRow{Name: fmt.Sprintf("MT-%03d", k+1), CutLengthMM: sp - 80})
+	}
 	for i, p := range pts {
 		rep.Nodes = append(rep.Nodes, NodeRow{Label: nl[i], ID: fmt.Sprint(i + 1), Pos: [3]float64{p.X, p.Y, p.Z},
 			Type: fmt.Sprintf("NT-%03d", i%5+1), MembersAtNode: len(arms[i]), Arms: arms[i], MoveMM: float64(i%9) / 3})
@@ -286,7 +289,7 @@ func TestSitePDFsDeterministic(t *testing.T) {
 		pages int
 	}{
 		{"plan", func(b *bytes.Buffer) error { return WritePlanPDF(b, rep) }, 6},
-		{"tags", func(b *bytes.Buffer) error { return WriteTagsPDF(b, rep) }, (len(rep.Nodes) + len(rep.Members) + len(rep.Panels) + 23) / 24},
+		{"tags", func(b *bytes.Buffer) error { return WriteTagsPDF(b, rep) }, (len(rep.Nodes) + len(rep.Members) + len(rep.Panels) + 7) / 8},
 		{"view", func(b *bytes.Buffer) error { return WriteView(b, rep) }, 0},
 	} {
 		var a, b bytes.Buffer

@@ -17,12 +17,11 @@ func boundRow(b geom.TypeBound) TypeBoundRow {
 // deviation, totals and parts.
 func (rep *Report) buildTypes(b *Bundle) {
 	s := b.Structure
-	area := s.Section.WidthMM * s.Section.DepthMM / 1e6 // m²
 	rep.MemberTypes = make([]MemberTypeRow, 0, len(s.MemberTypes))
 	for _, t := range s.MemberTypes {
 		row := MemberTypeRow{Name: t.Name, Count: len(t.Parts), CutLengthMM: r(t.CutLengthMM, lenDigits),
 			TwistDeg: r(t.TwistDeg, angleDigits), MaxDevMM: r(t.MaxDevMM, lenDigits), MaxDevDeg: r(t.MaxDevDeg, angleDigits),
-			TotalM: r(t.TotalCutLengthMM/1000, 3), WeightKg: r(area*t.TotalCutLengthMM/1000*b.MemberDensityKgM3, weightDigits),
+			TotalM: r(t.TotalCutLengthMM/1000, 3), WeightKg: r(b.MemberKgPerM*t.TotalCutLengthMM/1000, weightDigits),
 			ReadFromB: []string{}}
 		blank := t.CutLengthMM
 		for k, e := range []struct{ MitreDeg, BevelDeg float64 }{{t.A.MitreDeg, t.A.BevelDeg}, {t.B.MitreDeg, t.B.BevelDeg}} {

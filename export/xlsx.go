@@ -341,7 +341,7 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return head("Weights") },
 		func() error { return put("Panels (kg)", rep.Weights.PanelsKg) },
 		func() error {
-			return put(fmt.Sprintf("Members, %s at %g kg/m³ (kg)", rep.MemberMaterial.Name, rep.MemberMaterial.DensityKgM3), rep.Weights.MembersKg)
+			return put(fmt.Sprintf("Members, %s, %s section, %g kg/m (kg)", rep.MemberMaterial.Name, rep.MemberMaterial.Section, rep.MemberMaterial.KgPerM), rep.Weights.MembersKg)
 		},
 		func() error { return put("Total (kg)", rep.Weights.TotalKg) })
 	if rep.Cost != nil {

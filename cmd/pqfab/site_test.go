@@ -2,12 +2,16 @@ package main
 
 import (
 	"fmt"
+	"html"
 	"image"
 	"image/png"
+	"math"
 	"os"
 	"os/exec"
 	"path/filepath"
+	"regexp"
 	"slices"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -163,7 +167,8 @@ func TestSiteTagsPDF(t *testing.T) {
 		slices.Sort(kind)
 		order = append(order, kind...)
 	}
-	perSheet := export.TagCols * export.TagRows
+	lay := export.TagOffice
+	perSheet := lay.Cols * lay.Rows
 	if want := (len(order) + perSheet - 1) / perSheet; len(pages) != want {
 		t.Fatalf("%d sheets for %d tags, want %d", len(pages), len(order), want)
 	}
@@ -174,14 +179,22 @@ func TestSiteTagsPDF(t *testing.T) {
 		}
 	}
 	flat := strings.Join(strings.Fields(pages[0]), " ")
-	if !strings.Contains(flat, "az 0 = first member listed") || !strings.Contains(flat, "NODE") {
+	if !strings.Contains(flat, "az 0 = grid north (+y) on the hub plane") || !strings.Contains(flat, "NODE") {
 		t.Errorf("first sheet (node tags) lacks the azimuth definition: %q", tail(flat, 400))
 	}
-	m := rep.Members[0]
-	mpage := pages[slices.Index(order, m.Label)/perSheet]
-	if !strings.Contains(mpage, "end A to node "+m.NodeA) || !strings.Contains(mpage, "end B to node "+m.NodeB) {
-		t.Errorf("member %s's tag lacks its end nodes", m.Label)
+	// Every member's tag names the end it is fixed at: its type's end A,
+	// the same end for every member of a type.
+	for _, m := range rep.Members {
+		tagNode, other := m.NodeA, m.NodeB
+		if m.TagEnd == "B" {
+			tagNode, other = other, tagNode
+		}
+		mpage := strings.Join(strings.Fields(pages[slices.Index(order, m.Label)/perSheet]), " ")
+		if !strings.Contains(mpage, "TAG END (type end A) to node "+tagNode) || !strings.Contains(mpage, "other end (type end B) to node "+other) {
+			t.Errorf("member %s's tag lacks its tag end (node %s)", m.Label, tagNode)
+		}
 	}
+	checkTagTextSizes(t, path, order, 1)
 
 	// QR codes on the first sheet, a middle one and the last.
 	const dpi = 150
@@ -193,10 +206,10 @@ func TestSiteTagsPDF(t *testing.T) {
 		img := readPNG(t, prefix+".png")
 		for slot := 0; slot < perSheet && s*perSheet+slot < len(order); slot++ {
 			want := order[s*perSheet+slot]
-			x := float64(slot%export.TagCols) * export.TagW
-			y := (export.TagSheetH-export.TagRows*export.TagH)/2 + float64(slot/export.TagCols)*export.TagH
+			x := (lay.SheetW-float64(lay.Cols)*lay.W)/2 + float64(slot%lay.Cols)*lay.W
+			y := (lay.SheetH-float64(lay.Rows)*lay.H)/2 + float64(slot/lay.Cols)*lay.H
 			px := func(mm float64) int { return int(mm / 25.4 * dpi) }
-			crop := image.Rect(px(x), px(y), px(x+27), px(y+27))
+			crop := image.Rect(px(x+1), px(y+12), px(x+31), px(y+42))
 			file := filepath.Join(dir, fmt.Sprintf("qr-%d-%d.png", s, slot))
 			writePNG(t, file, img.(interface {
 				SubImage(image.Rectangle) image.Image
@@ -209,6 +222,72 @@ func TestSiteTagsPDF(t *testing.T) {
 		}
 	}
 	t.Logf("%d tags on %d sheets; %d QR codes decoded", len(order), len(pages), decoded)
+}
+
+// pdfWord is a word on a PDF page as pdftotext -bbox (poppler-utils)
+// gives it: its box in points from the page's top-left corner.
+type pdfWord struct {
+	text                   string
+	xMin, yMin, xMax, yMax float64
+}
+
+var bboxWord = regexp.MustCompile(`<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">([^<]*)</word>`)
+
+// pdfWords returns the words of every page of a PDF (pdftotext -bbox).
+func pdfWords(t *testing.T, path string) [][]pdfWord {
+	t.Helper()
+	var pages [][]pdfWord
+	for _, pg := range strings.Split(runTool(t, pdftotext, "-bbox", "-enc", "UTF-8", path, "-"), "<page ")[1:] {
+		var words []pdfWord
+		for _, m := range bboxWord.FindAllStringSubmatch(pg, -1) {
+			w := pdfWord{text: html.UnescapeString(m[5])}
+			for i, p := range []*float64{&w.xMin, &w.yMin, &w.xMax, &w.yMax} {
+				v, err := strconv.ParseFloat(m[i+1], 64)
+				if err != nil {
+					t.Fatal(err)
+				}
+				*p = v
+			}
+			words = append(words, w)
+		}
+		pages = append(pages, words)
+	}
+	return pages
+}
+
+// capMM is a word's capital-letter height in mm (the nominal size of
+// lettering, ISO 3098-1). poppler's word box spans the font's ascender to
+// its descender; for Helvetica, the font of every site file, those are
+// 718 and −207 and the capital height 718 units of 1000 (Adobe's font
+// metrics for Helvetica, from memory).
+func (w pdfWord) capMM() float64 { return (w.yMax - w.yMin) * 718 / 925 * 25.4 / 72 }
+
+// checkTagTextSizes measures the tags' text in the PDF: every word at
+// least export.TagDataCapMM high and every part's label, on its own tag,
+// at least export.TagLabelCapMM (times the tag size's scale).
+func checkTagTextSizes(t *testing.T, path string, order []string, scale float64) {
+	t.Helper()
+	const tol = 0.01 // mm: the PDF's coordinates are rounded
+	big := map[string]bool{}
+	smallest, n := math.Inf(1), 0
+	for p, words := range pdfWords(t, path) {
+		for _, w := range words {
+			if w.capMM() < scale*export.TagDataCapMM-tol {
+				t.Errorf("page %d: %q is %.2f mm high, less than %g mm", p+1, w.text, w.capMM(), scale*export.TagDataCapMM)
+			}
+			smallest = min(smallest, w.capMM())
+			n++
+			if w.capMM() >= scale*export.TagLabelCapMM-tol {
+				big[w.text] = true
+			}
+		}
+	}
+	for _, l := range order {
+		if !big[l] {
+			t.Errorf("label %s is never %g mm high", l, scale*export.TagLabelCapMM)
+		}
+	}
+	t.Logf("tags: %d words, smallest capital height %.2f mm", n, smallest)
 }
 
 func labelsOf[T any](rows []T, label func(T) string) []string {
