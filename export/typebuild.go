@@ -30,6 +30,12 @@ func (rep *Report) buildTypes(b *Bundle) {
 			blank += bars.EndAllowanceMM(s.Section.WidthMM, s.Section.DepthMM, e.MitreDeg, e.BevelDeg)
 		}
 		row.BlankMM = r(blank, lenDigits)
+		row.SetOutMM = r(t.CutLengthMM+nodes.SetbackMM(b.HubRadiusMM, t.A.MitreDeg, t.A.BevelDeg)+nodes.SetbackMM(b.HubRadiusMM, t.B.MitreDeg, t.B.BevelDeg), lenDigits)
+		face := func(y, z float64) float64 {
+			return r(faceLength(t.CutLengthMM, t.A.MitreDeg, t.A.BevelDeg, t.B.MitreDeg, t.B.BevelDeg, y, z), lenDigits)
+		}
+		w, d := s.Section.WidthMM/2, s.Section.DepthMM/2
+		row.Faces = FaceLengthsRow{Top: face(0, d), Bottom: face(0, -d), SidePos: face(w, 0), SideNeg: face(-w, 0)}
 		for k, i := range t.Parts {
 			row.Parts = append(row.Parts, s.Members[i].Label)
 			if t.Reversed[k] {
@@ -88,6 +94,15 @@ func (rep *Report) buildTypes(b *Bundle) {
 		}
 		rep.PanelTypes = append(rep.PanelTypes, row)
 	}
+}
+
+// faceLength is the length of a member's long line through section
+// point (y, z) between its end cuts: the cut length on the axis, with
+// each end cut's offset along the member at that point (endOffset).
+func faceLength(cut, mA, bA, mB, bB, y, z float64) float64 {
+	a := TypeEndRow{MitreDeg: mA, BevelDeg: bA}
+	b := TypeEndRow{MitreDeg: mB, BevelDeg: bB}
+	return cut + endOffset(b, y, z) - endOffset(a, y, z)
 }
 
 // drawingDigits: the type drawings' outlines are given to 0.001 mm, so
