@@ -6,6 +6,8 @@ import (
 	"strings"
 
 	"github.com/go-pdf/fpdf"
+
+	"pqfab/geom"
 )
 
 // The furniture of a plan page around the drawing: bubbles, scale bar,
@@ -22,7 +24,7 @@ func pageBubbles(v *pageView, g BayGrid) []bubble {
 			break
 		}
 		if c >= 0 && x > a[0]+12 {
-			out = append(out, bubble{x, a[3] - 6, columnName(c)})
+			out = append(out, bubble{x, a[3] - 6, geom.ColumnLetters(c)})
 		}
 	}
 	for r := int(math.Floor((v.wy0 - g.OriginMM[1]) / g.SizeMM[1])); ; r++ {
@@ -122,7 +124,7 @@ func drawSideColumn(pdf *fpdf.Fpdf, m *siteModel, k int, b *siteBay, v *pageView
 	pdf.Text(in+48, y+7.2, pdfText(fmt.Sprintf("scale 1:%g on A3 landscape, mm", v.scale)))
 	y += 10
 	pdf.Text(in, y+3.2, pdfText(fmt.Sprintf("page %d of %d    bay %g x %g mm    %d nodes, %d members, %d panels",
-		k+1, len(m.bays), m.grid.SizeMM[0], m.grid.SizeMM[1], len(b.nodes), len(b.members), len(b.panels))))
+		bayPage(k), planIndexPages+len(m.bays), m.grid.SizeMM[0], m.grid.SizeMM[1], len(b.nodes), len(b.members), len(b.panels))))
 	y += 6
 
 	// Key plan.
@@ -203,7 +205,7 @@ func drawKeyPlan(pdf *fpdf.Fpdf, m *siteModel, b *siteBay, x, y, w, h float64) {
 	if size >= 3.5 {
 		pdf.SetFont("Helvetica", "", size)
 		for c := 0; c < cols; c++ {
-			s := columnName(c)
+			s := geom.ColumnLetters(c)
 			pdf.Text(ox+(float64(c)+0.5)*cell-pdf.GetStringWidth(s)/2, top+lab-1, s)
 		}
 		for r := 0; r < rows; r++ {

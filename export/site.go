@@ -70,24 +70,6 @@ func bayGridOf(b geom.Bays) BayGrid {
 		SizeMM: [2]float64{r(b.SizeX, lenDigits), r(b.SizeY, lenDigits)}}
 }
 
-// parseBay reads the bay of a part label ("C3-M12" → column 2, row 2).
-func parseBay(label string) (col, row int, ok bool) {
-	name, _, found := strings.Cut(label, "-")
-	if !found || name == "" {
-		return 0, 0, false
-	}
-	i := 0
-	for i < len(name) && name[i] >= 'A' && name[i] <= 'Z' {
-		col = col*26 + int(name[i]-'A') + 1
-		i++
-	}
-	n, err := strconv.Atoi(name[i:])
-	if i == 0 || err != nil || n < 1 {
-		return 0, 0, false
-	}
-	return col - 1, n - 1, true
-}
-
 // siteBay is one bay that holds parts, with the parts' indices in the
 // report (each list in label order).
 type siteBay struct {
@@ -129,7 +111,7 @@ func newSiteModel(rep *Report) (*siteModel, error) {
 		m.lo, m.hi = g.OriginMM, g.OriginMM
 	}
 	bay := func(label string) (*siteBay, error) {
-		c, rw, ok := parseBay(label)
+		c, rw, ok := geom.ParseBay(label)
 		if !ok {
 			return nil, fmt.Errorf("label %q names no bay", label)
 		}

@@ -153,26 +153,6 @@ func TestPDFText(t *testing.T) {
 	}
 }
 
-func TestParseBay(t *testing.T) {
-	tests := []struct {
-		label    string
-		col, row int
-		ok       bool
-	}{
-		{"A1-01", 0, 0, true}, {"C3-M12", 2, 2, true}, {"AA10-P05", 26, 9, true}, {"ZZ1-01", 701, 0, true},
-		{"3C-01", 0, 0, false}, {"C-01", 0, 0, false}, {"C0-01", 0, 0, false}, {"C3", 0, 0, false},
-	}
-	for _, tc := range tests {
-		c, r, ok := parseBay(tc.label)
-		if ok != tc.ok || (ok && (c != tc.col || r != tc.row)) {
-			t.Errorf("parseBay(%q) = %d, %d, %v; want %d, %d, %v", tc.label, c, r, ok, tc.col, tc.row, tc.ok)
-		}
-		if ok && columnName(c) != geom.ColumnLetters(c) {
-			t.Errorf("columnName(%d) = %s, geom says %s", c, columnName(c), geom.ColumnLetters(c))
-		}
-	}
-}
-
 // clipArea is the area shared by two convex counter-clockwise polygons
 // (Sutherland–Hodgman clipping): an overlap test independent of the
 // separating-axis test in obox.overlaps.
@@ -288,7 +268,7 @@ func TestSitePDFsDeterministic(t *testing.T) {
 		write func(*bytes.Buffer) error
 		pages int
 	}{
-		{"plan", func(b *bytes.Buffer) error { return WritePlanPDF(b, rep) }, 6},
+		{"plan", func(b *bytes.Buffer) error { return WritePlanPDF(b, rep) }, 7}, // the index and 6 bays
 		{"tags", func(b *bytes.Buffer) error { return WriteTagsPDF(b, rep) }, (len(rep.Nodes) + len(rep.Members) + len(rep.Panels) + 7) / 8},
 		{"view", func(b *bytes.Buffer) error { return WriteView(b, rep) }, 0},
 	} {

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"cmp"
 	"fmt"
 	"html"
 	"image"
@@ -16,6 +17,7 @@ import (
 	"testing"
 
 	"pqfab/export"
+	"pqfab/geom"
 )
 
 // Outside readers of the site files, all Debian packages that .ci/run
@@ -110,20 +112,76 @@ func partsByBay(rep *export.Report) map[string][]string {
 }
 
 // TestSitePlanPDF reads site/plan.pdf back with pdftotext (poppler-utils):
-// one page per bay that holds parts, each page names its bay and scale,
-// carries the caution and the title (in code page 1252: characters
-// outside it print as '?'), and every label of the bay's nodes, members
-// and panels appears on its page as a word of its own.
+// an index page listing every bay with its page, then one page per bay
+// that holds parts, each page names its bay and scale, carries the
+// caution and the title (in code page 1252: characters outside it print
+// as '?'), and every label of the bay's nodes, members and panels appears
+// on its page as a word of its own, at least 2.5 mm high (pdftotext
+// -bbox); pdftohtml -xml (poppler-utils) finds a bookmark for the index
+// and for every bay, each pointing to the bay's page.
 func TestSitePlanPDF(t *testing.T) {
 	dir := t.TempDir()
 	out, rep := buildSiteJob(t, dir)
-	pages := pdfPages(t, filepath.Join(out, export.FilePlanPDF))
+	path := filepath.Join(out, export.FilePlanPDF)
+	pages := pdfPages(t, path)
 	bays := partsByBay(rep)
-	if len(pages) != len(bays) {
-		t.Fatalf("%d pages for %d bays", len(pages), len(bays))
+	if len(pages) != len(bays)+1 {
+		t.Fatalf("%d pages for %d bays and the index", len(pages), len(bays))
 	}
+	index := strings.Join(strings.Fields(pages[0]), " ")
+	if !strings.Contains(index, "Bays and pages") {
+		t.Fatalf("page 1 is not the index: %q", tail(index, 300))
+	}
+	pageOf := map[string]int{}
+	for i, pg := range pages[1:] {
+		if k := strings.Index(pg, "Bay "); k >= 0 {
+			pageOf[strings.Fields(pg[k+4:])[0]] = i + 2
+		}
+	}
+	words := pdfWords(t, path)
+	// The index's list, read line by line (words on one baseline, by x):
+	// "Bay C3 … page 12".
+	lines := map[float64][]pdfWord{}
+	for _, w := range words[0] {
+		lines[math.Round(w.yMax*10)] = append(lines[math.Round(w.yMax*10)], w)
+	}
+	listed := map[string]string{}
+	for _, ws := range lines {
+		slices.SortFunc(ws, func(a, b pdfWord) int { return cmp.Compare(a.xMin, b.xMin) })
+		for i := 0; i+3 < len(ws); i++ {
+			if ws[i].text == "Bay" && ws[i+2].text == "page" {
+				listed[ws[i+1].text] = ws[i+3].text
+			}
+		}
+	}
+	for bay := range bays {
+		if got := listed[bay]; got != strconv.Itoa(pageOf[bay]) {
+			t.Errorf("index lists bay %s on page %q, it is on page %d", bay, got, pageOf[bay])
+		}
+	}
+	outline := runTool(t, "/usr/bin/pdftohtml", "-xml", "-stdout", "-i", "-f", "1", "-l", "1", path)
+	marks := regexp.MustCompile(`<item page="(\d+)">([^<]*)</item>`).FindAllStringSubmatch(outline, -1)
+	if len(marks) != len(bays)+1 || marks[0][1] != "1" {
+		t.Fatalf("%d bookmarks for %d bays and the index: %v", len(marks), len(bays), marks)
+	}
+	for _, mk := range marks[1:] {
+		bay := strings.Fields(strings.TrimPrefix(mk[2], "Bay "))[0]
+		if strconv.Itoa(pageOf[bay]) != mk[1] {
+			t.Errorf("bookmark %q points to page %s, the bay is on page %d", mk[2], mk[1], pageOf[bay])
+		}
+	}
+	const tol = 0.01 // mm
+	smallest := math.Inf(1)
 	seen := map[string]bool{}
-	for i, pg := range pages {
+	for i, pg := range pages[1:] {
+		for _, w := range words[i+1] {
+			if _, _, ok := geom.ParseBay(w.text); ok && strings.Contains(w.text, "-") {
+				smallest = min(smallest, w.capMM())
+				if w.capMM() < 2.5-tol {
+					t.Errorf("page %d: label %s is %.2f mm high, less than 2.5 mm", i+2, w.text, w.capMM())
+				}
+			}
+		}
 		words := tokens(pg)
 		bay := ""
 		if k := strings.Index(pg, "Bay "); k >= 0 {
@@ -131,22 +189,23 @@ func TestSitePlanPDF(t *testing.T) {
 		}
 		labels, ok := bays[bay]
 		if !ok || seen[bay] {
-			t.Fatalf("page %d: bay %q is not a bay with parts, or is on two pages", i+1, bay)
+			t.Fatalf("page %d: bay %q is not a bay with parts, or is on two pages", i+2, bay)
 		}
 		seen[bay] = true
 		for _, l := range labels {
 			if !words[l] {
-				t.Errorf("page %d (bay %s): label %s missing", i+1, bay, l)
+				t.Errorf("page %d (bay %s): label %s missing", i+2, bay, l)
 			}
 		}
 		flat := strings.Join(strings.Fields(pg), " ")
 		for _, want := range []string{"scale 1:", "CAUTION: pqfab computes geometry only", "azimuth 0", "row by row",
 			`Café "Nord" <b>&amp; 50%% \ ?? — hall`} {
 			if !strings.Contains(flat, want) {
-				t.Errorf("page %d: no %q in %q", i+1, want, tail(flat, 300))
+				t.Errorf("page %d: no %q in %q", i+2, want, tail(flat, 300))
 			}
 		}
 	}
+	t.Logf("%d bay pages; smallest part label %.2f mm high", len(pages)-1, smallest)
 }
 
 // TestSiteTagsPDF reads site/tags.pdf back: pdftotext (poppler-utils) finds
