@@ -472,6 +472,40 @@ func TestSiteViewInChromium(t *testing.T) {
 		}
 	}
 
+	if !strings.Contains(d, `data-view="3d"`) {
+		t.Error("view.html did not start its 3D view in chromium with software WebGL")
+	}
+
+	// Without WebGL (--disable-3d-apis): a message where the view would
+	// be, and the search and the part data work as before.
+	cmd = exec.Command(chromium, append(chromiumFlags(filepath.Join(dir, "p3")), "--disable-3d-apis", "--dump-dom", "file://"+page+"#"+m.Label)...)
+	logs.Reset()
+	cmd.Stderr = &logs
+	dom, err = cmd.Output()
+	if err != nil {
+		t.Fatalf("chromium without WebGL: %v\n%s", err, tail(logs.String(), 3000))
+	}
+	for _, l := range consoleErrors(logs.String()) {
+		t.Errorf("console message without WebGL: %s", l)
+	}
+	d = string(dom)
+	if !strings.Contains(d, `data-view="none"`) || !strings.Contains(d, `id="no3d"`) || !strings.Contains(d, "No 3D view:") {
+		t.Errorf("without WebGL the page does not say there is no 3D view: %s", tail(d, 600))
+	}
+	if !strings.Contains(d, `data-selected="`+m.Label+`"`) {
+		t.Errorf("without WebGL member %s is not selected", m.Label)
+	}
+	tagNode := m.NodeA
+	if m.TagEnd == "B" {
+		tagNode = m.NodeB
+	}
+	info = d[strings.Index(d, `id="info"`):]
+	for _, want := range []string{m.Label, m.NodeA, m.NodeB, m.Type, "tag end (type end A) to node</td><td>" + tagNode} {
+		if !strings.Contains(info[:min(len(info), 2000)], want) {
+			t.Errorf("without WebGL the data panel lacks %s", want)
+		}
+	}
+
 	n := rep.Nodes[0]
 	shot := filepath.Join(dir, "view.png")
 	cmd = exec.Command(chromium, append(chromiumFlags(filepath.Join(dir, "p2")), "--window-size=1200,800", "--screenshot="+shot, "file://"+page+"#"+n.Label)...)
