@@ -1,6 +1,7 @@
 package main
 
 import (
+	"bytes"
 	"cmp"
 	"fmt"
 	"html"
@@ -255,12 +256,37 @@ func TestSiteTagsPDF(t *testing.T) {
 	}
 	checkTagTextSizes(t, path, order, 1)
 
-	// QR codes on the first sheet, a middle one and the last.
+	decoded := checkTagQRs(t, dir, path, lay, order, len(pages))
+	t.Logf("%d tags on %d sheets; %d QR codes decoded", len(order), len(pages), decoded)
+
+	// Outdoor tags: the same tags twice the size, two to a sheet, every
+	// text twice as high, the QR codes still read.
+	rep.TagSize = export.TagOutdoor.Name
+	var buf bytes.Buffer
+	if err := export.WriteTagsPDF(&buf, rep); err != nil {
+		t.Fatal(err)
+	}
+	big := filepath.Join(dir, "tags-outdoor.pdf")
+	if err := os.WriteFile(big, buf.Bytes(), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if n, want := len(pdfPages(t, big)), (len(order)+1)/2; n != want {
+		t.Errorf("outdoor tags: %d sheets for %d tags, want %d", n, len(order), want)
+	}
+	checkTagTextSizes(t, big, order, 2)
+	checkTagQRs(t, dir, big, export.TagOutdoor, order, (len(order)+1)/2)
+}
+
+// checkTagQRs decodes the QR code of every tag on the first sheet, a
+// middle one and the last (pdftoppm renders the sheet, zbarimg reads the
+// code): each holds exactly the label of the part in its slot.
+func checkTagQRs(t *testing.T, dir, path string, lay export.TagLayout, order []string, sheets int) int {
+	t.Helper()
 	const dpi = 150
-	sheets := []int{0, len(pages) / 2, len(pages) - 1}
+	perSheet := lay.Cols * lay.Rows
 	decoded := 0
-	for _, s := range slices.Compact(sheets) {
-		prefix := filepath.Join(dir, fmt.Sprintf("sheet-%d", s+1))
+	for _, s := range slices.Compact([]int{0, sheets / 2, sheets - 1}) {
+		prefix := filepath.Join(dir, fmt.Sprintf("%s-sheet-%d", lay.Name, s+1))
 		runTool(t, pdftoppm, "-r", fmt.Sprint(dpi), "-gray", "-png", "-singlefile", "-f", fmt.Sprint(s+1), "-l", fmt.Sprint(s+1), path, prefix)
 		img := readPNG(t, prefix+".png")
 		for slot := 0; slot < perSheet && s*perSheet+slot < len(order); slot++ {
@@ -268,19 +294,20 @@ func TestSiteTagsPDF(t *testing.T) {
 			x := (lay.SheetW-float64(lay.Cols)*lay.W)/2 + float64(slot%lay.Cols)*lay.W
 			y := (lay.SheetH-float64(lay.Rows)*lay.H)/2 + float64(slot/lay.Cols)*lay.H
 			px := func(mm float64) int { return int(mm / 25.4 * dpi) }
-			crop := image.Rect(px(x+1), px(y+12), px(x+31), px(y+42))
-			file := filepath.Join(dir, fmt.Sprintf("qr-%d-%d.png", s, slot))
+			k := lay.Scale // the QR code sits 3 k mm in, 13.6 k mm down, 25 k mm wide
+			crop := image.Rect(px(x+k), px(y+12*k), px(x+31*k), px(y+42*k))
+			file := filepath.Join(dir, fmt.Sprintf("qr-%s-%d-%d.png", lay.Name, s, slot))
 			writePNG(t, file, img.(interface {
 				SubImage(image.Rectangle) image.Image
 			}).SubImage(crop))
 			got := strings.TrimSpace(runTool(t, zbarimg, "-q", "--raw", file))
 			if got != want {
-				t.Errorf("sheet %d slot %d: QR code reads %q, want %q", s+1, slot+1, got, want)
+				t.Errorf("%s tags, sheet %d slot %d: QR code reads %q, want %q", lay.Name, s+1, slot+1, got, want)
 			}
 			decoded++
 		}
 	}
-	t.Logf("%d tags on %d sheets; %d QR codes decoded", len(order), len(pages), decoded)
+	return decoded
 }
 
 // pdfWord is a word on a PDF page as pdftotext -bbox (poppler-utils)
