@@ -64,7 +64,7 @@ func scaleBar(v *pageView) scaleBarSpec {
 	l := metres * 1000 / v.scale
 	x, y := v.area[0]+5, v.area[1]+8
 	return scaleBarSpec{x: x, y: y, lenMM: l, metres: metres, scale: v.scale, steps: 5,
-		box:     [4]float64{x - 2, y - 5, x + math.Max(l, 60) + 4, y + 6},
+		box:     [4]float64{x - 2, y - 5, x + math.Max(l, 60) + 4, y + 16}, // with the axes and north above the bar
 		caption: fmt.Sprintf("0 - %g m   scale 1:%g on A3", metres, v.scale)}
 }
 
@@ -84,12 +84,16 @@ func drawScaleBar(pdf *fpdf.Fpdf, sb scaleBarSpec) {
 	pdf.SetFont("Helvetica", "", 6.5)
 	pdf.SetTextColor(0, 0, 0)
 	pdf.Text(x, y+3.2, pdfText(sb.caption))
-	// The axes, so the plan reads the same way as the net.
+	// The axes, so the plan reads the same way as the net; +y is grid
+	// north, the hubs' azimuth 0.
 	ax, ay := x, y-4
 	pdf.Line(ax, ay, ax+8, ay)
 	pdf.Line(ax, ay, ax, ay-8)
+	pdf.Line(ax, ay-8, ax-1, ay-6)
+	pdf.Line(ax, ay-8, ax+1, ay-6)
 	pdf.Text(ax+8.8, ay+0.8, "x")
 	pdf.Text(ax-0.8, ay-9, "y")
+	pdf.Text(ax+2.5, ay-6, "grid north: azimuth 0 on every hub")
 }
 
 // drawSideColumn writes the right-hand column: title, bay, scale and page,
