@@ -42,6 +42,14 @@ const HubFrameNote = "Hub angles: z = node axis; azimuth 0 = grid north (+y of t
 	"below (-) the hub plane. Axis tilt: the axis's angle from vertical and the plan direction it leans " +
 	"toward, counter-clockwise from grid north."
 
+// azimuthZeroText names a hub's azimuth 0 for the schedule.
+func azimuthZeroText(zero string) string {
+	if zero == nodes.ZeroUp {
+		return "up (+z) on the hub plane"
+	}
+	return "grid north (+y) on the hub plane"
+}
+
 // AxisTiltText says how a node's axis leans, for a tag.
 func AxisTiltText(n NodeRow) string {
 	s := fmt.Sprintf("axis tilt %.1f°", r(n.AxisTiltDeg, 1))
