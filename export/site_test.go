@@ -417,3 +417,42 @@ func benchSite(b *testing.B, write func(io.Writer, *Report) error) {
 func BenchmarkTagsPDF1600(b *testing.B) { benchSite(b, WriteTagsPDF) }
 func BenchmarkPlanPDF1600(b *testing.B) { benchSite(b, WritePlanPDF) }
 func BenchmarkView1600(b *testing.B)    { benchSite(b, WriteView) }
+
+// TestTagContinues: a node with more arms than a tag holds goes on on a
+// second tag: both carry the label with "(k/n)", the second repeats the
+// table's header, and every arm is on one of them, in order.
+func TestTagContinues(t *testing.T) {
+	n := NodeRow{Label: "C3-07", Type: "NT-001", Pos: [3]float64{0, 0, 3000}, AxisTiltDeg: 2, AxisTiltTowardDeg: 45}
+	for k := range 14 {
+		n.Arms = append(n.Arms, ArmRow{Member: fmt.Sprintf("C3-M%02d", k+1), AzimuthDeg: float64(25 * k)})
+	}
+	pdf := newPDF("P", "A4", "t", "t")
+	for _, lay := range []TagLayout{TagOffice, TagOutdoor} {
+		parts := splitTag(pdf, nodeTag(n), lay)
+		if len(parts) != 2 || parts[0].label != "C3-07 (1/2)" || parts[1].label != "C3-07 (2/2)" {
+			t.Fatalf("%s: %d tags %v, want C3-07 (1/2) and (2/2)", lay.Name, len(parts), parts)
+		}
+		g := geomOf(lay)
+		var arms []string
+		for i, p := range parts {
+			if len(p.rows) > g.rows {
+				t.Errorf("%s: tag %d has %d rows, room for %d", lay.Name, i+1, len(p.rows), g.rows)
+			}
+			for j, rw := range p.rows {
+				if rw.cells == nil {
+					continue
+				}
+				if rw.bold {
+					if i == 1 && j != 0 {
+						t.Errorf("%s: the continued tag's header is row %d", lay.Name, j+1)
+					}
+					continue
+				}
+				arms = append(arms, rw.cells[0])
+			}
+		}
+		if len(arms) != 14 || arms[0] != "C3-M01" || arms[13] != "C3-M14" {
+			t.Errorf("%s: arms on the tags %v", lay.Name, arms)
+		}
+	}
+}
