@@ -243,11 +243,27 @@ func TestSiteTagsPDF(t *testing.T) {
 		t.Errorf("first sheet (node tags) lacks the azimuth definition: %q", tail(flat, 400))
 	}
 	// Every member's tag names the end it is fixed at: its type's end A,
-	// the same end for every member of a type.
+	// the same end for every member of a type. Read from there (ends
+	// swapped and bevels turned for a tag at end B), every member's end
+	// cuts lie within the type's largest deviation of the type's.
+	types := map[string]export.MemberTypeRow{}
+	for _, mt := range rep.MemberTypes {
+		types[mt.Name] = mt
+	}
 	for _, m := range rep.Members {
 		tagNode, other := m.NodeA, m.NodeB
+		ends := m.Ends
 		if m.TagEnd == "B" {
 			tagNode, other = other, tagNode
+			ends = [2]export.EndRow{m.Ends[1], m.Ends[0]}
+			ends[0].BevelDeg, ends[1].BevelDeg = -ends[0].BevelDeg, -ends[1].BevelDeg
+		}
+		mt := types[m.Type]
+		const rounding = 0.002 // degrees: both values are rounded to 0.001°
+		for k := range 2 {
+			if d := max(math.Abs(ends[k].MitreDeg-mt.Ends[k].MitreDeg), math.Abs(ends[k].BevelDeg-mt.Ends[k].BevelDeg)); d > mt.MaxDevDeg+rounding {
+				t.Errorf("member %s read from its tag end: end %d differs from type %s by %.3f°, more than its %.3f°", m.Label, k+1, mt.Name, d, mt.MaxDevDeg)
+			}
 		}
 		mpage := strings.Join(strings.Fields(pages[slices.Index(order, m.Label)/perSheet]), " ")
 		if !strings.Contains(mpage, "TAG END (type end A) to node "+tagNode) || !strings.Contains(mpage, "other end (type end B) to node "+other) {
