@@ -10,6 +10,8 @@ import (
 
 	"github.com/yofu/dxf/color"
 	"github.com/yofu/dxf/table"
+
+	"pqfab/geom"
 )
 
 // Layers of the assembly plan beyond the shared ones in dxf.go.
@@ -266,7 +268,7 @@ func newAssemblyLayout(m *siteModel, ps planScale) *assemblyLayout {
 	}
 	for i := 0; i < cols; i++ {
 		x := x0 + (float64(i)+0.5)*g.SizeMM[0]
-		name := columnName(i)
+		name := geom.ColumnLetters(i)
 		pl.bubbles = append(pl.bubbles, bubble{x, by0, name}, bubble{x, by1, name})
 	}
 	for j := 0; j < rows; j++ {
@@ -354,15 +356,6 @@ func newAssemblyLayout(m *siteModel, ps planScale) *assemblyLayout {
 			at: pp.place([2]float64{cx, cy}, w, h, func(s float64) []obox { return panelCandidates(cx, cy, size, w, h, s) })})
 	}
 	return pl
-}
-
-// columnName is a bay column's letters.
-func columnName(i int) string {
-	s := ""
-	for i++; i > 0; i = (i - 1) / 26 {
-		s = string(rune('A'+(i-1)%26)) + s
-	}
-	return s
 }
 
 // sortedBy returns 0 … n-1 ordered by key.

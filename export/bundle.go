@@ -47,12 +47,19 @@ type Bundle struct {
 	BarPlan           *bars.Plan // nil without bar stock
 	MemberMaterial    string
 	MemberDensityKgM3 float64
+	// MemberSection is the section's kind (solid, hollow or mass) and
+	// MemberKgPerM the members' mass per metre, which every member weight
+	// comes from.
+	MemberSection string
+	MemberKgPerM  float64
 
 	PanelMaterial panels.Material
 	PanelSpec     PanelSpec            // for every panel type
 	TypeSpecs     map[string]PanelSpec // overrides for named panel types
 
 	Cost *Cost // nil when the job gives no rates
+
+	TagSize string // site/tags.pdf: a name in TagSizes ("" for office)
 }
 
 // PanelSpec is a panel's plain-text specification, as the job gives it.

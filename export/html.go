@@ -233,7 +233,7 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 <tr><th>Largest / RMS node move (mm)</th><td class="num">{{.R.Planarity.MaxMoveMM}} / {{.R.Planarity.RMSMoveMM}}</td></tr>
 <tr><th>Largest member twist (°)</th><td class="num">{{.R.Planarity.MaxTwistDeg}} (normal axes: {{.R.Planarity.MaxTwistNormalDeg}})</td></tr>
 <tr><th>Weight: panels / members / total (kg)</th><td class="num">{{.R.Weights.PanelsKg}} / {{.R.Weights.MembersKg}} / {{.R.Weights.TotalKg}}</td></tr>
-<tr><th>Member material</th><td>{{.R.MemberMaterial.Name}}, {{.R.MemberMaterial.DensityKgM3}} kg/m³</td></tr>
+<tr><th>Member material</th><td>{{.R.MemberMaterial.Name}}, {{.R.MemberMaterial.Section}} section, {{.R.MemberMaterial.KgPerM}} kg/m ({{.R.MemberMaterial.DensityKgM3}} kg/m³)</td></tr>
 {{with .R.PanelSpec}}{{if .BuildUp}}<tr><th>Panel build-up</th><td>{{.BuildUp}}</td></tr>{{end}}{{if .EdgeWork}}<tr><th>Edge work</th><td>{{.EdgeWork}}</td></tr>{{end}}{{if .Coating}}<tr><th>Coating</th><td>{{.Coating}}</td></tr>{{end}}{{if .HeatTreatment}}<tr><th>Heat treatment</th><td>{{.HeatTreatment}}</td></tr>{{end}}{{if .Grade}}<tr><th>Grade</th><td>{{.Grade}}</td></tr>{{end}}{{end}}
 </table>
 {{with .R.Warnings}}<h2>Warnings</h2><ul>{{range .}}<li>{{.}}</li>{{end}}</ul>{{end}}

@@ -103,17 +103,6 @@ func fitText(pdf *fpdf.Fpdf, s string, w float64) string {
 	return s + ellipsis
 }
 
-// fontSizeToFit returns the font size (pt), at most size, at which s is
-// at most w mm wide in the given family and style.
-func fontSizeToFit(pdf *fpdf.Fpdf, family, style string, size float64, s string, w float64) float64 {
-	pdf.SetFont(family, style, size)
-	if sw := pdf.GetStringWidth(s); sw > w && sw > 0 {
-		size *= w / sw
-		pdf.SetFont(family, style, size)
-	}
-	return size
-}
-
 // splitLines breaks translated text into lines at most w mm wide in the
 // current font, at spaces (a longer word stands alone). fpdf's SplitText
 // reads its input as UTF-8, so it cannot take code page 1252 bytes.

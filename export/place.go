@@ -207,14 +207,21 @@ type placer struct {
 	// overflow: the column right of everything, where a label that found
 	// no room goes (with a leader); it grows downwards from the top.
 	overflowX, overflowY float64
+	// scales are the sizes tried before a label moves away on a leader;
+	// labelScales when nil.
+	scales []float64
 }
 
-// place tries cands at each of labelScales, then rings of positions
+// place tries cands at each of its scales, then rings of positions
 // around anchor (full size, with a leader), then the overflow column. The
 // chosen box is added to the index. w and h are the full-size box
 // (width along the label, height across), for the leader positions.
 func (p *placer) place(anchor [2]float64, w, h float64, cands func(scale float64) []obox) placement {
-	for _, s := range labelScales {
+	scales := p.scales
+	if scales == nil {
+		scales = labelScales[:]
+	}
+	for _, s := range scales {
 		for _, c := range cands(s) {
 			if p.ix.free(c) {
 				p.ix.add(c)

@@ -6,6 +6,8 @@ import (
 	"strings"
 
 	"github.com/go-pdf/fpdf"
+
+	"pqfab/geom"
 )
 
 // The furniture of a plan page around the drawing: bubbles, scale bar,
@@ -22,7 +24,7 @@ func pageBubbles(v *pageView, g BayGrid) []bubble {
 			break
 		}
 		if c >= 0 && x > a[0]+12 {
-			out = append(out, bubble{x, a[3] - 6, columnName(c)})
+			out = append(out, bubble{x, a[3] - 6, geom.ColumnLetters(c)})
 		}
 	}
 	for r := int(math.Floor((v.wy0 - g.OriginMM[1]) / g.SizeMM[1])); ; r++ {
@@ -62,7 +64,7 @@ func scaleBar(v *pageView) scaleBarSpec {
 	l := metres * 1000 / v.scale
 	x, y := v.area[0]+5, v.area[1]+8
 	return scaleBarSpec{x: x, y: y, lenMM: l, metres: metres, scale: v.scale, steps: 5,
-		box:     [4]float64{x - 2, y - 5, x + math.Max(l, 60) + 4, y + 6},
+		box:     [4]float64{x - 2, y - 5, x + math.Max(l, 60) + 4, y + 16}, // with the axes and north above the bar
 		caption: fmt.Sprintf("0 - %g m   scale 1:%g on A3", metres, v.scale)}
 }
 
@@ -82,12 +84,16 @@ func drawScaleBar(pdf *fpdf.Fpdf, sb scaleBarSpec) {
 	pdf.SetFont("Helvetica", "", 6.5)
 	pdf.SetTextColor(0, 0, 0)
 	pdf.Text(x, y+3.2, pdfText(sb.caption))
-	// The axes, so the plan reads the same way as the net.
+	// The axes, so the plan reads the same way as the net; +y is grid
+	// north, the hubs' azimuth 0.
 	ax, ay := x, y-4
 	pdf.Line(ax, ay, ax+8, ay)
 	pdf.Line(ax, ay, ax, ay-8)
+	pdf.Line(ax, ay-8, ax-1, ay-6)
+	pdf.Line(ax, ay-8, ax+1, ay-6)
 	pdf.Text(ax+8.8, ay+0.8, "x")
 	pdf.Text(ax-0.8, ay-9, "y")
+	pdf.Text(ax+2.5, ay-6, "grid north: azimuth 0 on every hub")
 }
 
 // drawSideColumn writes the right-hand column: title, bay, scale and page,
@@ -122,7 +128,7 @@ func drawSideColumn(pdf *fpdf.Fpdf, m *siteModel, k int, b *siteBay, v *pageView
 	pdf.Text(in+48, y+7.2, pdfText(fmt.Sprintf("scale 1:%g on A3 landscape, mm", v.scale)))
 	y += 10
 	pdf.Text(in, y+3.2, pdfText(fmt.Sprintf("page %d of %d    bay %g x %g mm    %d nodes, %d members, %d panels",
-		k+1, len(m.bays), m.grid.SizeMM[0], m.grid.SizeMM[1], len(b.nodes), len(b.members), len(b.panels))))
+		bayPage(k), planIndexPages+len(m.bays), m.grid.SizeMM[0], m.grid.SizeMM[1], len(b.nodes), len(b.members), len(b.panels))))
 	y += 6
 
 	// Key plan.
@@ -203,7 +209,7 @@ func drawKeyPlan(pdf *fpdf.Fpdf, m *siteModel, b *siteBay, x, y, w, h float64) {
 	if size >= 3.5 {
 		pdf.SetFont("Helvetica", "", size)
 		for c := 0; c < cols; c++ {
-			s := columnName(c)
+			s := geom.ColumnLetters(c)
 			pdf.Text(ox+(float64(c)+0.5)*cell-pdf.GetStringWidth(s)/2, top+lab-1, s)
 		}
 		for r := 0; r < rows; r++ {

@@ -45,14 +45,19 @@ type Report struct {
 	Weights        Weights        `json:"weights_kg"`
 	Cost           *Cost          `json:"cost,omitempty"`
 	Bays           BayGrid        `json:"bays"`
+	// TagSize is the size of the tags in site/tags.pdf (a name in
+	// TagSizes).
+	TagSize string `json:"tag_size"`
 
 	panelOf map[string]*PanelRow // panel rows by label, into Panels
 }
 
-// Section is the members' cross-section (mm).
+// Section is the members' cross-section (mm): WallMM is the wall of a
+// rectangular hollow section, 0 for a solid one.
 type Section struct {
 	WidthMM float64 `json:"width"`
 	DepthMM float64 `json:"depth"`
+	WallMM  float64 `json:"wall"`
 }
 
 // Counts are the headline numbers.
@@ -96,7 +101,15 @@ type NodeRow struct {
 	Support       bool       `json:"support"`
 	MoveMM        float64    `json:"move_mm"`
 	Move          [3]float64 `json:"move_vector_mm"`
-	Arms          []ArmRow   `json:"arms"`
+	// Hub: azimuth 0 ("north": grid north, +y of the plan, projected on
+	// the hub plane; "up" where the axis lies along the north-south
+	// line), the arms going round the hub from it, and the axis tilt: its
+	// angle from vertical and the plan direction it leans toward
+	// (counter-clockwise from grid north, seen from above).
+	AzimuthZero       string   `json:"azimuth_zero"`
+	Arms              []ArmRow `json:"arms"`
+	AxisTiltDeg       float64  `json:"axis_tilt_deg"`
+	AxisTiltTowardDeg float64  `json:"axis_tilt_toward_deg"`
 }
 
 // ArmRow is one member at a node's hub.
@@ -120,6 +133,10 @@ type MemberRow struct {
 	FoldDeg float64   `json:"fold_deg"`
 	Type    string    `json:"type"`
 	Ends    [2]EndRow `json:"ends"`
+	// TagEnd is the member's own end, "A" or "B", that is its type's end
+	// A: the end that carries the member's tag. Read from there, every
+	// member of a type agrees with the type's values.
+	TagEnd string `json:"tag_end"`
 	// BlankMM is the length of bar the member is cut from: the cut length
 	// plus an allowance for each end cut. Bar names the bar of the cutting
 	// plan ("" without bar stock).
@@ -181,10 +198,14 @@ type PanelMaterial struct {
 	EdgeInsetMM float64 `json:"edge_inset_mm"`
 }
 
-// MemberMaterial is the members' material and density.
+// MemberMaterial is the members' material, density, section kind (solid,
+// hollow or mass: a mass per metre given) and mass per metre, which every
+// member weight comes from.
 type MemberMaterial struct {
 	Name        string  `json:"name"`
 	DensityKgM3 float64 `json:"density_kg_m3"`
+	Section     string  `json:"section"`
+	KgPerM      float64 `json:"mass_kg_m"`
 }
 
 // Weights are the totals an estimator carries: panels (glass or board)

@@ -18,9 +18,9 @@ func BuildReport(b *Bundle) *Report {
 	rep := &Report{Title: b.Title, Caution: Caution, Job: b.JobFile, Net: b.NetFile,
 		Units:    map[string]string{"length": "mm", "angle": "degree", "area": "m2", "weight": "kg"},
 		Settings: b.Settings, Warnings: append([]string{}, b.Warnings...),
-		Sheets: []SheetRow{}, Unplaced: []UnplacedRow{}, Stocks: []StockRow{}}
+		Sheets: []SheetRow{}, Unplaced: []UnplacedRow{}, Stocks: []StockRow{}, TagSize: b.TagSize}
 	nodeLabel := func(i int) string { return s.Nodes[i].Label }
-	rep.Section = Section{WidthMM: s.Section.WidthMM, DepthMM: s.Section.DepthMM}
+	rep.Section = Section{WidthMM: s.Section.WidthMM, DepthMM: s.Section.DepthMM, WallMM: s.Section.WallMM}
 	rep.Counts = Counts{Nodes: len(n.Nodes), Members: len(s.Members), Panels: len(n.Faces),
 		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), PanelTypes: len(b.PanelTypes),
 		MemberTypesBound: boundRow(s.MemberTypeBound), NodeTypesBound: boundRow(s.NodeTypeBound), PanelTypesBound: boundRow(b.PanelTypeBound)}
@@ -33,7 +33,8 @@ func BuildReport(b *Bundle) *Report {
 	for i, nd := range s.Nodes {
 		row := NodeRow{Label: nd.Label, ID: n.Nodes[i].ID, Pos: vec(n.Nodes[i].Pos, lenDigits), Axis: vec(nd.Axis, 6),
 			MembersAtNode: nd.Valence, Type: s.NodeTypes[nd.Type].Name, Support: b.Supports[i],
-			MoveMM: r(r3.Norm(pl.Moves[i]), lenDigits), Move: vec(pl.Moves[i], lenDigits)}
+			MoveMM: r(r3.Norm(pl.Moves[i]), lenDigits), Move: vec(pl.Moves[i], lenDigits),
+			AzimuthZero: nd.Zero, AxisTiltDeg: r(nd.TiltDeg, angleDigits), AxisTiltTowardDeg: r(nd.TiltTowardDeg, angleDigits)}
 		if len(nd.Arms) > 0 {
 			row.Arms = make([]ArmRow, 0, len(nd.Arms))
 		}
@@ -43,8 +44,14 @@ func BuildReport(b *Bundle) *Report {
 		rep.Nodes = append(rep.Nodes, row)
 	}
 	barOf := rep.buildBars(b)
-	area := s.Section.WidthMM * s.Section.DepthMM / 1e6 // m²
+	kgm := b.MemberKgPerM
 	rep.Members = make([]MemberRow, 0, len(s.Members))
+	fromB := make([]bool, len(s.Members))
+	for _, t := range s.MemberTypes {
+		for k, i := range t.Parts {
+			fromB[i] = t.Reversed[k]
+		}
+	}
 	for k, m := range s.Members {
 		end := func(e nodes.End) EndRow {
 			return EndRow{Node: nodeLabel(e.Node), ElevationDeg: r(e.ElevationDeg, angleDigits), SetbackMM: r(e.SetbackMM, lenDigits), MitreDeg: r(e.MitreDeg, angleDigits), BevelDeg: r(e.BevelDeg, angleDigits)}
@@ -52,11 +59,11 @@ func BuildReport(b *Bundle) *Report {
 		rep.Members = append(rep.Members, MemberRow{Label: m.Label, NodeA: nodeLabel(m.A.Node), NodeB: nodeLabel(m.B.Node),
 			LengthMM: r(m.LengthMM, lenDigits), CutLengthMM: r(m.CutLengthMM, lenDigits), TwistDeg: r(m.TwistDeg, angleDigits),
 			FoldDeg: r(memberFold(m), angleDigits), Type: s.MemberTypes[m.Type].Name,
-			Ends: [2]EndRow{end(m.A), end(m.B)}, FrameY: vec(m.Frame.Y, 6), FrameZ: vec(m.Frame.Z, 6),
-			BlankMM: r(blankOf(b, k), lenDigits), Bar: barOf[k], WeightKg: r(area*m.CutLengthMM/1000*b.MemberDensityKgM3, weightDigits)})
-		rep.Weights.MembersKg += area * m.CutLengthMM / 1000 * b.MemberDensityKgM3
+			Ends: [2]EndRow{end(m.A), end(m.B)}, TagEnd: map[bool]string{false: "A", true: "B"}[fromB[k]], FrameY: vec(m.Frame.Y, 6), FrameZ: vec(m.Frame.Z, 6),
+			BlankMM: r(blankOf(b, k), lenDigits), Bar: barOf[k], WeightKg: r(kgm*m.CutLengthMM/1000, weightDigits)})
+		rep.Weights.MembersKg += kgm * m.CutLengthMM / 1000
 	}
-	rep.MemberMaterial = MemberMaterial{Name: b.MemberMaterial, DensityKgM3: b.MemberDensityKgM3}
+	rep.MemberMaterial = MemberMaterial{Name: b.MemberMaterial, DensityKgM3: b.MemberDensityKgM3, Section: b.MemberSection, KgPerM: r(kgm, 3)}
 	rep.PanelSpec = b.PanelSpec
 	rep.PanelMaterial = PanelMaterial{Name: b.PanelMaterial.Name, ThicknessMM: b.PanelMaterial.ThicknessMM,
 		DensityKgM3: b.PanelMaterial.DensityKgM3, EdgeInsetMM: b.PanelMaterial.EdgeInsetMM}

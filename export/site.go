@@ -9,6 +9,7 @@ import (
 	"strings"
 
 	"pqfab/geom"
+	"pqfab/nodes"
 )
 
 // Output files for the site team.
@@ -33,10 +34,33 @@ const (
 )
 
 // HubFrameNote defines the hub angles for the people who read them; it is
-// on every node tag and in the legends of the plans.
-const HubFrameNote = "Hub angles: z = node axis; azimuth 0 = the first member listed (label order), " +
-	"projected on the plane normal to the axis; azimuth counter-clockwise seen from above the hub " +
-	"along the axis, 0 to 360°; elevation above (+) or below (-) the hub plane."
+// in the legends of the plans (HubFrameShort is on every node tag).
+const HubFrameNote = "Hub angles: z = node axis; azimuth 0 = grid north (+y of the plan) projected on the hub plane " +
+	"(the plane normal to the axis), found with the plan before any member is in and marked on the hub " +
+	"(up, +z, instead where the axis lies within 5° of the north-south line); azimuth counter-clockwise seen " +
+	"from above the hub along the axis, 0 to 360°, arms listed going round the hub; elevation above (+) or " +
+	"below (-) the hub plane. Axis tilt: the axis's angle from vertical and the plan direction it leans " +
+	"toward, counter-clockwise from grid north."
+
+// azimuthZeroText names a hub's azimuth 0 for the schedule.
+func azimuthZeroText(zero string) string {
+	if zero == nodes.ZeroUp {
+		return "up (+z) on the hub plane"
+	}
+	return "grid north (+y) on the hub plane"
+}
+
+// AxisTiltText says how a node's axis leans, for a tag.
+func AxisTiltText(n NodeRow) string {
+	s := fmt.Sprintf("axis tilt %.1f°", r(n.AxisTiltDeg, 1))
+	if r(n.AxisTiltDeg, 1) > 0 {
+		s += fmt.Sprintf(" toward %.0f° ccw from north", math.Mod(r(n.AxisTiltTowardDeg, 0), 360))
+	}
+	if n.AzimuthZero == nodes.ZeroUp {
+		s += "; az 0 = up (+z) on the hub plane"
+	}
+	return s
+}
 
 // NumberingNote says how parts are numbered inside a bay (geom.Bays.Label).
 const NumberingNote = "Numbering in a bay: row by row from the bay's lower-left corner, by x along a row. " +
@@ -52,24 +76,6 @@ type BayGrid struct {
 func bayGridOf(b geom.Bays) BayGrid {
 	return BayGrid{OriginMM: [2]float64{r(b.Origin.X, lenDigits), r(b.Origin.Y, lenDigits)},
 		SizeMM: [2]float64{r(b.SizeX, lenDigits), r(b.SizeY, lenDigits)}}
-}
-
-// parseBay reads the bay of a part label ("C3-M12" → column 2, row 2).
-func parseBay(label string) (col, row int, ok bool) {
-	name, _, found := strings.Cut(label, "-")
-	if !found || name == "" {
-		return 0, 0, false
-	}
-	i := 0
-	for i < len(name) && name[i] >= 'A' && name[i] <= 'Z' {
-		col = col*26 + int(name[i]-'A') + 1
-		i++
-	}
-	n, err := strconv.Atoi(name[i:])
-	if i == 0 || err != nil || n < 1 {
-		return 0, 0, false
-	}
-	return col - 1, n - 1, true
 }
 
 // siteBay is one bay that holds parts, with the parts' indices in the
@@ -113,7 +119,7 @@ func newSiteModel(rep *Report) (*siteModel, error) {
 		m.lo, m.hi = g.OriginMM, g.OriginMM
 	}
 	bay := func(label string) (*siteBay, error) {
-		c, rw, ok := parseBay(label)
+		c, rw, ok := geom.ParseBay(label)
 		if !ok {
 			return nil, fmt.Errorf("label %q names no bay", label)
 		}

@@ -83,6 +83,9 @@ func gridReport(t testing.TB, nx, ny int, sp, bay float64) *Report {
 		arms[e.a] = append(arms[e.a], ArmRow{Member: ml[k], AzimuthDeg: float64(90 * len(arms[e.a]))})
 		arms[e.b] = append(arms[e.b], ArmRow{Member: ml[k], AzimuthDeg: float64(90 * len(arms[e.b]))})
 	}
+	for k := range 7 {
+		rep.MemberTypes = append(rep.MemberTypes, MemberTypeRow{Name: fmt.Sprintf("MT-%03d", k+1), CutLengthMM: sp - 80})
+	}
 	for i, p := range pts {
 		rep.Nodes = append(rep.Nodes, NodeRow{Label: nl[i], ID: fmt.Sprint(i + 1), Pos: [3]float64{p.X, p.Y, p.Z},
 			Type: fmt.Sprintf("NT-%03d", i%5+1), MembersAtNode: len(arms[i]), Arms: arms[i], MoveMM: float64(i%9) / 3})
@@ -146,26 +149,6 @@ func TestPDFText(t *testing.T) {
 	for _, tc := range tests {
 		if got := pdfText(tc.in); got != tc.want {
 			t.Errorf("pdfText(%q) = %q, want %q", tc.in, got, tc.want)
-		}
-	}
-}
-
-func TestParseBay(t *testing.T) {
-	tests := []struct {
-		label    string
-		col, row int
-		ok       bool
-	}{
-		{"A1-01", 0, 0, true}, {"C3-M12", 2, 2, true}, {"AA10-P05", 26, 9, true}, {"ZZ1-01", 701, 0, true},
-		{"3C-01", 0, 0, false}, {"C-01", 0, 0, false}, {"C0-01", 0, 0, false}, {"C3", 0, 0, false},
-	}
-	for _, tc := range tests {
-		c, r, ok := parseBay(tc.label)
-		if ok != tc.ok || (ok && (c != tc.col || r != tc.row)) {
-			t.Errorf("parseBay(%q) = %d, %d, %v; want %d, %d, %v", tc.label, c, r, ok, tc.col, tc.row, tc.ok)
-		}
-		if ok && columnName(c) != geom.ColumnLetters(c) {
-			t.Errorf("columnName(%d) = %s, geom says %s", c, columnName(c), geom.ColumnLetters(c))
 		}
 	}
 }
@@ -285,8 +268,8 @@ func TestSitePDFsDeterministic(t *testing.T) {
 		write func(*bytes.Buffer) error
 		pages int
 	}{
-		{"plan", func(b *bytes.Buffer) error { return WritePlanPDF(b, rep) }, 6},
-		{"tags", func(b *bytes.Buffer) error { return WriteTagsPDF(b, rep) }, (len(rep.Nodes) + len(rep.Members) + len(rep.Panels) + 23) / 24},
+		{"plan", func(b *bytes.Buffer) error { return WritePlanPDF(b, rep) }, 7}, // the index and 6 bays
+		{"tags", func(b *bytes.Buffer) error { return WriteTagsPDF(b, rep) }, (len(rep.Nodes) + len(rep.Members) + len(rep.Panels) + 7) / 8},
 		{"view", func(b *bytes.Buffer) error { return WriteView(b, rep) }, 0},
 	} {
 		var a, b bytes.Buffer
@@ -434,3 +417,42 @@ func benchSite(b *testing.B, write func(io.Writer, *Report) error) {
 func BenchmarkTagsPDF1600(b *testing.B) { benchSite(b, WriteTagsPDF) }
 func BenchmarkPlanPDF1600(b *testing.B) { benchSite(b, WritePlanPDF) }
 func BenchmarkView1600(b *testing.B)    { benchSite(b, WriteView) }
+
+// TestTagContinues: a node with more arms than a tag holds goes on on a
+// second tag: both carry the label with "(k/n)", the second repeats the
+// table's header, and every arm is on one of them, in order.
+func TestTagContinues(t *testing.T) {
+	n := NodeRow{Label: "C3-07", Type: "NT-001", Pos: [3]float64{0, 0, 3000}, AxisTiltDeg: 2, AxisTiltTowardDeg: 45}
+	for k := range 14 {
+		n.Arms = append(n.Arms, ArmRow{Member: fmt.Sprintf("C3-M%02d", k+1), AzimuthDeg: float64(25 * k)})
+	}
+	pdf := newPDF("P", "A4", "t", "t")
+	for _, lay := range []TagLayout{TagOffice, TagOutdoor} {
+		parts := splitTag(pdf, nodeTag(n), lay)
+		if len(parts) != 2 || parts[0].label != "C3-07 (1/2)" || parts[1].label != "C3-07 (2/2)" {
+			t.Fatalf("%s: %d tags %v, want C3-07 (1/2) and (2/2)", lay.Name, len(parts), parts)
+		}
+		g := geomOf(lay)
+		var arms []string
+		for i, p := range parts {
+			if len(p.rows) > g.rows {
+				t.Errorf("%s: tag %d has %d rows, room for %d", lay.Name, i+1, len(p.rows), g.rows)
+			}
+			for j, rw := range p.rows {
+				if rw.cells == nil {
+					continue
+				}
+				if rw.bold {
+					if i == 1 && j != 0 {
+						t.Errorf("%s: the continued tag's header is row %d", lay.Name, j+1)
+					}
+					continue
+				}
+				arms = append(arms, rw.cells[0])
+			}
+		}
+		if len(arms) != 14 || arms[0] != "C3-M01" || arms[13] != "C3-M14" {
+			t.Errorf("%s: arms on the tags %v", lay.Name, arms)
+		}
+	}
+}

@@ -25,21 +25,27 @@ const (
 // coarser ones are for bays too large for them.
 var PlanScales = []float64{50, 100, 200, 500, 1000, 2000, 5000, 10000}
 
-// Text sizes on the plan pages (pt).
+// Text sizes on the plan pages (pt). Labels are at least 2.5 mm high
+// (capital height, the nominal size of lettering in ISO 3098-1) at
+// print size, the smallest lettering read on drawings by hand (from
+// memory): minPlanPt.
 const (
-	planNodePt   = 8.0
-	planInfoPt   = 5.5
-	planMemberPt = 5.5
-	planPanelPt  = 7.0
-	planBubblePt = 9.0
+	minPlanPt    = 2.5 / capHeight / ptMM // 9.87 pt
+	planNodePt   = 1.1 * minPlanPt
+	planInfoPt   = minPlanPt
+	planMemberPt = minPlanPt
+	planPanelPt  = minPlanPt
+	planBubblePt = 1.1 * minPlanPt
 )
 
 // drawing area of a plan page, in page mm (y down).
 var planDraw = struct{ x0, y0, x1, y1 float64 }{planMarginMM, planMarginMM,
 	planPageW - planMarginMM - planSideW - planGapMM, planPageH - planMarginMM}
 
-// WritePlanPDF writes site/plan.pdf: a page per bay that holds parts (in
-// bay order A1, A2, …, B1, …), A3 landscape, at the largest of PlanScales
+// WritePlanPDF writes site/plan.pdf: an index page (the bay grid with
+// each bay's page, and the list of bays and pages, each a link to its
+// page), then a page per bay that holds parts (in bay order A1, A2, …,
+// B1, …, each with a bookmark), A3 landscape, at the largest of PlanScales
 // that fits, stated on the page. Each page shows the bay grid with its
 // letters and numbers, the members around the bay in grey and the bay's
 // own members black, the bay's node labels with node type and height,
@@ -62,8 +68,16 @@ func WritePlanPDF(w io.Writer, rep *Report) error {
 		return writePDF(w, pdf)
 	}
 	members := m.membersByBay()
+	links := make([]int, len(m.bays))
+	for k := range links {
+		links[k] = pdf.AddLink()
+	}
+	pdf.AddPage()
+	drawPlanIndex(pdf, m, links)
 	for k, b := range m.bays {
 		pdf.AddPage()
+		pdf.SetLink(links[k], 0, -1)
+		pdf.Bookmark(pdfText(fmt.Sprintf("Bay %s (page %d)", b.name, bayPage(k))), 0, 0)
 		drawBayPage(pdf, m, members, k, b)
 	}
 	return writePDF(w, pdf)
@@ -211,7 +225,9 @@ func drawBayPage(pdf *fpdf.Fpdf, m *siteModel, members map[[2]int][]int, k int, 
 		q := v.up(p[0], p[1])
 		ix.add(axisBox(q[0], q[1], 2*dot, 2*dot))
 	}
-	pp := &placer{ix: ix, ring: 3, rings: 8, overflowX: a[2] + 100, overflowY: a[3]}
+	// Labels are never shrunk below their size on paper (minPlanPt): one
+	// without room moves away on a leader.
+	pp := &placer{ix: ix, ring: 3, rings: 8, overflowX: a[2] + 100, overflowY: a[3], scales: []float64{1}}
 	var labels []*pdfLabel
 	width := func(s, style string, size float64) float64 {
 		pdf.SetFont("Helvetica", style, size)

@@ -17,12 +17,11 @@ func boundRow(b geom.TypeBound) TypeBoundRow {
 // deviation, totals and parts.
 func (rep *Report) buildTypes(b *Bundle) {
 	s := b.Structure
-	area := s.Section.WidthMM * s.Section.DepthMM / 1e6 // m²
 	rep.MemberTypes = make([]MemberTypeRow, 0, len(s.MemberTypes))
 	for _, t := range s.MemberTypes {
 		row := MemberTypeRow{Name: t.Name, Count: len(t.Parts), CutLengthMM: r(t.CutLengthMM, lenDigits),
 			TwistDeg: r(t.TwistDeg, angleDigits), MaxDevMM: r(t.MaxDevMM, lenDigits), MaxDevDeg: r(t.MaxDevDeg, angleDigits),
-			TotalM: r(t.TotalCutLengthMM/1000, 3), WeightKg: r(area*t.TotalCutLengthMM/1000*b.MemberDensityKgM3, weightDigits),
+			TotalM: r(t.TotalCutLengthMM/1000, 3), WeightKg: r(b.MemberKgPerM*t.TotalCutLengthMM/1000, weightDigits),
 			ReadFromB: []string{}}
 		blank := t.CutLengthMM
 		for k, e := range []struct{ MitreDeg, BevelDeg float64 }{{t.A.MitreDeg, t.A.BevelDeg}, {t.B.MitreDeg, t.B.BevelDeg}} {
@@ -31,6 +30,12 @@ func (rep *Report) buildTypes(b *Bundle) {
 			blank += bars.EndAllowanceMM(s.Section.WidthMM, s.Section.DepthMM, e.MitreDeg, e.BevelDeg)
 		}
 		row.BlankMM = r(blank, lenDigits)
+		row.SetOutMM = r(t.CutLengthMM+nodes.SetbackMM(b.HubRadiusMM, t.A.MitreDeg, t.A.BevelDeg)+nodes.SetbackMM(b.HubRadiusMM, t.B.MitreDeg, t.B.BevelDeg), lenDigits)
+		face := func(y, z float64) float64 {
+			return r(faceLength(t.CutLengthMM, t.A.MitreDeg, t.A.BevelDeg, t.B.MitreDeg, t.B.BevelDeg, y, z), lenDigits)
+		}
+		w, d := s.Section.WidthMM/2, s.Section.DepthMM/2
+		row.Faces = FaceLengthsRow{Top: face(0, d), Bottom: face(0, -d), SidePos: face(w, 0), SideNeg: face(-w, 0)}
 		for k, i := range t.Parts {
 			row.Parts = append(row.Parts, s.Members[i].Label)
 			if t.Reversed[k] {
@@ -89,6 +94,15 @@ func (rep *Report) buildTypes(b *Bundle) {
 		}
 		rep.PanelTypes = append(rep.PanelTypes, row)
 	}
+}
+
+// faceLength is the length of a member's long line through section
+// point (y, z) between its end cuts: the cut length on the axis, with
+// each end cut's offset along the member at that point (endOffset).
+func faceLength(cut, mA, bA, mB, bB, y, z float64) float64 {
+	a := TypeEndRow{MitreDeg: mA, BevelDeg: bA}
+	b := TypeEndRow{MitreDeg: mB, BevelDeg: bB}
+	return cut + endOffset(b, y, z) - endOffset(a, y, z)
 }
 
 // drawingDigits: the type drawings' outlines are given to 0.001 mm, so

@@ -20,14 +20,32 @@ type MemberTypeRow struct {
 	BlankMM     float64 `json:"blank_length_mm"`
 	// Ends A and B of the nominal member: mitre, bevel and setback at the
 	// hub (the setback of a cut with these angles).
-	Ends      [2]TypeEndRow `json:"ends"`
-	TwistDeg  float64       `json:"twist_deg"`
-	MaxDevMM  float64       `json:"max_deviation_mm"`
-	MaxDevDeg float64       `json:"max_deviation_deg"`
-	TotalM    float64       `json:"total_cut_length_m"`
-	WeightKg  float64       `json:"total_weight_kg"`
-	Parts     []string      `json:"parts"`
-	ReadFromB []string      `json:"read_from_end_b"` // parts whose end B is the type's end A
+	Ends     [2]TypeEndRow `json:"ends"`
+	TwistDeg float64       `json:"twist_deg"`
+	// SetOutMM is the nominal system length, node to node: the cut length
+	// and both setbacks, the length of the drawing's set-out line.
+	SetOutMM float64 `json:"set_out_length_mm"`
+	// Faces: the lengths of the nominal member's four long faces measured
+	// on their centre lines between the end cuts: top, bottom (the
+	// section's z = ±depth/2), and the sides at y = +width/2 and
+	// y = −width/2 (y = z × x, x from end A to end B). The longer of top
+	// and bottom is the long point of the elevation, the shorter the
+	// short point.
+	Faces     FaceLengthsRow `json:"face_lengths_mm"`
+	MaxDevMM  float64        `json:"max_deviation_mm"`
+	MaxDevDeg float64        `json:"max_deviation_deg"`
+	TotalM    float64        `json:"total_cut_length_m"`
+	WeightKg  float64        `json:"total_weight_kg"`
+	Parts     []string       `json:"parts"`
+	ReadFromB []string       `json:"read_from_end_b"` // parts whose end B is the type's end A
+}
+
+// FaceLengthsRow is the length of each long face of a member type.
+type FaceLengthsRow struct {
+	Top     float64 `json:"top"`
+	Bottom  float64 `json:"bottom"`
+	SidePos float64 `json:"side_y_pos"`
+	SideNeg float64 `json:"side_y_neg"`
 }
 
 // TypeEndRow is one end of a member type.

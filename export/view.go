@@ -52,6 +52,8 @@ type viewNodes struct {
 	ArmOf    []int     `json:"arm_member"`
 	ArmAz    []float64 `json:"arm_az"`
 	ArmEl    []float64 `json:"arm_el"`
+	TiltDeg  []float64 `json:"tilt"`    // axis from vertical
+	TiltTo   []float64 `json:"tilt_to"` // plan direction of the tilt, ccw from north
 }
 
 type viewMembers struct {
@@ -60,6 +62,7 @@ type viewMembers struct {
 	B     []int     `json:"b"`
 	Type  []int     `json:"type"`
 	Cut   []float64 `json:"cut"`
+	TagB  []int     `json:"tag_b"` // members whose tag end is their end B
 }
 
 type viewPanels struct {
@@ -72,7 +75,7 @@ type viewPanels struct {
 }
 
 func newViewData(rep *Report) (*viewData, error) {
-	d := &viewData{Title: rep.Title, Caution: Caution, Warnings: warningLines(rep.Warnings), Hub: HubFrameNote, Numbering: NumberingNote}
+	d := &viewData{Members: viewMembers{TagB: []int{}}, Nodes: viewNodes{Support: []int{}}, Title: rep.Title, Caution: Caution, Warnings: warningLines(rep.Warnings), Hub: HubFrameNote, Numbering: NumberingNote}
 	nodeIdx := make(map[string]int, len(rep.Nodes))
 	lo, hi := [3]float64{math.Inf(1), math.Inf(1), math.Inf(1)}, [3]float64{math.Inf(-1), math.Inf(-1), math.Inf(-1)}
 	for i, n := range rep.Nodes {
@@ -113,6 +116,7 @@ func newViewData(rep *Report) (*viewData, error) {
 		}
 		nd.Type = append(nd.Type, typ(n.Type))
 		nd.MoveMM = append(nd.MoveMM, r(n.MoveMM, 2))
+		nd.TiltDeg, nd.TiltTo = append(nd.TiltDeg, r(n.AxisTiltDeg, 1)), append(nd.TiltTo, r(n.AxisTiltTowardDeg, 0))
 		if n.Support {
 			nd.Support = append(nd.Support, i)
 		}
@@ -139,6 +143,9 @@ func newViewData(rep *Report) (*viewData, error) {
 		md.A, md.B = append(md.A, a), append(md.B, b)
 		md.Type = append(md.Type, typ(m.Type))
 		md.Cut = append(md.Cut, r(m.CutLengthMM, 1))
+		if m.TagEnd == "B" {
+			md.TagB = append(md.TagB, len(md.Label)-1)
+		}
 	}
 	pd := &d.Panels
 	for _, p := range rep.Panels {
@@ -175,7 +182,8 @@ func rawTextSafe(s string) bool {
 // shows the planarized net in 3D with orbit, zoom and pan, a search box (a
 // label typed, or given after # in the address, is highlighted and its
 // data shown; clicking a node or panel does the same) and colours by part
-// type or by node move. The WebGL library is three.js, vendored. Data is
+// type or by node move. The WebGL library is three.js, vendored; without
+// WebGL the page says so and the search and the data still work. Data is
 // JSON in parallel arrays, so the page grows linearly with the net. Safe
 // to call concurrently.
 func WriteView(w io.Writer, rep *Report) error {

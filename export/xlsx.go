@@ -66,13 +66,13 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 		rows   func(add func(row ...any) error) error
 	}{
 		{SheetPanels, panelHead, len(rep.Panels), panelRows},
-		{SheetMembers, []string{"Label", "Type", "Node A", "Node B", "Cut length (mm)", "Blank length (mm)", "Bar",
+		{SheetMembers, []string{"Label", "Type", "Node A", "Node B", "Tag end (A or B: the type's end A)", "Cut length (mm)", "Blank length (mm)", "Bar",
 			"A mitre (°)", "A bevel (°)", "B mitre (°)", "B bevel (°)", "Twist (°)", "A setback (mm)", "B setback (mm)",
 			"A elevation (°)", "B elevation (°)", "System length (mm)", "Fold (°)", "Weight (kg)"}, len(rep.Members),
 			func(add func(row ...any) error) error {
 				for _, m := range rep.Members {
 					a, b := m.Ends[0], m.Ends[1]
-					if err := add(m.Label, m.Type, m.NodeA, m.NodeB, m.CutLengthMM, m.BlankMM, m.Bar,
+					if err := add(m.Label, m.Type, m.NodeA, m.NodeB, m.TagEnd, m.CutLengthMM, m.BlankMM, m.Bar,
 						a.MitreDeg, a.BevelDeg, b.MitreDeg, b.BevelDeg, m.TwistDeg, a.SetbackMM, b.SetbackMM,
 						a.ElevationDeg, b.ElevationDeg, m.LengthMM, m.FoldDeg, m.WeightKg); err != nil {
 						return err
@@ -81,7 +81,8 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				return nil
 			}},
 		{SheetNodes, []string{"Label", "Id", "Type", "Members at node", "X (mm)", "Y (mm)", "Z (mm)", "Axis x", "Axis y", "Axis z",
-			"Support", "Move (mm)", "Move x (mm)", "Move y (mm)", "Move z (mm)", "Hub arms (member azimuth° elevation°)"}, len(rep.Nodes),
+			"Axis tilt (°)", "Tilt toward (° counter-clockwise from grid north)", "Azimuth 0",
+			"Support", "Move (mm)", "Move x (mm)", "Move y (mm)", "Move z (mm)", "Hub arms going round the hub (member azimuth° elevation°)"}, len(rep.Nodes),
 			func(add func(row ...any) error) error {
 				for _, n := range rep.Nodes {
 					var arms []string
@@ -93,7 +94,7 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 						sup = "yes"
 					}
 					if err := add(n.Label, n.ID, n.Type, n.MembersAtNode, n.Pos[0], n.Pos[1], n.Pos[2], n.Axis[0], n.Axis[1], n.Axis[2],
-						sup, n.MoveMM, n.Move[0], n.Move[1], n.Move[2], strings.Join(arms, "; ")); err != nil {
+						n.AxisTiltDeg, n.AxisTiltTowardDeg, azimuthZeroText(n.AzimuthZero), sup, n.MoveMM, n.Move[0], n.Move[1], n.Move[2], strings.Join(arms, "; ")); err != nil {
 						return err
 					}
 				}
@@ -341,7 +342,7 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return head("Weights") },
 		func() error { return put("Panels (kg)", rep.Weights.PanelsKg) },
 		func() error {
-			return put(fmt.Sprintf("Members, %s at %g kg/m³ (kg)", rep.MemberMaterial.Name, rep.MemberMaterial.DensityKgM3), rep.Weights.MembersKg)
+			return put(fmt.Sprintf("Members, %s, %s section, %g kg/m (kg)", rep.MemberMaterial.Name, rep.MemberMaterial.Section, rep.MemberMaterial.KgPerM), rep.Weights.MembersKg)
 		},
 		func() error { return put("Total (kg)", rep.Weights.TotalKg) })
 	if rep.Cost != nil {

@@ -11,15 +11,16 @@ import (
 
 var memberTypeHead = []string{"Type", "Count", "Cut length (mm)", "Blank length (mm)",
 	"A mitre (°)", "A bevel (°)", "A setback (mm)", "B mitre (°)", "B bevel (°)", "B setback (mm)", "Twist (°)",
+	"System length (mm)", "Top face (mm)", "Bottom face (mm)", "Side +y (mm)", "Side -y (mm)",
 	"Largest deviation (mm)", "Largest deviation (°)", "Total cut length (m)", "Total weight (kg)",
-	"Members", "Members read from end B"}
+	"Members", "Members whose end B is the type's end A (the tag end)"}
 
 func memberTypeRows(rep *Report) func(add func(row ...any) error) error {
 	return func(add func(row ...any) error) error {
 		for _, t := range rep.MemberTypes {
 			a, b := t.Ends[0], t.Ends[1]
 			if err := add(t.Name, t.Count, t.CutLengthMM, t.BlankMM, a.MitreDeg, a.BevelDeg, a.SetbackMM, b.MitreDeg, b.BevelDeg, b.SetbackMM,
-				t.TwistDeg, t.MaxDevMM, t.MaxDevDeg, t.TotalM, t.WeightKg,
+				t.TwistDeg, t.SetOutMM, t.Faces.Top, t.Faces.Bottom, t.Faces.SidePos, t.Faces.SideNeg, t.MaxDevMM, t.MaxDevDeg, t.TotalM, t.WeightKg,
 				partList(t.Parts, SheetMembers), partList(t.ReadFromB, SheetMembers)); err != nil {
 				return err
 			}

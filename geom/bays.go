@@ -14,8 +14,9 @@ import (
 const DefaultBaySizeMM = 6000.0
 
 // Bays cuts the plan into a grid of bays, like structural grid lines:
-// columns lettered along x (A, B, …, Z, AA, …) and rows numbered along y
-// from 1. Bay C3 is the third column and third row.
+// columns lettered along x (A … H, J … N, P … Z, AA, …: I and O are left
+// out, as on structural grids, where they read as 1 and 0) and rows
+// numbered along y from 1. Bay C3 is the third column and third row.
 type Bays struct {
 	Origin Vec2    // lower-left corner of bay A1
 	SizeX  float64 // bay width along x (mm)
@@ -52,15 +53,47 @@ func (b Bays) Cell(p Vec2) (col, row int) {
 // Name returns the name of bay (col, row), such as "C3".
 func (b Bays) Name(col, row int) string { return ColumnLetters(col) + fmt.Sprint(row+1) }
 
-// ColumnLetters returns the spreadsheet-style letters of 0-based column i:
-// A … Z, AA, AB, ….
+// columnAlphabet is the letters of bay columns: A to Z without I and O.
+const columnAlphabet = "ABCDEFGHJKLMNPQRSTUVWXYZ"
+
+// ColumnLetters returns the letters of 0-based column i: A … H, J … N,
+// P … Z, then AA, AB, … (two letters, then three, the way spreadsheet
+// columns run, over the 24 letters without I and O).
 func ColumnLetters(i int) string {
+	n := len(columnAlphabet)
 	s := ""
-	for i++; i > 0; i = (i - 1) / 26 {
-		s = string(rune('A'+(i-1)%26)) + s
+	for i++; i > 0; i = (i - 1) / n {
+		s = string(columnAlphabet[(i-1)%n]) + s
 	}
 	return s
 }
+
+// ParseBay reads the bay at the head of a part label ("C3-M12" or "C3":
+// column 2, row 2). It is false for anything ColumnLetters and Name do
+// not write (the letters I and O, lower case, a row 0).
+func ParseBay(label string) (col, row int, ok bool) {
+	name, _, _ := strings.Cut(label, "-")
+	i := 0
+	for ; i < len(name); i++ {
+		k := strings.IndexByte(columnAlphabet, name[i])
+		if k < 0 {
+			break
+		}
+		col = col*len(columnAlphabet) + k + 1
+		if col > maxBayColumns {
+			return 0, 0, false
+		}
+	}
+	n, err := strconv.Atoi(name[i:])
+	if i == 0 || err != nil || n < 1 || name[i] == '+' || name[i] == '0' {
+		return 0, 0, false
+	}
+	return col - 1, n - 1, true
+}
+
+// maxBayColumns bounds the columns ParseBay reads (four letters), so a
+// long run of letters cannot overflow.
+const maxBayColumns = 24 * 24 * 24 * 24
 
 // Label order inside a bay: rows separated by gaps in y, then x.
 const (

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"math/rand/v2"
+	"strconv"
+	"strings"
 	"testing"
 )
 
@@ -124,6 +126,50 @@ func TestBaysLabelNoise(t *testing.T) {
 	for i := range got {
 		if got[i] != want[i] {
 			t.Errorf("point %d: got %s, want %s", i, got[i], want[i])
+		}
+	}
+}
+
+// TestColumnLetters: bay columns run A … H, J … N, P … Z (24 letters: I
+// and O are left out, as on structural grid lines, where they are read
+// as 1 and 0; common practice), then two letters AA … AZ without AI and
+// AO, and so on; ParseBay reads every name back.
+func TestColumnLetters(t *testing.T) {
+	tests := []struct {
+		col  int
+		want string
+	}{
+		{0, "A"}, {7, "H"}, {8, "J"}, {12, "N"}, {13, "P"}, {23, "Z"},
+		{24, "AA"}, {31, "AH"}, {32, "AJ"}, {37, "AP"}, {47, "AZ"}, {48, "BA"},
+		{24 + 24*24 - 1, "ZZ"}, {24 + 24*24, "AAA"},
+	}
+	for _, tc := range tests {
+		if got := ColumnLetters(tc.col); got != tc.want {
+			t.Errorf("ColumnLetters(%d) = %s, want %s", tc.col, got, tc.want)
+		}
+	}
+	// Every name of the first 24 + 24² + 24³ columns: no I, no O, all
+	// different, in order of length then alphabet, read back by ParseBay.
+	prev := ""
+	for c := range 24 + 24*24 + 24*24*24 {
+		s := ColumnLetters(c)
+		if strings.ContainsAny(s, "IO") {
+			t.Fatalf("column %d is %s", c, s)
+		}
+		if len(s) < len(prev) || (len(s) == len(prev) && s <= prev) {
+			t.Fatalf("column %d is %s, after %s", c, s, prev)
+		}
+		prev = s
+		for _, row := range []int{0, 9, 123} {
+			col, r, ok := ParseBay(s + strconv.Itoa(row+1) + "-M07")
+			if !ok || col != c || r != row {
+				t.Fatalf("ParseBay(%s%d-M07) = %d, %d, %v; want %d, %d", s, row+1, col, r, ok, c, row)
+			}
+		}
+	}
+	for _, bad := range []string{"I3-01", "O1-01", "AI2-P01", "c3-01", "C0-01", "C-01", "3C-01", "C+3-01", "C03-01", "", "-01", "ZZZZZ1-01"} {
+		if _, _, ok := ParseBay(bad); ok {
+			t.Errorf("ParseBay(%q) reads a bay", bad)
 		}
 	}
 }

@@ -128,14 +128,6 @@ func TestBaysLabels(t *testing.T) {
 			t.Errorf("reordered: %s vs %s", got2[i], got[j])
 		}
 	}
-	for _, tc := range []struct {
-		i    int
-		want string
-	}{{0, "A"}, {25, "Z"}, {26, "AA"}, {27, "AB"}, {701, "ZZ"}, {702, "AAA"}} {
-		if got := ColumnLetters(tc.i); got != tc.want {
-			t.Errorf("column %d: got %s want %s", tc.i, got, tc.want)
-		}
-	}
 	if _, err := NewBays(pts, 0, 6000); err == nil {
 		t.Error("zero bay size: want an error")
 	}

@@ -9,9 +9,23 @@ import (
 	"pqfab/geom"
 )
 
-// Section is a member's cross-section, for drawings (mm).
+// Section is a member's cross-section (mm): solid, or a rectangular
+// hollow section with walls WallMM thick.
 type Section struct {
 	WidthMM, DepthMM float64
+	WallMM           float64 // 0: solid
+}
+
+// AreaMM2 is the section's area (mm²): w·d solid, w·d − (w − 2t)(d − 2t)
+// hollow. The hollow's corners are square: a formed hollow section's
+// rounded corners make it a few per cent lighter (give its catalogue
+// mass per metre instead for weights to that accuracy).
+func (s Section) AreaMM2() float64 {
+	a := s.WidthMM * s.DepthMM
+	if s.WallMM > 0 {
+		a -= (s.WidthMM - 2*s.WallMM) * (s.DepthMM - 2*s.WallMM)
+	}
+	return a
 }
 
 // End is the cut at one end of a member, where it meets a hub.

@@ -79,6 +79,10 @@ func (o Options) Validate() error {
 	if !(o.Section.DepthMM > 0) || o.Section.DepthMM > MaxSectionMM {
 		return geom.FieldErrorf("Section.DepthMM", "%g must be more than 0 and at most %g mm", o.Section.DepthMM, MaxSectionMM)
 	}
+	if w := o.Section.WallMM; !(w >= 0) || (w > 0 && 2*w >= min(o.Section.WidthMM, o.Section.DepthMM)) {
+		return geom.FieldErrorf("Section.WallMM", "%g must be more than 0 and less than half the section's width and depth (%g x %g mm)",
+			w, o.Section.WidthMM, o.Section.DepthMM)
+	}
 	return o.Types.Validate()
 }
 

@@ -40,7 +40,9 @@ type MemberType struct {
 	Parts []int  // member indices, ascending
 	// Reversed, per entry of Parts: the member is read from its end B,
 	// so its end B is the type's end A (its bevels change sign; its
-	// mitres and twist do not).
+	// mitres and twist do not). At most half the members of a type are
+	// reversed. The type's end A is where every member of it carries its
+	// tag.
 	Reversed []bool
 	// Nominal member.
 	CutLengthMM float64
@@ -119,13 +121,35 @@ func GroupMembers(ms []Member, tol TypeOptions) ([]MemberType, geom.TypeBound, e
 			mt.TotalCutLengthMM += ms[i].CutLengthMM
 			ms[i].Type = t
 		}
-		types[t] = mt
+		types[t] = orientType(mt)
 	}
 	width := nameWidth(len(types))
 	for t := range types {
 		types[t].Name = fmt.Sprintf("MT-%0*d", width, t+1)
 	}
 	return types, bound, nil
+}
+
+// orientType turns a type end for end when more than half of its members
+// are read from their end B, so that as many members as can be are read
+// from their own end A (a tie stays as it is). Read from its other end,
+// the nominal member (cut, mA, bA, mB, bB, t) is (cut, mB, −bB, mA, −bA,
+// t), as for one member (memberCoords); the largest deviations stay.
+func orientType(mt MemberType) MemberType {
+	rev := 0
+	for _, r := range mt.Reversed {
+		if r {
+			rev++
+		}
+	}
+	if 2*rev <= len(mt.Reversed) {
+		return mt
+	}
+	for k := range mt.Reversed {
+		mt.Reversed[k] = !mt.Reversed[k]
+	}
+	mt.A, mt.B = EndCut{mt.B.MitreDeg, -mt.B.BevelDeg}, EndCut{mt.A.MitreDeg, -mt.A.BevelDeg}
+	return mt
 }
 
 func minmax(a, b float64) (float64, float64) { return min(a, b), max(a, b) }

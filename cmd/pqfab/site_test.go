@@ -1,17 +1,24 @@
 package main
 
 import (
+	"bytes"
+	"cmp"
 	"fmt"
+	"html"
 	"image"
 	"image/png"
+	"math"
 	"os"
 	"os/exec"
 	"path/filepath"
+	"regexp"
 	"slices"
+	"strconv"
 	"strings"
 	"testing"
 
 	"pqfab/export"
+	"pqfab/geom"
 )
 
 // Outside readers of the site files, all Debian packages that .ci/run
@@ -106,20 +113,76 @@ func partsByBay(rep *export.Report) map[string][]string {
 }
 
 // TestSitePlanPDF reads site/plan.pdf back with pdftotext (poppler-utils):
-// one page per bay that holds parts, each page names its bay and scale,
-// carries the caution and the title (in code page 1252: characters
-// outside it print as '?'), and every label of the bay's nodes, members
-// and panels appears on its page as a word of its own.
+// an index page listing every bay with its page, then one page per bay
+// that holds parts, each page names its bay and scale, carries the
+// caution and the title (in code page 1252: characters outside it print
+// as '?'), and every label of the bay's nodes, members and panels appears
+// on its page as a word of its own, at least 2.5 mm high (pdftotext
+// -bbox); pdftohtml -xml (poppler-utils) finds a bookmark for the index
+// and for every bay, each pointing to the bay's page.
 func TestSitePlanPDF(t *testing.T) {
 	dir := t.TempDir()
 	out, rep := buildSiteJob(t, dir)
-	pages := pdfPages(t, filepath.Join(out, export.FilePlanPDF))
+	path := filepath.Join(out, export.FilePlanPDF)
+	pages := pdfPages(t, path)
 	bays := partsByBay(rep)
-	if len(pages) != len(bays) {
-		t.Fatalf("%d pages for %d bays", len(pages), len(bays))
+	if len(pages) != len(bays)+1 {
+		t.Fatalf("%d pages for %d bays and the index", len(pages), len(bays))
 	}
+	index := strings.Join(strings.Fields(pages[0]), " ")
+	if !strings.Contains(index, "Bays and pages") {
+		t.Fatalf("page 1 is not the index: %q", tail(index, 300))
+	}
+	pageOf := map[string]int{}
+	for i, pg := range pages[1:] {
+		if k := strings.Index(pg, "Bay "); k >= 0 {
+			pageOf[strings.Fields(pg[k+4:])[0]] = i + 2
+		}
+	}
+	words := pdfWords(t, path)
+	// The index's list, read line by line (words on one baseline, by x):
+	// "Bay C3 … page 12".
+	lines := map[float64][]pdfWord{}
+	for _, w := range words[0] {
+		lines[math.Round(w.yMax*10)] = append(lines[math.Round(w.yMax*10)], w)
+	}
+	listed := map[string]string{}
+	for _, ws := range lines {
+		slices.SortFunc(ws, func(a, b pdfWord) int { return cmp.Compare(a.xMin, b.xMin) })
+		for i := 0; i+3 < len(ws); i++ {
+			if ws[i].text == "Bay" && ws[i+2].text == "page" {
+				listed[ws[i+1].text] = ws[i+3].text
+			}
+		}
+	}
+	for bay := range bays {
+		if got := listed[bay]; got != strconv.Itoa(pageOf[bay]) {
+			t.Errorf("index lists bay %s on page %q, it is on page %d", bay, got, pageOf[bay])
+		}
+	}
+	outline := runTool(t, "/usr/bin/pdftohtml", "-xml", "-stdout", "-i", "-f", "1", "-l", "1", path)
+	marks := regexp.MustCompile(`<item page="(\d+)">([^<]*)</item>`).FindAllStringSubmatch(outline, -1)
+	if len(marks) != len(bays)+1 || marks[0][1] != "1" {
+		t.Fatalf("%d bookmarks for %d bays and the index: %v", len(marks), len(bays), marks)
+	}
+	for _, mk := range marks[1:] {
+		bay := strings.Fields(strings.TrimPrefix(mk[2], "Bay "))[0]
+		if strconv.Itoa(pageOf[bay]) != mk[1] {
+			t.Errorf("bookmark %q points to page %s, the bay is on page %d", mk[2], mk[1], pageOf[bay])
+		}
+	}
+	const tol = 0.01 // mm
+	smallest := math.Inf(1)
 	seen := map[string]bool{}
-	for i, pg := range pages {
+	for i, pg := range pages[1:] {
+		for _, w := range words[i+1] {
+			if _, _, ok := geom.ParseBay(w.text); ok && strings.Contains(w.text, "-") {
+				smallest = min(smallest, w.capMM())
+				if w.capMM() < 2.5-tol {
+					t.Errorf("page %d: label %s is %.2f mm high, less than 2.5 mm", i+2, w.text, w.capMM())
+				}
+			}
+		}
 		words := tokens(pg)
 		bay := ""
 		if k := strings.Index(pg, "Bay "); k >= 0 {
@@ -127,22 +190,23 @@ func TestSitePlanPDF(t *testing.T) {
 		}
 		labels, ok := bays[bay]
 		if !ok || seen[bay] {
-			t.Fatalf("page %d: bay %q is not a bay with parts, or is on two pages", i+1, bay)
+			t.Fatalf("page %d: bay %q is not a bay with parts, or is on two pages", i+2, bay)
 		}
 		seen[bay] = true
 		for _, l := range labels {
 			if !words[l] {
-				t.Errorf("page %d (bay %s): label %s missing", i+1, bay, l)
+				t.Errorf("page %d (bay %s): label %s missing", i+2, bay, l)
 			}
 		}
 		flat := strings.Join(strings.Fields(pg), " ")
 		for _, want := range []string{"scale 1:", "CAUTION: pqfab computes geometry only", "azimuth 0", "row by row",
 			`Café "Nord" <b>&amp; 50%% \ ?? — hall`} {
 			if !strings.Contains(flat, want) {
-				t.Errorf("page %d: no %q in %q", i+1, want, tail(flat, 300))
+				t.Errorf("page %d: no %q in %q", i+2, want, tail(flat, 300))
 			}
 		}
 	}
+	t.Logf("%d bay pages; smallest part label %.2f mm high", len(pages)-1, smallest)
 }
 
 // TestSiteTagsPDF reads site/tags.pdf back: pdftotext (poppler-utils) finds
@@ -163,7 +227,8 @@ func TestSiteTagsPDF(t *testing.T) {
 		slices.Sort(kind)
 		order = append(order, kind...)
 	}
-	perSheet := export.TagCols * export.TagRows
+	lay := export.TagOffice
+	perSheet := lay.Cols * lay.Rows
 	if want := (len(order) + perSheet - 1) / perSheet; len(pages) != want {
 		t.Fatalf("%d sheets for %d tags, want %d", len(pages), len(order), want)
 	}
@@ -174,41 +239,157 @@ func TestSiteTagsPDF(t *testing.T) {
 		}
 	}
 	flat := strings.Join(strings.Fields(pages[0]), " ")
-	if !strings.Contains(flat, "az 0 = first member listed") || !strings.Contains(flat, "NODE") {
+	if !strings.Contains(flat, "az 0 = grid north (+y) on the hub plane") || !strings.Contains(flat, "NODE") {
 		t.Errorf("first sheet (node tags) lacks the azimuth definition: %q", tail(flat, 400))
 	}
-	m := rep.Members[0]
-	mpage := pages[slices.Index(order, m.Label)/perSheet]
-	if !strings.Contains(mpage, "end A to node "+m.NodeA) || !strings.Contains(mpage, "end B to node "+m.NodeB) {
-		t.Errorf("member %s's tag lacks its end nodes", m.Label)
+	// Every member's tag names the end it is fixed at: its type's end A,
+	// the same end for every member of a type. Read from there (ends
+	// swapped and bevels turned for a tag at end B), every member's end
+	// cuts lie within the type's largest deviation of the type's.
+	types := map[string]export.MemberTypeRow{}
+	for _, mt := range rep.MemberTypes {
+		types[mt.Name] = mt
 	}
+	for _, m := range rep.Members {
+		tagNode, other := m.NodeA, m.NodeB
+		ends := m.Ends
+		if m.TagEnd == "B" {
+			tagNode, other = other, tagNode
+			ends = [2]export.EndRow{m.Ends[1], m.Ends[0]}
+			ends[0].BevelDeg, ends[1].BevelDeg = -ends[0].BevelDeg, -ends[1].BevelDeg
+		}
+		mt := types[m.Type]
+		const rounding = 0.002 // degrees: both values are rounded to 0.001°
+		for k := range 2 {
+			if d := max(math.Abs(ends[k].MitreDeg-mt.Ends[k].MitreDeg), math.Abs(ends[k].BevelDeg-mt.Ends[k].BevelDeg)); d > mt.MaxDevDeg+rounding {
+				t.Errorf("member %s read from its tag end: end %d differs from type %s by %.3f°, more than its %.3f°", m.Label, k+1, mt.Name, d, mt.MaxDevDeg)
+			}
+		}
+		mpage := strings.Join(strings.Fields(pages[slices.Index(order, m.Label)/perSheet]), " ")
+		if !strings.Contains(mpage, "TAG END (type end A) to node "+tagNode) || !strings.Contains(mpage, "other end (type end B) to node "+other) {
+			t.Errorf("member %s's tag lacks its tag end (node %s)", m.Label, tagNode)
+		}
+	}
+	checkTagTextSizes(t, path, order, 1)
 
-	// QR codes on the first sheet, a middle one and the last.
+	decoded := checkTagQRs(t, dir, path, lay, order, len(pages))
+	t.Logf("%d tags on %d sheets; %d QR codes decoded", len(order), len(pages), decoded)
+
+	// Outdoor tags: the same tags twice the size, two to a sheet, every
+	// text twice as high, the QR codes still read.
+	rep.TagSize = export.TagOutdoor.Name
+	var buf bytes.Buffer
+	if err := export.WriteTagsPDF(&buf, rep); err != nil {
+		t.Fatal(err)
+	}
+	big := filepath.Join(dir, "tags-outdoor.pdf")
+	if err := os.WriteFile(big, buf.Bytes(), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if n, want := len(pdfPages(t, big)), (len(order)+1)/2; n != want {
+		t.Errorf("outdoor tags: %d sheets for %d tags, want %d", n, len(order), want)
+	}
+	checkTagTextSizes(t, big, order, 2)
+	checkTagQRs(t, dir, big, export.TagOutdoor, order, (len(order)+1)/2)
+}
+
+// checkTagQRs decodes the QR code of every tag on the first sheet, a
+// middle one and the last (pdftoppm renders the sheet, zbarimg reads the
+// code): each holds exactly the label of the part in its slot.
+func checkTagQRs(t *testing.T, dir, path string, lay export.TagLayout, order []string, sheets int) int {
+	t.Helper()
 	const dpi = 150
-	sheets := []int{0, len(pages) / 2, len(pages) - 1}
+	perSheet := lay.Cols * lay.Rows
 	decoded := 0
-	for _, s := range slices.Compact(sheets) {
-		prefix := filepath.Join(dir, fmt.Sprintf("sheet-%d", s+1))
+	for _, s := range slices.Compact([]int{0, sheets / 2, sheets - 1}) {
+		prefix := filepath.Join(dir, fmt.Sprintf("%s-sheet-%d", lay.Name, s+1))
 		runTool(t, pdftoppm, "-r", fmt.Sprint(dpi), "-gray", "-png", "-singlefile", "-f", fmt.Sprint(s+1), "-l", fmt.Sprint(s+1), path, prefix)
 		img := readPNG(t, prefix+".png")
 		for slot := 0; slot < perSheet && s*perSheet+slot < len(order); slot++ {
 			want := order[s*perSheet+slot]
-			x := float64(slot%export.TagCols) * export.TagW
-			y := (export.TagSheetH-export.TagRows*export.TagH)/2 + float64(slot/export.TagCols)*export.TagH
+			x := (lay.SheetW-float64(lay.Cols)*lay.W)/2 + float64(slot%lay.Cols)*lay.W
+			y := (lay.SheetH-float64(lay.Rows)*lay.H)/2 + float64(slot/lay.Cols)*lay.H
 			px := func(mm float64) int { return int(mm / 25.4 * dpi) }
-			crop := image.Rect(px(x), px(y), px(x+27), px(y+27))
-			file := filepath.Join(dir, fmt.Sprintf("qr-%d-%d.png", s, slot))
+			k := lay.Scale // the QR code sits 3 k mm in, 13.6 k mm down, 25 k mm wide
+			crop := image.Rect(px(x+k), px(y+12*k), px(x+31*k), px(y+42*k))
+			file := filepath.Join(dir, fmt.Sprintf("qr-%s-%d-%d.png", lay.Name, s, slot))
 			writePNG(t, file, img.(interface {
 				SubImage(image.Rectangle) image.Image
 			}).SubImage(crop))
 			got := strings.TrimSpace(runTool(t, zbarimg, "-q", "--raw", file))
 			if got != want {
-				t.Errorf("sheet %d slot %d: QR code reads %q, want %q", s+1, slot+1, got, want)
+				t.Errorf("%s tags, sheet %d slot %d: QR code reads %q, want %q", lay.Name, s+1, slot+1, got, want)
 			}
 			decoded++
 		}
 	}
-	t.Logf("%d tags on %d sheets; %d QR codes decoded", len(order), len(pages), decoded)
+	return decoded
+}
+
+// pdfWord is a word on a PDF page as pdftotext -bbox (poppler-utils)
+// gives it: its box in points from the page's top-left corner.
+type pdfWord struct {
+	text                   string
+	xMin, yMin, xMax, yMax float64
+}
+
+var bboxWord = regexp.MustCompile(`<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">([^<]*)</word>`)
+
+// pdfWords returns the words of every page of a PDF (pdftotext -bbox).
+func pdfWords(t *testing.T, path string) [][]pdfWord {
+	t.Helper()
+	var pages [][]pdfWord
+	for _, pg := range strings.Split(runTool(t, pdftotext, "-bbox", "-enc", "UTF-8", path, "-"), "<page ")[1:] {
+		var words []pdfWord
+		for _, m := range bboxWord.FindAllStringSubmatch(pg, -1) {
+			w := pdfWord{text: html.UnescapeString(m[5])}
+			for i, p := range []*float64{&w.xMin, &w.yMin, &w.xMax, &w.yMax} {
+				v, err := strconv.ParseFloat(m[i+1], 64)
+				if err != nil {
+					t.Fatal(err)
+				}
+				*p = v
+			}
+			words = append(words, w)
+		}
+		pages = append(pages, words)
+	}
+	return pages
+}
+
+// capMM is a word's capital-letter height in mm (the nominal size of
+// lettering, ISO 3098-1). poppler's word box spans the font's ascender to
+// its descender; for Helvetica, the font of every site file, those are
+// 718 and −207 and the capital height 718 units of 1000 (Adobe's font
+// metrics for Helvetica, from memory).
+func (w pdfWord) capMM() float64 { return (w.yMax - w.yMin) * 718 / 925 * 25.4 / 72 }
+
+// checkTagTextSizes measures the tags' text in the PDF: every word at
+// least export.TagDataCapMM high and every part's label, on its own tag,
+// at least export.TagLabelCapMM (times the tag size's scale).
+func checkTagTextSizes(t *testing.T, path string, order []string, scale float64) {
+	t.Helper()
+	const tol = 0.01 // mm: the PDF's coordinates are rounded
+	big := map[string]bool{}
+	smallest, n := math.Inf(1), 0
+	for p, words := range pdfWords(t, path) {
+		for _, w := range words {
+			if w.capMM() < scale*export.TagDataCapMM-tol {
+				t.Errorf("page %d: %q is %.2f mm high, less than %g mm", p+1, w.text, w.capMM(), scale*export.TagDataCapMM)
+			}
+			smallest = min(smallest, w.capMM())
+			n++
+			if w.capMM() >= scale*export.TagLabelCapMM-tol {
+				big[w.text] = true
+			}
+		}
+	}
+	for _, l := range order {
+		if !big[l] {
+			t.Errorf("label %s is never %g mm high", l, scale*export.TagLabelCapMM)
+		}
+	}
+	t.Logf("tags: %d words, smallest capital height %.2f mm", n, smallest)
 }
 
 func labelsOf[T any](rows []T, label func(T) string) []string {
@@ -331,6 +512,40 @@ func TestSiteViewInChromium(t *testing.T) {
 	for _, want := range []string{m.Label, m.NodeA, m.NodeB, m.Type} {
 		if !strings.Contains(info[:min(len(info), 2000)], want) {
 			t.Errorf("data panel lacks %s", want)
+		}
+	}
+
+	if !strings.Contains(d, `data-view="3d"`) {
+		t.Error("view.html did not start its 3D view in chromium with software WebGL")
+	}
+
+	// Without WebGL (--disable-3d-apis): a message where the view would
+	// be, and the search and the part data work as before.
+	cmd = exec.Command(chromium, append(chromiumFlags(filepath.Join(dir, "p3")), "--disable-3d-apis", "--dump-dom", "file://"+page+"#"+m.Label)...)
+	logs.Reset()
+	cmd.Stderr = &logs
+	dom, err = cmd.Output()
+	if err != nil {
+		t.Fatalf("chromium without WebGL: %v\n%s", err, tail(logs.String(), 3000))
+	}
+	for _, l := range consoleErrors(logs.String()) {
+		t.Errorf("console message without WebGL: %s", l)
+	}
+	d = string(dom)
+	if !strings.Contains(d, `data-view="none"`) || !strings.Contains(d, `id="no3d"`) || !strings.Contains(d, "No 3D view:") {
+		t.Errorf("without WebGL the page does not say there is no 3D view: %s", tail(d, 600))
+	}
+	if !strings.Contains(d, `data-selected="`+m.Label+`"`) {
+		t.Errorf("without WebGL member %s is not selected", m.Label)
+	}
+	tagNode := m.NodeA
+	if m.TagEnd == "B" {
+		tagNode = m.NodeB
+	}
+	info = d[strings.Index(d, `id="info"`):]
+	for _, want := range []string{m.Label, m.NodeA, m.NodeB, m.Type, "tag end (type end A) to node</td><td>" + tagNode} {
+		if !strings.Contains(info[:min(len(info), 2000)], want) {
+			t.Errorf("without WebGL the data panel lacks %s", want)
 		}
 	}
 

@@ -26,6 +26,7 @@ type Job struct {
 	Nesting  Nesting  `toml:"nesting"`
 	Bar      []Bar    `toml:"bar"`
 	Rates    *Rates   `toml:"rates"`
+	Site     Site     `toml:"site"`
 	// PanelType overrides the panel specification for named panel types.
 	PanelType []PanelSpec `toml:"panel_type"`
 	File      string      `toml:"-"` // the job file's name, for messages
@@ -63,12 +64,87 @@ type Nodes struct {
 }
 
 // Member is the [member] table: the member section and its material.
+// The section is solid (weight from width, depth and density), hollow
+// (a rectangular hollow section with walls wall_mm thick) or mass (its
+// weight is mass_kg_m, such as a catalogue section's).
 type Member struct {
 	Material    string  `toml:"material"`
+	Section     string  `toml:"section"` // solid, hollow or mass
 	WidthMM     float64 `toml:"width_mm"`
 	DepthMM     float64 `toml:"depth_mm"`
+	WallMM      float64 `toml:"wall_mm"`   // section = "hollow"
+	MassKgM     float64 `toml:"mass_kg_m"` // section = "mass"
 	DensityKgM3 float64 `toml:"density_kg_m3"`
 }
+
+// Member section kinds (member.section).
+const (
+	SectionSolid  = "solid"
+	SectionHollow = "hollow"
+	SectionMass   = "mass"
+)
+
+// MaxMassKgM bounds member.mass_kg_m: a heavier member is a unit mistake.
+const MaxMassKgM = 10000.0
+
+// SectionOf returns the section for drawings (the wall only when hollow).
+func (m Member) SectionOf() nodes.Section {
+	s := nodes.Section{WidthMM: m.WidthMM, DepthMM: m.DepthMM}
+	if m.Section == SectionHollow {
+		s.WallMM = m.WallMM
+	}
+	return s
+}
+
+// KgPerM returns the members' mass per metre: the section's area times
+// the density, or mass_kg_m.
+func (m Member) KgPerM() float64 {
+	if m.Section == SectionMass {
+		return m.MassKgM
+	}
+	return m.SectionOf().AreaMM2() / 1e6 * m.DensityKgM3
+}
+
+// checkSection checks the member section's kind and the keys that go
+// with it.
+func (j *Job) checkSection() error {
+	m := j.Member
+	switch m.Section {
+	case SectionSolid, SectionHollow, SectionMass:
+	default:
+		return j.Errorf("member.section", "%q: want %q, %q (with wall_mm) or %q (with mass_kg_m)", short(m.Section), SectionSolid, SectionHollow, SectionMass)
+	}
+	given := func(key string) bool { return j.lines.line(key) > 0 }
+	if m.Section != SectionHollow && given("member.wall_mm") {
+		return j.Errorf("member.wall_mm", "is read only with section = %q (this member's section is %q)", SectionHollow, m.Section)
+	}
+	if m.Section != SectionMass && given("member.mass_kg_m") {
+		return j.Errorf("member.mass_kg_m", "is read only with section = %q (this member's section is %q)", SectionMass, m.Section)
+	}
+	if m.Section == SectionHollow && !given("member.wall_mm") {
+		return j.Errorf("member.section", "%q needs wall_mm, the wall thickness", SectionHollow)
+	}
+	if m.Section == SectionMass {
+		if !given("member.mass_kg_m") {
+			return j.Errorf("member.section", "%q needs mass_kg_m, the mass per metre", SectionMass)
+		}
+		if !(m.MassKgM > 0) || m.MassKgM > MaxMassKgM {
+			return j.Errorf("member.mass_kg_m", "%g must be more than 0 and at most %g kg/m", m.MassKgM, MaxMassKgM)
+		}
+	}
+	return nil
+}
+
+// Site is the [site] table: the files for the site team.
+type Site struct {
+	TagSize string `toml:"tag_size"` // office or outdoor
+}
+
+// Tag sizes (site.tag_size): the names of export.TagSizes.
+const (
+	TagOffice  = "office"
+	TagOutdoor = "outdoor"
+)
 
 // Panel is the [panel] table.
 type Panel struct {
@@ -192,7 +268,8 @@ func defaults(file string) *Job {
 		Supports: Supports{Mode: DefaultSupportsMode},
 		Flatness: Flatness{TolMM: po.TolMM, MaxMoveMM: po.MaxMoveMM, Fairness: po.Fairness, VerticalOnly: po.Vertical, MaxIter: po.MaxIter},
 		Nodes:    Nodes{Axis: string(no.Axis), HubRadiusMM: no.HubRadiusMM, BayMM: geom.DefaultBaySizeMM},
-		Member: Member{Material: DefaultMemberMaterial, WidthMM: no.Section.WidthMM, DepthMM: no.Section.DepthMM,
+		Site:     Site{TagSize: TagOffice},
+		Member: Member{Material: DefaultMemberMaterial, Section: SectionSolid, WidthMM: no.Section.WidthMM, DepthMM: no.Section.DepthMM,
 			DensityKgM3: DefaultMemberDensityKgM3},
 		Panel: Panel{Material: mat.Name, ThicknessMM: mat.ThicknessMM, DensityKgM3: mat.DensityKgM3, EdgeInsetMM: mat.EdgeInsetMM,
 			BoundaryBevelDeg: mat.BoundaryBevelDeg, Grain: mat.Grain.Rule, GrainPlanDeg: mat.Grain.PlanDeg},
@@ -256,7 +333,7 @@ func (j *Job) PlanarizeOptions() panels.PlanarizeOptions {
 // set by the build from the net).
 func (j *Job) NodeOptions() nodes.Options {
 	return nodes.Options{Axis: nodes.AxisMethod(j.Nodes.Axis), HubRadiusMM: j.Nodes.HubRadiusMM,
-		Section: nodes.Section{WidthMM: j.Member.WidthMM, DepthMM: j.Member.DepthMM},
+		Section: j.Member.SectionOf(),
 		Types:   nodes.TypeOptions{LengthTolMM: j.Types.LengthTolMM, AngleTolDeg: j.Types.AngleTolDeg}}
 }
 
@@ -304,7 +381,7 @@ var (
 	planarizeKeys = map[string]string{"TolMM": "flatness.tolerance_mm", "MaxMoveMM": "flatness.max_move_mm",
 		"Fairness": "flatness.fairness", "MaxIter": "flatness.max_iterations"}
 	nodeKeys = map[string]string{"Axis": "nodes.axis", "HubRadiusMM": "nodes.hub_radius_mm",
-		"Section.WidthMM": "member.width_mm", "Section.DepthMM": "member.depth_mm",
+		"Section.WidthMM": "member.width_mm", "Section.DepthMM": "member.depth_mm", "Section.WallMM": "member.wall_mm",
 		"Types.LengthTolMM": "types.length_tol_mm", "Types.AngleTolDeg": "types.angle_tol_deg"}
 	materialKeys = map[string]string{"ThicknessMM": "panel.thickness_mm", "DensityKgM3": "panel.density_kg_m3",
 		"EdgeInsetMM": "panel.edge_inset_mm", "BoundaryBevelDeg": "panel.boundary_bevel_deg",
@@ -381,8 +458,14 @@ func (j *Job) check() error {
 	if err := j.fieldErr(j.PlanarizeOptions().Validate(), planarizeKeys, ""); err != nil {
 		return err
 	}
+	if err := j.checkSection(); err != nil {
+		return err
+	}
 	if err := j.fieldErr(j.NodeOptions().Validate(), nodeKeys, ""); err != nil {
 		return err
+	}
+	if t := j.Site.TagSize; t != TagOffice && t != TagOutdoor {
+		return j.Errorf("site.tag_size", "%q: want %q (A4 sheets of 8 labels 105 x 74 mm) or %q (two A5 tags to an A4 sheet, text twice as large)", short(t), TagOffice, TagOutdoor)
 	}
 	if err := j.fieldErr(j.Material().Validate(), materialKeys, ""); err != nil {
 		return err

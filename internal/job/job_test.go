@@ -1,6 +1,7 @@
 package job
 
 import (
+	"math"
 	"strings"
 	"testing"
 )
@@ -37,6 +38,14 @@ height_mm = 3210
 		{"no net", "[[stock]]\nwidth_mm = 1\nheight_mm = 1\n", "key net.file: missing"},
 		{"list without ids", base + "[supports]\nmode = \"list\"\n", "key supports.nodes"},
 		{"negative rate", base + "[rates]\nnode_each = -5\n", "key rates.node_each"},
+		{"bad section", base + "[member]\nsection = \"tube\"\n", "job.toml:7: key member.section: \"tube\": want \"solid\""},
+		{"hollow without wall", base + "[member]\nsection = \"hollow\"\n", "job.toml:7: key member.section: \"hollow\" needs wall_mm"},
+		{"wall on solid", base + "[member]\nwall_mm = 4\n", "job.toml:7: key member.wall_mm: is read only with section = \"hollow\""},
+		{"wall too thick", base + "[member]\nsection = \"hollow\"\nwidth_mm = 60\nwall_mm = 30\n", "job.toml:9: key member.wall_mm: 30 must be more than 0 and less than half"},
+		{"mass without mass", base + "[member]\nsection = \"mass\"\n", "job.toml:7: key member.section: \"mass\" needs mass_kg_m"},
+		{"negative mass", base + "[member]\nsection = \"mass\"\nmass_kg_m = -3\n", "job.toml:8: key member.mass_kg_m: -3 must be more than 0"},
+		{"mass on hollow", base + "[member]\nsection = \"hollow\"\nwall_mm = 4\nmass_kg_m = 3\n", "job.toml:9: key member.mass_kg_m: is read only with section = \"mass\""},
+		{"bad tag size", base + "[site]\ntag_size = \"huge\"\n", "job.toml:7: key site.tag_size: \"huge\": want \"office\""},
 	}
 	for _, tc := range tests {
 		_, err := Parse([]byte(tc.text), "job.toml")
@@ -46,6 +55,31 @@ height_mm = 3210
 	}
 	if _, err := Parse([]byte(base), "job.toml"); err != nil {
 		t.Errorf("minimal job: %v", err)
+	}
+	// Member mass per metre. A 120 x 60 x 4 mm steel rectangular hollow
+	// section weighs about 10.7 kg/m in the EN 10219-2 tables (from
+	// memory; its rounded corners take off about 1 %): a fifth of the
+	// solid bar of the same outside, 0.120 x 0.060 m x 7850 kg/m³ =
+	// 56.52 kg/m. The square-cornered wall area is 2·4·(60 + 120) − 4·4²
+	// = 1376 mm², 10.80 kg/m.
+	for _, c := range []struct {
+		keys string
+		want float64
+	}{
+		{"density_kg_m3 = 7850\n", 56.52},
+		{"section = \"hollow\"\nwall_mm = 4\ndensity_kg_m3 = 7850\n", 10.8016},
+		{"section = \"mass\"\nmass_kg_m = 10.7\n", 10.7},
+	} {
+		j, err := Parse([]byte(base+"[member]\nwidth_mm = 60\ndepth_mm = 120\n"+c.keys), "job.toml")
+		if err != nil {
+			t.Fatalf("%q: %v", c.keys, err)
+		}
+		if got := j.Member.KgPerM(); math.Abs(got-c.want) > 1e-9 {
+			t.Errorf("%q: %.4f kg/m, want %.4f", c.keys, got, c.want)
+		}
+		if hs, solid := 10.7, 56.52; c.want < 20 && math.Abs(c.want/solid-hs/solid) > 0.01 {
+			t.Errorf("%q: %.3f of the solid bar, the handbook section is %.3f", c.keys, c.want/solid, hs/solid)
+		}
 	}
 	for _, c := range []struct{ key, want string }{{"", ""}, {"cuts = \"any\"\n", ""}, {"cuts = \"edge-to-edge\"\n", "edge-to-edge"}} {
 		j, err := Parse([]byte(base+c.key), "job.toml")

@@ -1,19 +1,11 @@
 package pipeline_test
 
 import (
-	"context"
 	"fmt"
-	"io"
-	"io/fs"
 	"math"
-	"strings"
 	"testing"
 
-	"pqfab/export"
 	"pqfab/geom"
-	"pqfab/internal/job"
-	"pqfab/internal/pipeline"
-	"pqfab/samples"
 )
 
 // TestGrainFollowsLongestEdge: on board stock that allows only turns of 0
@@ -22,17 +14,6 @@ import (
 // outlines), and the placement's turn applied to the panel's own cut
 // outline gives the placed outline.
 func TestGrainFollowsLongestEdge(t *testing.T) {
-	net, _ := samples.Make("dome", 120)
-	var obj strings.Builder
-	if err := export.WriteOBJ(&obj, net, "dome"); err != nil {
-		t.Fatal(err)
-	}
-	open := func(name string) (io.ReadCloser, error) {
-		if name != "net.obj" {
-			return nil, fs.ErrNotExist
-		}
-		return io.NopCloser(strings.NewReader(obj.String())), nil
-	}
 	text := `[net]
 file = "net.obj"
 [panel]
@@ -47,14 +28,7 @@ spacing_mm = 8
 rotation = "grain"
 mirror = true
 `
-	j, err := job.Parse([]byte(text), "job.toml")
-	if err != nil {
-		t.Fatal(err)
-	}
-	res, err := pipeline.Run(context.Background(), j, open, pipeline.Quiet{}, pipeline.Policy{})
-	if err != nil {
-		t.Fatal(err)
-	}
+	res := runSample(t, "dome", 120, text)
 	placed, turned := 0, map[string]int{}
 	for _, sh := range res.Nesting.Sheets {
 		for _, p := range sh.Placements {

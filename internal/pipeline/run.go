@@ -306,6 +306,7 @@ func (r *Result) Bundle() *export.Bundle {
 		Structure: r.Structure, Flats: r.Flats, PanelTypes: r.PanelTypes, PanelTypeBound: r.PanelTypeBound, Stocks: r.Stocks, Nesting: r.Nesting, Cost: r.Cost,
 		BarStocks: r.BarStocks, Blanks: r.Blanks, BarPlan: r.BarPlan, HubRadiusMM: r.Job.Nodes.HubRadiusMM, PanelTypeSetOut: r.PanelTypeSetOut,
 		MemberMaterial: r.Job.Member.Material, MemberDensityKgM3: r.Job.Member.DensityKgM3,
+		MemberSection: r.Job.Member.Section, MemberKgPerM: r.Job.Member.KgPerM(), TagSize: r.Job.Site.TagSize,
 		PanelMaterial: r.Job.Material(), PanelSpec: spec(r.Job.Panel.PanelSpec), TypeSpecs: typeSpecs(r.Job)}
 }
 
@@ -364,7 +365,8 @@ func settings(j *job.Job) []export.Setting {
 		{Name: "Fairness", Value: f(j.Flatness.Fairness)},
 		{Name: "Node axes", Value: j.Nodes.Axis},
 		{Name: "Hub radius (mm)", Value: f(j.Nodes.HubRadiusMM)},
-		{Name: "Member section (mm)", Value: f(j.Member.WidthMM) + " x " + f(j.Member.DepthMM)},
+		{Name: "Member section (mm)", Value: sectionText(j.Member)},
+		{Name: "Member mass (kg/m)", Value: fmt.Sprintf("%.3f", j.Member.KgPerM())},
 		{Name: "Panel material", Value: j.Panel.Material},
 		{Name: "Panel thickness (mm)", Value: f(j.Panel.ThicknessMM)},
 		{Name: "Panel edge inset (mm)", Value: f(j.Panel.EdgeInsetMM)},
@@ -381,6 +383,21 @@ func settings(j *job.Job) []export.Setting {
 		limit = fmt.Sprintf("%g s", j.Nesting.Seconds)
 	}
 	s = append(s, export.Setting{Name: "Nesting search", Value: fmt.Sprintf("%d steps, time limit %s", j.NestOptions().Steps, limit)})
+	return s
+}
+
+// sectionText describes the member section for the settings.
+func sectionText(m job.Member) string {
+	f := func(v float64) string { return fmt.Sprintf("%g", v) }
+	s := f(m.WidthMM) + " x " + f(m.DepthMM)
+	switch m.Section {
+	case job.SectionHollow:
+		s += ", hollow, wall " + f(m.WallMM)
+	case job.SectionMass:
+		s += ", mass per metre given"
+	default:
+		s += ", solid"
+	}
 	return s
 }
 

@@ -82,11 +82,18 @@ def bay_of(label):
     return label.split("-")[0]
 
 
+# Bay columns: A to Z without I and O (read as 1 and 0 on grid lines),
+# then AA, AB, ... over the same 24 letters.
+COLUMN_LETTERS = "ABCDEFGHJKLMNPQRSTUVWXYZ"
+
+
 def col_row(bay):
-    m = re.fullmatch(r"([A-Z]+)(\d+)", bay)
+    m = re.fullmatch(r"([A-HJ-NP-Z]+)(\d+)", bay)
+    if not m:
+        fail("bay %r is not letters without I and O, then a row number" % bay)
     col = 0
     for ch in m.group(1):
-        col = col * 26 + ord(ch) - ord("A") + 1
+        col = col * len(COLUMN_LETTERS) + COLUMN_LETTERS.index(ch) + 1
     return col - 1, int(m.group(2)) - 1
 
 

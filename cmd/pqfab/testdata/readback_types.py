@@ -7,7 +7,17 @@ check their numbers against report.json, recomputed independently:
   distance recomputed here from those coordinates (0.01 mm, 0.01°); the
   corner angles sum to (k-2)*180° (elementary geometry).
 - member-types/MT-*.dxf: the "cut length", "blank length", "end A/B:
-  mitre/bevel/setback" and "twist" texts equal report.json's member type.
+  mitre/bevel/setback", "twist", "top face", "bottom face", "side" and
+  "system length" texts equal report.json's member type; the face
+  lengths equal those recomputed here from the cut length, the section
+  and the end cuts (a cut plane through the end's axis point with normal
+  (cos b cos m, cos b sin m, sin b)-direction meets the line through
+  section point (y, z) at x = -y tan m - z tan b from it; elementary
+  geometry), the longer of top and bottom is marked long point, and the
+  system length is the cut length plus both setbacks; the set-out line
+  on layer PQ-SET-OUT is as long as the system length; the end A tag note
+  is there; and no two TEXT boxes overlap (boxes as check_plan_dxf.py
+  estimates them).
 
 Usage: readback_types.py OUTPUT_FOLDER
 """
@@ -18,6 +28,8 @@ import re
 import sys
 
 import ezdxf
+
+from check_plan_dxf import text_box
 
 
 def fail(msg):
@@ -115,10 +127,46 @@ def member_types(out, rep):
             want[r"end %s: mitre " % end + NUM + "°"] = e["mitre_deg"]
             want[r"end %s: bevel " % end + NUM + "°"] = e["bevel_deg"]
             want[r"end %s: setback " % end + NUM + " mm"] = e["setback_mm"]
+        f = t["face_lengths_mm"]
+        want[r"top face " + NUM + " mm"] = f["top"]
+        want[r"bottom face " + NUM + " mm"] = f["bottom"]
+        want[r"side \+y " + NUM + " mm"] = f["side_y_pos"]
+        want[r"side -y " + NUM + " mm"] = f["side_y_neg"]
+        want[r"system length " + NUM + " mm"] = t["set_out_length_mm"]
         for pat, v in want.items():
             m = re.search(pat, dims)
             if not m or abs(float(m.group(1)) - v) > 0.0051:
                 fail("%s: %s: %r, want %r" % (path, pat, m and m.group(1), v))
+        # Face lengths recomputed from the ends and the section.
+        w, d = rep["member_section_mm"]["width"] / 2, rep["member_section_mm"]["depth"] / 2
+
+        def off(e, y, z):
+            return -y * math.tan(math.radians(e["mitre_deg"])) - z * math.tan(math.radians(e["bevel_deg"]))
+        a, b = t["ends"]
+        for name, (y, z) in (("top", (0, d)), ("bottom", (0, -d)), ("side_y_pos", (w, 0)), ("side_y_neg", (-w, 0))):
+            got = t["cut_length_mm"] + off(b, y, z) - off(a, y, z)
+            # the ends' angles are rounded to 0.001°: up to d·0.001° per end
+            if abs(got - f[name]) > 0.011 + 2 * max(w, d) * math.radians(0.0005):
+                fail("%s: %s face %.3f, recomputed %.3f" % (path, name, f[name], got))
+        if abs(f["top"] - f["bottom"]) >= 0.51:  # pqfab marks faces 0.5 mm apart or more
+            longer = "top" if f["top"] > f["bottom"] else "bottom"
+            if not re.search(longer + r" face " + NUM + r" mm \(long point\)", dims):
+                fail("%s: the %s face is the long point but is not marked so" % (path, longer))
+        setbacks = t["cut_length_mm"] + a["setback_mm"] + b["setback_mm"]
+        if abs(setbacks - t["set_out_length_mm"]) > 0.011:
+            fail("%s: system length %.2f, cut length and setbacks make %.2f" % (path, t["set_out_length_mm"], setbacks))
+        # The set-out line: the longest line on PQ-SET-OUT.
+        lens = [math.dist(l.dxf.start, l.dxf.end) for l in doc.modelspace().query('LINE[layer=="PQ-SET-OUT"]')]
+        if not lens or abs(max(lens) - t["set_out_length_mm"]) > 0.011:
+            fail("%s: set-out line %r long, want %.2f" % (path, lens and max(lens), t["set_out_length_mm"]))
+        notes = " | ".join(texts(doc, "PQ-NOTE"))
+        if "End A is the tag end" not in notes:
+            fail("%s: no note on the tag end" % path)
+        boxes = [(ezdxf.decode_dxf_unicode(x.dxf.text), text_box(x)) for x in doc.modelspace().query("TEXT")]
+        for i in range(len(boxes)):
+            for j in range(i):
+                if boxes[i][1].intersection(boxes[j][1]).area > 1e-6:
+                    fail("%s: text boxes overlap: %r and %r" % (path, boxes[i][0], boxes[j][0]))
 
 
 def main(out):

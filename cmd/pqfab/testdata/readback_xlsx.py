@@ -64,6 +64,8 @@ def main(out):
     head, members = rows(wb["Members"])
     col = {h: i for i, h in enumerate(head)}
     for row, m in list(zip(members, rep["members"]))[:: max(1, len(members) // 25)]:
+        if row[col["Tag end (A or B: the type's end A)"]] != m["tag_end"]:
+            fail("Members: %s tag end %r, report %r" % (m["label"], row[col["Tag end (A or B: the type's end A)"]], m["tag_end"]))
         cut, tw = row[col["Cut length (mm)"]], row[col["Twist (°)"]]
         if row[0] != m["label"] or not isinstance(cut, (int, float)) or abs(cut - m["cut_length_mm"]) > 1e-9 or abs(tw - m["twist_deg"]) > 1e-9:
             fail("Members: %s cut length/twist %r %r" % (m["label"], cut, tw))
