@@ -32,6 +32,7 @@ type htmlPage struct {
 	Previews   []template.HTML
 	MoreSheets int
 	MeanUtil   float64
+	CostNote   string
 }
 
 // WriteHTML writes report.html: one self-contained page (no scripts, no
@@ -39,7 +40,7 @@ type htmlPage struct {
 // node move, member twist and panel type, histograms, the type tables and
 // a preview of every stock sheet.
 func WriteHTML(w io.Writer, rep *Report) error {
-	pg := &htmlPage{R: rep}
+	pg := &htmlPage{R: rep, CostNote: CostNote}
 	pg.Plans = planViews(rep)
 	var flatB, flatA, twist, cut []float64
 	for _, p := range rep.Panels {
@@ -237,9 +238,9 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 {{with .R.PanelSpec}}{{if .BuildUp}}<tr><th>Panel build-up</th><td>{{.BuildUp}}</td></tr>{{end}}{{if .EdgeWork}}<tr><th>Edge work</th><td>{{.EdgeWork}}</td></tr>{{end}}{{if .Coating}}<tr><th>Coating</th><td>{{.Coating}}</td></tr>{{end}}{{if .HeatTreatment}}<tr><th>Heat treatment</th><td>{{.HeatTreatment}}</td></tr>{{end}}{{if .Grade}}<tr><th>Grade</th><td>{{.Grade}}</td></tr>{{end}}{{end}}
 </table>
 {{with .R.Warnings}}<h2>Warnings</h2><ul>{{range .}}<li>{{.}}</li>{{end}}</ul>{{end}}
-{{with .R.Cost}}<h2>Cost estimate ({{.Currency}})</h2><table><tr><th>Item</th><th>Quantity</th><th>Unit</th><th>Rate</th><th>Amount</th></tr>
-{{range .Lines}}<tr><td>{{.Item}}</td><td class="num">{{.Quantity}}</td><td>{{.Unit}}</td><td class="num">{{.Rate}}</td><td class="num">{{.Amount}}</td></tr>{{end}}
-<tr><th colspan="4">Total</th><th class="num">{{.Total}}</th></tr></table>{{end}}
+{{with .R.Cost}}<h2>Cost estimate ({{.Currency}})</h2><p>{{$.CostNote}}</p><table><tr><th>Item</th><th>Quantity</th><th>Unit</th><th>Rate</th><th>Amount</th><th>Kind</th></tr>
+{{range .Lines}}<tr><td>{{.Item}}</td><td class="num">{{.Quantity}}</td><td>{{.Unit}}</td><td class="num">{{.Rate}}</td><td class="num">{{.Amount}}</td><td>{{.Kind}}</td></tr>{{end}}
+<tr><th colspan="4">Total</th><th class="num">{{.Total}}</th><th></th></tr></table>{{end}}
 <h2>Plan views</h2>
 {{range .Plans}}<h3>{{.Title}}</h3><div class="legend">{{range .Legend}}<span><i style="background:{{.Colour}}"></i>{{.Text}}</span>{{end}}</div>{{.SVG}}{{end}}
 <h2>Distributions</h2>

@@ -256,5 +256,6 @@ type StockRow struct {
 	Name      string  `json:"name"`
 	Sheets    int     `json:"sheets"`
 	AreaBound int     `json:"area_bound"`
-	Cost      float64 `json:"cost"`
+	Price     float64 `json:"price"` // per sheet; 0 when the job gives none
+	Cost      float64 `json:"cost"`  // sheets × price
 }

@@ -125,7 +125,7 @@ func BuildReport(b *Bundle) *Report {
 			rep.Unplaced = append(rep.Unplaced, UnplacedRow{Panel: b.Flats[u.Part].Label, Reason: u.Reason})
 		}
 		for _, u := range nr.Stocks {
-			rep.Stocks = append(rep.Stocks, StockRow{Name: b.Stocks[u.Stock].Name, Sheets: u.Sheets, AreaBound: u.AreaBound, Cost: r(u.Cost, 2)})
+			rep.Stocks = append(rep.Stocks, StockRow{Name: b.Stocks[u.Stock].Name, Sheets: u.Sheets, AreaBound: u.AreaBound, Price: b.Stocks[u.Stock].Price, Cost: r(u.Cost, 2)})
 		}
 		rep.Counts.Sheets = len(nr.Sheets)
 		rep.Counts.Unplaced = len(nr.Unplaced)

@@ -346,10 +346,11 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("Total (kg)", rep.Weights.TotalKg) })
 	if rep.Cost != nil {
 		steps = append(steps, func() error { return head("Cost estimate (" + rep.Cost.Currency + ")") },
-			func() error { return put("Item", "Quantity", "Unit", "Rate", "Amount") })
+			func() error { return put(CostNote) },
+			func() error { return put("Item", "Quantity", "Unit", "Rate", "Amount", "Kind") })
 		for _, l := range rep.Cost.Lines {
 			l := l
-			steps = append(steps, func() error { return put(l.Item, l.Quantity, l.Unit, l.Rate, l.Amount) })
+			steps = append(steps, func() error { return put(l.Item, l.Quantity, l.Unit, l.Rate, l.Amount, l.Kind) })
 		}
 		steps = append(steps, func() error { return put("Total", nil, nil, nil, rep.Cost.Total) })
 	}

@@ -37,6 +37,9 @@ height_mm = 3210
 		{"no net", "[[stock]]\nwidth_mm = 1\nheight_mm = 1\n", "key net.file: missing"},
 		{"list without ids", base + "[supports]\nmode = \"list\"\n", "key supports.nodes"},
 		{"negative rate", base + "[rates]\nnode_each = -5\n", "key rates.node_each"},
+		{"negative type rate", base + "[rates]\nmember_type_each = -1\n", "job.toml:7: key rates.member_type_each: -1 must be between 0"},
+		{"unpriced sheets twice", base + "[rates]\nsheet_each = 100\nsheet_per_m2 = 5\n", "job.toml:8: key rates.sheet_per_m2: 5: give the material of unpriced sheet stock once"},
+		{"unknown rate", base + "[rates]\npanel_per_m = 5\n", "job.toml:7: key rates.panel_per_m: unknown key; did you mean rates.panel_per_m2?"},
 	}
 	for _, tc := range tests {
 		_, err := Parse([]byte(tc.text), "job.toml")
