@@ -23,7 +23,9 @@ func BuildReport(b *Bundle) *Report {
 	rep.Section = Section{WidthMM: s.Section.WidthMM, DepthMM: s.Section.DepthMM}
 	rep.Counts = Counts{Nodes: len(n.Nodes), Members: len(s.Members), Panels: len(n.Faces),
 		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), PanelTypes: len(b.PanelTypes),
-		MemberTypesBound: boundRow(s.MemberTypeBound), NodeTypesBound: boundRow(s.NodeTypeBound), PanelTypesBound: boundRow(b.PanelTypeBound)}
+		MemberTypesBound: boundRow(s.MemberTypeBound, "members", ""),
+		NodeTypesBound:   boundRow(s.NodeTypeBound, "nodes", "nodes with different numbers of members never share a type"),
+		PanelTypesBound:  boundRow(b.PanelTypeBound, "panels", "panels with different numbers of corners never share a type")}
 	pl := b.Planarize
 	rep.Planarity = Planarity{ToleranceMM: b.TolMM, Converged: pl.Converged, Iterations: pl.Iterations,
 		MaxMoveMM: r(pl.MaxMoveMM, 3), RMSMoveMM: r(pl.RMSMoveMM, 3),

@@ -293,14 +293,14 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("Members", c.Members) },
 		func() error { return put("Panels", c.Panels) },
 		func() error {
-			return put("Types (count, and fewest possible: a lower bound)", "count", "lower bound", "bound from")
+			return put("Types", "Count", "Fewest possible", "Why no grouping has fewer")
 		},
 		func() error {
-			return put("Member types", c.MemberTypes, c.MemberTypesBound.Count, c.MemberTypesBound.Quantity)
+			return put("Member types", c.MemberTypes, c.MemberTypesBound.Count, c.MemberTypesBound.Reason)
 		},
-		func() error { return put("Node types", c.NodeTypes, c.NodeTypesBound.Count, c.NodeTypesBound.Quantity) },
+		func() error { return put("Node types", c.NodeTypes, c.NodeTypesBound.Count, c.NodeTypesBound.Reason) },
 		func() error {
-			return put("Panel types", c.PanelTypes, c.PanelTypesBound.Count, c.PanelTypesBound.Quantity)
+			return put("Panel types", c.PanelTypes, c.PanelTypesBound.Count, c.PanelTypesBound.Reason)
 		},
 		func() error { return put("Stock sheets", c.Sheets) },
 		func() error { return put("Unplaced panels", c.Unplaced) },
