@@ -226,9 +226,9 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 <table>
 <tr><th>Job file</th><td>{{.R.Job}}</td></tr><tr><th>Net file</th><td>{{.R.Net}}</td></tr>
 {{range .R.Settings}}<tr><th>{{.Name}}</th><td>{{.Value}}</td></tr>{{end}}
-<tr><th>Nodes</th><td class="num">{{.R.Counts.Nodes}} in {{.R.Counts.NodeTypes}} types (no grouping can have fewer than {{.R.Counts.NodeTypesBound.Count}}: {{.R.Counts.NodeTypesBound.Reason}})</td></tr>
-<tr><th>Members</th><td class="num">{{.R.Counts.Members}} in {{.R.Counts.MemberTypes}} types (no grouping can have fewer than {{.R.Counts.MemberTypesBound.Count}}: {{.R.Counts.MemberTypesBound.Reason}})</td></tr>
-<tr><th>Panels</th><td class="num">{{.R.Counts.Panels}} in {{.R.Counts.PanelTypes}} types (no grouping can have fewer than {{.R.Counts.PanelTypesBound.Count}}: {{.R.Counts.PanelTypesBound.Reason}})</td></tr>
+<tr><th>Nodes</th><td class="num">{{.R.Counts.Nodes}} in {{.R.Counts.NodeTypes}} types ({{.R.Counts.NodeTypesBound.Reason}})</td></tr>
+<tr><th>Members</th><td class="num">{{.R.Counts.Members}} in {{.R.Counts.MemberTypes}} types ({{.R.Counts.MemberTypesBound.Reason}})</td></tr>
+<tr><th>Panels</th><td class="num">{{.R.Counts.Panels}} in {{.R.Counts.PanelTypes}} types ({{.R.Counts.PanelTypesBound.Reason}})</td></tr>
 <tr><th>Stock sheets</th><td class="num">{{.R.Counts.Sheets}} ({{.R.Counts.Unplaced}} panels unplaced)</td></tr>
 <tr><th>Flatness before / after (max, mm)</th><td class="num">{{.R.Planarity.FlatBeforeMM.Max}} / {{.R.Planarity.FlatAfterMM.Max}} (tolerance {{.R.Planarity.ToleranceMM}})</td></tr>
 <tr><th>Largest / RMS node move (mm)</th><td class="num">{{.R.Planarity.MaxMoveMM}} / {{.R.Planarity.RMSMoveMM}}</td></tr>

@@ -39,7 +39,7 @@ func boundReason(b geom.TypeBound, noun, apart string) string {
 		if parts == "" {
 			parts = noun
 		}
-		if t.Key != "" {
+		if t.Key != "" && t.Count > 1 {
 			return fmt.Sprintf("at least %s: by %s alone the %s need at least %s (values further apart than the tolerance cannot share a type)", types(b.Count), t.Key, parts, types(t.Count))
 		}
 		if t.Count == 1 {
@@ -50,7 +50,7 @@ func boundReason(b geom.TypeBound, noun, apart string) string {
 	each := make([]string, len(b.Terms))
 	for i, t := range b.Terms {
 		switch {
-		case t.Key != "":
+		case t.Key != "" && t.Count > 1:
 			each[i] = fmt.Sprintf("%s need at least %s (by %s alone)", t.Parts, types(t.Count), t.Key)
 		case t.Count == 1:
 			each[i] = fmt.Sprintf("%s need at least 1 type", t.Parts)
