@@ -68,16 +68,6 @@ func (rep *Report) buildBars(b *Bundle) []string {
 	return barOf
 }
 
-// barUse lists a bar's members in cutting order with their blanks, for a
-// schedule cell.
-func barUse(b BarRow) string {
-	parts := make([]string, len(b.Pieces))
-	for i, p := range b.Pieces {
-		parts[i] = fmt.Sprintf("%s %.2f", p.Member, p.BlankMM)
-	}
-	return strings.Join(parts, "; ")
-}
-
 // MaxBarChart caps the bars drawn on the report page; the schedule lists
 // them all.
 const MaxBarChart = 300

@@ -73,10 +73,11 @@ func (b *Bundle) specOf(typeName string) PanelSpec {
 	return b.PanelSpec
 }
 
-// Setting is one job setting shown in the summary.
+// Setting is one job setting shown in the summary: Value is a number
+// (float64 or int, in the unit the name gives) or text.
 type Setting struct {
 	Name  string `json:"name"`
-	Value string `json:"value"`
+	Value any    `json:"value"`
 }
 
 // Cost is the estimator's summary. Its lines sum to Total, and each

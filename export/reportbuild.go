@@ -127,7 +127,14 @@ func BuildReport(b *Bundle) *Report {
 			rep.Unplaced = append(rep.Unplaced, UnplacedRow{Panel: b.Flats[u.Part].Label, Reason: u.Reason})
 		}
 		for _, u := range nr.Stocks {
-			rep.Stocks = append(rep.Stocks, StockRow{Name: b.Stocks[u.Stock].Name, Sheets: u.Sheets, AreaBound: u.AreaBound, Price: b.Stocks[u.Stock].Price, Cost: r(u.Cost, 2)})
+			st := b.Stocks[u.Stock]
+			cuts := string(st.Cuts)
+			if cuts == "" {
+				cuts = "any"
+			}
+			rep.Stocks = append(rep.Stocks, StockRow{Name: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM, MarginMM: st.MarginMM,
+				SpacingMM: st.SpacingMM, Rotation: string(st.Rotation), Mirror: st.Mirror, Cuts: cuts, Count: st.Count,
+				Sheets: u.Sheets, AreaBound: u.AreaBound, Price: st.Price, Cost: r(u.Cost, 2)})
 		}
 		rep.Counts.Sheets = len(nr.Sheets)
 		rep.Counts.Unplaced = len(nr.Unplaced)

@@ -80,27 +80,26 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				}
 				return nil
 			}},
-		{SheetNodes, []string{"Label", "Id", "Type", "Members at node", "X (mm)", "Y (mm)", "Z (mm)", "Axis x", "Axis y", "Axis z",
-			"Support", "Move (mm)", "Move x (mm)", "Move y (mm)", "Move z (mm)", "Hub arms (member azimuth° elevation°)"}, len(rep.Nodes),
+		{SheetNodes, nodeHead(rep), len(rep.Nodes),
 			func(add func(row ...any) error) error {
 				for _, n := range rep.Nodes {
-					var arms []string
-					for _, a := range n.Arms {
-						arms = append(arms, fmt.Sprintf("%s %.3f %.3f", a.Member, a.AzimuthDeg, a.ElevationDeg))
-					}
 					sup := "no"
 					if n.Support {
 						sup = "yes"
 					}
-					if err := add(n.Label, n.ID, n.Type, n.MembersAtNode, n.Pos[0], n.Pos[1], n.Pos[2], n.Axis[0], n.Axis[1], n.Axis[2],
-						sup, n.MoveMM, n.Move[0], n.Move[1], n.Move[2], strings.Join(arms, "; ")); err != nil {
+					row := []any{n.Label, n.ID, n.Type, n.MembersAtNode, n.Pos[0], n.Pos[1], n.Pos[2], n.Axis[0], n.Axis[1], n.Axis[2],
+						sup, n.MoveMM, n.Move[0], n.Move[1], n.Move[2]}
+					for _, a := range n.Arms {
+						row = append(row, a.Member, a.AzimuthDeg, a.ElevationDeg)
+					}
+					if err := add(row...); err != nil {
 						return err
 					}
 				}
 				return nil
 			}},
 		{SheetMemberTypes, memberTypeHead, len(rep.MemberTypes), memberTypeRows(rep)},
-		{SheetNodeTypes, nodeTypeHead, len(rep.NodeTypes), nodeTypeRows(rep)},
+		{SheetNodeTypes, nodeTypeHead(rep), len(rep.NodeTypes), nodeTypeRows(rep)},
 		{SheetPanelTypes, panelTypeHead(rep), len(rep.PanelTypes), panelTypeRows(rep)},
 		{SheetSheets, []string{"Sheet", "Stock", "Width (mm)", "Height (mm)", "Parts", "Utilization (%)", "Cuts", "Cut length (m)", "Panels"},
 			len(rep.Sheets) + len(rep.Unplaced),
@@ -137,11 +136,14 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				}
 				return nil
 			}},
-		{SheetBars, []string{"Bar", "Stock", "Stock length (mm)", "Members", "Members in cutting order (label, blank mm)",
-			"Used (mm)", "Offcut (mm)", "Waste (mm)"}, len(rep.Bars),
+		{SheetBars, barHead(rep), len(rep.Bars),
 			func(add func(row ...any) error) error {
 				for _, b := range rep.Bars {
-					if err := add(b.Name, b.Stock, b.LengthMM, len(b.Pieces), barUse(b), b.UsedMM, b.OffcutMM, b.WasteMM); err != nil {
+					row := []any{b.Name, b.Stock, b.LengthMM, len(b.Pieces), b.UsedMM, b.OffcutMM, b.WasteMM}
+					for _, p := range b.Pieces {
+						row = append(row, p.Member, p.BlankMM)
+					}
+					if err := add(row...); err != nil {
 						return err
 					}
 				}
@@ -165,6 +167,35 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 		return err
 	}
 	return writeSortedZip(w, &buf, buf.size)
+}
+
+// nodeHead returns the Nodes sheet's header: a member, azimuth and
+// elevation column per arm, as many as the most members at a node.
+func nodeHead(rep *Report) []string {
+	head := []string{"Label", "Id", "Type", "Members at node", "X (mm)", "Y (mm)", "Z (mm)", "Axis x", "Axis y", "Axis z",
+		"Support", "Move (mm)", "Move x (mm)", "Move y (mm)", "Move z (mm)"}
+	k := 0
+	for _, n := range rep.Nodes {
+		k = max(k, len(n.Arms))
+	}
+	for i := 1; i <= k; i++ {
+		head = append(head, fmt.Sprintf("Arm %d member", i), fmt.Sprintf("Arm %d azimuth (°)", i), fmt.Sprintf("Arm %d elevation (°)", i))
+	}
+	return head
+}
+
+// barHead returns the Bars sheet's header: a member and blank length
+// column per piece in cutting order, as many as the fullest bar holds.
+func barHead(rep *Report) []string {
+	head := []string{"Bar", "Stock", "Stock length (mm)", "Members", "Used (mm)", "Offcut (mm)", "Waste (mm)"}
+	k := 0
+	for _, b := range rep.Bars {
+		k = max(k, len(b.Pieces))
+	}
+	for i := 1; i <= k; i++ {
+		head = append(head, fmt.Sprintf("Piece %d member", i), fmt.Sprintf("Piece %d blank length (mm)", i))
+	}
+	return head
 }
 
 // partList joins part labels for one cell; a list too long for a cell is
@@ -313,9 +344,18 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("RMS node move (mm)", rep.Planarity.RMSMoveMM) },
 		func() error { return put("Largest |twist| (°)", rep.Planarity.MaxTwistDeg) },
 	)
+	steps = append(steps, func() error { return head("Sheet stock") },
+		func() error {
+			return put("Stock", "Width (mm)", "Height (mm)", "Edge margin (mm)", "Spacing (mm)", "Turns allowed", "Mirrored parts",
+				"Cuts", "In stock (0: no limit)", "Price per sheet", "Sheets used", "Fewest sheets by area")
+		})
 	for _, s := range rep.Stocks {
 		steps = append(steps, func() error {
-			return put("Stock "+s.Name+": sheets / fewest sheets by area", s.Sheets, s.AreaBound)
+			mirror := "no"
+			if s.Mirror {
+				mirror = "yes"
+			}
+			return put(s.Name, s.WidthMM, s.HeightMM, s.MarginMM, s.SpacingMM, s.Rotation, mirror, s.Cuts, s.Count, s.Price, s.Sheets, s.AreaBound)
 		})
 	}
 	steps = append(steps, func() error { return head("Bars (member stock)") })
@@ -369,7 +409,7 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 	if err := f.SetColWidth(sh, "A", "A", 34); err != nil {
 		return err
 	}
-	return f.SetColWidth(sh, "B", "E", 18)
+	return f.SetColWidth(sh, "B", "L", 18)
 }
 
 // setDimension records the range a sheet uses, A1 to column cols, row

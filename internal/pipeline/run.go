@@ -341,35 +341,37 @@ func typeSpecs(j *job.Job) map[string]export.PanelSpec {
 	return m
 }
 
-// settings lists the job's settings for the summary sheet.
+// settings lists the job's settings for the summary sheet: numbers as
+// numbers, units in the names. The stock sizes are in the report's stock
+// rows.
 func settings(j *job.Job) []export.Setting {
-	f := func(v float64) string { return fmt.Sprintf("%g", v) }
-	s := []export.Setting{
+	yes := func(b bool) string {
+		if b {
+			return "yes"
+		}
+		return "no"
+	}
+	return []export.Setting{
 		{Name: "Net unit", Value: j.Net.Unit},
 		{Name: "Supports", Value: j.Supports.Mode},
-		{Name: "Flatness tolerance (mm)", Value: f(j.Flatness.TolMM)},
-		{Name: "Allowed node move (mm)", Value: f(j.Flatness.MaxMoveMM)},
-		{Name: "Fairness", Value: f(j.Flatness.Fairness)},
+		{Name: "Flatness tolerance (mm)", Value: j.Flatness.TolMM},
+		{Name: "Allowed node move (mm)", Value: j.Flatness.MaxMoveMM},
+		{Name: "Fairness", Value: j.Flatness.Fairness},
 		{Name: "Node axes", Value: j.Nodes.Axis},
-		{Name: "Hub radius (mm)", Value: f(j.Nodes.HubRadiusMM)},
-		{Name: "Member section (mm)", Value: f(j.Member.WidthMM) + " x " + f(j.Member.DepthMM)},
+		{Name: "Hub radius (mm)", Value: j.Nodes.HubRadiusMM},
+		{Name: "Member width (mm)", Value: j.Member.WidthMM},
+		{Name: "Member depth (mm)", Value: j.Member.DepthMM},
 		{Name: "Panel material", Value: j.Panel.Material},
-		{Name: "Panel thickness (mm)", Value: f(j.Panel.ThicknessMM)},
-		{Name: "Panel edge inset (mm)", Value: f(j.Panel.EdgeInsetMM)},
-		{Name: "Mirrored panels allowed", Value: fmt.Sprint(j.Panel.Mirror)},
-		{Name: "Bay size (mm)", Value: f(j.Nodes.BayMM)},
-		{Name: "Type tolerances", Value: fmt.Sprintf("%g mm, %g°, panels %g mm", j.Types.LengthTolMM, j.Types.AngleTolDeg, j.Types.PanelTolMM)},
+		{Name: "Panel thickness (mm)", Value: j.Panel.ThicknessMM},
+		{Name: "Panel edge inset (mm)", Value: j.Panel.EdgeInsetMM},
+		{Name: "Mirrored panels allowed", Value: yes(j.Panel.Mirror)},
+		{Name: "Bay size (mm)", Value: j.Nodes.BayMM},
+		{Name: "Type tolerance, member cut length (mm)", Value: j.Types.LengthTolMM},
+		{Name: "Type tolerance, angles (°)", Value: j.Types.AngleTolDeg},
+		{Name: "Type tolerance, panel edges and diagonals (mm)", Value: j.Types.PanelTolMM},
+		{Name: "Nesting search steps", Value: j.NestOptions().Steps},
+		{Name: "Nesting time limit (s, 0: none)", Value: j.Nesting.Seconds},
 	}
-	for _, st := range j.Stock {
-		s = append(s, export.Setting{Name: "Stock " + st.Name, Value: fmt.Sprintf("%g x %g mm, margin %g, spacing %g, rotation %s, mirror %v, cuts %s, count %d, price %g",
-			st.WidthMM, st.HeightMM, st.MarginMM, st.SpacingMM, st.Rotation, st.Mirror, st.Cuts, st.Count, st.Price)})
-	}
-	limit := "none"
-	if j.Nesting.Seconds > 0 {
-		limit = fmt.Sprintf("%g s", j.Nesting.Seconds)
-	}
-	s = append(s, export.Setting{Name: "Nesting search", Value: fmt.Sprintf("%d steps, time limit %s", j.NestOptions().Steps, limit)})
-	return s
 }
 
 // cost turns the job's rates into a cost summary (nil without rates).

@@ -6,6 +6,7 @@ Usage: readback_xlsx.py OUTPUT_FOLDER
 """
 import json
 import os
+import re
 import sys
 
 import openpyxl
@@ -84,7 +85,64 @@ def main(out):
     if len(bars) != len(rep["bars"]) or sum(r[3] for r in bars) != sum(len(b["pieces"]) for b in rep["bars"]):
         fail("Bars: %d rows for %d bars, or pieces differ" % (len(bars), len(rep["bars"])))
     check_cost(summary, rep)
+    check_numbers(wb)
     print("ok")
+
+
+# A header or setting name with a unit in brackets: its values are numbers.
+UNIT = re.compile(r"\((mm|°|m²|m|kg|%|s)[,)]")
+
+
+def is_number(v):
+    return isinstance(v, (int, float)) and not isinstance(v, bool)
+
+
+def check_numbers(wb):
+    """Numbers are numbers: in every table, each cell under a header with a
+    unit is a number or empty; in the summary, each setting whose name has
+    a unit has a number beside it, and so has each cell of the stock table
+    under a header with a unit."""
+    seen = 0
+    for name in wb.sheetnames:
+        if name == "Summary":
+            continue
+        header, data = rows(wb[name])
+        cols = [i for i, h in enumerate(header) if h and UNIT.search(h)]
+        for r in data:
+            for i in cols:
+                if r[i] is not None and not is_number(r[i]):
+                    fail("%s: %r under %r is not a number" % (name, r[i], header[i]))
+                seen += 1
+        for i, h in enumerate(header):
+            if h and re.search(r"\d+(\.\d+)?°? to -?\d", str(h)):
+                fail("%s: a range in one header %r" % (name, h))
+    summary = list(wb["Summary"].iter_rows(values_only=True))
+    header = None
+    for r in summary:
+        if r[0] == "Stock" and r[1] == "Width (mm)":
+            header = r
+            continue
+        if header is not None:
+            if r[0] is None:
+                header = None
+                continue
+            for i, h in enumerate(header):
+                if h and UNIT.search(h) and not is_number(r[i]):
+                    fail("Summary stock %s: %r under %r is not a number" % (r[0], r[i], h))
+            continue
+        if isinstance(r[0], str) and UNIT.search(r[0]) and r[1] is not None and not is_number(r[1]):
+            fail("Summary: %r is %r, not a number" % (r[0], r[1]))
+    for name in wb.sheetnames:
+        it = wb[name].iter_rows(values_only=True)
+        head = next(it)
+        for r in it:
+            for h, v in zip(head, r):
+                if h in ("Id", "Stock"):
+                    continue  # input ids and stock names are the job's text (a CSV net may say N12, a bar stock "12 m")
+                if isinstance(v, str) and re.fullmatch(r"-?\d+(\.\d+)?( ?(mm|°|m))?( to -?\d+(\.\d+)?°?)?", v.strip()):
+                    fail("%s: number written as text %r" % (name, v))
+    if seen == 0:
+        fail("no cells with units found")
 
 
 def check_cost(summary, rep):
