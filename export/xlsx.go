@@ -178,10 +178,7 @@ func nodeHead(rep *Report) []string {
 	for _, n := range rep.Nodes {
 		k = max(k, len(n.Arms))
 	}
-	for i := 1; i <= k; i++ {
-		head = append(head, fmt.Sprintf("Arm %d member", i), fmt.Sprintf("Arm %d azimuth (°)", i), fmt.Sprintf("Arm %d elevation (°)", i))
-	}
-	return head
+	return append(head, numbered(k, "Arm %d member", "Arm %d azimuth (°)", "Arm %d elevation (°)")...)
 }
 
 // barHead returns the Bars sheet's header: a member and blank length
@@ -192,10 +189,19 @@ func barHead(rep *Report) []string {
 	for _, b := range rep.Bars {
 		k = max(k, len(b.Pieces))
 	}
+	return append(head, numbered(k, "Piece %d member", "Piece %d blank length (mm)")...)
+}
+
+// numbered returns the column names for k repeated groups of columns:
+// each format with 1, then each with 2, and so on.
+func numbered(k int, formats ...string) []string {
+	out := make([]string, 0, k*len(formats))
 	for i := 1; i <= k; i++ {
-		head = append(head, fmt.Sprintf("Piece %d member", i), fmt.Sprintf("Piece %d blank length (mm)", i))
+		for _, f := range formats {
+			out = append(out, fmt.Sprintf(f, i))
+		}
 	}
-	return head
+	return out
 }
 
 // partList joins part labels for one cell; a list too long for a cell is

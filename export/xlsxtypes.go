@@ -36,10 +36,7 @@ func nodeTypeHead(rep *Report) []string {
 	for _, t := range rep.NodeTypes {
 		k = max(k, len(t.Arms))
 	}
-	for i := 1; i <= k; i++ {
-		head = append(head, fmt.Sprintf("Arm %d azimuth from arm 1 (°)", i), fmt.Sprintf("Arm %d elevation (°)", i))
-	}
-	return head
+	return append(head, numbered(k, "Arm %d azimuth from arm 1 (°)", "Arm %d elevation (°)")...)
 }
 
 func nodeTypeRows(rep *Report) func(add func(row ...any) error) error {
