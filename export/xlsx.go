@@ -23,6 +23,7 @@ const (
 	SheetSheets      = "Sheets"
 	SheetCuts        = "Cuts"
 	SheetBars        = "Bars"
+	SheetGlossary    = "Glossary"
 )
 
 // WriteSchedule writes schedule.xlsx from the report model: a summary with
@@ -144,6 +145,15 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 						row = append(row, p.Member, p.BlankMM)
 					}
 					if err := add(row...); err != nil {
+						return err
+					}
+				}
+				return nil
+			}},
+		{SheetGlossary, []string{"Term", "Meaning"}, len(Glossary),
+			func(add func(row ...any) error) error {
+				for _, g := range Glossary {
+					if err := add(g.Term, g.Meaning); err != nil {
 						return err
 					}
 				}
@@ -317,7 +327,7 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("CAUTION", rep.Caution) },
 		func() error { return head("Job") },
 		func() error { return put("Job file", rep.Job) },
-		func() error { return put("Net file", rep.Net) },
+		func() error { return put("Geometry file", rep.Net) },
 	}
 	for _, s := range rep.Settings {
 		s := s
@@ -342,7 +352,7 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("Stock sheets", c.Sheets) },
 		func() error { return put("Unplaced panels", c.Unplaced) },
 		func() error { return put("Bars", len(rep.Bars)) },
-		func() error { return head("Planarity") },
+		func() error { return head("Making the panels flat") },
 		func() error { return put("Flatness tolerance (mm)", rep.Planarity.ToleranceMM) },
 		func() error { return put("Flatness before, max (mm)", rep.Planarity.FlatBeforeMM.Max) },
 		func() error { return put("Flatness after, max (mm)", rep.Planarity.FlatAfterMM.Max) },

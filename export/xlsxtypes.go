@@ -10,7 +10,7 @@ import (
 
 var memberTypeHead = []string{"Type", "Count", "Cut length (mm)", "Blank length (mm)",
 	"A mitre (°)", "A bevel (°)", "A setback (mm)", "B mitre (°)", "B bevel (°)", "B setback (mm)", "Twist (°)",
-	"Largest deviation (mm)", "Largest deviation (°)", "Total cut length (m)", "Total weight (kg)",
+	"Largest difference from type (mm)", "Largest difference from type (°)", "Total cut length (m)", "Total weight (kg)",
 	"Members", "Members read from end B"}
 
 func memberTypeRows(rep *Report) func(add func(row ...any) error) error {
@@ -31,7 +31,7 @@ func memberTypeRows(rep *Report) func(add func(row ...any) error) error {
 // arm 1) and an elevation column per arm, as many as the most members at
 // a node.
 func nodeTypeHead(rep *Report) []string {
-	head := []string{"Type", "Count", "Members at node", "Largest deviation (°)", "Nodes"}
+	head := []string{"Type", "Count", "Members at node", "Largest difference from type (°)", "Nodes"}
 	k := 0
 	for _, t := range rep.NodeTypes {
 		k = max(k, len(t.Arms))
@@ -71,7 +71,7 @@ func panelTypeHead(rep *Report) []string {
 	for i := 1; i <= k; i++ {
 		head = append(head, fmt.Sprintf("Bevel %d least (°)", i), fmt.Sprintf("Bevel %d most (°)", i))
 	}
-	return append(head, "Cut area (m²)", "Cut perimeter (mm)", "Largest deviation (mm)", "Largest deviation (°)",
+	return append(head, "Cut area (m²)", "Cut perimeter (mm)", "Largest difference from type (mm)", "Largest difference from type (°)",
 		"Total area (m²)", "Total weight (kg)", "Build-up", "Edge work", "Coating", "Heat treatment", "Grade", "Panels", "Panels turned over")
 }
 

@@ -352,11 +352,11 @@ func settings(j *job.Job) []export.Setting {
 		return "no"
 	}
 	return []export.Setting{
-		{Name: "Net unit", Value: j.Net.Unit},
+		{Name: "Geometry unit", Value: j.Net.Unit},
 		{Name: "Supports", Value: j.Supports.Mode},
 		{Name: "Flatness tolerance (mm)", Value: j.Flatness.TolMM},
 		{Name: "Allowed node move (mm)", Value: j.Flatness.MaxMoveMM},
-		{Name: "Fairness", Value: j.Flatness.Fairness},
+		{Name: "Smooth moves against small moves (fairness)", Value: j.Flatness.Fairness},
 		{Name: "Node axes", Value: j.Nodes.Axis},
 		{Name: "Hub radius (mm)", Value: j.Nodes.HubRadiusMM},
 		{Name: "Member width (mm)", Value: j.Member.WidthMM},

@@ -27,7 +27,7 @@ def main(out):
     with open(os.path.join(out, "report.json")) as f:
         rep = json.load(f)
     wb = openpyxl.load_workbook(os.path.join(out, "schedule.xlsx"))
-    want = ["Summary", "Panels", "Members", "Nodes", "Member types", "Node types", "Panel types", "Sheets", "Cuts", "Bars"]
+    want = ["Summary", "Panels", "Members", "Nodes", "Member types", "Node types", "Panel types", "Sheets", "Cuts", "Bars", "Glossary"]
     if wb.sheetnames != want:
         fail("sheets %s" % wb.sheetnames)
     summary = [r for r in wb["Summary"].iter_rows(values_only=True)]
