@@ -76,7 +76,7 @@ func (s *MemberSummary) WriteText(w io.Writer) {
 
 // WriteText writes the report's summary for a terminal.
 func (r *PlanarizeReport) WriteText(w io.Writer) {
-	fmt.Fprintf(w, "planarized %s: %d iterations\n", r.Net, r.Iterations)
+	fmt.Fprintf(w, "made the panels of %s flat: %d iterations\n", r.Net, r.Iterations)
 	fmt.Fprintf(w, "  supports     %d nodes held fixed\n", r.Supports)
 	fmt.Fprintf(w, "  node moves   max %.3f mm, RMS %.3f mm\n", r.MaxMoveMM, r.RMSMoveMM)
 	fmt.Fprintf(w, "  flatness     before min %.3f  median %.3f  max %.3f mm\n", r.FlatBefore.Min, r.FlatBefore.Median, r.FlatBefore.Max)
