@@ -224,7 +224,7 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 <p class="caution">Caution: {{.R.Caution}}</p>
 <h2>Summary</h2>
 <table>
-<tr><th>Job file</th><td>{{.R.Job}}</td></tr><tr><th>Net file</th><td>{{.R.Net}}</td></tr>
+<tr><th>Job file</th><td>{{.R.Job}}</td></tr><tr><th>Geometry file</th><td>{{.R.Net}}</td></tr>
 {{range .R.Settings}}<tr><th>{{.Name}}</th><td>{{.Value}}</td></tr>{{end}}
 <tr><th>Nodes</th><td class="num">{{.R.Counts.Nodes}} in {{.R.Counts.NodeTypes}} types ({{.R.Counts.NodeTypesBound.Reason}})</td></tr>
 <tr><th>Members</th><td class="num">{{.R.Counts.Members}} in {{.R.Counts.MemberTypes}} types ({{.R.Counts.MemberTypesBound.Reason}})</td></tr>

@@ -382,13 +382,18 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 	for _, b := range rep.Bars {
 		stockMM, offcutMM, wasteMM = stockMM+b.LengthMM, offcutMM+b.OffcutMM, wasteMM+b.WasteMM
 	}
+	if len(rep.BarStocks) > 0 {
+		steps = append(steps, func() error {
+			return put("Bar stock", "Length (mm)", "Kerf (mm)", "Trim at each end (mm)", "Price per bar", "Bars used", "Fewest bars by length")
+		})
+	}
 	for _, b := range rep.BarStocks {
 		steps = append(steps, func() error {
-			return put(fmt.Sprintf("Bars %s (%g mm): bars / fewest bars by length", b.Name, b.LengthMM), b.Bars, b.FewestByLength)
+			return put(b.Name, b.LengthMM, b.KerfMM, b.TrimMM, b.Price, b.Bars, b.FewestByLength)
 		})
 	}
 	if len(rep.BarStocks) > 0 {
-		steps = append(steps,
+		steps = append(steps, func() error { return put() },
 			func() error { return put("Bar stock length (m)", r(stockMM/1000, 3)) },
 			func() error { return put("Offcuts (m)", r(offcutMM/1000, 3)) },
 			func() error { return put("Waste: kerfs, trims, slivers (m)", r(wasteMM/1000, 3)) })

@@ -100,8 +100,8 @@ def is_number(v):
 def check_numbers(wb):
     """Numbers are numbers: in every table, each cell under a header with a
     unit is a number or empty; in the summary, each setting whose name has
-    a unit has a number beside it, and so has each cell of the stock table
-    under a header with a unit."""
+    a unit has a number beside it, and so has each cell of the sheet and bar
+    stock tables under a header with a unit."""
     seen = 0
     for name in wb.sheetnames:
         if name == "Summary":
@@ -117,9 +117,9 @@ def check_numbers(wb):
             if h and re.search(r"\d+(\.\d+)?°? to -?\d", str(h)):
                 fail("%s: a range in one header %r" % (name, h))
     summary = list(wb["Summary"].iter_rows(values_only=True))
-    header = None
+    header, tables = None, 0
     for r in summary:
-        if r[0] == "Stock" and r[1] == "Width (mm)":
+        if (r[0], r[1]) in (("Stock", "Width (mm)"), ("Bar stock", "Length (mm)")):
             header = r
             continue
         if header is not None:
@@ -129,6 +129,7 @@ def check_numbers(wb):
             for i, h in enumerate(header):
                 if h and UNIT.search(h) and not is_number(r[i]):
                     fail("Summary stock %s: %r under %r is not a number" % (r[0], r[i], h))
+                tables += 1
             continue
         if isinstance(r[0], str) and UNIT.search(r[0]) and r[1] is not None and not is_number(r[1]):
             fail("Summary: %r is %r, not a number" % (r[0], r[1]))
@@ -136,13 +137,13 @@ def check_numbers(wb):
         it = wb[name].iter_rows(values_only=True)
         head = next(it)
         for r in it:
-            for h, v in zip(head, r):
-                if h in ("Id", "Stock"):
-                    continue  # input ids and stock names are the job's text (a CSV net may say N12, a bar stock "12 m")
+            for c, (h, v) in enumerate(zip(head, r)):
+                if h in ("Id", "Stock") or (name == "Summary" and c == 0):
+                    continue  # input ids, names and stock names are the job's text (a CSV net may say N12, a bar stock "12 m")
                 if isinstance(v, str) and re.fullmatch(r"-?\d+(\.\d+)?( ?(mm|°|m))?( to -?\d+(\.\d+)?°?)?", v.strip()):
                     fail("%s: number written as text %r" % (name, v))
-    if seen == 0:
-        fail("no cells with units found")
+    if seen == 0 or tables == 0:
+        fail("no cells with units found (%d in tables, %d in the summary's stock tables)" % (seen, tables))
 
 
 def check_cost(summary, rep):
