@@ -254,12 +254,12 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 <details><summary>Panel types: {{len .R.PanelTypes}} for {{.R.Counts.Panels}} panels</summary>
 <table><tr><th>Type</th><th>Count</th><th>Cut edges (mm)</th><th>Corner angles (°)</th><th>Area (m²)</th><th>Largest difference (mm / °)</th><th>Total area (m²)</th></tr>{{range .R.PanelTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{range .EdgesMM}}{{.}} {{end}}</td><td class="num">{{range .AnglesDeg}}{{.}} {{end}}</td><td class="num">{{.AreaM2}}</td><td class="num">{{.MaxDevMM}} / {{.MaxDevDeg}}</td><td class="num">{{.TotalAreaM2}}</td></tr>{{end}}</table></details>
 <h2>Stock sheets</h2>
-<table><tr><th>Stock</th><th>Sheets</th><th>Fewest sheets by area</th><th>Cost</th></tr>{{range .R.Stocks}}<tr><td>{{.Name}}</td><td class="num">{{.Sheets}}</td><td class="num">{{.AreaBound}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
+<table><tr><th>Stock</th><th>Sheets</th><th>Fewest sheets by area</th><th>Sheets × price</th></tr>{{range .R.Stocks}}<tr><td>{{.Name}}</td><td class="num">{{.Sheets}}</td><td class="num">{{.AreaBound}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
 {{with .R.Unplaced}}<h3>Unplaced panels</h3><ul>{{range .}}<li>{{.Panel}}: {{.Reason}}</li>{{end}}</ul>{{end}}
 <p>Mean utilization of the sheets shown: {{printf "%.1f" .MeanUtil}} %.{{if .MoreSheets}} {{.MoreSheets}} more sheets are not previewed here; every sheet is in the sheets folder.{{end}}</p>
 <div class="sheets">{{range .Previews}}{{.}}{{end}}</div>
 <h2>Bars</h2>
-{{if .R.BarStocks}}<table><tr><th>Bar stock</th><th>Length (mm)</th><th>Bars</th><th>Fewest bars by length</th><th>Cost</th></tr>{{range .R.BarStocks}}<tr><td>{{.Name}}</td><td class="num">{{.LengthMM}}</td><td class="num">{{.Bars}}</td><td class="num">{{.FewestByLength}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
+{{if .R.BarStocks}}<table><tr><th>Bar stock</th><th>Length (mm)</th><th>Bars</th><th>Fewest bars by length</th><th>Bars × price</th></tr>{{range .R.BarStocks}}<tr><td>{{.Name}}</td><td class="num">{{.LengthMM}}</td><td class="num">{{.Bars}}</td><td class="num">{{.FewestByLength}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
 <p>Each bar as cut, members in cutting order (grey: offcut, red: kerfs, trims and slivers).{{if .MoreBars}} {{.MoreBars}} more bars are in the schedule's Bars sheet.{{end}}</p>
 {{.BarChart}}{{else}}<p>The job gives no bar stock, so there is no cutting plan.</p>{{end}}
 <p class="caution">Caution: {{.R.Caution}}</p>
