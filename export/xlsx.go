@@ -256,6 +256,14 @@ func writeTable(f *excelize.File, sheet, table string, header []string, n int, b
 	if err := sw.SetColWidth(1, len(header), 14); err != nil {
 		return err
 	}
+	if sheet == SheetGlossary { // a column of sentences
+		if err := sw.SetColWidth(1, 1, 24); err != nil {
+			return err
+		}
+		if err := sw.SetColWidth(2, 2, 150); err != nil {
+			return err
+		}
+	}
 	head := make([]any, len(header))
 	for i, h := range header {
 		head[i] = excelize.Cell{StyleID: bold, Value: h}
