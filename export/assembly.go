@@ -78,7 +78,7 @@ func WriteAssemblyDXF(w io.Writer, rep *Report) error {
 		return err
 	}
 	layers := []dxfLayer{{LayerGridText, color.Magenta, nil}, {LayerPlanFrame, color.Grey128, nil},
-		{LayerPlanMember, color.White, nil}, {LayerPlanPanel, color.Grey128, nil}, {LayerPlanBar, color.Cyan, nil},
+		{LayerPlanMember, color.White, nil}, {LayerPlanPanel, color.Grey128, nil}, {LayerPlanTop, color.Cyan, nil},
 		{LayerNodeMark, color.Red, nil}, {LayerNodeLabel, color.Red, nil}, {LayerNodeInfo, color.Red, nil},
 		{LayerMemberLabel, color.Yellow, nil}, {LayerPanelLabel, color.Green, nil}, {LayerLeader, color.Grey128, nil},
 		{Layer3DMember, color.Blue, nil}, {LayerLegend, color.White, nil}, {LayerTitle, color.White, nil},
@@ -151,7 +151,7 @@ func drawAssembly(d *dxfDoc, rep *Report, m *siteModel, ps planScale, pl *assemb
 		add(func() error { return closedPoly(d, pts) })
 	}
 	if rep.Section.WidthMM > 0 {
-		layer(LayerPlanBar)
+		layer(LayerPlanTop)
 		for _, mb := range rep.Members {
 			add(func() error {
 				return closedPoly(d, barOutline(mb, m.pos(mb.NodeA), m.pos(mb.NodeB), rep.Section.WidthMM))

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"html"
 	"html/template"
+	"strconv"
 	"strings"
 )
 
@@ -38,8 +39,13 @@ type BarPieceRow struct {
 	BlankMM float64 `json:"blank_length_mm"`
 }
 
-// BarName numbers bar i of n: B-001, B-002, … (at least three digits).
-func BarName(i, n int) string { return "B-" + fmt.Sprintf("%0*d", max(3, len(fmt.Sprint(n))), i+1) }
+// BarName names bar i of n, of the given length: its length in metres,
+// then its number among all bars (at least three digits), 12m-001,
+// 6m-002, … A name starting with a digit cannot be read as a bay (A1,
+// C3) or a part label (C3-07).
+func BarName(i, n int, lengthMM float64) string {
+	return strconv.FormatFloat(lengthMM/1000, 'f', -1, 64) + "m-" + fmt.Sprintf("%0*d", max(3, len(fmt.Sprint(n))), i+1)
+}
 
 // buildBars fills the report's cutting plan and returns each member's bar
 // name.
@@ -57,7 +63,7 @@ func (rep *Report) buildBars(b *Bundle) []string {
 	}
 	for i, bar := range plan.Bars {
 		s := b.BarStocks[bar.Stock]
-		row := BarRow{Name: BarName(i, len(plan.Bars)), Stock: s.Name, LengthMM: s.LengthMM,
+		row := BarRow{Name: BarName(i, len(plan.Bars), s.LengthMM), Stock: s.Name, LengthMM: s.LengthMM,
 			UsedMM: r(bar.UsedMM, lenDigits), OffcutMM: r(bar.OffcutMM, lenDigits), WasteMM: r(bar.WasteMM, lenDigits)}
 		for _, p := range bar.Pieces {
 			row.Pieces = append(row.Pieces, BarPieceRow{Member: b.Blanks[p].Label, BlankMM: r(b.Blanks[p].LengthMM, lenDigits)})
@@ -66,16 +72,6 @@ func (rep *Report) buildBars(b *Bundle) []string {
 		rep.Bars = append(rep.Bars, row)
 	}
 	return barOf
-}
-
-// barUse lists a bar's members in cutting order with their blanks, for a
-// schedule cell.
-func barUse(b BarRow) string {
-	parts := make([]string, len(b.Pieces))
-	for i, p := range b.Pieces {
-		parts[i] = fmt.Sprintf("%s %.2f", p.Member, p.BlankMM)
-	}
-	return strings.Join(parts, "; ")
 }
 
 // MaxBarChart caps the bars drawn on the report page; the schedule lists

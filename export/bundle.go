@@ -80,21 +80,37 @@ func (b *Bundle) specOf(typeName string) PanelSpec {
 	return b.PanelSpec
 }
 
-// Setting is one job setting shown in the summary.
+// Setting is one job setting shown in the summary: Value is a number
+// (float64 or int, in the unit the name gives) or text.
 type Setting struct {
 	Name  string `json:"name"`
-	Value string `json:"value"`
+	Value any    `json:"value"`
 }
 
-// Cost is the estimator's summary.
+// Cost is the estimator's summary. Its lines sum to Total, and each
+// quantity is charged once: material lines charge the stock bought,
+// making lines the processing only, setup lines each distinct type.
 type Cost struct {
 	Currency string     `json:"currency"`
 	Lines    []CostLine `json:"lines"`
 	Total    float64    `json:"total"`
 }
 
-// CostLine is one line of the cost summary.
+// CostNote says, beside every cost estimate, what each kind of line covers.
+const CostNote = "Each quantity is charged once. Material: the bars and sheets bought, at their prices (or the job's material rates where a stock has no price). " +
+	"Making: cutting, end cuts and edge work only, by cut length or cut area; nodes supplied and made. Setup: setup and drawing per distinct type. The lines add up to the total."
+
+// Kinds of cost line.
+const (
+	CostMaterial = "material" // stock bought: bars, sheets
+	CostMaking   = "making"   // processing: cutting, end cuts, edge work; nodes supplied and made
+	CostSetup    = "setup"    // setup and drawing, per distinct type
+)
+
+// CostLine is one line of the cost summary: Amount is Quantity × Rate
+// rounded to the cent.
 type CostLine struct {
+	Kind     string  `json:"kind"`
 	Item     string  `json:"item"`
 	Quantity float64 `json:"quantity"`
 	Unit     string  `json:"unit"`

@@ -11,9 +11,9 @@ const (
 	LayerNodeLabel   = "PQ-NODE-LABEL"
 	LayerMemberLabel = "PQ-MEMBER-LABEL"
 	LayerPanelLabel  = "PQ-PANEL-LABEL"
-	Layer3DMember    = "PQ-3D-MEMBER" // member lines in space
-	LayerPlanBar     = "PQ-PLAN-BAR"  // top face of each member between its hub cuts, seen from above
-	LayerTitle       = "PQ-TITLE"     // title and caution
+	Layer3DMember    = "PQ-3D-MEMBER"       // member lines in space
+	LayerPlanTop     = "PQ-PLAN-MEMBER-TOP" // top face of each member between its hub cuts, seen from above
+	LayerTitle       = "PQ-TITLE"           // title and caution
 )
 
 // maxWarningLines is the most warnings a drawing's title block lists;

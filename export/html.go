@@ -32,6 +32,7 @@ type htmlPage struct {
 	Previews   []template.HTML
 	MoreSheets int
 	MeanUtil   float64
+	CostNote   string
 }
 
 // WriteHTML writes report.html: one self-contained page (no scripts, no
@@ -39,7 +40,7 @@ type htmlPage struct {
 // node move, member twist and panel type, histograms, the type tables and
 // a preview of every stock sheet.
 func WriteHTML(w io.Writer, rep *Report) error {
-	pg := &htmlPage{R: rep}
+	pg := &htmlPage{R: rep, CostNote: CostNote}
 	pg.Plans = planViews(rep)
 	var flatB, flatA, twist, cut []float64
 	for _, p := range rep.Panels {
@@ -55,8 +56,8 @@ func WriteHTML(w io.Writer, rep *Report) error {
 		v        []float64
 		c        color.RGBA
 	}{
-		{"Flatness before planarization", "flatness deviation (mm)", flatB, color.RGBA{R: 200, G: 150, B: 90, A: 255}},
-		{"Flatness after planarization", "flatness deviation (mm)", flatA, color.RGBA{R: 90, G: 150, B: 120, A: 255}},
+		{"Flatness before the panels were made flat", "flatness deviation (mm)", flatB, color.RGBA{R: 200, G: 150, B: 90, A: 255}},
+		{"Flatness after the panels were made flat", "flatness deviation (mm)", flatA, color.RGBA{R: 90, G: 150, B: 120, A: 255}},
 		{"Member twist", "twist (°)", twist, color.RGBA{R: 120, G: 110, B: 180, A: 255}},
 		{"Member cut length", "cut length (mm)", cut, color.RGBA{R: 100, G: 140, B: 190, A: 255}},
 	} {
@@ -126,7 +127,7 @@ func planViews(rep *Report) []planView {
 		poly(&mv, p.Corners, mix(moveLow, moveHigh, m/math.Max(maxMove, minScale)))
 	}
 	mv.WriteString(`</svg>`)
-	views = append(views, planView{Title: "Node moves of planarization (largest corner move per panel)", SVG: template.HTML(mv.String()),
+	views = append(views, planView{Title: "Node moves that made the panels flat (largest corner move per panel)", SVG: template.HTML(mv.String()),
 		Legend: []legendItem{{mix(moveLow, moveHigh, 0), "0 mm"}, {mix(moveLow, moveHigh, 0.5), fmt.Sprintf("%.1f mm", maxMove/2)}, {mix(moveLow, moveHigh, 1), fmt.Sprintf("%.1f mm", maxMove)}}})
 
 	var tw strings.Builder
@@ -223,42 +224,42 @@ summary{cursor:pointer;margin:6px 0;font-weight:bold}
 <p class="caution">Caution: {{.R.Caution}}</p>
 <h2>Summary</h2>
 <table>
-<tr><th>Job file</th><td>{{.R.Job}}</td></tr><tr><th>Net file</th><td>{{.R.Net}}</td></tr>
+<tr><th>Job file</th><td>{{.R.Job}}</td></tr><tr><th>Geometry file</th><td>{{.R.Net}}</td></tr>
 {{range .R.Settings}}<tr><th>{{.Name}}</th><td>{{.Value}}</td></tr>{{end}}
-<tr><th>Nodes</th><td class="num">{{.R.Counts.Nodes}} in {{.R.Counts.NodeTypes}} types (no grouping can have fewer than {{.R.Counts.NodeTypesBound.Count}})</td></tr>
-<tr><th>Members</th><td class="num">{{.R.Counts.Members}} in {{.R.Counts.MemberTypes}} types (no grouping can have fewer than {{.R.Counts.MemberTypesBound.Count}})</td></tr>
-<tr><th>Panels</th><td class="num">{{.R.Counts.Panels}} in {{.R.Counts.PanelTypes}} types (no grouping can have fewer than {{.R.Counts.PanelTypesBound.Count}})</td></tr>
+<tr><th>Nodes</th><td class="num">{{.R.Counts.Nodes}} in {{.R.Counts.NodeTypes}} types ({{.R.Counts.NodeTypesBound.Reason}})</td></tr>
+<tr><th>Members</th><td class="num">{{.R.Counts.Members}} in {{.R.Counts.MemberTypes}} types ({{.R.Counts.MemberTypesBound.Reason}})</td></tr>
+<tr><th>Panels</th><td class="num">{{.R.Counts.Panels}} in {{.R.Counts.PanelTypes}} types ({{.R.Counts.PanelTypesBound.Reason}})</td></tr>
 <tr><th>Stock sheets</th><td class="num">{{.R.Counts.Sheets}} ({{.R.Counts.Unplaced}} panels unplaced)</td></tr>
 <tr><th>Flatness before / after (max, mm)</th><td class="num">{{.R.Planarity.FlatBeforeMM.Max}} / {{.R.Planarity.FlatAfterMM.Max}} (tolerance {{.R.Planarity.ToleranceMM}})</td></tr>
 <tr><th>Largest / RMS node move (mm)</th><td class="num">{{.R.Planarity.MaxMoveMM}} / {{.R.Planarity.RMSMoveMM}}</td></tr>
-<tr><th>Largest member twist (°)</th><td class="num">{{.R.Planarity.MaxTwistDeg}} (normal axes: {{.R.Planarity.MaxTwistNormalDeg}})</td></tr>
+<tr><th>Largest member twist (°)</th><td class="num">{{.R.Planarity.MaxTwistDeg}} (with axes square to the panels: {{.R.Planarity.MaxTwistNormalDeg}})</td></tr>
 <tr><th>Weight: panels / members / total (kg)</th><td class="num">{{.R.Weights.PanelsKg}} / {{.R.Weights.MembersKg}} / {{.R.Weights.TotalKg}}</td></tr>
 <tr><th>Member material</th><td>{{.R.MemberMaterial.Name}}, {{.R.MemberMaterial.Section}} section, {{.R.MemberMaterial.KgPerM}} kg/m ({{.R.MemberMaterial.DensityKgM3}} kg/m³)</td></tr>
 {{with .R.PanelSpec}}{{if .BuildUp}}<tr><th>Panel build-up</th><td>{{.BuildUp}}</td></tr>{{end}}{{if .EdgeWork}}<tr><th>Edge work</th><td>{{.EdgeWork}}</td></tr>{{end}}{{if .Coating}}<tr><th>Coating</th><td>{{.Coating}}</td></tr>{{end}}{{if .HeatTreatment}}<tr><th>Heat treatment</th><td>{{.HeatTreatment}}</td></tr>{{end}}{{if .Grade}}<tr><th>Grade</th><td>{{.Grade}}</td></tr>{{end}}{{end}}
 </table>
 {{with .R.Warnings}}<h2>Warnings</h2><ul>{{range .}}<li>{{.}}</li>{{end}}</ul>{{end}}
-{{with .R.Cost}}<h2>Cost estimate ({{.Currency}})</h2><table><tr><th>Item</th><th>Quantity</th><th>Unit</th><th>Rate</th><th>Amount</th></tr>
-{{range .Lines}}<tr><td>{{.Item}}</td><td class="num">{{.Quantity}}</td><td>{{.Unit}}</td><td class="num">{{.Rate}}</td><td class="num">{{.Amount}}</td></tr>{{end}}
-<tr><th colspan="4">Total</th><th class="num">{{.Total}}</th></tr></table>{{end}}
+{{with .R.Cost}}<h2>Cost estimate ({{.Currency}})</h2><p>{{$.CostNote}}</p><table><tr><th>Item</th><th>Quantity</th><th>Unit</th><th>Rate</th><th>Amount</th><th>Kind</th></tr>
+{{range .Lines}}<tr><td>{{.Item}}</td><td class="num">{{.Quantity}}</td><td>{{.Unit}}</td><td class="num">{{.Rate}}</td><td class="num">{{.Amount}}</td><td>{{.Kind}}</td></tr>{{end}}
+<tr><th colspan="4">Total</th><th class="num">{{.Total}}</th><th></th></tr></table>{{end}}
 <h2>Plan views</h2>
 {{range .Plans}}<h3>{{.Title}}</h3><div class="legend">{{range .Legend}}<span><i style="background:{{.Colour}}"></i>{{.Text}}</span>{{end}}</div>{{.SVG}}{{end}}
 <h2>Distributions</h2>
 <div class="plots">{{range .Plots}}{{.}}{{end}}</div>
 <h2>Types</h2>
 <details><summary>Member types: {{len .R.MemberTypes}} for {{.R.Counts.Members}} members</summary>
-<p>Every two parts of a type agree within the type tolerances; the values are the nominal part (the middle of the parts' values): what is cut. The deviation is the largest of any part from it.</p>
-<table><tr><th>Type</th><th>Count</th><th>Cut length (mm)</th><th>Blank (mm)</th><th>A mitre / bevel (°)</th><th>B mitre / bevel (°)</th><th>Twist (°)</th><th>Deviation (mm / °)</th><th>Total (m)</th></tr>{{range .R.MemberTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.CutLengthMM}}</td><td class="num">{{.BlankMM}}</td><td class="num">{{(index .Ends 0).MitreDeg}} / {{(index .Ends 0).BevelDeg}}</td><td class="num">{{(index .Ends 1).MitreDeg}} / {{(index .Ends 1).BevelDeg}}</td><td class="num">{{.TwistDeg}}</td><td class="num">{{.MaxDevMM}} / {{.MaxDevDeg}}</td><td class="num">{{.TotalM}}</td></tr>{{end}}</table></details>
+<p>Every two parts of a type agree within the type tolerances; the values are the middle of the parts' values: what is cut. The largest difference is the most any part of the type differs from it.</p>
+<table><tr><th>Type</th><th>Count</th><th>Cut length (mm)</th><th>Blank (mm)</th><th>A mitre / bevel (°)</th><th>B mitre / bevel (°)</th><th>Twist (°)</th><th>Largest difference (mm / °)</th><th>Total (m)</th></tr>{{range .R.MemberTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.CutLengthMM}}</td><td class="num">{{.BlankMM}}</td><td class="num">{{(index .Ends 0).MitreDeg}} / {{(index .Ends 0).BevelDeg}}</td><td class="num">{{(index .Ends 1).MitreDeg}} / {{(index .Ends 1).BevelDeg}}</td><td class="num">{{.TwistDeg}}</td><td class="num">{{.MaxDevMM}} / {{.MaxDevDeg}}</td><td class="num">{{.TotalM}}</td></tr>{{end}}</table></details>
 <details><summary>Node types: {{len .R.NodeTypes}} for {{.R.Counts.Nodes}} nodes</summary>
-<table><tr><th>Type</th><th>Count</th><th>Members at node</th><th>Arms (azimuth from arm 1 / elevation, °)</th><th>Deviation (°)</th></tr>{{range .R.NodeTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.MembersAtNode}}</td><td>{{range .Arms}}{{.AzimuthDeg}} / {{.ElevationDeg}}; {{end}}</td><td class="num">{{.MaxDevDeg}}</td></tr>{{end}}</table></details>
+<table><tr><th>Type</th><th>Count</th><th>Members at node</th><th>Arms (azimuth from arm 1 / elevation, °)</th><th>Largest difference (°)</th></tr>{{range .R.NodeTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{.MembersAtNode}}</td><td>{{range .Arms}}{{.AzimuthDeg}} / {{.ElevationDeg}}; {{end}}</td><td class="num">{{.MaxDevDeg}}</td></tr>{{end}}</table></details>
 <details><summary>Panel types: {{len .R.PanelTypes}} for {{.R.Counts.Panels}} panels</summary>
-<table><tr><th>Type</th><th>Count</th><th>Cut edges (mm)</th><th>Corner angles (°)</th><th>Area (m²)</th><th>Deviation (mm / °)</th><th>Total area (m²)</th></tr>{{range .R.PanelTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{range .EdgesMM}}{{.}} {{end}}</td><td class="num">{{range .AnglesDeg}}{{.}} {{end}}</td><td class="num">{{.AreaM2}}</td><td class="num">{{.MaxDevMM}} / {{.MaxDevDeg}}</td><td class="num">{{.TotalAreaM2}}</td></tr>{{end}}</table></details>
+<table><tr><th>Type</th><th>Count</th><th>Cut edges (mm)</th><th>Corner angles (°)</th><th>Area (m²)</th><th>Largest difference (mm / °)</th><th>Total area (m²)</th></tr>{{range .R.PanelTypes}}<tr><td>{{.Name}}</td><td class="num">{{.Count}}</td><td class="num">{{range .EdgesMM}}{{.}} {{end}}</td><td class="num">{{range .AnglesDeg}}{{.}} {{end}}</td><td class="num">{{.AreaM2}}</td><td class="num">{{.MaxDevMM}} / {{.MaxDevDeg}}</td><td class="num">{{.TotalAreaM2}}</td></tr>{{end}}</table></details>
 <h2>Stock sheets</h2>
-<table><tr><th>Stock</th><th>Sheets</th><th>Fewest sheets by area</th><th>Cost</th></tr>{{range .R.Stocks}}<tr><td>{{.Name}}</td><td class="num">{{.Sheets}}</td><td class="num">{{.AreaBound}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
+<table><tr><th>Stock</th><th>Sheets</th><th>Fewest sheets by area</th><th>Sheets × price</th></tr>{{range .R.Stocks}}<tr><td>{{.Name}}</td><td class="num">{{.Sheets}}</td><td class="num">{{.AreaBound}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
 {{with .R.Unplaced}}<h3>Unplaced panels</h3><ul>{{range .}}<li>{{.Panel}}: {{.Reason}}</li>{{end}}</ul>{{end}}
 <p>Mean utilization of the sheets shown: {{printf "%.1f" .MeanUtil}} %.{{if .MoreSheets}} {{.MoreSheets}} more sheets are not previewed here; every sheet is in the sheets folder.{{end}}</p>
 <div class="sheets">{{range .Previews}}{{.}}{{end}}</div>
 <h2>Bars</h2>
-{{if .R.BarStocks}}<table><tr><th>Bar stock</th><th>Length (mm)</th><th>Bars</th><th>Fewest bars by length</th><th>Cost</th></tr>{{range .R.BarStocks}}<tr><td>{{.Name}}</td><td class="num">{{.LengthMM}}</td><td class="num">{{.Bars}}</td><td class="num">{{.FewestByLength}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
+{{if .R.BarStocks}}<table><tr><th>Bar stock</th><th>Length (mm)</th><th>Bars</th><th>Fewest bars by length</th><th>Bars × price</th></tr>{{range .R.BarStocks}}<tr><td>{{.Name}}</td><td class="num">{{.LengthMM}}</td><td class="num">{{.Bars}}</td><td class="num">{{.FewestByLength}}</td><td class="num">{{.Cost}}</td></tr>{{end}}</table>
 <p>Each bar as cut, members in cutting order (grey: offcut, red: kerfs, trims and slivers).{{if .MoreBars}} {{.MoreBars}} more bars are in the schedule's Bars sheet.{{end}}</p>
 {{.BarChart}}{{else}}<p>The job gives no bar stock, so there is no cutting plan.</p>{{end}}
 <p class="caution">Caution: {{.R.Caution}}</p>

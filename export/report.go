@@ -275,7 +275,16 @@ type UnplacedRow struct {
 // StockRow sums up one stock size.
 type StockRow struct {
 	Name      string  `json:"name"`
+	WidthMM   float64 `json:"width_mm"`
+	HeightMM  float64 `json:"height_mm"`
+	MarginMM  float64 `json:"margin_mm"`
+	SpacingMM float64 `json:"spacing_mm"`
+	Rotation  string  `json:"rotation"`
+	Mirror    bool    `json:"mirror"`
+	Cuts      string  `json:"cuts"`
+	Count     int     `json:"count"` // sheets in stock; 0 for no limit
 	Sheets    int     `json:"sheets"`
 	AreaBound int     `json:"area_bound"`
-	Cost      float64 `json:"cost"`
+	Price     float64 `json:"price"` // per sheet; 0 when the job gives none
+	Cost      float64 `json:"cost"`  // sheets × price
 }

@@ -23,7 +23,9 @@ func BuildReport(b *Bundle) *Report {
 	rep.Section = Section{WidthMM: s.Section.WidthMM, DepthMM: s.Section.DepthMM, WallMM: s.Section.WallMM}
 	rep.Counts = Counts{Nodes: len(n.Nodes), Members: len(s.Members), Panels: len(n.Faces),
 		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), PanelTypes: len(b.PanelTypes),
-		MemberTypesBound: boundRow(s.MemberTypeBound), NodeTypesBound: boundRow(s.NodeTypeBound), PanelTypesBound: boundRow(b.PanelTypeBound)}
+		MemberTypesBound: boundRow(s.MemberTypeBound, "members", ""),
+		NodeTypesBound:   boundRow(s.NodeTypeBound, "nodes", "nodes with different numbers of members never share a type"),
+		PanelTypesBound:  boundRow(b.PanelTypeBound, "panels", "panels with different numbers of corners never share a type")}
 	pl := b.Planarize
 	rep.Planarity = Planarity{ToleranceMM: b.TolMM, Converged: pl.Converged, Iterations: pl.Iterations,
 		MaxMoveMM: r(pl.MaxMoveMM, 3), RMSMoveMM: r(pl.RMSMoveMM, 3),
@@ -132,7 +134,14 @@ func BuildReport(b *Bundle) *Report {
 			rep.Unplaced = append(rep.Unplaced, UnplacedRow{Panel: b.Flats[u.Part].Label, Reason: u.Reason})
 		}
 		for _, u := range nr.Stocks {
-			rep.Stocks = append(rep.Stocks, StockRow{Name: b.Stocks[u.Stock].Name, Sheets: u.Sheets, AreaBound: u.AreaBound, Cost: r(u.Cost, 2)})
+			st := b.Stocks[u.Stock]
+			cuts := string(st.Cuts)
+			if cuts == "" {
+				cuts = "any"
+			}
+			rep.Stocks = append(rep.Stocks, StockRow{Name: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM, MarginMM: st.MarginMM,
+				SpacingMM: st.SpacingMM, Rotation: string(st.Rotation), Mirror: st.Mirror, Cuts: cuts, Count: st.Count,
+				Sheets: u.Sheets, AreaBound: u.AreaBound, Price: st.Price, Cost: r(u.Cost, 2)})
 		}
 		rep.Counts.Sheets = len(nr.Sheets)
 		rep.Counts.Unplaced = len(nr.Unplaced)

@@ -1,7 +1,9 @@
 package export
 
 import (
+	"fmt"
 	"strconv"
+	"strings"
 
 	"pqfab/geom"
 	"pqfab/nodes"
@@ -9,8 +11,54 @@ import (
 	"pqfab/panels"
 )
 
-func boundRow(b geom.TypeBound) TypeBoundRow {
-	return TypeBoundRow{Count: b.Count, Quantity: b.Quantity}
+// boundRow turns a bound on the number of types of parts (the noun, such
+// as "members"; apart says which of them never share a type) into a row
+// with its reason in words.
+func boundRow(b geom.TypeBound, noun, apart string) TypeBoundRow {
+	return TypeBoundRow{Count: b.Count, Quantity: b.Quantity, Reason: boundReason(b, noun, apart)}
+}
+
+// boundReason says in words why no grouping has fewer types than b.Count:
+// "at least 37 types: 37 of the members differ pairwise by more than the
+// tolerances, so no two of them can share a type", or "… by cut length
+// alone the members need at least 37 types"; a bound that adds up sets of
+// parts that never share a type gives each set's share.
+func boundReason(b geom.TypeBound, noun, apart string) string {
+	types := func(n int) string {
+		if n == 1 {
+			return "1 type"
+		}
+		return strconv.Itoa(n) + " types"
+	}
+	switch len(b.Terms) {
+	case 0:
+		return ""
+	case 1:
+		t := b.Terms[0]
+		parts := t.Parts
+		if parts == "" {
+			parts = noun
+		}
+		if t.Key != "" && t.Count > 1 {
+			return fmt.Sprintf("at least %s: by %s alone the %s need at least %s (values further apart than the tolerance cannot share a type)", types(b.Count), t.Key, parts, types(t.Count))
+		}
+		if t.Count == 1 {
+			return fmt.Sprintf("at least 1 type: there are %s", parts)
+		}
+		return fmt.Sprintf("at least %s: %d of the %s differ pairwise by more than the tolerances, so no two of them can share a type", types(b.Count), t.Count, parts)
+	}
+	each := make([]string, len(b.Terms))
+	for i, t := range b.Terms {
+		switch {
+		case t.Key != "" && t.Count > 1:
+			each[i] = fmt.Sprintf("%s need at least %s (by %s alone)", t.Parts, types(t.Count), t.Key)
+		case t.Count == 1:
+			each[i] = fmt.Sprintf("%s need at least 1 type", t.Parts)
+		default:
+			each[i] = fmt.Sprintf("%s need at least %s (%d of them differ pairwise by more than the tolerances)", t.Parts, types(t.Count), t.Count)
+		}
+	}
+	return fmt.Sprintf("at least %s: %s; %s", types(b.Count), apart, strings.Join(each, ", "))
 }
 
 // buildTypes fills the type rows: the nominal part of every type, its

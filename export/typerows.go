@@ -5,11 +5,12 @@ package export
 // every part lies within half the tolerance of the type's nominal part
 // (the middle of each value's range over the parts), which is what is cut.
 
-// TypeBoundRow is a lower bound on a type count and the quantity that
-// gave it.
+// TypeBoundRow is the fewest types any grouping can have, the quantity
+// that gave it, and the reason in words.
 type TypeBoundRow struct {
 	Count    int    `json:"count"`
 	Quantity string `json:"quantity"`
+	Reason   string `json:"reason"`
 }
 
 // MemberTypeRow is one member type: the nominal member and its parts.

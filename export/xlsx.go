@@ -23,6 +23,7 @@ const (
 	SheetSheets      = "Sheets"
 	SheetCuts        = "Cuts"
 	SheetBars        = "Bars"
+	SheetGlossary    = "Glossary"
 )
 
 // WriteSchedule writes schedule.xlsx from the report model: a summary with
@@ -80,28 +81,26 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				}
 				return nil
 			}},
-		{SheetNodes, []string{"Label", "Id", "Type", "Members at node", "X (mm)", "Y (mm)", "Z (mm)", "Axis x", "Axis y", "Axis z",
-			"Axis tilt (°)", "Tilt toward (° counter-clockwise from grid north)", "Azimuth 0",
-			"Support", "Move (mm)", "Move x (mm)", "Move y (mm)", "Move z (mm)", "Hub arms going round the hub (member azimuth° elevation°)"}, len(rep.Nodes),
+		{SheetNodes, nodeHead(rep), len(rep.Nodes),
 			func(add func(row ...any) error) error {
 				for _, n := range rep.Nodes {
-					var arms []string
-					for _, a := range n.Arms {
-						arms = append(arms, fmt.Sprintf("%s %.3f %.3f", a.Member, a.AzimuthDeg, a.ElevationDeg))
-					}
 					sup := "no"
 					if n.Support {
 						sup = "yes"
 					}
-					if err := add(n.Label, n.ID, n.Type, n.MembersAtNode, n.Pos[0], n.Pos[1], n.Pos[2], n.Axis[0], n.Axis[1], n.Axis[2],
-						n.AxisTiltDeg, n.AxisTiltTowardDeg, azimuthZeroText(n.AzimuthZero), sup, n.MoveMM, n.Move[0], n.Move[1], n.Move[2], strings.Join(arms, "; ")); err != nil {
+					row := []any{n.Label, n.ID, n.Type, n.MembersAtNode, n.Pos[0], n.Pos[1], n.Pos[2], n.Axis[0], n.Axis[1], n.Axis[2],
+						n.AxisTiltDeg, n.AxisTiltTowardDeg, azimuthZeroText(n.AzimuthZero), sup, n.MoveMM, n.Move[0], n.Move[1], n.Move[2]}
+					for _, a := range n.Arms {
+						row = append(row, a.Member, a.AzimuthDeg, a.ElevationDeg)
+					}
+					if err := add(row...); err != nil {
 						return err
 					}
 				}
 				return nil
 			}},
 		{SheetMemberTypes, memberTypeHead, len(rep.MemberTypes), memberTypeRows(rep)},
-		{SheetNodeTypes, nodeTypeHead, len(rep.NodeTypes), nodeTypeRows(rep)},
+		{SheetNodeTypes, nodeTypeHead(rep), len(rep.NodeTypes), nodeTypeRows(rep)},
 		{SheetPanelTypes, panelTypeHead(rep), len(rep.PanelTypes), panelTypeRows(rep)},
 		{SheetSheets, []string{"Sheet", "Stock", "Width (mm)", "Height (mm)", "Parts", "Utilization (%)", "Cuts", "Cut length (m)", "Panels"},
 			len(rep.Sheets) + len(rep.Unplaced),
@@ -138,11 +137,23 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				}
 				return nil
 			}},
-		{SheetBars, []string{"Bar", "Stock", "Stock length (mm)", "Members", "Members in cutting order (label, blank mm)",
-			"Used (mm)", "Offcut (mm)", "Waste (mm)"}, len(rep.Bars),
+		{SheetBars, barHead(rep), len(rep.Bars),
 			func(add func(row ...any) error) error {
 				for _, b := range rep.Bars {
-					if err := add(b.Name, b.Stock, b.LengthMM, len(b.Pieces), barUse(b), b.UsedMM, b.OffcutMM, b.WasteMM); err != nil {
+					row := []any{b.Name, b.Stock, b.LengthMM, len(b.Pieces), b.UsedMM, b.OffcutMM, b.WasteMM}
+					for _, p := range b.Pieces {
+						row = append(row, p.Member, p.BlankMM)
+					}
+					if err := add(row...); err != nil {
+						return err
+					}
+				}
+				return nil
+			}},
+		{SheetGlossary, []string{"Term", "Meaning"}, len(Glossary),
+			func(add func(row ...any) error) error {
+				for _, g := range Glossary {
+					if err := add(g.Term, g.Meaning); err != nil {
 						return err
 					}
 				}
@@ -166,6 +177,43 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 		return err
 	}
 	return writeSortedZip(w, &buf, buf.size)
+}
+
+// nodeHead returns the Nodes sheet's header: a member, azimuth and
+// elevation column per arm, as many as the most members at a node.
+func nodeHead(rep *Report) []string {
+	head := []string{"Label", "Id", "Type", "Members at node", "X (mm)", "Y (mm)", "Z (mm)", "Axis x", "Axis y", "Axis z",
+		"Axis tilt (°)", "Tilt toward (° counter-clockwise from grid north)", "Azimuth 0",
+		"Support", "Move (mm)", "Move x (mm)", "Move y (mm)", "Move z (mm)"}
+	k := 0
+	for _, n := range rep.Nodes {
+		k = max(k, len(n.Arms))
+	}
+	// Arms going round the hub, azimuth from the hub's azimuth 0.
+	return append(head, numbered(k, "Arm %d member", "Arm %d azimuth (°)", "Arm %d elevation (°)")...)
+}
+
+// barHead returns the Bars sheet's header: a member and blank length
+// column per piece in cutting order, as many as the fullest bar holds.
+func barHead(rep *Report) []string {
+	head := []string{"Bar", "Stock", "Stock length (mm)", "Members", "Used (mm)", "Offcut (mm)", "Waste (mm)"}
+	k := 0
+	for _, b := range rep.Bars {
+		k = max(k, len(b.Pieces))
+	}
+	return append(head, numbered(k, "Piece %d member", "Piece %d blank length (mm)")...)
+}
+
+// numbered returns the column names for k repeated groups of columns:
+// each format with 1, then each with 2, and so on.
+func numbered(k int, formats ...string) []string {
+	out := make([]string, 0, k*len(formats))
+	for i := 1; i <= k; i++ {
+		for _, f := range formats {
+			out = append(out, fmt.Sprintf(f, i))
+		}
+	}
+	return out
 }
 
 // partList joins part labels for one cell; a list too long for a cell is
@@ -209,6 +257,14 @@ func writeTable(f *excelize.File, sheet, table string, header []string, n int, b
 	}
 	if err := sw.SetColWidth(1, len(header), 14); err != nil {
 		return err
+	}
+	if sheet == SheetGlossary { // a column of sentences
+		if err := sw.SetColWidth(1, 1, 24); err != nil {
+			return err
+		}
+		if err := sw.SetColWidth(2, 2, 150); err != nil {
+			return err
+		}
 	}
 	head := make([]any, len(header))
 	for i, h := range header {
@@ -281,7 +337,7 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("CAUTION", rep.Caution) },
 		func() error { return head("Job") },
 		func() error { return put("Job file", rep.Job) },
-		func() error { return put("Net file", rep.Net) },
+		func() error { return put("Geometry file", rep.Net) },
 	}
 	for _, s := range rep.Settings {
 		s := s
@@ -294,19 +350,19 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("Members", c.Members) },
 		func() error { return put("Panels", c.Panels) },
 		func() error {
-			return put("Types (count, and fewest possible: a lower bound)", "count", "lower bound", "bound from")
+			return put("Types", "Count", "Fewest possible", "Why no grouping has fewer")
 		},
 		func() error {
-			return put("Member types", c.MemberTypes, c.MemberTypesBound.Count, c.MemberTypesBound.Quantity)
+			return put("Member types", c.MemberTypes, c.MemberTypesBound.Count, c.MemberTypesBound.Reason)
 		},
-		func() error { return put("Node types", c.NodeTypes, c.NodeTypesBound.Count, c.NodeTypesBound.Quantity) },
+		func() error { return put("Node types", c.NodeTypes, c.NodeTypesBound.Count, c.NodeTypesBound.Reason) },
 		func() error {
-			return put("Panel types", c.PanelTypes, c.PanelTypesBound.Count, c.PanelTypesBound.Quantity)
+			return put("Panel types", c.PanelTypes, c.PanelTypesBound.Count, c.PanelTypesBound.Reason)
 		},
 		func() error { return put("Stock sheets", c.Sheets) },
 		func() error { return put("Unplaced panels", c.Unplaced) },
 		func() error { return put("Bars", len(rep.Bars)) },
-		func() error { return head("Planarity") },
+		func() error { return head("Making the panels flat") },
 		func() error { return put("Flatness tolerance (mm)", rep.Planarity.ToleranceMM) },
 		func() error { return put("Flatness before, max (mm)", rep.Planarity.FlatBeforeMM.Max) },
 		func() error { return put("Flatness after, max (mm)", rep.Planarity.FlatAfterMM.Max) },
@@ -314,9 +370,18 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("RMS node move (mm)", rep.Planarity.RMSMoveMM) },
 		func() error { return put("Largest |twist| (°)", rep.Planarity.MaxTwistDeg) },
 	)
+	steps = append(steps, func() error { return head("Sheet stock") },
+		func() error {
+			return put("Stock", "Width (mm)", "Height (mm)", "Edge margin (mm)", "Spacing (mm)", "Turns allowed", "Mirrored parts",
+				"Cuts", "In stock (0: no limit)", "Price per sheet", "Sheets used", "Fewest sheets by area")
+		})
 	for _, s := range rep.Stocks {
 		steps = append(steps, func() error {
-			return put("Stock "+s.Name+": sheets / fewest sheets by area", s.Sheets, s.AreaBound)
+			mirror := "no"
+			if s.Mirror {
+				mirror = "yes"
+			}
+			return put(s.Name, s.WidthMM, s.HeightMM, s.MarginMM, s.SpacingMM, s.Rotation, mirror, s.Cuts, s.Count, s.Price, s.Sheets, s.AreaBound)
 		})
 	}
 	steps = append(steps, func() error { return head("Bars (member stock)") })
@@ -327,13 +392,18 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 	for _, b := range rep.Bars {
 		stockMM, offcutMM, wasteMM = stockMM+b.LengthMM, offcutMM+b.OffcutMM, wasteMM+b.WasteMM
 	}
+	if len(rep.BarStocks) > 0 {
+		steps = append(steps, func() error {
+			return put("Bar stock", "Length (mm)", "Kerf (mm)", "Trim at each end (mm)", "Price per bar", "Bars used", "Fewest bars by length")
+		})
+	}
 	for _, b := range rep.BarStocks {
 		steps = append(steps, func() error {
-			return put(fmt.Sprintf("Bars %s (%g mm): bars / fewest bars by length", b.Name, b.LengthMM), b.Bars, b.FewestByLength)
+			return put(b.Name, b.LengthMM, b.KerfMM, b.TrimMM, b.Price, b.Bars, b.FewestByLength)
 		})
 	}
 	if len(rep.BarStocks) > 0 {
-		steps = append(steps,
+		steps = append(steps, func() error { return put() },
 			func() error { return put("Bar stock length (m)", r(stockMM/1000, 3)) },
 			func() error { return put("Offcuts (m)", r(offcutMM/1000, 3)) },
 			func() error { return put("Waste: kerfs, trims, slivers (m)", r(wasteMM/1000, 3)) })
@@ -347,10 +417,11 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("Total (kg)", rep.Weights.TotalKg) })
 	if rep.Cost != nil {
 		steps = append(steps, func() error { return head("Cost estimate (" + rep.Cost.Currency + ")") },
-			func() error { return put("Item", "Quantity", "Unit", "Rate", "Amount") })
+			func() error { return put(CostNote) },
+			func() error { return put("Item", "Quantity", "Unit", "Rate", "Amount", "Kind") })
 		for _, l := range rep.Cost.Lines {
 			l := l
-			steps = append(steps, func() error { return put(l.Item, l.Quantity, l.Unit, l.Rate, l.Amount) })
+			steps = append(steps, func() error { return put(l.Item, l.Quantity, l.Unit, l.Rate, l.Amount, l.Kind) })
 		}
 		steps = append(steps, func() error { return put("Total", nil, nil, nil, rep.Cost.Total) })
 	}
@@ -369,7 +440,7 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 	if err := f.SetColWidth(sh, "A", "A", 34); err != nil {
 		return err
 	}
-	return f.SetColWidth(sh, "B", "E", 18)
+	return f.SetColWidth(sh, "B", "L", 18)
 }
 
 // setDimension records the range a sheet uses, A1 to column cols, row

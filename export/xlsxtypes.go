@@ -2,7 +2,6 @@ package export
 
 import (
 	"fmt"
-	"strings"
 )
 
 // The type sheets list what the workshop makes: each type's nominal part
@@ -12,7 +11,7 @@ import (
 var memberTypeHead = []string{"Type", "Count", "Cut length (mm)", "Blank length (mm)",
 	"A mitre (°)", "A bevel (°)", "A setback (mm)", "B mitre (°)", "B bevel (°)", "B setback (mm)", "Twist (°)",
 	"System length (mm)", "Top face (mm)", "Bottom face (mm)", "Side +y (mm)", "Side -y (mm)",
-	"Largest deviation (mm)", "Largest deviation (°)", "Total cut length (m)", "Total weight (kg)",
+	"Largest difference from type (mm)", "Largest difference from type (°)", "Total cut length (m)", "Total weight (kg)",
 	"Members", "Members whose end B is the type's end A (the tag end)"}
 
 func memberTypeRows(rep *Report) func(add func(row ...any) error) error {
@@ -29,16 +28,26 @@ func memberTypeRows(rep *Report) func(add func(row ...any) error) error {
 	}
 }
 
-var nodeTypeHead = []string{"Type", "Count", "Members at node", "Arms (azimuth° from arm 1, elevation°)", "Largest deviation (°)", "Nodes"}
+// nodeTypeHead returns the Node types sheet's header: an azimuth (from
+// arm 1) and an elevation column per arm, as many as the most members at
+// a node.
+func nodeTypeHead(rep *Report) []string {
+	head := []string{"Type", "Count", "Members at node", "Largest difference from type (°)", "Nodes"}
+	k := 0
+	for _, t := range rep.NodeTypes {
+		k = max(k, len(t.Arms))
+	}
+	return append(head, numbered(k, "Arm %d azimuth from arm 1 (°)", "Arm %d elevation (°)")...)
+}
 
 func nodeTypeRows(rep *Report) func(add func(row ...any) error) error {
 	return func(add func(row ...any) error) error {
 		for _, t := range rep.NodeTypes {
-			arms := make([]string, len(t.Arms))
-			for i, a := range t.Arms {
-				arms[i] = fmt.Sprintf("%s/%s", fixed(a.AzimuthDeg, 3), fixed(a.ElevationDeg, 3))
+			row := []any{t.Name, t.Count, t.MembersAtNode, t.MaxDevDeg, partList(t.Parts, SheetNodes)}
+			for _, a := range t.Arms {
+				row = append(row, a.AzimuthDeg, a.ElevationDeg)
 			}
-			if err := add(t.Name, t.Count, t.MembersAtNode, strings.Join(arms, "; "), t.MaxDevDeg, partList(t.Parts, SheetNodes)); err != nil {
+			if err := add(row...); err != nil {
 				return err
 			}
 		}
@@ -61,9 +70,9 @@ func panelTypeHead(rep *Report) []string {
 		head = append(head, fmt.Sprintf("Cut angle %d (°)", i))
 	}
 	for i := 1; i <= k; i++ {
-		head = append(head, fmt.Sprintf("Bevel %d (°, least to most)", i))
+		head = append(head, fmt.Sprintf("Bevel %d least (°)", i), fmt.Sprintf("Bevel %d most (°)", i))
 	}
-	return append(head, "Cut area (m²)", "Cut perimeter (mm)", "Largest deviation (mm)", "Largest deviation (°)",
+	return append(head, "Cut area (m²)", "Cut perimeter (mm)", "Largest difference from type (mm)", "Largest difference from type (°)",
 		"Total area (m²)", "Total weight (kg)", "Build-up", "Edge work", "Coating", "Heat treatment", "Grade", "Panels", "Panels turned over")
 }
 
@@ -90,10 +99,9 @@ func panelTypeRows(rep *Report) func(add func(row ...any) error) error {
 			row = appendN(row, t.AnglesDeg, k)
 			for i := 0; i < k; i++ {
 				if i < len(t.BevelsDeg) {
-					bv := t.BevelsDeg[i]
-					row = append(row, fixed(bv[0], 2)+" to "+fixed(bv[1], 2))
+					row = append(row, t.BevelsDeg[i][0], t.BevelsDeg[i][1])
 				} else {
-					row = append(row, nil)
+					row = append(row, nil, nil)
 				}
 			}
 			s := t.Spec

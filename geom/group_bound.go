@@ -72,15 +72,15 @@ const SweepSpreadFraction = 0.125
 // independent set), or, when that graph would take more than
 // apartPairsCap comparisons a part, by taking parts in sweep order.
 func (g *grouper) bound() TypeBound {
-	b := TypeBound{Count: g.keyBound, Quantity: g.p.Keys[g.boundKey].Name}
+	t := BoundTerm{Count: g.keyBound, Key: g.p.Keys[g.boundKey].Name}
 	n, ok := g.apartGraph()
 	if !ok {
 		n = g.apartSweep()
 	}
-	if n > b.Count {
-		b = TypeBound{Count: n, Quantity: "parts pairwise out of tolerance"}
+	if n > t.Count {
+		t = BoundTerm{Count: n}
 	}
-	return b
+	return TypeBound{Count: t.Count, Quantity: t.quantity(), Terms: []BoundTerm{t}}
 }
 
 // apartSweep adds, in sweep order, each item whose representative part

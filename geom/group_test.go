@@ -485,17 +485,32 @@ func TestGroupTypesBadProblem(t *testing.T) {
 }
 
 func TestTypeBoundAdd(t *testing.T) {
+	tb := func(n int, keys ...string) TypeBound {
+		var b TypeBound
+		for _, k := range keys {
+			b = b.Add(TypeBound{Count: n, Quantity: k, Terms: []BoundTerm{{Count: n, Key: k}}})
+		}
+		return b
+	}
 	for _, tc := range []struct {
-		a, b, want TypeBound
+		a, b  TypeBound
+		count int
+		q     string
 	}{
-		{TypeBound{}, TypeBound{3, "x"}, TypeBound{3, "x"}},
-		{TypeBound{3, "x"}, TypeBound{}, TypeBound{3, "x"}},
-		{TypeBound{3, "x"}, TypeBound{2, "x"}, TypeBound{5, "x"}},
-		{TypeBound{3, "x"}, TypeBound{2, "y"}, TypeBound{5, "x; y"}},
-		{TypeBound{5, "x; y"}, TypeBound{1, "x"}, TypeBound{6, "x; y"}},
+		{TypeBound{}, tb(3, "x"), 3, "x"},
+		{tb(3, "x"), TypeBound{}, 3, "x"},
+		{tb(3, "x"), tb(2, "x"), 5, "x"},
+		{tb(3, "x"), tb(2, "y"), 5, "x; y"},
+		{tb(3, "x").Add(tb(2, "y")), tb(1, "x"), 6, "x; y"},
+		{tb(3, "x").Of("4-corner panels"), tb(2, "").Of("3-corner panels"), 5, "x of 4-corner panels; 3-corner panels pairwise out of tolerance"},
 	} {
-		if got := tc.a.Add(tc.b); got != tc.want {
-			t.Errorf("%v.Add(%v) = %v, want %v", tc.a, tc.b, got, tc.want)
+		got := tc.a.Add(tc.b)
+		sum := 0
+		for _, term := range got.Terms {
+			sum += term.Count
+		}
+		if got.Count != tc.count || got.Quantity != tc.q || sum != tc.count {
+			t.Errorf("%v.Add(%v) = %v, want %d by %q", tc.a, tc.b, got, tc.count, tc.q)
 		}
 	}
 }

@@ -257,10 +257,10 @@ func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, geom.TypeBound, error)
 		// gaps between arms sorted (each a difference of two azimuths
 		// measured from the first arm, so within twice the tolerance).
 		for j := range k {
-			p.Keys = append(p.Keys, geom.TypeKey{Name: fmt.Sprintf("%s arm elevation at nodes with %d members", geom.Ordinal(j, k, "lowest", "highest"), k), Tol: A, Values: make([]float64, len(idx))})
+			p.Keys = append(p.Keys, geom.TypeKey{Name: geom.Ordinal(j, k, "lowest", "highest") + " arm elevation", Tol: A, Values: make([]float64, len(idx))})
 		}
 		for j := range k {
-			p.Keys = append(p.Keys, geom.TypeKey{Name: fmt.Sprintf("%s angle between neighbouring arms at nodes with %d members", geom.Ordinal(j, k, "smallest", "largest"), k), Tol: 2 * A, Values: make([]float64, len(idx))})
+			p.Keys = append(p.Keys, geom.TypeKey{Name: geom.Ordinal(j, k, "smallest", "largest") + " angle between neighbouring arms", Tol: 2 * A, Values: make([]float64, len(idx))})
 		}
 		sorted := make([][]int, len(idx))
 		sortedAll := make([]int, len(idx)*k)
@@ -290,7 +290,7 @@ func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, geom.TypeBound, error)
 		if err != nil {
 			return nil, geom.TypeBound{}, err
 		}
-		bound = bound.Add(b)
+		bound = bound.Add(b.Of(fmt.Sprintf("nodes with %d members", k)))
 		for _, g := range groups {
 			nom := g.Nominal()
 			nt := NodeType{MembersAtNode: k, Arms: make([]TypeArm, k)}

@@ -185,7 +185,7 @@ func Group(flats []Flat, opt TypeOptions) ([]Type, geom.TypeBound, error) {
 			return nil, geom.TypeBound{}, err
 		}
 		types = append(types, ts...)
-		bound = bound.Add(b)
+		bound = bound.Add(b.Of(fmt.Sprintf("%d-corner panels", k)))
 	}
 	slices.SortStableFunc(types, func(a, b Type) int {
 		return cmp.Compare(math.Round(a.AreaM2/areaResolutionM2), math.Round(b.AreaM2/areaResolutionM2))
@@ -235,7 +235,7 @@ func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type,
 	nd := len(s.diags)
 	addKeys := func(n int, what, first, last string, tol float64) {
 		for j := range n {
-			name := fmt.Sprintf("%s %s of %d-corner panels", geom.Ordinal(j, n, first, last), what, k)
+			name := geom.Ordinal(j, n, first, last) + " " + what
 			p.Keys = append(p.Keys, geom.TypeKey{Name: name, Tol: tol, Values: make([]float64, len(idx))})
 		}
 	}

@@ -66,6 +66,33 @@ func TestDemoReadBack(t *testing.T) {
 	readBack(t, "readback_xlsx.py", dir)
 	readBack(t, "readback_types.py", dir)
 	checkAccounting(t, dir)
+	checkWords(t, dir)
+}
+
+// checkWords runs check_words.py on the demo's schedule and report, the
+// help of every command and the README: words with a plain replacement
+// appear nowhere outside the glossary, and kept words (job keys, job
+// values, command names) are explained in the Glossary sheet and the
+// README's glossary.
+func checkWords(t *testing.T, dir string) {
+	t.Helper()
+	var help strings.Builder
+	for _, args := range [][]string{{"help"}, {"demo", "-h"}, {"build", "-h"}, {"inspect", "-h"}, {"sample", "-h"},
+		{"members", "-h"}, {"nest", "-h"}, {"planarize", "-h"}} {
+		out, errOut, _ := runCmd(t, args...)
+		help.WriteString(out + errOut)
+	}
+	if !strings.Contains(help.String(), "Usage: pqfab planarize") {
+		t.Fatalf("no command help read:\n%s", tail(help.String(), 500))
+	}
+	helpFile := filepath.Join(t.TempDir(), "help.txt")
+	if err := os.WriteFile(helpFile, []byte(help.String()), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out, err := exec.Command(debianPython, filepath.Join("testdata", "check_words.py"), dir, helpFile, filepath.Join("..", "..", "README.md")).CombinedOutput()
+	if err != nil || !strings.HasSuffix(strings.TrimSpace(string(out)), "ok") {
+		t.Fatalf("check_words.py: %v\n%s", err, tail(string(out), 2000))
+	}
 }
 
 // checkAccounting: every panel, member and node of the net appears exactly

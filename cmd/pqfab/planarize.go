@@ -21,7 +21,7 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	names.integer(fs, &opt.MaxIter, "max-iter", "MaxIter", "iteration budget")
 	fs.BoolVar(&opt.Vertical, "vertical", opt.Vertical, "move nodes only along z (plan layout fixed)")
 	supports := fs.String("supports", job.DefaultSupportsMode, "nodes that never move: boundary, none, file (flags in a CSV net) or node ids a,b,c")
-	out := fs.String("o", "", "planarized net, OBJ in mm (required)")
+	out := fs.String("o", "", "the net with flat panels, OBJ in mm (required)")
 	report := fs.String("report", "", "also write the full report (per node moves, per panel flatness) as JSON")
 	quiet := fs.Bool("q", false, "no progress bar")
 	force := fs.Bool("force", false, "replace output files that pqfab did not write")
@@ -70,6 +70,6 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 		return perr // nothing written but the report asked for
 	}
 	return export.WriteFileAtomic(*out, wopt, func(w io.Writer) error {
-		return export.WriteOBJ(w, in.Order.Apply(pipeline.Moved(in.Net, res)), "pqfab planarized net from "+in.Net.Source)
+		return export.WriteOBJ(w, in.Order.Apply(pipeline.Moved(in.Net, res)), "pqfab: the net of "+in.Net.Source+" with flat panels")
 	})
 }

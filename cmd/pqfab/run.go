@@ -31,7 +31,7 @@ type command struct {
 
 func commands() []command {
 	return []command{
-		{"demo", "-o DIR", "run the built-in demo job (an invented library canopy) into DIR", runDemo},
+		{"demo", "-o DIR", "run the built-in demo job (the entrance vault of the invented Larkspur Lane Library) into DIR", runDemo},
 		{"build", "JOB.toml -o DIR", "run a whole job: flat panels, members, nesting, DXF, XLSX, JSON", runBuild},
 		{"inspect", "NET", "read and check a net; print counts, bounds, members at node and planarity", runInspect},
 		{"sample", "NAME -o FILE", "write a sample net as OBJ (canopy, dome, wave)", runSample},

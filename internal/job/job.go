@@ -210,13 +210,25 @@ type Nesting struct {
 // NestOptions returns the nesting's search options.
 func (j *Job) NestOptions() nest.Options { return nest.Options{Steps: j.Nesting.Steps} }
 
-// Rates is the optional [rates] table.
+// Rates is the optional [rates] table. Making rates (member_per_m,
+// panel_per_m2) cover processing only; material is charged once, from the
+// bar and sheet prices, or from bar_per_m, sheet_each or sheet_per_m2
+// where a stock has no price; node_each is the whole node (supplied and
+// made); the type rates are a setup and drawing charge per distinct type.
 type Rates struct {
-	Currency   string  `toml:"currency"`
-	MemberPerM float64 `toml:"member_per_m"`
-	NodeEach   float64 `toml:"node_each"`
-	PanelPerM2 float64 `toml:"panel_per_m2"`
-	SheetEach  float64 `toml:"sheet_each"` // for stock without a price
+	Currency string `toml:"currency"`
+	// Making, per quantity made.
+	MemberPerM float64 `toml:"member_per_m"` // per metre of cut member length
+	NodeEach   float64 `toml:"node_each"`    // per node, supplied and made
+	PanelPerM2 float64 `toml:"panel_per_m2"` // per m² of cut panel
+	// Setup and drawing, per distinct type.
+	MemberTypeEach float64 `toml:"member_type_each"`
+	NodeTypeEach   float64 `toml:"node_type_each"`
+	PanelTypeEach  float64 `toml:"panel_type_each"`
+	// Material where a stock has no price.
+	BarPerM    float64 `toml:"bar_per_m"`    // per metre of bar stock without a price; per metre of blank for members on no bar
+	SheetEach  float64 `toml:"sheet_each"`   // per sheet of stock without a price
+	SheetPerM2 float64 `toml:"sheet_per_m2"` // per m² of sheet of stock without a price
 }
 
 // Support modes of the [supports] table.
@@ -572,10 +584,15 @@ func (j *Job) checkRates() error {
 	for _, v := range []struct {
 		key string
 		v   float64
-	}{{"rates.member_per_m", r.MemberPerM}, {"rates.node_each", r.NodeEach}, {"rates.panel_per_m2", r.PanelPerM2}, {"rates.sheet_each", r.SheetEach}} {
+	}{{"rates.member_per_m", r.MemberPerM}, {"rates.node_each", r.NodeEach}, {"rates.panel_per_m2", r.PanelPerM2},
+		{"rates.member_type_each", r.MemberTypeEach}, {"rates.node_type_each", r.NodeTypeEach}, {"rates.panel_type_each", r.PanelTypeEach},
+		{"rates.bar_per_m", r.BarPerM}, {"rates.sheet_each", r.SheetEach}, {"rates.sheet_per_m2", r.SheetPerM2}} {
 		if !(v.v >= 0) || v.v > MaxRate {
 			return j.Errorf(v.key, "%g must be between 0 and %g", v.v, MaxRate)
 		}
+	}
+	if r.SheetEach > 0 && r.SheetPerM2 > 0 {
+		return j.Errorf("rates.sheet_per_m2", "%g: give the material of unpriced sheet stock once, per sheet (rates.sheet_each = %g) or per m² of sheet, not both", r.SheetPerM2, r.SheetEach)
 	}
 	return nil
 }

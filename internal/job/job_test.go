@@ -46,6 +46,9 @@ height_mm = 3210
 		{"negative mass", base + "[member]\nsection = \"mass\"\nmass_kg_m = -3\n", "job.toml:8: key member.mass_kg_m: -3 must be more than 0"},
 		{"mass on hollow", base + "[member]\nsection = \"hollow\"\nwall_mm = 4\nmass_kg_m = 3\n", "job.toml:9: key member.mass_kg_m: is read only with section = \"mass\""},
 		{"bad tag size", base + "[site]\ntag_size = \"huge\"\n", "job.toml:7: key site.tag_size: \"huge\": want \"office\""},
+		{"negative type rate", base + "[rates]\nmember_type_each = -1\n", "job.toml:7: key rates.member_type_each: -1 must be between 0"},
+		{"unpriced sheets twice", base + "[rates]\nsheet_each = 100\nsheet_per_m2 = 5\n", "job.toml:8: key rates.sheet_per_m2: 5: give the material of unpriced sheet stock once"},
+		{"unknown rate", base + "[rates]\npanel_per_m = 5\n", "job.toml:7: key rates.panel_per_m: unknown key; did you mean rates.panel_per_m2?"},
 	}
 	for _, tc := range tests {
 		_, err := Parse([]byte(tc.text), "job.toml")

@@ -170,7 +170,7 @@ func Run(ctx context.Context, j *job.Job, open Opener, obs Observer, pol Policy)
 			warn(fmt.Sprintf("panel %s is on no sheet: %s", res.Flats[u.Part].Label, u.Reason))
 		}
 	}
-	res.Cost = cost(j, st, res.Flats, res.Nesting, res.Stocks, res.BarPlan, res.BarStocks)
+	res.Cost = cost(j, st, res.Flats, res.Nesting, res.Stocks, res.BarPlan, res.BarStocks, res.Blanks, len(res.PanelTypes))
 	return res, nil
 }
 
@@ -354,92 +354,127 @@ func typeSpecs(j *job.Job) map[string]export.PanelSpec {
 	return m
 }
 
-// settings lists the job's settings for the summary sheet.
+// settings lists the job's settings for the summary sheet: numbers as
+// numbers, units in the names. The stock sizes are in the report's stock
+// rows.
 func settings(j *job.Job) []export.Setting {
-	f := func(v float64) string { return fmt.Sprintf("%g", v) }
-	s := []export.Setting{
-		{Name: "Net unit", Value: j.Net.Unit},
+	yes := func(b bool) string {
+		if b {
+			return "yes"
+		}
+		return "no"
+	}
+	return []export.Setting{
+		{Name: "Geometry unit", Value: j.Net.Unit},
 		{Name: "Supports", Value: j.Supports.Mode},
-		{Name: "Flatness tolerance (mm)", Value: f(j.Flatness.TolMM)},
-		{Name: "Allowed node move (mm)", Value: f(j.Flatness.MaxMoveMM)},
-		{Name: "Fairness", Value: f(j.Flatness.Fairness)},
+		{Name: "Flatness tolerance (mm)", Value: j.Flatness.TolMM},
+		{Name: "Allowed node move (mm)", Value: j.Flatness.MaxMoveMM},
+		{Name: "Smooth moves against small moves (fairness)", Value: j.Flatness.Fairness},
 		{Name: "Node axes", Value: j.Nodes.Axis},
-		{Name: "Hub radius (mm)", Value: f(j.Nodes.HubRadiusMM)},
-		{Name: "Member section (mm)", Value: sectionText(j.Member)},
-		{Name: "Member mass (kg/m)", Value: fmt.Sprintf("%.3f", j.Member.KgPerM())},
+		{Name: "Hub radius (mm)", Value: j.Nodes.HubRadiusMM},
+		{Name: "Member section", Value: j.Member.Section},
+		{Name: "Member width (mm)", Value: j.Member.WidthMM},
+		{Name: "Member depth (mm)", Value: j.Member.DepthMM},
+		{Name: "Member wall (mm, hollow sections)", Value: j.Member.WallMM},
+		{Name: "Member mass (kg/m)", Value: export.Round(j.Member.KgPerM(), 3)},
 		{Name: "Panel material", Value: j.Panel.Material},
-		{Name: "Panel thickness (mm)", Value: f(j.Panel.ThicknessMM)},
-		{Name: "Panel edge inset (mm)", Value: f(j.Panel.EdgeInsetMM)},
-		{Name: "Mirrored panels allowed", Value: fmt.Sprint(j.Panel.Mirror)},
-		{Name: "Bay size (mm)", Value: f(j.Nodes.BayMM)},
-		{Name: "Type tolerances", Value: fmt.Sprintf("%g mm, %g°, panels %g mm", j.Types.LengthTolMM, j.Types.AngleTolDeg, j.Types.PanelTolMM)},
+		{Name: "Panel thickness (mm)", Value: j.Panel.ThicknessMM},
+		{Name: "Panel edge inset (mm)", Value: j.Panel.EdgeInsetMM},
+		{Name: "Mirrored panels allowed", Value: yes(j.Panel.Mirror)},
+		{Name: "Bay size (mm)", Value: j.Nodes.BayMM},
+		{Name: "Type tolerance, member cut length (mm)", Value: j.Types.LengthTolMM},
+		{Name: "Type tolerance, angles (°)", Value: j.Types.AngleTolDeg},
+		{Name: "Type tolerance, panel edges and diagonals (mm)", Value: j.Types.PanelTolMM},
+		{Name: "Nesting search steps", Value: j.NestOptions().Steps},
+		{Name: "Nesting time limit (s, 0: none)", Value: j.Nesting.Seconds},
 	}
-	for _, st := range j.Stock {
-		s = append(s, export.Setting{Name: "Stock " + st.Name, Value: fmt.Sprintf("%g x %g mm, margin %g, spacing %g, rotation %s, mirror %v, cuts %s, count %d, price %g",
-			st.WidthMM, st.HeightMM, st.MarginMM, st.SpacingMM, st.Rotation, st.Mirror, st.Cuts, st.Count, st.Price)})
-	}
-	limit := "none"
-	if j.Nesting.Seconds > 0 {
-		limit = fmt.Sprintf("%g s", j.Nesting.Seconds)
-	}
-	s = append(s, export.Setting{Name: "Nesting search", Value: fmt.Sprintf("%d steps, time limit %s", j.NestOptions().Steps, limit)})
-	return s
 }
 
-// sectionText describes the member section for the settings.
-func sectionText(m job.Member) string {
-	f := func(v float64) string { return fmt.Sprintf("%g", v) }
-	s := f(m.WidthMM) + " x " + f(m.DepthMM)
-	switch m.Section {
-	case job.SectionHollow:
-		s += ", hollow, wall " + f(m.WallMM)
-	case job.SectionMass:
-		s += ", mass per metre given"
-	default:
-		s += ", solid"
-	}
-	return s
-}
-
-// cost turns the job's unit rates into a cost summary (nil without rates).
-func cost(j *job.Job, st *nodes.Structure, flats []panels.Flat, nres *nest.Result, stocks []nest.Stock, plan *bars.Plan, barStocks []bars.Stock) *export.Cost {
+// cost turns the job's rates into a cost summary (nil without rates).
+// Each quantity is charged once: making rates cover processing only, the
+// material comes from the bar and sheet prices (or, for a stock without a
+// price, from the material rates), a node is one charge, and the type
+// rates are a setup charge per distinct type. Amounts are rounded to the
+// cent and the total is their sum.
+func cost(j *job.Job, st *nodes.Structure, flats []panels.Flat, nres *nest.Result, stocks []nest.Stock, plan *bars.Plan, barStocks []bars.Stock, blanks []bars.Piece, panelTypes int) *export.Cost {
 	rt := j.Rates
 	if rt == nil {
 		return nil
 	}
 	c := &export.Cost{Currency: rt.Currency}
-	add := func(item string, q float64, unit string, rate float64) {
-		amount := math.Round(q*rate*100) / 100
-		c.Lines = append(c.Lines, export.CostLine{Item: item, Quantity: math.Round(q*1000) / 1000, Unit: unit, Rate: rate, Amount: amount})
-		c.Total += amount
+	var cents int64
+	add := func(kind, item string, q float64, unit string, rate float64) {
+		q = math.Round(q*1000) / 1000 // the quantity shown is the one charged
+		ct := int64(math.Round(q * rate * 100))
+		c.Lines = append(c.Lines, export.CostLine{Kind: kind, Item: item, Quantity: q, Unit: unit, Rate: rate, Amount: float64(ct) / 100})
+		cents += ct
 	}
-	var metres, area float64
+	// Members: material from the bars, making by cut length, setup by type.
+	var metres float64
 	for _, m := range st.Members {
 		metres += m.CutLengthMM / 1000
 	}
-	for _, f := range flats {
-		area += f.AreaM2
+	onBar := make([]bool, len(blanks))
+	if plan != nil {
+		for _, u := range plan.Stocks {
+			if u.Bars == 0 {
+				continue
+			}
+			s := barStocks[u.Stock]
+			switch {
+			case s.Price > 0 || rt.BarPerM == 0:
+				add(export.CostMaterial, fmt.Sprintf("Member material: bars %s (%g mm), at the bar price", s.Name, s.LengthMM), float64(u.Bars), "bar", s.Price)
+			default:
+				add(export.CostMaterial, fmt.Sprintf("Member material: bars %s (%g mm), no bar price: by bar length", s.Name, s.LengthMM), float64(u.Bars)*s.LengthMM/1000, "m", rt.BarPerM)
+			}
+		}
+		for _, b := range plan.Bars {
+			for _, p := range b.Pieces {
+				onBar[p] = true
+			}
+		}
 	}
-	add("Members (cut length)", metres, "m", rt.MemberPerM)
-	add("Nodes", float64(len(st.Nodes)), "each", rt.NodeEach)
-	add("Panels (cut area)", area, "m²", rt.PanelPerM2)
+	var loose float64
+	for i, p := range blanks {
+		if !onBar[i] {
+			loose += p.LengthMM / 1000
+		}
+	}
+	if loose > 0 && rt.BarPerM > 0 {
+		add(export.CostMaterial, "Member material: members on no bar, by blank length", loose, "m", rt.BarPerM)
+	}
+	add(export.CostMaking, "Member making: cutting and end cuts, by cut length", metres, "m", rt.MemberPerM)
+	if rt.MemberTypeEach > 0 {
+		add(export.CostSetup, "Member types: setup and drawing", float64(len(st.MemberTypes)), "type", rt.MemberTypeEach)
+	}
+	// Nodes: one charge each, supplied and made.
+	add(export.CostMaking, "Nodes: supplied and made", float64(len(st.Nodes)), "each", rt.NodeEach)
+	if rt.NodeTypeEach > 0 {
+		add(export.CostSetup, "Node types: setup and drawing", float64(len(st.NodeTypes)), "type", rt.NodeTypeEach)
+	}
+	// Panels: material from the sheets, making by cut area, setup by type.
 	for _, u := range nres.Stocks {
 		if u.Sheets == 0 {
 			continue
 		}
-		price := stocks[u.Stock].Price
-		if price == 0 {
-			price = rt.SheetEach
-		}
-		add("Stock sheets "+stocks[u.Stock].Name, float64(u.Sheets), "sheet", price)
-	}
-	if plan != nil {
-		for _, u := range plan.Stocks {
-			if u.Bars > 0 {
-				add("Bars "+barStocks[u.Stock].Name, float64(u.Bars), "bar", barStocks[u.Stock].Price)
-			}
+		s := stocks[u.Stock]
+		switch {
+		case s.Price > 0:
+			add(export.CostMaterial, "Panel material: sheets "+s.Name+", at the sheet price", float64(u.Sheets), "sheet", s.Price)
+		case rt.SheetPerM2 > 0:
+			add(export.CostMaterial, "Panel material: sheets "+s.Name+", no sheet price: by sheet area", float64(u.Sheets)*s.WidthMM*s.HeightMM/1e6, "m²", rt.SheetPerM2)
+		default:
+			add(export.CostMaterial, "Panel material: sheets "+s.Name+", no sheet price: per sheet", float64(u.Sheets), "sheet", rt.SheetEach)
 		}
 	}
-	c.Total = math.Round(c.Total*100) / 100
+	var area float64
+	for _, f := range flats {
+		area += f.AreaM2
+	}
+	add(export.CostMaking, "Panel making: cutting and edge work, by cut area", area, "m²", rt.PanelPerM2)
+	if rt.PanelTypeEach > 0 {
+		add(export.CostSetup, "Panel types: setup and drawing", float64(panelTypes), "type", rt.PanelTypeEach)
+	}
+	c.Total = float64(cents) / 100
 	return c
 }

@@ -76,7 +76,7 @@ func (s *MemberSummary) WriteText(w io.Writer) {
 
 // WriteText writes the report's summary for a terminal.
 func (r *PlanarizeReport) WriteText(w io.Writer) {
-	fmt.Fprintf(w, "planarized %s: %d iterations\n", r.Net, r.Iterations)
+	fmt.Fprintf(w, "made the panels of %s flat: %d iterations\n", r.Net, r.Iterations)
 	fmt.Fprintf(w, "  supports     %d nodes held fixed\n", r.Supports)
 	fmt.Fprintf(w, "  node moves   max %.3f mm, RMS %.3f mm\n", r.MaxMoveMM, r.RMSMoveMM)
 	fmt.Fprintf(w, "  flatness     before min %.3f  median %.3f  max %.3f mm\n", r.FlatBefore.Min, r.FlatBefore.Median, r.FlatBefore.Max)
@@ -112,13 +112,17 @@ func (s *NestSummary) WriteText(w io.Writer) {
 // terminal, with the caution.
 func WriteBuildText(w io.Writer, dir string, rep *export.Report) {
 	c := rep.Counts
-	fmt.Fprintf(w, "built %s into %s\n", rep.Title, dir)
+	if rep.Title == "" {
+		fmt.Fprintf(w, "built into %s\n", dir)
+	} else {
+		fmt.Fprintf(w, "built %s into %s\n", rep.Title, dir)
+	}
 	fmt.Fprintf(w, "  nodes    %6d in %d types (no grouping can have fewer than %d)\n", c.Nodes, c.NodeTypes, c.NodeTypesBound.Count)
 	fmt.Fprintf(w, "  members  %6d in %d types (no grouping can have fewer than %d)\n", c.Members, c.MemberTypes, c.MemberTypesBound.Count)
 	fmt.Fprintf(w, "  panels   %6d in %d types (no grouping can have fewer than %d)\n", c.Panels, c.PanelTypes, c.PanelTypesBound.Count)
 	fmt.Fprintf(w, "  flatness before max %.3f mm, after max %.4f mm (tolerance %g mm); largest node move %.2f mm\n",
 		rep.Planarity.FlatBeforeMM.Max, rep.Planarity.FlatAfterMM.Max, rep.Planarity.ToleranceMM, rep.Planarity.MaxMoveMM)
-	fmt.Fprintf(w, "  largest member twist %.3f° (normal axes: %.3f°)\n", rep.Planarity.MaxTwistDeg, rep.Planarity.MaxTwistNormalDeg)
+	fmt.Fprintf(w, "  largest member twist %.3f° (with axes square to the panels: %.3f°)\n", rep.Planarity.MaxTwistDeg, rep.Planarity.MaxTwistNormalDeg)
 	for _, s := range rep.Stocks {
 		if s.Sheets > 0 {
 			fmt.Fprintf(w, "  stock %-10s %4d sheets (fewest sheets by area %d)\n", s.Name, s.Sheets, s.AreaBound)

@@ -78,7 +78,7 @@ def main(out):
     want = {
         'LINE[layer=="PQ-PLAN-MEMBER"]': len(rep["members"]),
         'LINE[layer=="PQ-3D-MEMBER"]': len(rep["members"]),
-        'LWPOLYLINE[layer=="PQ-PLAN-BAR"]': len(rep["members"]),
+        'LWPOLYLINE[layer=="PQ-PLAN-MEMBER-TOP"]': len(rep["members"]),
         'LWPOLYLINE[layer=="PQ-PLAN-PANEL"]': len(rep["panels"]),
         'TEXT[layer=="PQ-NODE-LABEL"]': len(rep["nodes"]),
         'TEXT[layer=="PQ-MEMBER-LABEL"]': len(rep["members"]),
