@@ -116,20 +116,51 @@ func memberTag(mb MemberRow) tag {
 }
 
 func panelTag(p PanelRow) tag {
-	t := tag{label: p.Label, kind: "PANEL", typ: p.Type, bay: bayName(p.Label), note: "Corners listed from corner 1, counter-clockwise seen from outside."}
+	t := tag{label: p.Label, kind: "PANEL", typ: p.Type, bay: bayName(p.Label), note: "Corners from corner 1, counter-clockwise seen from outside. " + BevelSignShort}
 	t.lines = append(t.lines, "corners 1-"+fmt.Sprint(len(p.Corners))+": "+strings.Join(p.Corners, " "))
 	if p.Sheet != "" {
 		t.lines = append(t.lines, "sheet "+p.Sheet)
 	}
-	var ds []string
-	for _, d := range p.Diagonals {
-		ds = append(ds, fmt.Sprintf("%.1f", d.MM))
+	if ds := diagonalText(p.Cut.Diagonals, p.Corners); ds != "" {
+		t.lines = append(t.lines, TagCutDiagonalsText+ds+" mm")
 	}
-	if len(ds) > 0 {
-		t.lines = append(t.lines, "diagonals "+strings.Join(ds, " / ")+" mm")
+	if ds := diagonalText(p.Diagonals, p.Corners); ds != "" {
+		t.lines = append(t.lines, TagSetOutDiagonalsText+ds)
+	}
+	if len(p.Edges) > 0 {
+		bs := make([]string, len(p.Edges))
+		for i, e := range p.Edges {
+			bs[i] = signedFixed(e.BevelDeg, 1)
+		}
+		t.lines = append(t.lines, fmt.Sprintf("%s1-%d (°): %s", TagBevelsText, len(p.Edges), strings.Join(bs, " ")))
 	}
 	t.lines = append(t.lines, fmt.Sprintf("%.3f m², %.1f kg", p.AreaM2, p.WeightKg))
 	return t
+}
+
+// Words that start the lines of a panel tag, so that a reader (and the
+// read-back test) finds each number: "pane diagonals 1-3 2528.3, 2-4
+// 2160.2 mm" are the cut outline's (what is measured on the pane),
+// "set-out diag. (nodes) …" the set-out outline's, node to node.
+const (
+	TagCutDiagonalsText    = "pane diagonals "
+	TagSetOutDiagonalsText = "set-out diag. (nodes) "
+	TagBevelsText          = "bevels "
+)
+
+// diagonalText lists diagonals by corner numbers: "1-3 2528.3, 2-4
+// 2160.2". corners are the panel's corner labels from corner 1.
+func diagonalText(ds []DiagonalRow, corners []string) string {
+	at := make(map[string]int, len(corners))
+	for i, c := range corners {
+		at[c] = i + 1
+	}
+	parts := make([]string, 0, len(ds))
+	for _, d := range ds {
+		i, j := at[d.From], at[d.To]
+		parts = append(parts, fmt.Sprintf("%d-%d %.1f", min(i, j), max(i, j), r(d.MM, 1)))
+	}
+	return strings.Join(parts, ", ")
 }
 
 // drawTag draws one tag with its top-left corner at (x, y).

@@ -60,7 +60,7 @@ func panelTypeHead(rep *Report) []string {
 		head = append(head, fmt.Sprintf("Cut angle %d (°)", i))
 	}
 	for i := 1; i <= k; i++ {
-		head = append(head, fmt.Sprintf("Bevel %d (°, least to most)", i))
+		head = append(head, fmt.Sprintf("Bevel %d (least to most; %s)", i, BevelSignHead))
 	}
 	return append(head, "Cut area (m²)", "Cut perimeter (mm)", "Largest deviation (mm)", "Largest deviation (°)",
 		"Total area (m²)", "Total weight (kg)", "Build-up", "Edge work", "Coating", "Heat treatment", "Grade", "Panels", "Panels turned over")

@@ -28,6 +28,9 @@ type Material struct {
 	EdgeInsetMM      float64 // each edge moved inward by this much for the cut outline
 	BoundaryBevelDeg float64 // edge bevel on the net's boundary
 	Grain            Grain   // which panel direction follows the grain
+	// BevelledEdges: the edges are ground to their bevels, so each edge's
+	// bevel is part of a panel's type (TypeOptions.Bevels).
+	BevelledEdges bool
 }
 
 // Grain rules: which direction of each panel must follow the grain of a

@@ -174,6 +174,10 @@ func checkPanelTypes(t *testing.T, name string, flats []Flat, types []Type, opt 
 		}
 		var vecs [][]float64
 		var devMM, devDeg, area, weight float64
+		// The drawn outline's own numbers, against which OutlineDev is
+		// measured.
+		drawn := panelVec(ty.Outline, 0, false)
+		var odevMM, odevDeg float64
 		for e, f := range ty.Panels {
 			count[f]++
 			if flats[f].Type != ti {
@@ -188,6 +192,13 @@ func checkPanelTypes(t *testing.T, name string, flats []Flat, types []Type, opt 
 			cut := flats[f].Cut
 			v := panelVec(cut, ty.Start[e], ty.Mirrored[e])
 			vecs = append(vecs, v)
+			for d, x := range v {
+				if d < k+nd {
+					odevMM = max(odevMM, math.Abs(x-drawn[d]))
+				} else {
+					odevDeg = max(odevDeg, math.Abs(x-drawn[d]))
+				}
+			}
 			area += flats[f].AreaM2
 			weight += flats[f].WeightKg
 			for d, x := range v {
@@ -218,6 +229,12 @@ func checkPanelTypes(t *testing.T, name string, flats []Flat, types []Type, opt 
 		}
 		if math.Abs(devMM-ty.MaxDevMM) > 1e-9 || math.Abs(devDeg-ty.MaxDevDeg) > 1e-9 {
 			t.Errorf("%s %s: deviations %g mm %g°, type says %g %g", name, ty.Name, devMM, devDeg, ty.MaxDevMM, ty.MaxDevDeg)
+		}
+		if math.Abs(odevMM-ty.OutlineDevMM) > 1e-9 || math.Abs(odevDeg-ty.OutlineDevDeg) > 1e-9 {
+			t.Errorf("%s %s: deviations from the outline %g mm %g°, type says %g %g", name, ty.Name, odevMM, odevDeg, ty.OutlineDevMM, ty.OutlineDevDeg)
+		}
+		if ty.OutlineDevMM > ty.MaxDevMM+ty.OutlineMisfitMM+1e-9 || ty.OutlineDevDeg > ty.MaxDevDeg+ty.OutlineMisfitDeg+1e-9 {
+			t.Errorf("%s %s: deviations from the outline %g mm %g° beyond the nominal's plus the misfit", name, ty.Name, ty.OutlineDevMM, ty.OutlineDevDeg)
 		}
 		if math.Abs(area-ty.TotalAreaM2) > 1e-9 || math.Abs(weight-ty.TotalWeightKg) > 1e-6 {
 			t.Errorf("%s %s: totals %g m² %g kg, type says %g %g", name, ty.Name, area, weight, ty.TotalAreaM2, ty.TotalWeightKg)

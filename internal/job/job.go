@@ -78,6 +78,7 @@ type Panel struct {
 	EdgeInsetMM      float64 `toml:"edge_inset_mm"`
 	BoundaryBevelDeg float64 `toml:"boundary_bevel_deg"`
 	Mirror           bool    `toml:"mirror"`
+	BevelledEdges    bool    `toml:"bevelled_edges"` // edges ground to their bevels: the bevels are part of each panel type
 	Grain            string  `toml:"grain"`          // first-edge, longest-edge or plan
 	GrainPlanDeg     float64 `toml:"grain_plan_deg"` // with grain = "plan"
 	PanelSpec
@@ -239,12 +240,12 @@ func (j *Job) Material() panels.Material {
 	p := j.Panel
 	return panels.Material{Name: p.Material, ThicknessMM: p.ThicknessMM, DensityKgM3: p.DensityKgM3,
 		EdgeInsetMM: p.EdgeInsetMM, BoundaryBevelDeg: p.BoundaryBevelDeg,
-		Grain: panels.Grain{Rule: p.Grain, PlanDeg: p.GrainPlanDeg}}
+		Grain: panels.Grain{Rule: p.Grain, PlanDeg: p.GrainPlanDeg}, BevelledEdges: p.BevelledEdges}
 }
 
 // PanelTypeOptions returns when two panels are one type.
 func (j *Job) PanelTypeOptions() panels.TypeOptions {
-	return panels.TypeOptions{TolMM: j.Types.PanelTolMM, AngleTolDeg: j.Types.AngleTolDeg, Mirror: j.Panel.Mirror}
+	return panels.TypeOptions{TolMM: j.Types.PanelTolMM, AngleTolDeg: j.Types.AngleTolDeg, Mirror: j.Panel.Mirror, Bevels: j.Panel.BevelledEdges}
 }
 
 // BarStocks returns the job's bar stock for the members' cutting plan.

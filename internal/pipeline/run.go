@@ -357,6 +357,7 @@ func settings(j *job.Job) []export.Setting {
 		{Name: "Panel thickness (mm)", Value: f(j.Panel.ThicknessMM)},
 		{Name: "Panel edge inset (mm)", Value: f(j.Panel.EdgeInsetMM)},
 		{Name: "Mirrored panels allowed", Value: fmt.Sprint(j.Panel.Mirror)},
+		{Name: "Panel edges bevelled (bevels part of each panel type)", Value: fmt.Sprint(j.Panel.BevelledEdges)},
 		{Name: "Bay size (mm)", Value: f(j.Nodes.BayMM)},
 		{Name: "Type tolerances", Value: fmt.Sprintf("%g mm, %g°, panels %g mm", j.Types.LengthTolMM, j.Types.AngleTolDeg, j.Types.PanelTolMM)},
 	}
