@@ -299,7 +299,11 @@ func bounds(pts [][2]float64) (lox, loy, hix, hiy float64) {
 // one at a time.
 func WritePanelTypeDXF(w io.Writer, rep *Report, t int) error {
 	pt := rep.PanelTypes[t]
-	return writePanelDXF(w, panelDrawing{Title: rep.Title, Name: pt.Name, Material: rep.PanelMaterial.Name, ThicknessMM: rep.PanelMaterial.ThicknessMM,
+	thick := rep.PanelMaterial.ThicknessMM
+	if pt.Spec.ThicknessMM > 0 {
+		thick = pt.Spec.ThicknessMM
+	}
+	return writePanelDXF(w, panelDrawing{Title: rep.Title, Name: pt.Name, Material: rep.PanelMaterial.Name, ThicknessMM: thick,
 		Count: pt.Count, Parts: pt.Parts, Mirrored: pt.Mirrored, Cut: pt.Drawing.CutMM, SetOut: pt.Drawing.SetOutMM,
 		EdgesMM: pt.Drawing.EdgesMM, AnglesDeg: pt.Drawing.AnglesDeg, Diagonals: pt.Drawing.Diagonals, BevelsDeg: pt.BevelsDeg,
 		PartBevels: pt.PartBevels, BevelledEdges: rep.PanelMaterial.BevelledEdges,

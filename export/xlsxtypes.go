@@ -63,7 +63,7 @@ func panelTypeHead(rep *Report) []string {
 		head = append(head, fmt.Sprintf("Bevel %d (least to most; %s)", i, BevelSignHead))
 	}
 	return append(head, "Cut area (m²)", "Cut perimeter (mm)", "Largest deviation (mm)", "Largest deviation (°)",
-		"Total area (m²)", "Total weight (kg)", "Build-up", "Edge work", "Coating", "Heat treatment", "Grade", "Panels", "Panels turned over")
+		"Total area (m²)", "Thickness (mm)", "Total weight (kg)", "Build-up", "Edge work", "Coating", "Heat treatment", "Grade", "Panels", "Panels turned over")
 }
 
 func typeCorners(rep *Report) int {
@@ -96,7 +96,11 @@ func panelTypeRows(rep *Report) func(add func(row ...any) error) error {
 				}
 			}
 			s := t.Spec
-			row = append(row, t.AreaM2, t.PerimeterMM, t.MaxDevMM, t.MaxDevDeg, t.TotalAreaM2, t.WeightKg,
+			thick := rep.PanelMaterial.ThicknessMM
+			if s.ThicknessMM > 0 {
+				thick = s.ThicknessMM
+			}
+			row = append(row, t.AreaM2, t.PerimeterMM, t.MaxDevMM, t.MaxDevDeg, t.TotalAreaM2, thick, t.WeightKg,
 				s.BuildUp, s.EdgeWork, s.Coating, s.HeatTreatment, s.Grade, partList(t.Parts, SheetPanels), partList(t.Mirrored, SheetPanels))
 			if err := add(row...); err != nil {
 				return err

@@ -105,3 +105,17 @@ func TestBevelSignRidge(t *testing.T) {
 		t.Errorf("inside face edge %g mm in from the outside face's, want +%g (outside face larger at a + bevel)", tIn, want)
 	}
 }
+
+// TestSpecGroupsApart: equal panels in two specification groups make two
+// types, one per group.
+func TestSpecGroupsApart(t *testing.T) {
+	flats := []Flat{squareFlat(0, 0, 0, 0), squareFlat(0, 0, 0, 0), squareFlat(0, 0, 0, 0)}
+	flats[1].SpecGroup = 2
+	types, bound, err := Group(flats, defaultTypes)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(types) != 2 || bound.Count != 2 || flats[0].Type == flats[1].Type || flats[0].Type != flats[2].Type {
+		t.Errorf("%d types (bound %d), panel types %d %d %d; want 2: groups apart", len(types), bound.Count, flats[0].Type, flats[1].Type, flats[2].Type)
+	}
+}

@@ -33,6 +33,11 @@ type Material struct {
 	BevelledEdges bool
 }
 
+// WeightKg returns the weight of areaM2 square metres of the material.
+func (m Material) WeightKg(areaM2 float64) float64 {
+	return areaM2 * m.ThicknessMM / 1000 * m.DensityKgM3
+}
+
 // Grain rules: which direction of each panel must follow the grain of a
 // board (or the roll direction of a coating) on stock that allows only
 // turns of 0 and 180°.

@@ -120,6 +120,16 @@ func TypeBevels(t *Type, n int, fl Flat) []float64 {
 	return out
 }
 
+// Retotal sums the type's totals again from its panels' areas and weights
+// (after the caller changed the weights, such as for another thickness).
+func (t *Type) Retotal(flats []Flat) {
+	t.TotalAreaM2, t.TotalWeightKg = 0, 0
+	for _, f := range t.Panels {
+		t.TotalAreaM2 += flats[f].AreaM2
+		t.TotalWeightKg += flats[f].WeightKg
+	}
+}
+
 // panelShape lays out the coordinates of a k-corner panel: k edges, the
 // diagonals in Flat's order, k corner angles.
 type panelShape struct {
@@ -225,24 +235,33 @@ func cornerAngles(p geom.Polygon) []float64 {
 
 // Group sorts flat panels into the fewest types it finds by their cut
 // outlines (see geom.GroupTypes for the method and its guarantees), panels
-// with different corner counts apart, sets each panel's Type, and returns
+// with different corner counts or specification groups (Flat.SpecGroup) apart, sets each panel's Type, and returns
 // the types numbered by nominal area, ties by the nominal edges, with a
 // lower bound on their number.
 func Group(flats []Flat, opt TypeOptions) ([]Type, geom.TypeBound, error) {
 	if err := opt.Validate(); err != nil {
 		return nil, geom.TypeBound{}, err
 	}
-	byCount := map[int][]int{}
+	// Panels with other corner counts or in other specification groups
+	// never share a type.
+	byCount := map[[2]int][]int{}
 	for f, fl := range flats {
-		byCount[len(fl.Cut)] = append(byCount[len(fl.Cut)], f)
+		key := [2]int{fl.SpecGroup, len(fl.Cut)}
+		byCount[key] = append(byCount[key], f)
 	}
-	counts := slices.Sorted(maps.Keys(byCount))
+	counts := slices.SortedFunc(maps.Keys(byCount), func(a, b [2]int) int {
+		if c := cmp.Compare(a[0], b[0]); c != 0 {
+			return c
+		}
+		return cmp.Compare(a[1], b[1])
+	})
 	var types []Type
 	var bound geom.TypeBound
-	for _, k := range counts {
+	for _, key := range counts {
+		k := key[1]
 		sh := newShape(k)
 		sh.bevels = opt.Bevels
-		ts, b, err := groupShape(flats, byCount[k], sh, opt)
+		ts, b, err := groupShape(flats, byCount[key], sh, opt)
 		if err != nil {
 			return nil, geom.TypeBound{}, err
 		}
@@ -400,9 +419,8 @@ func panelType(flats []Flat, idx []int, s panelShape, g geom.TypeGroup) Type {
 		ty.Panels = append(ty.Panels, f)
 		ty.Start = append(ty.Start, start)
 		ty.Mirrored = append(ty.Mirrored, dir < 0)
-		ty.TotalAreaM2 += flats[f].AreaM2
-		ty.TotalWeightKg += flats[f].WeightKg
 	}
+	ty.Retotal(flats)
 	if s.bevels {
 		for e, f := range ty.Panels {
 			for i, b := range TypeBevels(&ty, e, flats[f]) {

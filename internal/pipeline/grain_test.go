@@ -3,17 +3,12 @@ package pipeline_test
 import (
 	"context"
 	"fmt"
-	"io"
-	"io/fs"
 	"math"
-	"strings"
 	"testing"
 
-	"pqfab/export"
 	"pqfab/geom"
 	"pqfab/internal/job"
 	"pqfab/internal/pipeline"
-	"pqfab/samples"
 )
 
 // TestGrainFollowsLongestEdge: on board stock that allows only turns of 0
@@ -22,17 +17,7 @@ import (
 // outlines), and the placement's turn applied to the panel's own cut
 // outline gives the placed outline.
 func TestGrainFollowsLongestEdge(t *testing.T) {
-	net, _ := samples.Make("dome", 120)
-	var obj strings.Builder
-	if err := export.WriteOBJ(&obj, net, "dome"); err != nil {
-		t.Fatal(err)
-	}
-	open := func(name string) (io.ReadCloser, error) {
-		if name != "net.obj" {
-			return nil, fs.ErrNotExist
-		}
-		return io.NopCloser(strings.NewReader(obj.String())), nil
-	}
+	open := domeOpener(t, 120)
 	text := `[net]
 file = "net.obj"
 [panel]

@@ -43,6 +43,9 @@ type Result struct {
 	// PanelTypeSetOut is each panel type's nominal set-out outline: its
 	// nominal cut outline grown by the edge inset.
 	PanelTypeSetOut []geom.Polygon
+	// TypeSpecs is every panel type's specification (with its thickness
+	// and density), by type name.
+	TypeSpecs map[string]export.PanelSpec
 
 	Stocks  []nest.Stock
 	Nesting *nest.Result
@@ -244,6 +247,19 @@ func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) e
 	case err != nil:
 		return err
 	}
+	// Panels picked by label or bay take their table's thickness and
+	// density, and never share a type with other panels.
+	pick, err := pickPanels(j, res.Flats)
+	if err != nil {
+		return err
+	}
+	for f := range res.Flats {
+		if pick[f] >= 0 {
+			fl := &res.Flats[f]
+			fl.SpecGroup = pick[f] + 1
+			fl.WeightKg = panelMaterial(j, pick[f]).WeightKg(fl.AreaM2)
+		}
+	}
 	if res.PanelTypes, res.PanelTypeBound, err = panels.Group(res.Flats, j.PanelTypeOptions()); err != nil {
 		return err
 	}
@@ -252,16 +268,14 @@ func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) e
 	// alike.
 	for _, t := range res.PanelTypes {
 		for n, f := range t.Panels {
-			if err := panels.StartAt(res.Net, j.Material(), &res.Flats[f], t.Start[n]); err != nil {
+			if err := panels.StartAt(res.Net, panelMaterial(j, pick[f]), &res.Flats[f], t.Start[n]); err != nil {
 				return err
 			}
 			t.Start[n] = 0
 		}
 	}
-	names := map[string]bool{}
 	inset := j.Material().EdgeInsetMM
 	for _, t := range res.PanelTypes {
-		names[t.Name] = true
 		out := t.Outline
 		if inset > 0 {
 			if grown, err := panels.Inset(t.Outline, -inset); err == nil {
@@ -270,10 +284,8 @@ func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) e
 		}
 		res.PanelTypeSetOut = append(res.PanelTypeSetOut, out)
 	}
-	for i, t := range j.PanelType {
-		if !names[t.Type] {
-			return j.Errorf(fmt.Sprintf("panel_type[%d].type", i+1), "%q is not a panel type of this net (it has PT-001 to %s)", t.Type, res.PanelTypes[len(res.PanelTypes)-1].Name)
-		}
+	if res.TypeSpecs, err = typeSpecs(j, res.PanelTypes, res.Flats, pick); err != nil {
+		return err
 	}
 
 	if j.Nesting.Seconds > 0 {
@@ -295,7 +307,7 @@ func (r *Result) Bundle() *export.Bundle {
 		Structure: r.Structure, Flats: r.Flats, PanelTypes: r.PanelTypes, PanelTypeBound: r.PanelTypeBound, Stocks: r.Stocks, Nesting: r.Nesting, Cost: r.Cost,
 		BarStocks: r.BarStocks, Blanks: r.Blanks, BarPlan: r.BarPlan, HubRadiusMM: r.Job.Nodes.HubRadiusMM, PanelTypeSetOut: r.PanelTypeSetOut,
 		MemberMaterial: r.Job.Member.Material, MemberDensityKgM3: r.Job.Member.DensityKgM3,
-		PanelMaterial: r.Job.Material(), PanelSpec: spec(r.Job.Panel.PanelSpec), TypeSpecs: typeSpecs(r.Job)}
+		PanelMaterial: r.Job.Material(), PanelSpec: spec(r.Job.Panel.PanelSpec), TypeSpecs: r.TypeSpecs}
 }
 
 // Write writes every output of the result into the folder dir, atomically
@@ -330,15 +342,6 @@ func NetFiles(path string) []string {
 // spec turns a job's panel specification into the report's.
 func spec(s job.PanelSpec) export.PanelSpec {
 	return export.PanelSpec{BuildUp: s.BuildUp, EdgeWork: s.EdgeWork, Coating: s.Coating, HeatTreatment: s.HeatTreatment, Grade: s.Grade}
-}
-
-// typeSpecs returns the job's specifications of named panel types.
-func typeSpecs(j *job.Job) map[string]export.PanelSpec {
-	m := map[string]export.PanelSpec{}
-	for _, t := range j.PanelType {
-		m[t.Type] = spec(t)
-	}
-	return m
 }
 
 // settings lists the job's settings for the summary sheet.
