@@ -242,8 +242,12 @@ func clearSpot(s string, x, y, h, angDeg float64, dir [2]float64, step float64, 
 // dxfTextWidth, height h, with a margin of h/4 around it) crosses or
 // holds a point of any segment.
 func textHits(s string, c [2]float64, h, angDeg float64, segs [][2][2]float64) bool {
-	hw := dxfTextWidth(dxfText(s), h)/2 + h/4
-	hh := h/2 + h/4
+	return boxHits(c, dxfTextWidth(dxfText(s), h)/2+h/4, h/2+h/4, angDeg, segs)
+}
+
+// boxHits says whether the box of half width hw and half height hh about
+// c, turned by angDeg, crosses or holds a point of any segment.
+func boxHits(c [2]float64, hw, hh, angDeg float64, segs [][2][2]float64) bool {
 	sn, cs := math.Sincos(angDeg * math.Pi / 180)
 	// In the text's own frame the box is [-hw, hw] × [-hh, hh].
 	local := func(p [2]float64) [2]float64 {

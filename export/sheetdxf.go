@@ -8,6 +8,8 @@ import (
 	"slices"
 
 	"github.com/yofu/dxf/color"
+
+	"pqfab/geom"
 )
 
 // Layers of the cut sheets: one concept each, colour by layer.
@@ -153,24 +155,23 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 				return nil
 			})
 		}
+		polys := make([]geom.Polygon, len(parts))
+		for i, p := range parts {
+			polys[i] = make(geom.Polygon, len(p))
+			for j, v := range p {
+				polys[i][j] = geom.Vec2{X: v[0], Y: v[1]}
+			}
+		}
 		add(func() error { return useLayer(d, LayerCutNumber) })
 		for i, c := range s.Cuts {
 			add(func() error {
-				// At the middle of the cut's longest drawn span.
-				a, b := c.From, c.To
-				best := -1.0
-				for _, sp := range spans[i] {
-					if l := math.Hypot(sp[1][0]-sp[0][0], sp[1][1]-sp[0][1]); l > best {
-						best, a, b = l, sp[0], sp[1]
-					}
-				}
-				mx, my := (a[0]+b[0])/2, (a[1]+b[1])/2
 				num := fmt.Sprint(i + 1)
 				rad := max(0.9*nh, dxfTextWidth(num, nh)/2+0.3*nh)
-				if _, err := d.Circle(mx, my, 0, rad); err != nil {
+				at := cutNumberSpot(c, spans[i], rad, segs, polys)
+				if _, err := d.Circle(at[0], at[1], 0, rad); err != nil {
 					return err
 				}
-				return text(d, num, mx, my, 0, nh, 0)
+				return text(d, num, at[0], at[1], 0, nh, 0)
 			})
 		}
 	}
@@ -251,6 +252,42 @@ func offOutlines(a, b [2]float64, segs [][2][2]float64) [][2][2]float64 {
 		out = append(out, [2][2]float64{at(t), b})
 	}
 	return out
+}
+
+// cutNumberSpot returns where a cut's circled number (radius rad) goes:
+// the middle of its longest drawn span, else of the cut, where the circle
+// is clear of the parts; else at a quarter or three quarters along; each
+// on the cut or beside it on either side; the middle when none is clear.
+func cutNumberSpot(c SheetCutRow, spans [][2][2]float64, rad float64, segs [][2][2]float64, parts []geom.Polygon) [2]float64 {
+	a, b := c.From, c.To
+	best := -1.0
+	for _, sp := range spans {
+		if l := math.Hypot(sp[1][0]-sp[0][0], sp[1][1]-sp[0][1]); l > best {
+			best, a, b = l, sp[0], sp[1]
+		}
+	}
+	u := unit2(b[0]-a[0], b[1]-a[1])
+	off := rad * 1.3
+	for _, t := range []float64{0.5, 0.25, 0.75} {
+		m := [2]float64{a[0] + t*(b[0]-a[0]), a[1] + t*(b[1]-a[1])}
+		for _, side := range []float64{0, 1, -1} {
+			p := [2]float64{m[0] - side*off*u[1], m[1] + side*off*u[0]}
+			if boxHits(p, rad, rad, 0, segs) {
+				continue
+			}
+			inside := false
+			for _, q := range parts {
+				if q.Contains(geom.Vec2{X: p[0], Y: p[1]}) {
+					inside = true
+					break
+				}
+			}
+			if !inside {
+				return p
+			}
+		}
+	}
+	return [2]float64{(a[0] + b[0]) / 2, (a[1] + b[1]) / 2}
 }
 
 // fixed formats x with d decimals, never as a negative zero.
