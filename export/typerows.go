@@ -76,8 +76,8 @@ type PanelTypeRow struct {
 	Spec        PanelSpec       `json:"spec"`
 	Parts       []string        `json:"parts"`
 	Mirrored    []string        `json:"turned_over"` // parts cut from the shape turned over
-	// The drawing (panel-types/PT-NNN.dxf): the nominal cut outline built
-	// from the nominal edges and diagonals (corner 1 at the origin, edge 1
+	// The drawing (panel-types/PT-NNN.dxf): the nominal cut outline fitted
+	// to the nominal edges and diagonals (corner 1 at the origin, edge 1
 	// along x), the set-out outline around it, and the numbers written on
 	// the drawing, measured on that outline.
 	Drawing PanelDrawingRow `json:"drawing"`

@@ -7,6 +7,8 @@ import (
 	"math"
 	"slices"
 
+	"gonum.org/v1/gonum/mat"
+
 	"pqfab/geom"
 )
 
@@ -67,11 +69,11 @@ type Type struct {
 	// where bevels are part of the type (TypeOptions.Bevels); else nil.
 	BevelDeg []float64
 	// Outline is a nominal outline for drawings: corner 1 at the origin,
-	// corner 2 on the x axis, each further corner placed from corner 1 and
-	// the corner before it, so it honours every edge and every diagonal from
-	// corner 1 exactly; OutlineMisfitMM and OutlineMisfitDeg are its largest
-	// differences from the other nominal diagonals and the nominal corner
-	// angles.
+	// corner 2 on the x axis, its edges and diagonals as near the nominal
+	// ones as one outline can be (least squares: a quad's four edges and two
+	// diagonals are one more length than its shape has freedoms);
+	// OutlineMisfitMM and OutlineMisfitDeg are its largest differences from
+	// the nominal edges and diagonals and the nominal corner angles.
 	Outline          geom.Polygon
 	OutlineMisfitMM  float64
 	OutlineMisfitDeg float64
@@ -393,9 +395,12 @@ func panelType(flats []Flat, idx []int, s panelShape, g geom.TypeGroup) Type {
 	for _, e := range ty.EdgeMM {
 		ty.PerimeterMM += e
 	}
-	ty.Outline = fanOutline(s, nom)
+	ty.Outline = fitOutline(s, nom, fanOutline(s, nom))
 	ty.AreaM2 = ty.Outline.Area() / 1e6
 	got := cornerDist(ty.Outline)
+	for i, e := range ty.EdgeMM {
+		ty.OutlineMisfitMM = max(ty.OutlineMisfitMM, math.Abs(got[i][(i+1)%k]-e))
+	}
 	for _, d := range ty.Diagonals {
 		ty.OutlineMisfitMM = max(ty.OutlineMisfitMM, math.Abs(got[d.I][d.J]-d.MM))
 	}
@@ -444,6 +449,92 @@ func cornerDist(p geom.Polygon) [][]float64 {
 	}
 	return out
 }
+
+// fitOutline moves the corners of out (corner 0 at the origin, corner 1
+// on the x axis kept so) to the least sum of squared differences between
+// its edges and diagonals and the nominal ones, by Gauss-Newton steps from
+// out: a k-corner outline has 2k−3 degrees of freedom and k + k(k−3)/2
+// lengths, so where the nominal lengths are not those of one outline the
+// misfit is shared among them instead of falling on the last diagonals.
+func fitOutline(s panelShape, nom []float64, out geom.Polygon) geom.Polygon {
+	k := s.k
+	type pair struct {
+		i, j int
+		want float64
+	}
+	var pairs []pair
+	for i := range k {
+		pairs = append(pairs, pair{i, (i + 1) % k, nom[i]})
+	}
+	for n, d := range s.diags {
+		pairs = append(pairs, pair{d[0], d[1], nom[k+n]})
+	}
+	// Unknowns: x of corner 1, then x and y of corners 2 … k−1.
+	col := func(c, axis int) int {
+		switch {
+		case c == 0, c == 1 && axis == 1:
+			return -1
+		case c == 1:
+			return 0
+		}
+		return 1 + 2*(c-2) + axis
+	}
+	nu := 2*k - 3
+	p := slices.Clone(out)
+	jac := mat.NewDense(len(pairs), nu, nil)
+	res := mat.NewVecDense(len(pairs), nil)
+	for range fitSteps {
+		jac.Zero()
+		for r, pr := range pairs {
+			d := p[pr.j].Sub(p[pr.i])
+			l := d.Norm()
+			if l == 0 {
+				return out
+			}
+			res.SetVec(r, l-pr.want)
+			for axis, g := range [2]float64{d.X / l, d.Y / l} {
+				if c := col(pr.j, axis); c >= 0 {
+					jac.Set(r, c, g)
+				}
+				if c := col(pr.i, axis); c >= 0 {
+					jac.Set(r, c, -g)
+				}
+			}
+		}
+		var step mat.VecDense
+		if err := step.SolveVec(jac, res); err != nil {
+			return out
+		}
+		move := 0.0
+		for c := range k {
+			for axis := range 2 {
+				if u := col(c, axis); u >= 0 {
+					v := step.AtVec(u)
+					move = max(move, math.Abs(v))
+					if axis == 0 {
+						p[c].X -= v
+					} else {
+						p[c].Y -= v
+					}
+				}
+			}
+		}
+		if move < fitStopMM {
+			break
+		}
+	}
+	if !p.CCW() || p.SelfIntersects() {
+		return out
+	}
+	return p
+}
+
+// fitSteps and fitStopMM bound the outline fit: at most this many steps,
+// stopping when no corner moves more than this (mm).
+const (
+	fitSteps  = 20
+	fitStopMM = 1e-9
+)
 
 // fanOutline builds an outline from nominal coordinates: corner 0 at the
 // origin, corner 1 on the x axis at the first edge's length, and each
