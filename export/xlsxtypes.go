@@ -90,7 +90,7 @@ func panelTypeRows(rep *Report) func(add func(row ...any) error) error {
 			for i := 0; i < k; i++ {
 				if i < len(t.BevelsDeg) {
 					bv := t.BevelsDeg[i]
-					row = append(row, fixed(bv[0], 2)+" to "+fixed(bv[1], 2))
+					row = append(row, signedFixed(bv[0], 2)+" to "+signedFixed(bv[1], 2))
 				} else {
 					row = append(row, nil)
 				}
