@@ -55,7 +55,7 @@ type Bundle struct {
 
 	PanelMaterial panels.Material
 	PanelSpec     PanelSpec            // for every panel type
-	TypeSpecs     map[string]PanelSpec // overrides for named panel types
+	TypeSpecs     map[string]PanelSpec // by panel type: the job's, field by field overridden
 
 	Cost *Cost // nil when the job gives no rates
 
@@ -69,6 +69,9 @@ type PanelSpec struct {
 	Coating       string `json:"coating,omitempty"`
 	HeatTreatment string `json:"heat_treatment,omitempty"`
 	Grade         string `json:"grade,omitempty"`
+	// Thickness and density of a panel type's panels (0: the job's).
+	ThicknessMM float64 `json:"thickness_mm,omitempty"`
+	DensityKgM3 float64 `json:"density_kg_m3,omitempty"`
 }
 
 // specOf returns the specification of a panel type: the type's own where

@@ -334,14 +334,24 @@ func (d *dxfDoc) text(s string, x, y, z, h, rot float64, centred bool) (int, err
 }
 
 // poly adds a closed LWPOLYLINE through pts.
-func (d *dxfDoc) poly(pts [][2]float64) error {
+func (d *dxfDoc) poly(pts [][2]float64) error { return d.lwpoly(pts, true) }
+
+// openPoly adds an open LWPOLYLINE through pts.
+func (d *dxfDoc) openPoly(pts [][2]float64) error { return d.lwpoly(pts, false) }
+
+// lwpoly adds an LWPOLYLINE through pts, closed or open.
+func (d *dxfDoc) lwpoly(pts [][2]float64, closed bool) error {
 	for _, p := range pts {
 		d.grow(p[0], p[1], 0)
 	}
 	d.start("LWPOLYLINE", "AcDbPolyline")
 	if d.w != nil {
 		d.str(90, strconv.Itoa(len(pts)))
-		d.str(70, "1")
+		if closed {
+			d.str(70, "1")
+		} else {
+			d.str(70, "0")
+		}
 		for _, p := range pts {
 			d.num(10, p[0])
 			d.num(20, p[1])

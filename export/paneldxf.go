@@ -4,11 +4,15 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"strings"
+
+	"github.com/yofu/dxf/color"
 )
 
 // Texts of the panel type drawings start with these words, so a reader can
 // find each number (the read-back tests do): "edge 2 1548.68", "angle 3
-// 89.53°", "diagonal 1-3 2937.68", "bevel 2 4.24°".
+// 89.530°", "diagonal 1-3 2937.68", "bevel 2 +4.24°", "bevel 3 -5.65° to
+// +5.66°".
 const (
 	panelEdgeText     = "edge "
 	panelAngleText    = "angle "
@@ -16,10 +20,17 @@ const (
 	panelBevelText    = "bevel "
 )
 
+// panelTypeLayers are the layers of a panel type drawing, in dark
+// colours that read on white paper (AutoCAD colour index: 14 dark red, 5
+// blue, 250 dark grey; no yellow or white text).
+var panelTypeLayers = []dxfLayer{{LayerPart, 14, nil}, {LayerSetOut, color.Grey128, nil},
+	{LayerDim, color.Blue, nil}, {LayerNote, color.Grey51, nil}, {LayerTitle, color.Grey51, nil}}
+
 // panelDrawing is what a panel type drawing shows: the nominal cut
-// outline with its numbers (measured on that outline), the set-out
-// outline around it, each edge's bevel (the range over the type's parts),
-// the specification and the parts.
+// outline with its numbers (measured on that outline, as the schedule
+// gives them), the set-out outline around it, each edge's bevel (the range
+// over the type's parts, and every part's), the specification and the
+// parts.
 type panelDrawing struct {
 	Title, Name, Material string
 	ThicknessMM           float64
@@ -30,6 +41,8 @@ type panelDrawing struct {
 	EdgesMM, AnglesDeg    []float64
 	Diagonals             []DiagonalRow // From and To are corner numbers from 1
 	BevelsDeg             [][2]float64  // per edge: least and most over the parts
+	PartBevels            []PartBevelsRow
+	BevelledEdges         bool // the bevels are part of the type
 	Spec                  PanelSpec
 	DevMM, DevDeg         float64
 	Warnings              []string
@@ -40,10 +53,21 @@ type panelDrawing struct {
 // origin, edge 1 along x) on the part layer and the set-out outline on its
 // own; on the dimension layer every edge length along its edge, every
 // corner angle, every diagonal as a line with its length, corner 1 ringed
-// and each edge's number, and each edge's bevel; notes with the
+// and each edge's number, and each edge's bevel, each text moved clear of
+// the outlines; notes with the bevel sign, every part's bevels, the
 // specification and the parts; a title block with the caution.
 func writePanelDXF(w io.Writer, p panelDrawing) error {
-	return writeDXF(w, typeLayers, 0, func(d *dxfDoc) error { return drawPanel(d, p) })
+	return writeDXF(w, panelTypeLayers, 0, func(d *dxfDoc) error { return drawPanel(d, p) })
+}
+
+// bevelRange is an edge's bevel range as a drawing prints it: "+2.12°",
+// or "-5.65° to +5.66°".
+func bevelRange(bv [2]float64) string {
+	s := signedFixed(bv[0], 2) + "°"
+	if fixed(bv[0], 2) != fixed(bv[1], 2) {
+		s += " to " + signedFixed(bv[1], 2) + "°"
+	}
+	return s
 }
 
 // drawPanel draws a panel type.
@@ -52,8 +76,15 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 	h := math.Max(12, math.Min(50, size/40))
 	k := len(p.Cut)
 	lox, loy, hix, _ := bounds(p.SetOut)
+	avoid := outlineSegments(p.Cut, p.SetOut)
 	var steps []func() error
 	add := func(f func() error) { steps = append(steps, f) }
+	// clear writes a text centred at (x, y), first moved along dir in
+	// steps of h/2 until it is clear of both outlines.
+	clear := func(s string, x, y, th, ang float64, dir [2]float64) error {
+		c := clearSpot(s, x, y, th, ang, dir, h/2, avoid)
+		return text(d, s, c[0], c[1], 0, th, ang)
+	}
 	add(func() error { return useLayer(d, LayerPart) })
 	add(func() error { return closedPoly(d, p.Cut) })
 	add(func() error { return useLayer(d, LayerSetOut) })
@@ -61,23 +92,20 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 	add(func() error { return useLayer(d, LayerDim) })
 	for j := 0; j < k; j++ {
 		add(func() error {
-			_, ang, out := edgeSpot(p.Cut, j, -2.2*h)
-			if err := text(d, fmt.Sprintf("%s%d %s", panelEdgeText, j+1, fixed(p.EdgesMM[j], 2)), out[0], out[1], 0, h, ang); err != nil {
+			mid, ang, out := edgeSpot(p.Cut, j, -2.2*h)
+			away := unit2(out[0]-mid[0], out[1]-mid[1])
+			if err := clear(fmt.Sprintf("%s%d %s", panelEdgeText, j+1, fixed(p.EdgesMM[j], lenDigits)), out[0], out[1], h, ang, away); err != nil {
 				return err
 			}
 			_, _, in := edgeSpot(p.Cut, j, 1.6*h)
 			if j < len(p.BevelsDeg) {
-				bv := p.BevelsDeg[j]
-				s := fixed(bv[0], 2) + "°"
-				if fixed(bv[0], 2) != fixed(bv[1], 2) {
-					s += " to " + fixed(bv[1], 2) + "°"
-				}
-				if err := text(d, fmt.Sprintf("%s%d %s", panelBevelText, j+1, s), in[0], in[1], 0, 0.8*h, ang); err != nil {
+				if err := clear(fmt.Sprintf("%s%d %s", panelBevelText, j+1, bevelRange(p.BevelsDeg[j])), in[0], in[1], 0.8*h, ang, [2]float64{-away[0], -away[1]}); err != nil {
 					return err
 				}
 			}
 			c := inward(p.Cut, j, 5*h)
-			return text(d, fmt.Sprintf("%s%d %s°", panelAngleText, j+1, fixed(p.AnglesDeg[j], 2)), c[0], c[1], 0, 0.8*h, 0)
+			dir := unit2(c[0]-p.Cut[j][0], c[1]-p.Cut[j][1])
+			return clear(fmt.Sprintf("%s%d %s°", panelAngleText, j+1, fixed(p.AnglesDeg[j], angleDigits)), c[0], c[1], 0.8*h, 0, dir)
 		})
 	}
 	for n, dg := range p.Diagonals {
@@ -90,7 +118,8 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 				return err
 			}
 			// Diagonals cross near their middles: each text sits at its
-			// own share of its diagonal.
+			// own share of its diagonal, and slides to the middle until
+			// clear of the outlines.
 			t := 0.3 + 0.4*float64(n%2)
 			mx, my := a[0]+t*(b[0]-a[0]), a[1]+t*(b[1]-a[1])
 			ang := math.Atan2(b[1]-a[1], b[0]-a[0]) * 180 / math.Pi
@@ -99,7 +128,11 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 			} else if ang < -90 {
 				ang += 180
 			}
-			return text(d, fmt.Sprintf("%s%d-%d %s", panelDiagonalText, i, j, fixed(dg.MM, 2)), mx, my+0.8*h, 0, 0.8*h, ang)
+			dir := unit2(b[0]-a[0], b[1]-a[1])
+			if t > 0.5 {
+				dir = [2]float64{-dir[0], -dir[1]}
+			}
+			return clear(fmt.Sprintf("%s%d-%d %s", panelDiagonalText, i, j, fixed(dg.MM, lenDigits)), mx, my+0.8*h, 0.8*h, ang, dir)
 		})
 	}
 	add(func() error {
@@ -112,9 +145,13 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 	add(func() error { return useLayer(d, LayerNote) })
 	cx := (lox + hix) / 2
 	notes := []string{
-		fmt.Sprintf("%s: %d panels, %s %s mm; largest deviation of a panel from this shape %s mm, %s°", p.Name, p.Count, p.Material, fixed(p.ThicknessMM, 2), fixed(p.DevMM, 2), fixed(p.DevDeg, 3)),
+		fmt.Sprintf("%s: %d panels, %s %s mm; largest deviation of a panel from this drawing %s mm, %s°", p.Name, p.Count, p.Material, fixed(p.ThicknessMM, 2), fixed(p.DevMM, 2), fixed(p.DevDeg, 3)),
 		"seen from outside: the face the net's normals point to (up, or out of a closed net); edge k runs from corner k to k+1, corner 1 ringed",
-		"red: cut outline (what is cut); grey: set-out outline (member centre lines)",
+		"dark red: cut outline (what is cut; its diagonals are the pane's own); grey: set-out outline (member centre lines)",
+		BevelSignNote,
+	}
+	if p.BevelledEdges {
+		notes = append(notes, "edges bevelled: each edge's bevel, sign included, is part of this type (every panel's within the type's angle tolerance)")
 	}
 	for _, s := range []struct{ name, v string }{{"build-up", p.Spec.BuildUp}, {"edge work", p.Spec.EdgeWork}, {"coating", p.Spec.Coating},
 		{"heat treatment", p.Spec.HeatTreatment}, {"grade", p.Spec.Grade}} {
@@ -126,6 +163,7 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 	if len(p.Mirrored) > 0 {
 		notes = append(notes, wrapLabels("cut from this shape turned over (inside face up): ", p.Mirrored, 10)...)
 	}
+	notes = append(notes, partBevelLines(p.PartBevels, p.Mirrored, k)...)
 	for i, s := range notes {
 		add(func() error { return text(d, s, cx, loy-(5+1.4*float64(i))*h, 0, 0.8*h, 0) })
 	}
@@ -144,6 +182,112 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 	return nil
 }
 
+// PartBevelsText starts the lines of a panel type drawing that list a
+// panel's bevels by the type's edges: "bevels of C3-P05 (edges 1-4): +2.12
+// -5.65 +3.00 0.00".
+const PartBevelsText = "bevels of "
+
+// partBevelLines lists every part's bevels by the type's edges; a part
+// cut turned over says so (its own signs are reversed).
+func partBevelLines(parts []PartBevelsRow, turned []string, k int) []string {
+	over := map[string]bool{}
+	for _, l := range turned {
+		over[l] = true
+	}
+	out := make([]string, 0, len(parts))
+	for _, pb := range parts {
+		bs := make([]string, len(pb.BevelsDeg))
+		for i, b := range pb.BevelsDeg {
+			bs[i] = signedFixed(b, 2)
+		}
+		s := fmt.Sprintf("%s%s (edges 1-%d): %s", PartBevelsText, pb.Panel, k, strings.Join(bs, " "))
+		if over[pb.Panel] {
+			s += " (turned over: signs for this drawing's faces)"
+		}
+		out = append(out, s)
+	}
+	return out
+}
+
+// outlineSegments lists the edges of closed outlines as segments.
+func outlineSegments(outlines ...[][2]float64) [][2][2]float64 {
+	var out [][2][2]float64
+	for _, o := range outlines {
+		for i := range o {
+			out = append(out, [2][2]float64{o[i], o[(i+1)%len(o)]})
+		}
+	}
+	return out
+}
+
+// clearSteps is how many steps a text is moved, at most, to clear the
+// outlines; beyond them it stays at its last place.
+const clearSteps = 40
+
+// clearSpot returns where a text of height h, turned by angDeg and
+// centred at (x, y), is clear of every segment: (x, y) moved along dir
+// by the fewest steps of step.
+func clearSpot(s string, x, y, h, angDeg float64, dir [2]float64, step float64, segs [][2][2]float64) [2]float64 {
+	c := [2]float64{x, y}
+	for n := 0; n < clearSteps; n++ {
+		if !textHits(s, c, h, angDeg, segs) {
+			break
+		}
+		c = [2]float64{c[0] + step*dir[0], c[1] + step*dir[1]}
+	}
+	return c
+}
+
+// textHits says whether the box of a centred text (width estimated by
+// dxfTextWidth, height h, with a margin of h/4 around it) crosses or
+// holds a point of any segment.
+func textHits(s string, c [2]float64, h, angDeg float64, segs [][2][2]float64) bool {
+	return boxHits(c, dxfTextWidth(dxfText(s), h)/2+h/4, h/2+h/4, angDeg, segs)
+}
+
+// boxHits says whether the box of half width hw and half height hh about
+// c, turned by angDeg, crosses or holds a point of any segment.
+func boxHits(c [2]float64, hw, hh, angDeg float64, segs [][2][2]float64) bool {
+	sn, cs := math.Sincos(angDeg * math.Pi / 180)
+	// In the text's own frame the box is [-hw, hw] × [-hh, hh].
+	local := func(p [2]float64) [2]float64 {
+		dx, dy := p[0]-c[0], p[1]-c[1]
+		return [2]float64{dx*cs + dy*sn, -dx*sn + dy*cs}
+	}
+	for _, sg := range segs {
+		if segmentHitsBox(local(sg[0]), local(sg[1]), hw, hh) {
+			return true
+		}
+	}
+	return false
+}
+
+// segmentHitsBox says whether the segment a–b meets the box [-hw, hw] ×
+// [-hh, hh] (Liang–Barsky clipping).
+func segmentHitsBox(a, b [2]float64, hw, hh float64) bool {
+	t0, t1 := 0.0, 1.0
+	dx, dy := b[0]-a[0], b[1]-a[1]
+	for _, e := range [4][2]float64{{-dx, a[0] + hw}, {dx, hw - a[0]}, {-dy, a[1] + hh}, {dy, hh - a[1]}} {
+		p, q := e[0], e[1]
+		if p == 0 {
+			if q < 0 {
+				return false
+			}
+			continue
+		}
+		t := q / p
+		if p < 0 {
+			t0 = max(t0, t)
+		} else {
+			t1 = min(t1, t)
+		}
+		if t0 > t1 {
+			return false
+		}
+	}
+	return true
+}
+
 // bounds returns the lower-left and upper-right corners of points.
 func bounds(pts [][2]float64) (lox, loy, hix, hiy float64) {
 	lox, loy, hix, hiy = math.Inf(1), math.Inf(1), math.Inf(-1), math.Inf(-1)
@@ -159,8 +303,13 @@ func bounds(pts [][2]float64) (lox, loy, hix, hiy float64) {
 // one at a time.
 func WritePanelTypeDXF(w io.Writer, rep *Report, t int) error {
 	pt := rep.PanelTypes[t]
-	return writePanelDXF(w, panelDrawing{Title: rep.Title, Name: pt.Name, Material: rep.PanelMaterial.Name, ThicknessMM: rep.PanelMaterial.ThicknessMM,
+	thick := rep.PanelMaterial.ThicknessMM
+	if pt.Spec.ThicknessMM > 0 {
+		thick = pt.Spec.ThicknessMM
+	}
+	return writePanelDXF(w, panelDrawing{Title: rep.Title, Name: pt.Name, Material: rep.PanelMaterial.Name, ThicknessMM: thick,
 		Count: pt.Count, Parts: pt.Parts, Mirrored: pt.Mirrored, Cut: pt.Drawing.CutMM, SetOut: pt.Drawing.SetOutMM,
 		EdgesMM: pt.Drawing.EdgesMM, AnglesDeg: pt.Drawing.AnglesDeg, Diagonals: pt.Drawing.Diagonals, BevelsDeg: pt.BevelsDeg,
+		PartBevels: pt.PartBevels, BevelledEdges: rep.PanelMaterial.BevelledEdges,
 		Spec: pt.Spec, DevMM: pt.MaxDevMM, DevDeg: pt.MaxDevDeg, Warnings: rep.Warnings})
 }

@@ -196,6 +196,9 @@ type PanelMaterial struct {
 	ThicknessMM float64 `json:"thickness_mm"`
 	DensityKgM3 float64 `json:"density_kg_m3"`
 	EdgeInsetMM float64 `json:"edge_inset_mm"`
+	// BevelledEdges: edges are ground to their bevels, and each edge's
+	// bevel is part of a panel type's promise.
+	BevelledEdges bool `json:"bevelled_edges"`
 }
 
 // MemberMaterial is the members' material, density, section kind (solid,

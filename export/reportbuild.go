@@ -68,7 +68,7 @@ func BuildReport(b *Bundle) *Report {
 	rep.MemberMaterial = MemberMaterial{Name: b.MemberMaterial, DensityKgM3: b.MemberDensityKgM3, Section: b.MemberSection, KgPerM: r(kgm, 3)}
 	rep.PanelSpec = b.PanelSpec
 	rep.PanelMaterial = PanelMaterial{Name: b.PanelMaterial.Name, ThicknessMM: b.PanelMaterial.ThicknessMM,
-		DensityKgM3: b.PanelMaterial.DensityKgM3, EdgeInsetMM: b.PanelMaterial.EdgeInsetMM}
+		DensityKgM3: b.PanelMaterial.DensityKgM3, EdgeInsetMM: b.PanelMaterial.EdgeInsetMM, BevelledEdges: b.PanelMaterial.BevelledEdges}
 	sheetOf := b.sheetOf()
 	rep.Panels = make([]PanelRow, 0, len(b.Flats))
 	for f, fl := range b.Flats {

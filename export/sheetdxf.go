@@ -1,11 +1,15 @@
 package export
 
 import (
+	"cmp"
 	"fmt"
 	"io"
 	"math"
+	"slices"
 
 	"github.com/yofu/dxf/color"
+
+	"pqfab/geom"
 )
 
 // Layers of the cut sheets: one concept each, colour by layer.
@@ -13,28 +17,40 @@ const (
 	LayerSheetEdge   = "PQ-SHEET-EDGE"   // outline of the stock sheet
 	LayerSheetMargin = "PQ-SHEET-MARGIN" // edge of the usable area
 	LayerCut         = "PQ-CUT"          // panel cut outlines
-	LayerEngrave     = "PQ-ENGRAVE"      // what is engraved or marked on a part: its label and type
+	LayerEngrave     = "PQ-ENGRAVE"      // what is engraved on a part, its label and type, in single strokes (open polylines)
+	LayerPartText    = "PQ-PART-TEXT"    // the same label and type as text, for reading on screen (not engraved)
 	LayerPartMark    = "PQ-PART-MARK"    // corner 1 (a ring) and the edge numbers of every part
 	LayerBevel       = "PQ-BEVEL"        // the bevel of each edge, as text along the edge
 	LayerGrain       = "PQ-GRAIN"        // grain direction arrows (stock with rotation "grain")
-	LayerCutOrder    = "PQ-CUT-ORDER"    // glass: the straight cuts in cutting order, each numbered at its middle
+	LayerCutOrder    = "PQ-CUT-ORDER"    // glass: the straight cuts, where they do not run along a part's cut outline
+	LayerCutNumber   = "PQ-CUT-NUMBER"   // glass: each cut's number in cutting order, circled
 )
+
+// Colours of the cut-order layers (AutoCAD colour index 30, orange): apart
+// from the part marks' and the cut outlines'.
+const cutOrderColor = 30
 
 // WriteSheetDXF writes one stock sheet as a cut sheet in mm: the sheet
 // outline, the usable area inside the margin, every part's cut outline
-// where it lies; on the engraving layer each part's label and type; on the
+// where it lies; on the engraving layer each part's label and type in a
+// single-stroke font of our own (open polylines an engraver follows once),
+// and the same as text on a layer of their own for the screen; on the
 // mark layer a ring at corner 1 and the number of each edge (edge k runs
 // from corner k to k+1, as in the schedule); on the bevel layer each
 // edge's bevel; for grain stock an arrow along the grain on the sheet and
-// on every part; and a title block with the caution and any warnings. A
-// part cut inside face up (a mirrored placement) says so.
+// on every part; for glass the cuts in cutting order, drawn only where they
+// leave the parts' cut outlines, each numbered in a circle on a layer and
+// colour of its own; and a title block with the bevel sign, the caution
+// and any warnings. A part cut inside face up (a mirrored placement) says
+// so.
 //
 // It is safe to call from several goroutines: drawings are built one at a
 // time (the DXF library keeps package-level state).
 func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
 	layers := []dxfLayer{{LayerSheetEdge, color.Grey128, nil}, {LayerSheetMargin, color.Cyan, nil},
-		{LayerCut, color.Red, nil}, {LayerEngrave, color.Green, nil}, {LayerPartMark, color.Magenta, nil}, {LayerBevel, color.Yellow, nil},
-		{LayerGrain, color.Blue, nil}, {LayerCutOrder, color.Magenta, nil}, {LayerTitle, color.White, nil}}
+		{LayerCut, color.Red, nil}, {LayerEngrave, color.Green, nil}, {LayerPartText, color.Grey128, nil}, {LayerPartMark, color.Magenta, nil},
+		{LayerBevel, color.Yellow, nil}, {LayerGrain, color.Blue, nil}, {LayerCutOrder, cutOrderColor, nil}, {LayerCutNumber, cutOrderColor, nil},
+		{LayerTitle, color.White, nil}}
 	return writeDXF(w, layers, 0, func(d *dxfDoc) error { return drawSheet(d, rep, sheet) })
 }
 
@@ -53,21 +69,35 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 	for _, p := range s.Placements {
 		add(func() error { return closedPoly(d, p.Outline) })
 	}
-	add(func() error { return useLayer(d, LayerEngrave) })
-	for _, p := range s.Placements {
-		add(func() error {
-			cx, cy, size := labelSpot(p.Outline)
-			h := partTextHeight(size)
-			if err := text(d, p.Panel, cx, cy+0.7*h, 0, h, 0); err != nil {
+	// The label and type: engraved in single strokes, and as text on
+	// their own layer for reading on screen. put writes one line of
+	// height h centred on (x, y) in one of the two ways.
+	labels := func(layer string, put func(s string, x, y, h float64) error) {
+		add(func() error { return useLayer(d, layer) })
+		for _, p := range s.Placements {
+			add(func() error {
+				cx, cy, size := labelSpot(p.Outline)
+				h := partTextHeight(size)
+				second := rep.panelRow(p.Panel).Type
+				if p.Mirrored {
+					second += " inside face up"
+				}
+				if err := put(p.Panel, cx, cy+0.7*h, h); err != nil {
+					return err
+				}
+				return put(second, cx, cy-0.7*h, 0.6*h)
+			})
+		}
+	}
+	labels(LayerEngrave, func(s string, x, y, h float64) error {
+		for _, st := range strokeText(s, x, y, h) {
+			if err := d.openPoly(st); err != nil {
 				return err
 			}
-			second := rep.panelRow(p.Panel).Type
-			if p.Mirrored {
-				second += " inside face up"
-			}
-			return text(d, second, cx, cy-0.7*h, 0, 0.6*h, 0)
-		})
-	}
+		}
+		return nil
+	})
+	labels(LayerPartText, func(s string, x, y, h float64) error { return text(d, s, x, y, 0, h, 0) })
 	add(func() error { return useLayer(d, LayerPartMark) })
 	for _, p := range s.Placements {
 		add(func() error { return partMarks(d, p) })
@@ -102,21 +132,54 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 		}
 	}
 	if len(s.Cuts) > 0 {
+		parts := make([][][2]float64, len(s.Placements))
+		nh := 0.0 // the cut numbers' height: well above the edge numbers'
+		for i, p := range s.Placements {
+			parts[i] = p.Outline
+			_, _, size := labelSpot(p.Outline)
+			nh = max(nh, cutNumberScale*0.5*partTextHeight(size))
+		}
+		segs := outlineSegments(parts...)
+		spans := make([][][2][2]float64, len(s.Cuts))
+		for i, c := range s.Cuts {
+			spans[i] = offOutlines(c.From, c.To, segs)
+		}
 		add(func() error { return useLayer(d, LayerCutOrder) })
+		for i := range s.Cuts {
+			add(func() error {
+				for _, sp := range spans[i] {
+					if _, err := d.Line(sp[0][0], sp[0][1], 0, sp[1][0], sp[1][1], 0); err != nil {
+						return err
+					}
+				}
+				return nil
+			})
+		}
+		polys := make([]geom.Polygon, len(parts))
+		for i, p := range parts {
+			polys[i] = make(geom.Polygon, len(p))
+			for j, v := range p {
+				polys[i][j] = geom.Vec2{X: v[0], Y: v[1]}
+			}
+		}
+		add(func() error { return useLayer(d, LayerCutNumber) })
 		for i, c := range s.Cuts {
 			add(func() error {
-				if _, err := d.Line(c.From[0], c.From[1], 0, c.To[0], c.To[1], 0); err != nil {
+				num := fmt.Sprint(i + 1)
+				rad := max(0.9*nh, dxfTextWidth(num, nh)/2+0.3*nh)
+				at := cutNumberSpot(c, spans[i], rad, segs, polys)
+				if _, err := d.Circle(at[0], at[1], 0, rad); err != nil {
 					return err
 				}
-				mx, my := (c.From[0]+c.To[0])/2, (c.From[1]+c.To[1])/2
-				return text(d, fmt.Sprint(i+1), mx, my, 0, 40, 0)
+				return text(d, num, at[0], at[1], 0, nh, 0)
 			})
 		}
 	}
 	add(func() error { return useLayer(d, LayerTitle) })
 	if len(s.Cuts) > 0 {
 		add(func() error {
-			return text(d, fmt.Sprintf("%d straight cuts edge to edge, %s m, in the numbered order (layer %s)", len(s.Cuts), fixed(s.CutLengthMM/1000, 3), LayerCutOrder),
+			return text(d, fmt.Sprintf("%d straight cuts edge to edge, %s m, in the circled order (layer %s; drawn only where they leave the parts' cut outlines)",
+				len(s.Cuts), fixed(s.CutLengthMM/1000, 3), LayerCutOrder),
 				s.WidthMM/2, -240, 0, 20, 0)
 		})
 	}
@@ -128,9 +191,10 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 		return text(d, "Parts seen from outside (the face the net's normals point to) unless marked inside face up; corner 1 ringed, edge k from corner k to k+1",
 			s.WidthMM/2, -100, 0, 14, 0)
 	})
-	add(func() error { return text(d, "CAUTION: "+Caution, s.WidthMM/2, -130, 0, 14, 0) })
+	add(func() error { return text(d, BevelSignNote, s.WidthMM/2, -130, 0, 14, 0) })
+	add(func() error { return text(d, "CAUTION: "+Caution, s.WidthMM/2, -150, 0, 14, 0) })
 	for i, wl := range warningLines(rep.Warnings) {
-		add(func() error { return text(d, wl, s.WidthMM/2, -170-30*float64(i), 0, 14, 0) })
+		add(func() error { return text(d, wl, s.WidthMM/2, -190-30*float64(i), 0, 14, 0) })
 	}
 	for _, st := range steps {
 		if err := st(); err != nil {
@@ -138,6 +202,92 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 		}
 	}
 	return nil
+}
+
+// cutNumberScale: a cut's number is this many times the height of the
+// largest edge number on its sheet.
+const cutNumberScale = 2.0
+
+// onOutlineTolMM: a stretch of a cut that lies this close to a part's cut
+// outline edge (both ends, the edge along the cut) runs along that edge
+// and is not drawn again.
+const onOutlineTolMM = 0.01
+
+// offOutlines returns the spans of the segment from a to b that do not
+// run along any of segs (within onOutlineTolMM), in order from a.
+func offOutlines(a, b [2]float64, segs [][2][2]float64) [][2][2]float64 {
+	dx, dy := b[0]-a[0], b[1]-a[1]
+	l := math.Hypot(dx, dy)
+	if l == 0 {
+		return nil
+	}
+	ux, uy := dx/l, dy/l
+	along := func(p [2]float64) (t, off float64) {
+		px, py := p[0]-a[0], p[1]-a[1]
+		return px*ux + py*uy, math.Abs(-px*uy + py*ux)
+	}
+	var covered [][2]float64
+	for _, sg := range segs {
+		t0, o0 := along(sg[0])
+		t1, o1 := along(sg[1])
+		if o0 > onOutlineTolMM || o1 > onOutlineTolMM {
+			continue
+		}
+		lo, hi := max(0, min(t0, t1)), min(l, max(t0, t1))
+		if hi > lo {
+			covered = append(covered, [2]float64{lo, hi})
+		}
+	}
+	slices.SortFunc(covered, func(p, q [2]float64) int { return cmp.Compare(p[0], q[0]) })
+	var out [][2][2]float64
+	at := func(t float64) [2]float64 { return [2]float64{a[0] + t*ux, a[1] + t*uy} }
+	t := 0.0
+	for _, c := range covered {
+		if c[0] > t+onOutlineTolMM {
+			out = append(out, [2][2]float64{at(t), at(c[0])})
+		}
+		t = max(t, c[1])
+	}
+	if l > t+onOutlineTolMM {
+		out = append(out, [2][2]float64{at(t), b})
+	}
+	return out
+}
+
+// cutNumberSpot returns where a cut's circled number (radius rad) goes:
+// the middle of its longest drawn span, else of the cut, where the circle
+// is clear of the parts; else at a quarter or three quarters along; each
+// on the cut or beside it on either side; the middle when none is clear.
+func cutNumberSpot(c SheetCutRow, spans [][2][2]float64, rad float64, segs [][2][2]float64, parts []geom.Polygon) [2]float64 {
+	a, b := c.From, c.To
+	best := -1.0
+	for _, sp := range spans {
+		if l := math.Hypot(sp[1][0]-sp[0][0], sp[1][1]-sp[0][1]); l > best {
+			best, a, b = l, sp[0], sp[1]
+		}
+	}
+	u := unit2(b[0]-a[0], b[1]-a[1])
+	off := rad * 1.3
+	for _, t := range []float64{0.5, 0.25, 0.75} {
+		m := [2]float64{a[0] + t*(b[0]-a[0]), a[1] + t*(b[1]-a[1])}
+		for _, side := range []float64{0, 1, -1} {
+			p := [2]float64{m[0] - side*off*u[1], m[1] + side*off*u[0]}
+			if boxHits(p, rad, rad, 0, segs) {
+				continue
+			}
+			inside := false
+			for _, q := range parts {
+				if q.Contains(geom.Vec2{X: p[0], Y: p[1]}) {
+					inside = true
+					break
+				}
+			}
+			if !inside {
+				return p
+			}
+		}
+	}
+	return [2]float64{(a[0] + b[0]) / 2, (a[1] + b[1]) / 2}
 }
 
 // fixed formats x with d decimals, never as a negative zero.
@@ -179,7 +329,7 @@ func bevelTexts(d *dxfDoc, p PlacementRow, panel PanelRow) error {
 			continue
 		}
 		_, ang, at := edgeSpot(p.Outline, j, 3.2*h)
-		if err := text(d, "bevel "+fixed(panel.Edges[e].BevelDeg, 2)+"°", at[0], at[1], 0, h, ang); err != nil {
+		if err := text(d, "bevel "+signedFixed(panel.Edges[e].BevelDeg, 2)+"°", at[0], at[1], 0, h, ang); err != nil {
 			return err
 		}
 	}

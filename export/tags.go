@@ -203,16 +203,47 @@ func panelTag(p PanelRow) tag {
 	if p.Sheet != "" {
 		t.rows = append(t.rows, textRows("sheet "+p.Sheet)...)
 	}
-	var ds []string
-	for _, d := range p.Diagonals {
-		ds = append(ds, fmt.Sprintf("%.1f", d.MM))
+	if ds := diagonalText(p.Cut.Diagonals, p.Corners); ds != "" {
+		t.rows = append(t.rows, textRows(TagCutDiagonalsText+ds+" mm")...)
 	}
-	if len(ds) > 0 {
-		t.rows = append(t.rows, textRows("diagonals "+strings.Join(ds, " / ")+" mm")...)
+	if ds := diagonalText(p.Diagonals, p.Corners); ds != "" {
+		t.rows = append(t.rows, textRows(TagSetOutDiagonalsText+ds)...)
+	}
+	if len(p.Edges) > 0 {
+		bs := make([]string, len(p.Edges))
+		for i, e := range p.Edges {
+			bs[i] = signedFixed(e.BevelDeg, 1)
+		}
+		t.rows = append(t.rows, textRows(fmt.Sprintf("%s1-%d (°): %s", TagBevelsText, len(p.Edges), strings.Join(bs, " ")))...)
 	}
 	t.rows = append(t.rows, textRows(fmt.Sprintf("%.3f m², %.1f kg", p.AreaM2, p.WeightKg),
-		"Corners listed from corner 1, counter-clockwise seen from outside.")...)
+		"Corners listed from corner 1, counter-clockwise seen from outside. "+BevelSignShort)...)
 	return t
+}
+
+// Words that start the lines of a panel tag, so that a reader (and the
+// read-back test) finds each number: "pane diagonals 1-3 2528.3, 2-4
+// 2160.2 mm" are the cut outline's (what is measured on the pane),
+// "set-out diag. (nodes) …" the set-out outline's, node to node.
+const (
+	TagCutDiagonalsText    = "pane diagonals "
+	TagSetOutDiagonalsText = "set-out diag. (nodes) "
+	TagBevelsText          = "bevels "
+)
+
+// diagonalText lists diagonals by corner numbers: "1-3 2528.3, 2-4
+// 2160.2". corners are the panel's corner labels from corner 1.
+func diagonalText(ds []DiagonalRow, corners []string) string {
+	at := make(map[string]int, len(corners))
+	for i, c := range corners {
+		at[c] = i + 1
+	}
+	parts := make([]string, 0, len(ds))
+	for _, d := range ds {
+		i, j := at[d.From], at[d.To]
+		parts = append(parts, fmt.Sprintf("%d-%d %.1f", min(i, j), max(i, j), r(d.MM, 1)))
+	}
+	return strings.Join(parts, ", ")
 }
 
 // tagGeom is where things go on a tag of a layout (mm from the tag's

@@ -2,6 +2,7 @@ package export
 
 import (
 	"fmt"
+	"math"
 	"strconv"
 	"strings"
 
@@ -106,13 +107,17 @@ func (rep *Report) buildTypes(b *Bundle) {
 	rep.PanelTypes = make([]PanelTypeRow, 0, len(b.PanelTypes))
 	for ti, t := range b.PanelTypes {
 		k := len(t.EdgeMM)
-		row := PanelTypeRow{Name: t.Name, Count: len(t.Panels), EdgesMM: round(t.EdgeMM, lenDigits), AnglesDeg: round(t.AngleDeg, angleDigits),
-			AreaM2: r(t.AreaM2, areaDigits), PerimeterMM: r(t.PerimeterMM, lenDigits), MaxDevMM: r(t.MaxDevMM, lenDigits),
-			MaxDevDeg: r(t.MaxDevDeg, angleDigits), TotalAreaM2: r(t.TotalAreaM2, areaDigits), WeightKg: r(t.TotalWeightKg, weightDigits),
-			Spec: b.specOf(t.Name), Diagonals: cornerDiagonals(t.Diagonals), Mirrored: []string{}}
+		// The numbers of a type are its nominal outline's, as measured on
+		// it: the drawing and the schedule print one value, and the
+		// deviations are the panels' from those numbers.
+		edges, angles, diags := panels.OutlineNumbers(t.Outline)
+		row := PanelTypeRow{Name: t.Name, Count: len(t.Panels), EdgesMM: round(edges, lenDigits), AnglesDeg: round(angles, angleDigits),
+			AreaM2: r(t.AreaM2, areaDigits), PerimeterMM: r(t.PerimeterMM, lenDigits), MaxDevMM: r(t.OutlineDevMM, lenDigits),
+			MaxDevDeg: r(t.OutlineDevDeg, angleDigits), TotalAreaM2: r(t.TotalAreaM2, areaDigits), WeightKg: r(t.TotalWeightKg, weightDigits),
+			Spec: b.specOf(t.Name), Diagonals: cornerDiagonals(diags), Mirrored: []string{}}
 		row.BevelsDeg = make([][2]float64, k)
 		for e := 0; e < k; e++ {
-			row.BevelsDeg[e] = [2]float64{1e9, -1e9}
+			row.BevelsDeg[e] = [2]float64{math.Inf(1), math.Inf(-1)}
 		}
 		for n, f := range t.Panels {
 			fl := b.Flats[f]
@@ -120,23 +125,18 @@ func (rep *Report) buildTypes(b *Bundle) {
 			if t.Mirrored[n] {
 				row.Mirrored = append(row.Mirrored, fl.Label)
 			}
-			for e := 0; e < k; e++ {
-				// Type edge e runs from type corner e to e+1: the panel's
-				// edge from corner Corner(n, e) forward, or back.
-				pe := t.Corner(n, e)
-				if t.Mirrored[n] {
-					pe = (pe - 1 + k) % k
-				}
-				bv := fl.BevelDeg[pe]
+			pb := PartBevelsRow{Panel: fl.Label, BevelsDeg: make([]float64, k)}
+			for e, bv := range panels.TypeBevels(&b.PanelTypes[ti], n, fl) {
+				pb.BevelsDeg[e] = r(bv, 2)
 				row.BevelsDeg[e] = [2]float64{min(row.BevelsDeg[e][0], bv), max(row.BevelsDeg[e][1], bv)}
 			}
+			row.PartBevels = append(row.PartBevels, pb)
 		}
 		for e := range row.BevelsDeg {
 			row.BevelsDeg[e] = [2]float64{r(row.BevelsDeg[e][0], 2), r(row.BevelsDeg[e][1], 2)}
 		}
-		edges, angles, diags := panels.OutlineNumbers(t.Outline)
-		row.Drawing = PanelDrawingRow{CutMM: pointsTo(t.Outline, drawingDigits), EdgesMM: round(edges, lenDigits), AnglesDeg: round(angles, angleDigits),
-			Diagonals: cornerDiagonals(diags)}
+		row.Drawing = PanelDrawingRow{CutMM: pointsTo(t.Outline, drawingDigits), EdgesMM: row.EdgesMM, AnglesDeg: row.AnglesDeg,
+			Diagonals: row.Diagonals}
 		if ti < len(b.PanelTypeSetOut) {
 			row.Drawing.SetOutMM = pointsTo(b.PanelTypeSetOut[ti], drawingDigits)
 		}

@@ -82,19 +82,30 @@ type PanelTypeRow struct {
 	Diagonals   []DiagonalRow `json:"diagonals"` // From and To are corner numbers
 	AreaM2      float64       `json:"area_m2"`
 	PerimeterMM float64       `json:"perimeter_mm"`
-	BevelsDeg   [][2]float64  `json:"bevels_deg"` // per edge: least and most over the parts
-	MaxDevMM    float64       `json:"max_deviation_mm"`
-	MaxDevDeg   float64       `json:"max_deviation_deg"`
-	TotalAreaM2 float64       `json:"total_area_m2"`
-	WeightKg    float64       `json:"total_weight_kg"`
-	Spec        PanelSpec     `json:"spec"`
-	Parts       []string      `json:"parts"`
-	Mirrored    []string      `json:"turned_over"` // parts cut from the shape turned over
-	// The drawing (panel-types/PT-NNN.dxf): the nominal cut outline built
-	// from the nominal edges and diagonals (corner 1 at the origin, edge 1
+	// BevelsDeg: per edge, least and most over the parts; PartBevels:
+	// every part's bevels by the type's edges. Both for the type's faces
+	// as drawn: a part cut turned over has its own signs reversed (its
+	// outside is the drawing's inside face). See BevelSignNote.
+	BevelsDeg   [][2]float64    `json:"bevels_deg"`
+	PartBevels  []PartBevelsRow `json:"part_bevels"`
+	MaxDevMM    float64         `json:"max_deviation_mm"`
+	MaxDevDeg   float64         `json:"max_deviation_deg"`
+	TotalAreaM2 float64         `json:"total_area_m2"`
+	WeightKg    float64         `json:"total_weight_kg"`
+	Spec        PanelSpec       `json:"spec"`
+	Parts       []string        `json:"parts"`
+	Mirrored    []string        `json:"turned_over"` // parts cut from the shape turned over
+	// The drawing (panel-types/PT-NNN.dxf): the nominal cut outline fitted
+	// to the nominal edges and diagonals (corner 1 at the origin, edge 1
 	// along x), the set-out outline around it, and the numbers written on
 	// the drawing, measured on that outline.
 	Drawing PanelDrawingRow `json:"drawing"`
+}
+
+// PartBevelsRow is one part's edge bevels by its type's edges (degrees).
+type PartBevelsRow struct {
+	Panel     string    `json:"panel"`
+	BevelsDeg []float64 `json:"bevels_deg"`
 }
 
 // PanelDrawingRow is what a panel type drawing shows.

@@ -12,7 +12,8 @@ import (
 // (centre-line) values under headers that say so. Edge k runs from corner
 // k to corner k+1; corner 1 is the one marked on every drawing. Columns
 // run to the largest corner count in the net, so 5- and 6-corner panels
-// keep every edge.
+// keep every edge. A column says which panels are cut from their type's
+// shape turned over (inside face up).
 func panelsTable(rep *Report) ([]string, func(add func(row ...any) error) error) {
 	k := 3
 	for _, p := range rep.Panels {
@@ -32,20 +33,28 @@ func panelsTable(rep *Report) ([]string, func(add func(row ...any) error) error)
 		}
 		return head
 	}
-	head := outline([]string{"Label", "Type", "Sheet"}, "Cut")
+	head := outline([]string{"Label", "Type", "Sheet", PanelsTurnedOverHead}, "Cut")
 	head = append(head, "Cut rectangle long (mm)", "Cut rectangle short (mm)", "Cut area (m²)", "Cut perimeter (mm)", "Weight (kg)")
 	for i := 1; i <= k; i++ {
-		head = append(head, fmt.Sprintf("Bevel %d (°)", i))
+		head = append(head, fmt.Sprintf("Bevel %d (%s)", i, BevelSignHead))
 	}
 	head = outline(append(head, "Build-up", "Edge work", "Coating", "Heat treatment", "Grade"), "Set-out")
 	head = append(head, "Corner nodes", "Id", "Grain direction (°)", "Flatness before (mm)", "Flatness after (mm)")
 	spec := map[string]*PanelSpec{}
+	turned := map[string]bool{}
 	for i := range rep.PanelTypes {
 		spec[rep.PanelTypes[i].Name] = &rep.PanelTypes[i].Spec
+		for _, l := range rep.PanelTypes[i].Mirrored {
+			turned[l] = true
+		}
 	}
 	rows := func(add func(row ...any) error) error {
 		for _, p := range rep.Panels {
-			row := []any{p.Label, p.Type, p.Sheet}
+			over := "no"
+			if turned[p.Label] {
+				over = "yes"
+			}
+			row := []any{p.Label, p.Type, p.Sheet, over}
 			row = appendN(row, p.Cut.EdgesMM, k)
 			row = appendDiagonals(row, p.Cut.Diagonals, p.Corners, diags)
 			row = appendN(row, p.Cut.AnglesDeg, k)
@@ -73,6 +82,11 @@ func panelsTable(rep *Report) ([]string, func(add func(row ...any) error) error)
 	}
 	return head, rows
 }
+
+// PanelsTurnedOverHead heads the Panels sheet's column that says "yes"
+// for a panel cut from its type's shape turned over (inside face up on the
+// cutting table), else "no".
+const PanelsTurnedOverHead = "Cut turned over (inside face up)"
 
 // diagonalPairs lists the diagonals of a k-corner panel as corner index
 // pairs (i < j, not neighbours): those of a panel with fewer corners are

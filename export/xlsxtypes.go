@@ -70,10 +70,10 @@ func panelTypeHead(rep *Report) []string {
 		head = append(head, fmt.Sprintf("Cut angle %d (°)", i))
 	}
 	for i := 1; i <= k; i++ {
-		head = append(head, fmt.Sprintf("Bevel %d least (°)", i), fmt.Sprintf("Bevel %d most (°)", i))
+		head = append(head, fmt.Sprintf("Bevel %d least (°; %s)", i, BevelSignHead), fmt.Sprintf("Bevel %d most (°)", i))
 	}
 	return append(head, "Cut area (m²)", "Cut perimeter (mm)", "Largest difference from type (mm)", "Largest difference from type (°)",
-		"Total area (m²)", "Total weight (kg)", "Build-up", "Edge work", "Coating", "Heat treatment", "Grade", "Panels", "Panels turned over")
+		"Total area (m²)", "Thickness (mm)", "Total weight (kg)", "Build-up", "Edge work", "Coating", "Heat treatment", "Grade", "Panels", "Panels turned over")
 }
 
 func typeCorners(rep *Report) int {
@@ -105,7 +105,11 @@ func panelTypeRows(rep *Report) func(add func(row ...any) error) error {
 				}
 			}
 			s := t.Spec
-			row = append(row, t.AreaM2, t.PerimeterMM, t.MaxDevMM, t.MaxDevDeg, t.TotalAreaM2, t.WeightKg,
+			thick := rep.PanelMaterial.ThicknessMM
+			if s.ThicknessMM > 0 {
+				thick = s.ThicknessMM
+			}
+			row = append(row, t.AreaM2, t.PerimeterMM, t.MaxDevMM, t.MaxDevDeg, t.TotalAreaM2, thick, t.WeightKg,
 				s.BuildUp, s.EdgeWork, s.Coating, s.HeatTreatment, s.Grade, partList(t.Parts, SheetPanels), partList(t.Mirrored, SheetPanels))
 			if err := add(row...); err != nil {
 				return err

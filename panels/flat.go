@@ -53,6 +53,10 @@ type Flat struct {
 	WeightKg    float64
 	FlatnessMM  float64 // deviation of the 3D corners from the plane
 	Type        int
+	// SpecGroup: panels of different groups never share a type (a
+	// specification given to some panels only, such as another
+	// build-up); 0 for every panel unless the caller sets it.
+	SpecGroup int
 }
 
 // Diagonal is the distance between corners I and J of the outline.
@@ -128,7 +132,7 @@ func layFlat(n *geom.Net, f int, pts []geom.Vec, mat Material) (Flat, error) {
 	fl.GrainDeg = mat.Grain.direction(fl)
 	fl.AreaM2 = fl.Cut.Area() / 1e6
 	fl.PerimeterMM = fl.Cut.Perimeter()
-	fl.WeightKg = fl.AreaM2 * mat.ThicknessMM / 1000 * mat.DensityKgM3
+	fl.WeightKg = mat.WeightKg(fl.AreaM2)
 	return fl, nil
 }
 
@@ -151,7 +155,7 @@ func StartAt(n *geom.Net, mat Material, fl *Flat, start int) error {
 	if err != nil {
 		return err
 	}
-	nf.Label, nf.Type, nf.Start = fl.Label, fl.Type, (fl.Start+start)%k
+	nf.Label, nf.Type, nf.Start, nf.SpecGroup = fl.Label, fl.Type, (fl.Start+start)%k, fl.SpecGroup
 	turn := func(xs []float64) []float64 {
 		out := make([]float64, k)
 		for i := range out {

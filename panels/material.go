@@ -37,6 +37,14 @@ type Material struct {
 	EdgeInsetMM      float64 // each edge moved inward by this much for the cut outline
 	BoundaryBevelDeg float64 // edge bevel on the net's boundary
 	Grain            Grain   // which panel direction follows the grain
+	// BevelledEdges: the edges are ground to their bevels, so each edge's
+	// bevel is part of a panel's type (TypeOptions.Bevels).
+	BevelledEdges bool
+}
+
+// WeightKg returns the weight of areaM2 square metres of the material.
+func (m Material) WeightKg(areaM2 float64) float64 {
+	return areaM2 * m.ThicknessMM / 1000 * m.DensityKgM3
 }
 
 // Grain rules: which direction of each panel must follow the grain of a

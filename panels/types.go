@@ -7,6 +7,8 @@ import (
 	"math"
 	"slices"
 
+	"gonum.org/v1/gonum/mat"
+
 	"pqfab/geom"
 )
 
@@ -23,6 +25,10 @@ type TypeOptions struct {
 	TolMM       float64 // edges and diagonals agree within this (mm)
 	AngleTolDeg float64 // corner angles agree within this (degrees)
 	Mirror      bool    // a panel and its mirror image may be one type
+	// Bevels: the edges are bevelled, so each edge's bevel (sign
+	// included) is part of the type and agrees within AngleTolDeg; a
+	// panel turned over has its bevels' signs reversed (see TypeBevels).
+	Bevels bool
 }
 
 // Validate checks the tolerances' ranges.
@@ -39,7 +45,7 @@ func (o TypeOptions) Validate() error {
 // Type is a type of panel: a promise that every two of its panels have the
 // same number of corners and agree within TolMM in every edge and every
 // diagonal of their cut outlines and within AngleTolDeg in every corner
-// angle, with corners matched as Start and Mirrored say (cyclic order;
+// angle (and every edge bevel where TypeOptions.Bevels), with corners matched as Start and Mirrored say (cyclic order;
 // reversed order, a panel turned over, only where mirroring is allowed).
 // The nominal panel (what is cut) is the middle of each value's range, so
 // every panel lies within half the tolerance of it.
@@ -59,20 +65,30 @@ type Type struct {
 	EdgeMM    []float64
 	Diagonals []Diagonal
 	AngleDeg  []float64
+	// BevelDeg is the nominal bevel of each edge, for the type's faces,
+	// where bevels are part of the type (TypeOptions.Bevels); else nil.
+	BevelDeg []float64
 	// Outline is a nominal outline for drawings: corner 1 at the origin,
-	// corner 2 on the x axis, each further corner placed from corner 1 and
-	// the corner before it, so it honours every edge and every diagonal from
-	// corner 1 exactly; OutlineMisfitMM and OutlineMisfitDeg are its largest
-	// differences from the other nominal diagonals and the nominal corner
-	// angles.
+	// corner 2 on the x axis, its edges and diagonals as near the nominal
+	// ones as one outline can be (least squares: a quad's four edges and two
+	// diagonals are one more length than its shape has freedoms);
+	// OutlineMisfitMM and OutlineMisfitDeg are its largest differences from
+	// the nominal edges and diagonals and the nominal corner angles.
 	Outline          geom.Polygon
 	OutlineMisfitMM  float64
 	OutlineMisfitDeg float64
-	AreaM2           float64 // of the nominal outline
-	PerimeterMM      float64 // sum of the nominal edges
+	// OutlineDevMM and OutlineDevDeg are the largest deviations of any
+	// panel from the nominal outline's own numbers (its edges, diagonals
+	// and corner angles as measured on it: what a drawing of the type
+	// prints) and from the nominal bevels where they are part of the type,
+	// at most the MaxDev values plus the misfits.
+	OutlineDevMM  float64
+	OutlineDevDeg float64
+	AreaM2        float64 // of the nominal outline
+	PerimeterMM   float64 // sum of the nominal edges
 	// Largest deviation of any panel from the nominal.
 	MaxDevMM  float64 // edges and diagonals
-	MaxDevDeg float64 // corner angles
+	MaxDevDeg float64 // corner angles (and bevels where they are part of the type)
 	// Totals over the panels (their own cut outlines).
 	TotalAreaM2   float64
 	TotalWeightKg float64
@@ -88,12 +104,68 @@ func (t *Type) Corner(entry, i int) int {
 	return (t.Start[entry] + i) % k
 }
 
+// TypeBevels returns the edge bevels of fl, entry n of t, by the type's
+// edges (type edge i runs from type corner i to i+1) and for the type's
+// faces: a panel turned over (Mirrored) has its outside on the type's
+// inside face, so its bevels change sign (see BevelDeg in Flat).
+func TypeBevels(t *Type, n int, fl Flat) []float64 {
+	k := len(t.EdgeMM)
+	out := make([]float64, k)
+	for e := range out {
+		pe := t.Corner(n, e)
+		if t.Mirrored[n] {
+			out[e] = -fl.BevelDeg[(pe-1+k)%k]
+			continue
+		}
+		out[e] = fl.BevelDeg[pe]
+	}
+	return out
+}
+
+// Retotal sums the type's totals again from its panels' areas and weights
+// (after the caller changed the weights, such as for another thickness).
+func (t *Type) Retotal(flats []Flat) {
+	t.TotalAreaM2, t.TotalWeightKg = 0, 0
+	for _, f := range t.Panels {
+		t.TotalAreaM2 += flats[f].AreaM2
+		t.TotalWeightKg += flats[f].WeightKg
+	}
+}
+
 // panelShape lays out the coordinates of a k-corner panel: k edges, the
 // diagonals in Flat's order, k corner angles.
 type panelShape struct {
-	k     int
-	diags [][2]int
-	dim   int
+	k      int
+	diags  [][2]int
+	dim    int  // coordinates of the outline: edges, diagonals, corner angles
+	bevels bool // k more coordinates follow: the edge bevels
+}
+
+// full returns the number of coordinates of a panel: the outline's and
+// the bevels'.
+func (s panelShape) full() int {
+	if s.bevels {
+		return s.dim + s.k
+	}
+	return s.dim
+}
+
+// bevelCoords appends the edge bevels of a panel read in variant v: edge
+// i of the reading joins its corners i and i+1; read backward (the panel
+// turned over) it is the panel's edge before corner start−i, and its
+// bevel changes sign.
+func (s panelShape) bevelCoords(dst []float64, bevel []float64, v int) []float64 {
+	k := s.k
+	start, dir := s.variant(v)
+	for i := range k {
+		c := ((start+dir*i)%k + k) % k
+		if dir > 0 {
+			dst = append(dst, bevel[c])
+		} else {
+			dst = append(dst, -bevel[(c-1+k)%k])
+		}
+	}
+	return dst
 }
 
 func newShape(k int) panelShape {
@@ -165,22 +237,33 @@ func cornerAngles(p geom.Polygon) []float64 {
 
 // Group sorts flat panels into the fewest types it finds by their cut
 // outlines (see geom.GroupTypes for the method and its guarantees), panels
-// with different corner counts apart, sets each panel's Type, and returns
+// with different corner counts or specification groups (Flat.SpecGroup) apart, sets each panel's Type, and returns
 // the types numbered by nominal area, ties by the nominal edges, with a
 // lower bound on their number.
 func Group(flats []Flat, opt TypeOptions) ([]Type, geom.TypeBound, error) {
 	if err := opt.Validate(); err != nil {
 		return nil, geom.TypeBound{}, err
 	}
-	byCount := map[int][]int{}
+	// Panels with other corner counts or in other specification groups
+	// never share a type.
+	byCount := map[[2]int][]int{}
 	for f, fl := range flats {
-		byCount[len(fl.Cut)] = append(byCount[len(fl.Cut)], f)
+		key := [2]int{fl.SpecGroup, len(fl.Cut)}
+		byCount[key] = append(byCount[key], f)
 	}
-	counts := slices.Sorted(maps.Keys(byCount))
+	counts := slices.SortedFunc(maps.Keys(byCount), func(a, b [2]int) int {
+		if c := cmp.Compare(a[0], b[0]); c != 0 {
+			return c
+		}
+		return cmp.Compare(a[1], b[1])
+	})
 	var types []Type
 	var bound geom.TypeBound
-	for _, k := range counts {
-		ts, b, err := groupShape(flats, byCount[k], newShape(k), opt)
+	for _, key := range counts {
+		k := key[1]
+		sh := newShape(k)
+		sh.bevels = opt.Bevels
+		ts, b, err := groupShape(flats, byCount[key], sh, opt)
 		if err != nil {
 			return nil, geom.TypeBound{}, err
 		}
@@ -211,8 +294,9 @@ func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type,
 	if opt.Mirror {
 		G = 2 * k
 	}
-	p := &geom.TypeProblem{Parts: len(idx), Dim: s.dim, Tol: make([]float64, s.dim), Compose: make([][]int, G),
-		Permutes: true, Coords: make([]float64, 0, len(idx)*G*s.dim)}
+	full := s.full()
+	p := &geom.TypeProblem{Parts: len(idx), Dim: full, Tol: make([]float64, full), Compose: make([][]int, G),
+		Permutes: true, Coords: make([]float64, 0, len(idx)*G*full)}
 	for d := range p.Tol {
 		p.Tol[d] = opt.TolMM
 		if d >= k+len(s.diags) {
@@ -242,6 +326,10 @@ func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type,
 	addKeys(k, "edge", "shortest", "longest", opt.TolMM)
 	addKeys(nd, "diagonal", "shortest", "longest", opt.TolMM)
 	addKeys(k, "corner angle", "smallest", "largest", opt.AngleTolDeg)
+	if s.bevels {
+		// A turn-over changes the bevels' signs: their sizes are keys.
+		addKeys(k, "edge bevel size", "smallest", "largest", opt.AngleTolDeg)
+	}
 	dist := make([][]float64, k)
 	for i := range dist {
 		dist[i] = make([]float64, k)
@@ -256,11 +344,20 @@ func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type,
 		ang := cornerAngles(cut)
 		for v := range G {
 			p.Coords = s.coords(p.Coords, dist, ang, v)
+			if s.bevels {
+				p.Coords = s.bevelCoords(p.Coords, flats[f].BevelDeg, v)
+			}
 		}
-		x := slices.Clone(p.Coords[n*G*s.dim:][:s.dim])
+		x := slices.Clone(p.Coords[n*G*full:][:full])
 		slices.Sort(x[:k])
 		slices.Sort(x[k : k+nd])
-		slices.Sort(x[k+nd:])
+		slices.Sort(x[k+nd : s.dim])
+		if s.bevels {
+			for j := s.dim; j < full; j++ {
+				x[j] = math.Abs(x[j])
+			}
+			slices.Sort(x[s.dim:])
+		}
 		for j, v := range x {
 			p.Keys[j].Values[n] = v
 		}
@@ -280,11 +377,14 @@ func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type,
 func panelType(flats []Flat, idx []int, s panelShape, g geom.TypeGroup) Type {
 	k, nd := s.k, len(s.diags)
 	nom := g.Nominal()
-	ty := Type{EdgeMM: nom[:k], AngleDeg: nom[k+nd:]}
+	ty := Type{EdgeMM: nom[:k], AngleDeg: nom[k+nd : s.dim]}
+	if s.bevels {
+		ty.BevelDeg = nom[s.dim:]
+	}
 	for j, d := range s.diags {
 		ty.Diagonals = append(ty.Diagonals, Diagonal{I: d[0], J: d[1], MM: nom[k+j]})
 	}
-	for d := range s.dim {
+	for d := range s.full() {
 		dev := (g.Max[d] - g.Min[d]) / 2
 		if d < k+nd {
 			ty.MaxDevMM = max(ty.MaxDevMM, dev)
@@ -295,14 +395,11 @@ func panelType(flats []Flat, idx []int, s panelShape, g geom.TypeGroup) Type {
 	for _, e := range ty.EdgeMM {
 		ty.PerimeterMM += e
 	}
-	ty.Outline = fanOutline(s, nom)
+	ty.Outline = fitOutline(s, nom, fanOutline(s, nom))
 	ty.AreaM2 = ty.Outline.Area() / 1e6
-	got := make([][]float64, k)
-	for i := range got {
-		got[i] = make([]float64, k)
-		for j := range got[i] {
-			got[i][j] = ty.Outline[j].Sub(ty.Outline[i]).Norm()
-		}
+	got := cornerDist(ty.Outline)
+	for i, e := range ty.EdgeMM {
+		ty.OutlineMisfitMM = max(ty.OutlineMisfitMM, math.Abs(got[i][(i+1)%k]-e))
 	}
 	for _, d := range ty.Diagonals {
 		ty.OutlineMisfitMM = max(ty.OutlineMisfitMM, math.Abs(got[d.I][d.J]-d.MM))
@@ -310,18 +407,134 @@ func panelType(flats []Flat, idx []int, s panelShape, g geom.TypeGroup) Type {
 	for i, a := range cornerAngles(ty.Outline) {
 		ty.OutlineMisfitDeg = max(ty.OutlineMisfitDeg, math.Abs(a-ty.AngleDeg[i]))
 	}
+	ov := s.coords(nil, got, cornerAngles(ty.Outline), 0)
+	var pv []float64
 	for e, n := range g.Parts {
 		f := idx[n]
+		pv = s.coords(pv[:0], cornerDist(flats[f].Cut), cornerAngles(flats[f].Cut), g.Variants[e])
+		for d := range pv {
+			dev := math.Abs(pv[d] - ov[d])
+			if d < k+nd {
+				ty.OutlineDevMM = max(ty.OutlineDevMM, dev)
+			} else {
+				ty.OutlineDevDeg = max(ty.OutlineDevDeg, dev)
+			}
+		}
 		start, dir := s.variant(g.Variants[e])
 		ty.Panels = append(ty.Panels, f)
 		ty.Start = append(ty.Start, start)
 		ty.Mirrored = append(ty.Mirrored, dir < 0)
-		ty.TotalAreaM2 += flats[f].AreaM2
-		ty.TotalWeightKg += flats[f].WeightKg
+	}
+	ty.Retotal(flats)
+	if s.bevels {
+		for e, f := range ty.Panels {
+			for i, b := range TypeBevels(&ty, e, flats[f]) {
+				ty.OutlineDevDeg = max(ty.OutlineDevDeg, math.Abs(b-ty.BevelDeg[i]))
+			}
+		}
 	}
 	// idx is ascending, so Panels are.
 	return ty
 }
+
+// cornerDist returns the distances between every two corners of p.
+func cornerDist(p geom.Polygon) [][]float64 {
+	k := len(p)
+	out := make([][]float64, k)
+	for i := range out {
+		out[i] = make([]float64, k)
+		for j := range out[i] {
+			out[i][j] = p[j].Sub(p[i]).Norm()
+		}
+	}
+	return out
+}
+
+// fitOutline moves the corners of out (corner 0 at the origin, corner 1
+// on the x axis kept so) to the least sum of squared differences between
+// its edges and diagonals and the nominal ones, by Gauss-Newton steps from
+// out: a k-corner outline has 2k−3 degrees of freedom and k + k(k−3)/2
+// lengths, so where the nominal lengths are not those of one outline the
+// misfit is shared among them instead of falling on the last diagonals.
+func fitOutline(s panelShape, nom []float64, out geom.Polygon) geom.Polygon {
+	k := s.k
+	type pair struct {
+		i, j int
+		want float64
+	}
+	var pairs []pair
+	for i := range k {
+		pairs = append(pairs, pair{i, (i + 1) % k, nom[i]})
+	}
+	for n, d := range s.diags {
+		pairs = append(pairs, pair{d[0], d[1], nom[k+n]})
+	}
+	// Unknowns: x of corner 1, then x and y of corners 2 … k−1.
+	col := func(c, axis int) int {
+		switch {
+		case c == 0, c == 1 && axis == 1:
+			return -1
+		case c == 1:
+			return 0
+		}
+		return 1 + 2*(c-2) + axis
+	}
+	nu := 2*k - 3
+	p := slices.Clone(out)
+	jac := mat.NewDense(len(pairs), nu, nil)
+	res := mat.NewVecDense(len(pairs), nil)
+	for range fitSteps {
+		jac.Zero()
+		for r, pr := range pairs {
+			d := p[pr.j].Sub(p[pr.i])
+			l := d.Norm()
+			if l == 0 {
+				return out
+			}
+			res.SetVec(r, l-pr.want)
+			for axis, g := range [2]float64{d.X / l, d.Y / l} {
+				if c := col(pr.j, axis); c >= 0 {
+					jac.Set(r, c, g)
+				}
+				if c := col(pr.i, axis); c >= 0 {
+					jac.Set(r, c, -g)
+				}
+			}
+		}
+		var step mat.VecDense
+		if err := step.SolveVec(jac, res); err != nil {
+			return out
+		}
+		move := 0.0
+		for c := range k {
+			for axis := range 2 {
+				if u := col(c, axis); u >= 0 {
+					v := step.AtVec(u)
+					move = max(move, math.Abs(v))
+					if axis == 0 {
+						p[c].X -= v
+					} else {
+						p[c].Y -= v
+					}
+				}
+			}
+		}
+		if move < fitStopMM {
+			break
+		}
+	}
+	if !p.CCW() || p.SelfIntersects() {
+		return out
+	}
+	return p
+}
+
+// fitSteps and fitStopMM bound the outline fit: at most this many steps,
+// stopping when no corner moves more than this (mm).
+const (
+	fitSteps  = 20
+	fitStopMM = 1e-9
+)
 
 // fanOutline builds an outline from nominal coordinates: corner 0 at the
 // origin, corner 1 on the x axis at the first edge's length, and each

@@ -174,6 +174,10 @@ func checkPanelTypes(t *testing.T, name string, flats []Flat, types []Type, opt 
 		}
 		var vecs [][]float64
 		var devMM, devDeg, area, weight float64
+		// The drawn outline's own numbers, against which OutlineDev is
+		// measured.
+		drawn := panelVec(ty.Outline, 0, false)
+		var odevMM, odevDeg float64
 		for e, f := range ty.Panels {
 			count[f]++
 			if flats[f].Type != ti {
@@ -188,6 +192,13 @@ func checkPanelTypes(t *testing.T, name string, flats []Flat, types []Type, opt 
 			cut := flats[f].Cut
 			v := panelVec(cut, ty.Start[e], ty.Mirrored[e])
 			vecs = append(vecs, v)
+			for d, x := range v {
+				if d < k+nd {
+					odevMM = max(odevMM, math.Abs(x-drawn[d]))
+				} else {
+					odevDeg = max(odevDeg, math.Abs(x-drawn[d]))
+				}
+			}
 			area += flats[f].AreaM2
 			weight += flats[f].WeightKg
 			for d, x := range v {
@@ -219,6 +230,12 @@ func checkPanelTypes(t *testing.T, name string, flats []Flat, types []Type, opt 
 		if math.Abs(devMM-ty.MaxDevMM) > 1e-9 || math.Abs(devDeg-ty.MaxDevDeg) > 1e-9 {
 			t.Errorf("%s %s: deviations %g mm %g°, type says %g %g", name, ty.Name, devMM, devDeg, ty.MaxDevMM, ty.MaxDevDeg)
 		}
+		if math.Abs(odevMM-ty.OutlineDevMM) > 1e-9 || math.Abs(odevDeg-ty.OutlineDevDeg) > 1e-9 {
+			t.Errorf("%s %s: deviations from the outline %g mm %g°, type says %g %g", name, ty.Name, odevMM, odevDeg, ty.OutlineDevMM, ty.OutlineDevDeg)
+		}
+		if ty.OutlineDevMM > ty.MaxDevMM+ty.OutlineMisfitMM+1e-9 || ty.OutlineDevDeg > ty.MaxDevDeg+ty.OutlineMisfitDeg+1e-9 {
+			t.Errorf("%s %s: deviations from the outline %g mm %g° beyond the nominal's plus the misfit", name, ty.Name, ty.OutlineDevMM, ty.OutlineDevDeg)
+		}
 		if math.Abs(area-ty.TotalAreaM2) > 1e-9 || math.Abs(weight-ty.TotalWeightKg) > 1e-6 {
 			t.Errorf("%s %s: totals %g m² %g kg, type says %g %g", name, ty.Name, area, weight, ty.TotalAreaM2, ty.TotalWeightKg)
 		}
@@ -232,21 +249,35 @@ func checkPanelTypes(t *testing.T, name string, flats []Flat, types []Type, opt 
 				}
 			}
 		}
-		// The nominal outline: edges and diagonals from corner 1 exact.
+		// The nominal outline: a least-squares fit of its edges and
+		// diagonals to the nominal ones, so the gradient of the sum of
+		// squared differences vanishes at every free corner coordinate
+		// (first-order condition of a minimum); corner 1 at the origin,
+		// corner 2 on the x axis.
 		o := ty.Outline
-		for i := range k {
-			if d := math.Abs(o[(i+1)%k].Sub(o[i]).Norm() - ty.EdgeMM[i]); d > 1e-9 {
-				t.Errorf("%s %s: outline edge %d off by %g", name, ty.Name, i, d)
-			}
-		}
 		misMM, misDeg := 0.0, 0.0
+		grad := make([]geom.Vec2, k)
+		fit := func(i, j int, want float64) {
+			d := o[j].Sub(o[i])
+			r := d.Norm() - want
+			misMM = max(misMM, math.Abs(r))
+			g := d.Scale(r / d.Norm())
+			grad[j], grad[i] = grad[j].Add(g), grad[i].Sub(g)
+		}
+		for i := range k {
+			fit(i, (i+1)%k, ty.EdgeMM[i])
+		}
 		ov := panelVec(o, 0, false)
-		for j, dg := range ty.Diagonals {
-			diff := math.Abs(o[dg.J].Sub(o[dg.I]).Norm() - dg.MM)
-			if dg.I == 0 && diff > 1e-9 {
-				t.Errorf("%s %s: outline diagonal %d–%d off by %g", name, ty.Name, dg.I, dg.J, diff)
+		for _, dg := range ty.Diagonals {
+			fit(dg.I, dg.J, dg.MM)
+		}
+		if o[0] != (geom.Vec2{}) || o[1].Y != 0 {
+			t.Errorf("%s %s: outline starts %v %v", name, ty.Name, o[0], o[1])
+		}
+		for c := 1; c < k; c++ {
+			if math.Abs(grad[c].X) > 1e-6 || (c > 1 && math.Abs(grad[c].Y) > 1e-6) {
+				t.Errorf("%s %s: outline corner %d not at a least-squares fit (gradient %v)", name, ty.Name, c, grad[c])
 			}
-			misMM = max(misMM, math.Abs(ov[k+j]-dg.MM))
 		}
 		for i := range k {
 			misDeg = max(misDeg, math.Abs(ov[k+nd+i]-ty.AngleDeg[i]))

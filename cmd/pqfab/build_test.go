@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"math"
 	"os"
 	"os/exec"
 	"path/filepath"
@@ -56,7 +57,11 @@ func loadReport(t *testing.T, dir string) *export.Report {
 // (audit: no errors; entity counts and outline coordinates equal
 // report.json to 0.01 mm) and the schedule with openpyxl (row counts equal
 // the net's panels, members and nodes; spot values equal report.json).
-// Both are general-purpose libraries from Debian's packages.
+// Both are general-purpose libraries from Debian's packages. The panel
+// tags (poppler's pdftotext), type drawings and schedule are read back by
+// readback_panel_marks.py: tag diagonals equal the cut outline's, bevel
+// signs agree across schedule, type drawing and tag, drawing texts are dark
+// and clear of the outlines and print the schedule's numbers.
 func TestDemoReadBack(t *testing.T) {
 	dir := filepath.Join(t.TempDir(), "out")
 	if _, _, err := runCmd(t, "demo", "-q", "-o", dir); err != nil {
@@ -65,6 +70,7 @@ func TestDemoReadBack(t *testing.T) {
 	readBack(t, "readback_dxf.py", dir)
 	readBack(t, "readback_xlsx.py", dir)
 	readBack(t, "readback_types.py", dir)
+	readBack(t, "readback_panel_marks.py", dir)
 	checkAccounting(t, dir)
 	checkWords(t, dir)
 }
@@ -93,6 +99,74 @@ func checkWords(t *testing.T, dir string) {
 	if err != nil || !strings.HasSuffix(strings.TrimSpace(string(out)), "ok") {
 		t.Fatalf("check_words.py: %v\n%s", err, tail(string(out), 2000))
 	}
+}
+
+// TestBevelledTypes: with bevelled edges and panels allowed to be turned
+// over, every panel type keeps each edge's bevel, sign included, within
+// the angle tolerance over its panels (a turned-over panel's signs
+// reversed, as report.json's part_bevels give them; recomputed here from
+// each panel's own edges too), and the read-back of tags, drawings and
+// schedule (readback_panel_marks.py) holds with turned-over panels.
+func TestBevelledTypes(t *testing.T) {
+	dir := t.TempDir()
+	if _, _, err := runCmd(t, "sample", "wave", "--panels", "120", "-o", filepath.Join(dir, "w.obj")); err != nil {
+		t.Fatal(err)
+	}
+	const tolDeg = 0.5
+	job := "[net]\nfile = \"w.obj\"\n[panel]\nedge_inset_mm = 5\nmirror = true\nbevelled_edges = true\n[types]\nangle_tol_deg = 0.5\n" +
+		"[nesting]\nsteps = 2000\n[[stock]]\nname = \"board\"\nwidth_mm = 6000\nheight_mm = 3210\nmirror = true\n"
+	if err := os.WriteFile(filepath.Join(dir, "job.toml"), []byte(job), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out := filepath.Join(dir, "out")
+	if _, _, err := runCmd(t, "build", "-q", filepath.Join(dir, "job.toml"), "-o", out); err != nil {
+		t.Fatal(err)
+	}
+	rep := loadReport(t, out)
+	if !rep.PanelMaterial.BevelledEdges {
+		t.Fatal("report does not say the edges are bevelled")
+	}
+	panelOf := map[string]export.PanelRow{}
+	for _, p := range rep.Panels {
+		panelOf[p.Label] = p
+	}
+	turned := 0
+	for _, ty := range rep.PanelTypes {
+		over := map[string]bool{}
+		for _, l := range ty.Mirrored {
+			over[l] = true
+		}
+		turned += len(ty.Mirrored)
+		k := len(ty.EdgesMM)
+		lo, hi := make([]float64, k), make([]float64, k)
+		for i := range k {
+			lo[i], hi[i] = math.Inf(1), math.Inf(-1)
+		}
+		for _, pb := range ty.PartBevels {
+			p := panelOf[pb.Panel]
+			for i := range k {
+				// Type edge i of a turned-over panel is its edge k-1-i,
+				// seen from its other face.
+				want := p.Edges[i].BevelDeg
+				if over[pb.Panel] {
+					want = -p.Edges[(k-1-i)%k].BevelDeg
+				}
+				if math.Abs(pb.BevelsDeg[i]-want) > 0.0051 {
+					t.Errorf("%s %s edge %d: %g, the panel's own edge gives %g", ty.Name, pb.Panel, i+1, pb.BevelsDeg[i], want)
+				}
+				lo[i], hi[i] = min(lo[i], want), max(hi[i], want)
+			}
+		}
+		for i := range k {
+			if hi[i]-lo[i] > tolDeg+0.002 {
+				t.Errorf("%s edge %d: bevels %g to %g, more than %g° apart", ty.Name, i+1, lo[i], hi[i], tolDeg)
+			}
+		}
+	}
+	if turned == 0 {
+		t.Error("no panel turned over: the test does not reach turned-over panels")
+	}
+	readBack(t, "readback_panel_marks.py", out)
 }
 
 // checkAccounting: every panel, member and node of the net appears exactly

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"path/filepath"
 	"pqfab/nodes/bars"
+	"regexp"
 
 	"pqfab/geom"
 	"pqfab/nodes"
@@ -27,10 +28,11 @@ type Job struct {
 	Bar      []Bar    `toml:"bar"`
 	Rates    *Rates   `toml:"rates"`
 	Site     Site     `toml:"site"`
-	// PanelType overrides the panel specification for named panel types.
-	PanelType []PanelSpec `toml:"panel_type"`
-	File      string      `toml:"-"` // the job file's name, for messages
-	lines     *keyLines   // where each key is, for messages
+	// PanelType changes the panel settings for some panels: a type, or
+	// panels picked by label or by bay.
+	PanelType []PanelTypeSpec `toml:"panel_type"`
+	File      string          `toml:"-"` // the job file's name, for messages
+	lines     *keyLines       // where each key is, for messages
 }
 
 // Net is the [net] table.
@@ -154,6 +156,7 @@ type Panel struct {
 	EdgeInsetMM      float64 `toml:"edge_inset_mm"`
 	BoundaryBevelDeg float64 `toml:"boundary_bevel_deg"`
 	Mirror           bool    `toml:"mirror"`
+	BevelledEdges    bool    `toml:"bevelled_edges"` // edges ground to their bevels: the bevels are part of each panel type
 	Grain            string  `toml:"grain"`          // first-edge, longest-edge or plan
 	GrainPlanDeg     float64 `toml:"grain_plan_deg"` // with grain = "plan"
 	PanelSpec
@@ -168,6 +171,55 @@ type PanelSpec struct {
 	Coating       string `toml:"coating"` // which face, such as "low-e on face 2 (inside)"
 	HeatTreatment string `toml:"heat_treatment"`
 	Grade         string `toml:"grade"`
+}
+
+// PanelTypeSpec is one [[panel_type]] table: the panels it picks, by type
+// name (such as "PT-003", known once a build has named the types), by
+// label (such as "C3-P05") or by bay (such as "C3"), and the settings it
+// changes for them. A key it does not give keeps its value from [panel]
+// (or from the table that picked the panels by label or bay, for a table
+// naming a type). Panels picked by label or bay never share a type with
+// panels outside the table.
+type PanelTypeSpec struct {
+	Type          string   `toml:"type"`
+	Panels        []string `toml:"panels"`
+	Bays          []string `toml:"bays"`
+	BuildUp       *string  `toml:"build_up"`
+	EdgeWork      *string  `toml:"edge_work"`
+	Coating       *string  `toml:"coating"`
+	HeatTreatment *string  `toml:"heat_treatment"`
+	Grade         *string  `toml:"grade"`
+	ThicknessMM   *float64 `toml:"thickness_mm"`
+	DensityKgM3   *float64 `toml:"density_kg_m3"`
+}
+
+// Picks says whether the table picks panels by label or bay (else it
+// names a type).
+func (t PanelTypeSpec) Picks() bool { return t.Type == "" }
+
+// Over returns s with the fields t gives.
+func (t PanelTypeSpec) Over(s PanelSpec) PanelSpec {
+	for _, f := range []struct {
+		from *string
+		to   *string
+	}{{t.BuildUp, &s.BuildUp}, {t.EdgeWork, &s.EdgeWork}, {t.Coating, &s.Coating}, {t.HeatTreatment, &s.HeatTreatment}, {t.Grade, &s.Grade}} {
+		if f.from != nil {
+			*f.to = *f.from
+		}
+	}
+	s.Type = t.Type
+	return s
+}
+
+// OverMaterial returns m with the thickness and density t gives.
+func (t PanelTypeSpec) OverMaterial(m panels.Material) panels.Material {
+	if t.ThicknessMM != nil {
+		m.ThicknessMM = *t.ThicknessMM
+	}
+	if t.DensityKgM3 != nil {
+		m.DensityKgM3 = *t.DensityKgM3
+	}
+	return m
 }
 
 // Bar is one [[bar]] table: bar stock the members are cut from.
@@ -354,12 +406,12 @@ func (j *Job) Material() panels.Material {
 	p := j.Panel
 	return panels.Material{Name: p.Material, ThicknessMM: p.ThicknessMM, DensityKgM3: p.DensityKgM3,
 		EdgeInsetMM: p.EdgeInsetMM, BoundaryBevelDeg: p.BoundaryBevelDeg,
-		Grain: panels.Grain{Rule: p.Grain, PlanDeg: p.GrainPlanDeg}}
+		Grain: panels.Grain{Rule: p.Grain, PlanDeg: p.GrainPlanDeg}, BevelledEdges: p.BevelledEdges}
 }
 
 // PanelTypeOptions returns when two panels are one type.
 func (j *Job) PanelTypeOptions() panels.TypeOptions {
-	return panels.TypeOptions{TolMM: j.Types.PanelTolMM, AngleTolDeg: j.Types.AngleTolDeg, Mirror: j.Panel.Mirror}
+	return panels.TypeOptions{TolMM: j.Types.PanelTolMM, AngleTolDeg: j.Types.AngleTolDeg, Mirror: j.Panel.Mirror, Bevels: j.Panel.BevelledEdges}
 }
 
 // BarStocks returns the job's bar stock for the members' cutting plan.
@@ -398,10 +450,11 @@ var (
 	materialKeys = map[string]string{"ThicknessMM": "panel.thickness_mm", "DensityKgM3": "panel.density_kg_m3",
 		"EdgeInsetMM": "panel.edge_inset_mm", "BoundaryBevelDeg": "panel.boundary_bevel_deg",
 		"Grain.Rule": "panel.grain", "Grain.PlanDeg": "panel.grain_plan_deg"}
-	barKeys       = map[string]string{"LengthMM": "length_mm", "KerfMM": "kerf_mm", "TrimMM": "trim_mm", "Price": "price", "Count": "count"}
-	panelTypeKeys = map[string]string{"TolMM": "types.panel_tol_mm", "AngleTolDeg": "types.angle_tol_deg"}
-	validateKeys  = map[string]string{"CoincidentTolMM": "net.merge_tol_mm"}
-	stockKeys     = map[string]string{"Name": "name", "WidthMM": "width_mm", "HeightMM": "height_mm", "MarginMM": "margin_mm",
+	typeMaterialKeys = map[string]string{"ThicknessMM": "thickness_mm", "DensityKgM3": "density_kg_m3"}
+	barKeys          = map[string]string{"LengthMM": "length_mm", "KerfMM": "kerf_mm", "TrimMM": "trim_mm", "Price": "price", "Count": "count"}
+	panelTypeKeys    = map[string]string{"TolMM": "types.panel_tol_mm", "AngleTolDeg": "types.angle_tol_deg"}
+	validateKeys     = map[string]string{"CoincidentTolMM": "net.merge_tol_mm"}
+	stockKeys        = map[string]string{"Name": "name", "WidthMM": "width_mm", "HeightMM": "height_mm", "MarginMM": "margin_mm",
 		"SpacingMM": "spacing_mm", "Rotation": "rotation", "Mirror": "mirror", "Count": "count", "Price": "price", "Cuts": "cuts"}
 	nestKeys = map[string]string{"Steps": "nesting.steps"}
 )
@@ -450,14 +503,33 @@ func (j *Job) check() error {
 	seen := map[string]int{}
 	for i, t := range j.PanelType {
 		prefix := fmt.Sprintf("panel_type[%d].", i+1)
-		if t.Type == "" {
-			return j.Errorf(prefix+"type", "missing: name the panel type, such as \"PT-003\"")
+		given := 0
+		for _, g := range []bool{t.Type != "", len(t.Panels) > 0, len(t.Bays) > 0} {
+			if g {
+				given++
+			}
 		}
-		if k, dup := seen[t.Type]; dup {
-			return j.Errorf(prefix+"type", "%q is given in panel_type %d too", short(t.Type), k+1)
+		if given != 1 {
+			return j.Errorf(fmt.Sprintf("panel_type[%d]", i+1), "name its panels one way: type = \"PT-003\", panels = [\"C3-P05\", …] or bays = [\"C3\", …]")
 		}
-		seen[t.Type] = i
-		texts = append(texts, specTexts(prefix, t)...)
+		if t.Type != "" {
+			if k, dup := seen[t.Type]; dup {
+				return j.Errorf(prefix+"type", "%q is given in panel_type %d too", short(t.Type), k+1)
+			}
+			seen[t.Type] = i
+		}
+		if len(t.Panels)+len(t.Bays) > MaxSupports {
+			return j.Errorf(prefix+"panels", "%d labels: at most %d", len(t.Panels)+len(t.Bays), int(MaxSupports))
+		}
+		for _, b := range t.Bays {
+			if !bayName.MatchString(b) {
+				return j.Errorf(prefix+"bays", "%q is not a bay: a bay is letters then a number, such as \"C3\"", short(b))
+			}
+		}
+		texts = append(texts, specTexts(prefix, t.Over(PanelSpec{}))...)
+		for _, l := range t.Panels {
+			texts = append(texts, struct{ key, text string }{prefix + "panels", l})
+		}
 	}
 	for _, t := range texts {
 		if err := j.checkText(t.key, t.text); err != nil {
@@ -482,6 +554,11 @@ func (j *Job) check() error {
 	if err := j.fieldErr(j.Material().Validate(), materialKeys, ""); err != nil {
 		return err
 	}
+	for i, t := range j.PanelType {
+		if err := j.fieldErr(t.OverMaterial(j.Material()).Validate(), typeMaterialKeys, fmt.Sprintf("panel_type[%d].", i+1)); err != nil {
+			return err
+		}
+	}
 	if err := j.fieldErr(j.PanelTypeOptions().Validate(), panelTypeKeys, ""); err != nil {
 		return err
 	}
@@ -499,6 +576,10 @@ func (j *Job) check() error {
 	}
 	return j.checkRates()
 }
+
+// bayName is a bay of the plan grid as labels carry it: column letters,
+// row number.
+var bayName = regexp.MustCompile(`^[A-Z]+[1-9][0-9]*$`)
 
 // specTexts lists a panel specification's text keys with their values.
 func specTexts(prefix string, s PanelSpec) []struct{ key, text string } {

@@ -49,6 +49,12 @@ height_mm = 3210
 		{"negative type rate", base + "[rates]\nmember_type_each = -1\n", "job.toml:7: key rates.member_type_each: -1 must be between 0"},
 		{"unpriced sheets twice", base + "[rates]\nsheet_each = 100\nsheet_per_m2 = 5\n", "job.toml:8: key rates.sheet_per_m2: 5: give the material of unpriced sheet stock once"},
 		{"unknown rate", base + "[rates]\npanel_per_m = 5\n", "job.toml:7: key rates.panel_per_m: unknown key; did you mean rates.panel_per_m2?"},
+		{"panel type picks nothing", base + "[[panel_type]]\nbuild_up = \"x\"\n", "job.toml:6: key panel_type[1]: name its panels one way"},
+		{"panel type picks twice", base + "[[panel_type]]\ntype = \"PT-001\"\nbays = [\"C3\"]\n", "job.toml:6: key panel_type[1]: name its panels one way"},
+		{"panel type bad bay", base + "[[panel_type]]\nbays = [\"c3\"]\n", "job.toml:7: key panel_type[1].bays: \"c3\" is not a bay"},
+		{"panel type thin", base + "[[panel_type]]\nbays = [\"C3\"]\nthickness_mm = 0\n", "job.toml:8: key panel_type[1].thickness_mm: 0 must be more than 0"},
+		{"panel type dense", base + "[[panel_type]]\nbays = [\"C3\"]\n[[panel_type]]\ntype = \"PT-002\"\ndensity_kg_m3 = -1\n", "job.toml:10: key panel_type[2].density_kg_m3: -1 must be between 0"},
+		{"panel type twice", base + "[[panel_type]]\ntype = \"PT-002\"\n[[panel_type]]\ntype = \"PT-002\"\n", "job.toml:9: key panel_type[2].type: \"PT-002\" is given in panel_type 1 too"},
 	}
 	for _, tc := range tests {
 		_, err := Parse([]byte(tc.text), "job.toml")
@@ -91,5 +97,43 @@ height_mm = 3210
 		} else if got := string(j.Stocks()[0].Cuts); got != c.want {
 			t.Errorf("%q: cut rule %q, want %q", c.key, got, c.want)
 		}
+	}
+}
+
+// TestPanelTypeMerge: a [[panel_type]] table replaces only the keys it
+// gives; the others keep [panel]'s values.
+func TestPanelTypeMerge(t *testing.T) {
+	text := `[net]
+file = "wave.obj"
+[panel]
+thickness_mm = 16.76
+density_kg_m3 = 2500
+build_up = "8 + 8 laminated"
+edge_work = "flat ground"
+coating = "low-e face 3"
+[[panel_type]]
+bays = ["C3"]
+build_up = "10 + 10 laminated"
+thickness_mm = 20.76
+[[stock]]
+width_mm = 6000
+height_mm = 3210
+`
+	j, err := Parse([]byte(text), "job.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	tb := j.PanelType[0]
+	got := tb.Over(j.Panel.PanelSpec)
+	want := PanelSpec{BuildUp: "10 + 10 laminated", EdgeWork: "flat ground", Coating: "low-e face 3"}
+	if got != want {
+		t.Errorf("merged spec %+v, want %+v", got, want)
+	}
+	m := tb.OverMaterial(j.Material())
+	if m.ThicknessMM != 20.76 || m.DensityKgM3 != 2500 {
+		t.Errorf("merged material %g mm %g kg/m³, want 20.76 and 2500", m.ThicknessMM, m.DensityKgM3)
+	}
+	if !tb.Picks() {
+		t.Error("a table with bays picks panels")
 	}
 }

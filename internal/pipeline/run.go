@@ -44,6 +44,9 @@ type Result struct {
 	// PanelTypeSetOut is each panel type's nominal set-out outline: its
 	// nominal cut outline grown by the edge inset.
 	PanelTypeSetOut []geom.Polygon
+	// TypeSpecs is every panel type's specification (with its thickness
+	// and density), by type name.
+	TypeSpecs map[string]export.PanelSpec
 
 	Stocks  []nest.Stock
 	Nesting *nest.Result
@@ -245,6 +248,19 @@ func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) e
 	case err != nil:
 		return err
 	}
+	// Panels picked by label or bay take their table's thickness and
+	// density, and never share a type with other panels.
+	pick, err := pickPanels(j, res.Flats)
+	if err != nil {
+		return err
+	}
+	for f := range res.Flats {
+		if pick[f] >= 0 {
+			fl := &res.Flats[f]
+			fl.SpecGroup = pick[f] + 1
+			fl.WeightKg = panelMaterial(j, pick[f]).WeightKg(fl.AreaM2)
+		}
+	}
 	if res.PanelTypes, res.PanelTypeBound, err = panels.Group(res.Flats, j.PanelTypeOptions()); err != nil {
 		return err
 	}
@@ -253,16 +269,14 @@ func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) e
 	// alike.
 	for _, t := range res.PanelTypes {
 		for n, f := range t.Panels {
-			if err := panels.StartAt(res.Net, j.Material(), &res.Flats[f], t.Start[n]); err != nil {
+			if err := panels.StartAt(res.Net, panelMaterial(j, pick[f]), &res.Flats[f], t.Start[n]); err != nil {
 				return err
 			}
 			t.Start[n] = 0
 		}
 	}
-	names := map[string]bool{}
 	inset := j.Material().EdgeInsetMM
 	for _, t := range res.PanelTypes {
-		names[t.Name] = true
 		out := t.Outline
 		if inset > 0 {
 			if grown, err := panels.Inset(t.Outline, -inset); err == nil {
@@ -271,10 +285,8 @@ func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) e
 		}
 		res.PanelTypeSetOut = append(res.PanelTypeSetOut, out)
 	}
-	for i, t := range j.PanelType {
-		if !names[t.Type] {
-			return j.Errorf(fmt.Sprintf("panel_type[%d].type", i+1), "%q is not a panel type of this net (it has PT-001 to %s)", t.Type, res.PanelTypes[len(res.PanelTypes)-1].Name)
-		}
+	if res.TypeSpecs, err = typeSpecs(j, res.PanelTypes, res.Flats, pick); err != nil {
+		return err
 	}
 
 	if j.Nesting.Seconds > 0 {
@@ -307,7 +319,7 @@ func (r *Result) Bundle() *export.Bundle {
 		BarStocks: r.BarStocks, Blanks: r.Blanks, BarPlan: r.BarPlan, HubRadiusMM: r.Job.Nodes.HubRadiusMM, PanelTypeSetOut: r.PanelTypeSetOut,
 		MemberMaterial: r.Job.Member.Material, MemberDensityKgM3: r.Job.Member.DensityKgM3,
 		MemberSection: r.Job.Member.Section, MemberKgPerM: r.Job.Member.KgPerM(), TagSize: r.Job.Site.TagSize,
-		PanelMaterial: r.Job.Material(), PanelSpec: spec(r.Job.Panel.PanelSpec), TypeSpecs: typeSpecs(r.Job)}
+		PanelMaterial: r.Job.Material(), PanelSpec: spec(r.Job.Panel.PanelSpec), TypeSpecs: r.TypeSpecs}
 }
 
 // Write writes every output of the result into the folder dir, atomically
@@ -345,15 +357,6 @@ func spec(s job.PanelSpec) export.PanelSpec {
 	return export.PanelSpec{BuildUp: s.BuildUp, EdgeWork: s.EdgeWork, Coating: s.Coating, HeatTreatment: s.HeatTreatment, Grade: s.Grade}
 }
 
-// typeSpecs returns the job's specifications of named panel types.
-func typeSpecs(j *job.Job) map[string]export.PanelSpec {
-	m := map[string]export.PanelSpec{}
-	for _, t := range j.PanelType {
-		m[t.Type] = spec(t)
-	}
-	return m
-}
-
 // settings lists the job's settings for the summary sheet: numbers as
 // numbers, units in the names. The stock sizes are in the report's stock
 // rows.
@@ -381,6 +384,7 @@ func settings(j *job.Job) []export.Setting {
 		{Name: "Panel thickness (mm)", Value: j.Panel.ThicknessMM},
 		{Name: "Panel edge inset (mm)", Value: j.Panel.EdgeInsetMM},
 		{Name: "Mirrored panels allowed", Value: yes(j.Panel.Mirror)},
+		{Name: "Panel edges bevelled (bevels part of each panel type)", Value: yes(j.Panel.BevelledEdges)},
 		{Name: "Bay size (mm)", Value: j.Nodes.BayMM},
 		{Name: "Type tolerance, member cut length (mm)", Value: j.Types.LengthTolMM},
 		{Name: "Type tolerance, angles (°)", Value: j.Types.AngleTolDeg},

@@ -10,6 +10,8 @@ import os
 import sys
 
 import ezdxf
+from shapely.geometry import LineString, Point, Polygon
+from shapely.ops import unary_union
 
 TOL = 0.01  # mm: report.json and the DXF both round to 0.01 mm or finer
 
@@ -38,7 +40,19 @@ def main(out):
         doc = load(path)
         msp = doc.modelspace()
         cuts = msp.query('LWPOLYLINE[layer=="PQ-CUT"]')
-        labels = msp.query('TEXT[layer=="PQ-ENGRAVE"]')
+        labels = msp.query('TEXT[layer=="PQ-PART-TEXT"]')
+        if msp.query('TEXT[layer=="PQ-ENGRAVE"]') or msp.query('MTEXT[layer=="PQ-ENGRAVE"]'):
+            fail("%s: text on the engraving layer: engraving is in single strokes" % path)
+        strokes = list(msp.query('LWPOLYLINE[layer=="PQ-ENGRAVE"]'))
+        if any(e.closed for e in strokes) or (sheet["placements"] and not strokes):
+            fail("%s: engraving strokes missing or closed" % path)
+        # Every engraving stroke lies on a part (shapely, Debian's
+        # python3-shapely).
+        parts = unary_union([Polygon(p["outline_mm"]) for p in sheet["placements"]])
+        for e in strokes:
+            pts = [p[:2] for p in e.get_points("xy")]
+            if not parts.contains(LineString(pts) if len(pts) > 1 else Point(pts[0])):
+                fail("%s: an engraving stroke leaves the parts at %s" % (path, pts[0]))
         edge = msp.query('LWPOLYLINE[layer=="PQ-SHEET-EDGE"]')
         if len(cuts) != len(sheet["placements"]):
             fail("%s: %d cut outlines for %d placements" % (path, len(cuts), len(sheet["placements"])))

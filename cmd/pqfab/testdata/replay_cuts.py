@@ -3,8 +3,11 @@ general-purpose geometry library from Debian's python3-shapely), written
 independently of pqfab's nesting code.
 
 For each sheets/*.dxf (read with Debian's python3-ezdxf) whose stock cuts
-edge to edge: start from the sheet; take the cuts on layer PQ-CUT-ORDER in
-their numbered order; each cut must split a piece that exists and has not
+edge to edge: start from the sheet; take the cuts in their numbered order
+(circled numbers on layer PQ-CUT-NUMBER, the cut lines on PQ-CUT-ORDER,
+drawn only where they leave the parts' outlines: each cut's drawn spans
+and the part outline edges along it must cover it, and no drawn span may
+run along a part's outline edge); each cut must split a piece that exists and has not
 been split before (nothing is cut twice) into exactly two pieces, running
 from edge to edge of it (both ends on its boundary), and must not enter a
 part. At the end every part (layer PQ-CUT) must lie inside one final
@@ -22,7 +25,7 @@ import sys
 import ezdxf
 import openpyxl
 from shapely.geometry import LineString, Polygon
-from shapely.ops import split
+from shapely.ops import split, unary_union
 
 TOL = 1e-3  # mm
 # Part outlines are written to 0.01 mm and a cut may run along a part's
@@ -33,6 +36,24 @@ PART_TOL = 0.02  # mm
 def fail(msg):
     print("FAIL:", msg)
     sys.exit(1)
+
+
+def along(span, edge):
+    """Length over which edge runs along span: 0 unless both ends of edge
+    lie within PART_TOL of span's line."""
+    (ax, ay), (bx, by) = span.coords
+    n = span.length
+    ux, uy = (bx - ax) / n, (by - ay) / n
+    ts = []
+    for x, y in edge.coords:
+        if abs(-(x - ax) * uy + (y - ay) * ux) > PART_TOL:
+            return 0.0
+        ts.append((x - ax) * ux + (y - ay) * uy)
+    return max(0.0, min(n, max(ts)) - max(0.0, min(ts)))
+
+
+def doc_layers(path):
+    return ezdxf.readfile(path).layers
 
 
 def main(out):
@@ -51,25 +72,42 @@ def main(out):
             fail("schedule Cuts: sheet %s cut %d: length %s" % (r[0], r[1], r[9]))
     for path, sheet in zip(files, rep["sheets"]):
         msp = ezdxf.readfile(path).modelspace()
-        lines = list(msp.query('LINE[layer=="PQ-CUT-ORDER"]'))
+        spans = [LineString([(ln.dxf.start.x, ln.dxf.start.y), (ln.dxf.end.x, ln.dxf.end.y)]) for ln in msp.query('LINE[layer=="PQ-CUT-ORDER"]')]
         if not sheet.get("cuts"):
-            if lines:
+            if spans:
                 fail("%s: cut lines on a sheet without cuts" % path)
             continue
-        if len(lines) != len(sheet["cuts"]):
-            fail("%s: %d cut lines, report lists %d" % (path, len(lines), len(sheet["cuts"])))
-        numbers = [t.dxf.text for t in msp.query('TEXT[layer=="PQ-CUT-ORDER"]')]
-        if numbers != [str(i + 1) for i in range(len(lines))]:
-            fail("%s: cuts are not numbered 1 to %d in order" % (path, len(lines)))
+        if msp.query('TEXT[layer=="PQ-CUT-ORDER"]'):
+            fail("%s: cut numbers on the cut line layer" % path)
+        numbers = [t.dxf.text for t in msp.query('TEXT[layer=="PQ-CUT-NUMBER"]')]
+        if numbers != [str(i + 1) for i in range(len(sheet["cuts"]))]:
+            fail("%s: cuts are not numbered 1 to %d in order" % (path, len(sheet["cuts"])))
+        if len(msp.query('CIRCLE[layer=="PQ-CUT-NUMBER"]')) != len(numbers):
+            fail("%s: cut numbers are not circled" % path)
+        layers = {l.dxf.name: l.dxf.color for l in doc_layers(path)}
+        marks = [t.dxf.height for t in msp.query('TEXT[layer=="PQ-PART-MARK"]')]
+        nums = [t.dxf.height for t in msp.query('TEXT[layer=="PQ-CUT-NUMBER"]')]
+        if layers["PQ-CUT-NUMBER"] in (layers["PQ-PART-MARK"], layers["PQ-CUT"]) or (marks and min(nums) <= max(marks)):
+            fail("%s: cut numbers look like the edge numbers (colour %s, heights %s..%s vs %s)" % (path, layers["PQ-CUT-NUMBER"], min(nums), max(nums), max(marks)))
         edge = msp.query('LWPOLYLINE[layer=="PQ-SHEET-EDGE"]')[0]
         pieces = {0: Polygon([p[:2] for p in edge.get_points("xy")])}
         parts = [Polygon([p[:2] for p in e.get_points("xy")]) for e in msp.query('LWPOLYLINE[layer=="PQ-CUT"]')]
         inner = [p.buffer(-PART_TOL) for p in parts]
-        for i, (ln, c) in enumerate(zip(lines, sheet["cuts"])):
-            a = (ln.dxf.start.x, ln.dxf.start.y)
-            b = (ln.dxf.end.x, ln.dxf.end.y)
-            if max(abs(a[0] - c["from_mm"][0]), abs(a[1] - c["from_mm"][1]), abs(b[0] - c["to_mm"][0]), abs(b[1] - c["to_mm"][1])) > 0.01:
-                fail("%s: cut %d differs from report.json" % (path, i + 1))
+        outline = unary_union([p.exterior for p in parts])
+        edges = [LineString([q.exterior.coords[j], q.exterior.coords[j + 1]]) for q in parts for j in range(len(q.exterior.coords) - 1)]
+        for sp in spans:
+            for e in edges:
+                # An outline edge along the span: both its ends on the
+                # span's line, overlapping it.
+                if along(sp, e) > 10 * PART_TOL:
+                    fail("%s: a cut line is drawn %.3f mm along a part's outline" % (path, along(sp, e)))
+        for i, c in enumerate(sheet["cuts"]):
+            a, b = tuple(c["from_mm"]), tuple(c["to_mm"])
+            seg = LineString([a, b])
+            near = seg.buffer(PART_TOL)
+            cover = unary_union([s for s in spans if near.contains(s)] + [outline.intersection(near)])
+            if seg.difference(cover.buffer(PART_TOL)).length > 10 * PART_TOL:
+                fail("%s: cut %d is drawn on %.2f of %.2f mm" % (path, i + 1, seg.length - seg.difference(cover.buffer(PART_TOL)).length, seg.length))
             k = c["piece"]
             if k not in pieces:
                 fail("%s: cut %d splits piece %d, which does not exist or was cut before" % (path, i + 1, k))
