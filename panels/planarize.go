@@ -232,7 +232,33 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 	s := newSolver(n, topo, opt)
 	res := &PlanarizeResult{Before: s.flatness(s.x0)}
 	x, iter := s.run(res.Before, opt)
-	res.Iterations = iter
+	res = s.result(n, x, res.Before, iter, opt.TolMM)
+	if res.Converged {
+		return res, nil
+	}
+	pe := failure(n, res, opt, iter, s.clamped)
+	if pe.Stop == StopMoveLimit && opt.MaxMoveMM < MaxMoveMM {
+		// How large a move would do: the same run without the limit.
+		free := opt
+		free.MaxMoveMM, free.Progress = MaxMoveMM, nil
+		fs := newSolver(n, topo, free)
+		fx, fiter := fs.run(res.Before, free)
+		if countOver(fs.flatness(fx), opt.TolMM) == 0 {
+			pe.NeedMoveMM = fs.maxMove(fx)
+			if pe.NeedMoveMM <= opt.MaxMoveMM {
+				// The limit bent this run's path without binding the
+				// answer: the run without it stays within the limit.
+				return s.result(n, fx, res.Before, res.Iterations+fiter, opt.TolMM), nil
+			}
+		}
+	}
+	res.Stop, res.NeedMoveMM = pe.Stop, pe.NeedMoveMM
+	return res, pe
+}
+
+// result turns positions x into a PlanarizeResult.
+func (s *solver) result(n *geom.Net, x, before []float64, iter int, tol float64) *PlanarizeResult {
+	res := &PlanarizeResult{Before: before, Iterations: iter}
 	res.Positions = make([]geom.Vec, len(n.Nodes))
 	res.Moves = make([]geom.Vec, len(n.Nodes))
 	var sum float64
@@ -247,24 +273,8 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 		res.RMSMoveMM = math.Sqrt(sum / float64(len(n.Nodes)))
 	}
 	res.After = s.flatness(x)
-	over := countOver(res.After, opt.TolMM)
-	res.Converged = over == 0
-	if res.Converged {
-		return res, nil
-	}
-	pe := failure(n, res, opt, iter, s.clamped)
-	if pe.Stop == StopMoveLimit && opt.MaxMoveMM < MaxMoveMM {
-		// How large a move would do: the same run without the limit.
-		free := opt
-		free.MaxMoveMM, free.Progress = MaxMoveMM, nil
-		fs := newSolver(n, topo, free)
-		fx, _ := fs.run(res.Before, free)
-		if countOver(fs.flatness(fx), opt.TolMM) == 0 {
-			pe.NeedMoveMM = fs.maxMove(fx)
-		}
-	}
-	res.Stop, res.NeedMoveMM = pe.Stop, pe.NeedMoveMM
-	return res, pe
+	res.Converged = countOver(res.After, tol) == 0
+	return res
 }
 
 // state is one iterate's standing: panels over the tolerance, their total
