@@ -70,7 +70,7 @@ func panelTypeHead(rep *Report) []string {
 		head = append(head, fmt.Sprintf("Cut angle %d (°)", i))
 	}
 	for i := 1; i <= k; i++ {
-		head = append(head, fmt.Sprintf("Bevel %d least (°; %s)", i, BevelSignHead), fmt.Sprintf("Bevel %d most (°)", i))
+		head = append(head, fmt.Sprintf("Bevel %d least (%s)", i, BevelSignHead), fmt.Sprintf("Bevel %d most (°)", i))
 	}
 	return append(head, "Cut area (m²)", "Cut perimeter (mm)", "Largest difference from type (mm)", "Largest difference from type (°)",
 		"Total area (m²)", "Thickness (mm)", "Total weight (kg)", "Build-up", "Edge work", "Coating", "Heat treatment", "Grade", "Panels", "Panels turned over")

@@ -36,7 +36,7 @@ from ezdxf.colors import aci2rgb
 from shapely.geometry import LineString, Polygon
 
 MM = 25.4 / 72  # mm per PDF point
-TAG_W, TAG_H, TAG_TOP = 70.0, 37.0, 0.5  # the label sheet's cells (mm)
+TAG_W, TAG_H, TAG_TOP = 105.0, 74.0, 0.5  # the office label sheet's cells (mm): export.TagOffice
 CHAR_W = 0.9  # DXF text width per character, as a share of its height
 NUM = r"([+-]?[0-9]+(?:\.[0-9]+)?)"
 
@@ -90,7 +90,9 @@ def check_tags(out, rep):
         bev = next((l for l in lines if l.startswith("bevels 1-")), None)
         if not pane or not setout or not bev:
             fail("tag %s: lines missing: %s" % (p["label"], lines))
-        if "Bevel +: outside face larger" not in " ".join(lines):
+        # The kind, type and bay sit beside the small print, so a line may
+        # hold a word of theirs between the sign's words.
+        if not re.search(r"Bevel \+:.*outside face larger", " ".join(lines)):
             fail("tag %s: the bevel sign is not defined" % p["label"])
         cut = p["cut_outline_mm"]
         k = len(cut)
@@ -197,9 +199,10 @@ def check_type_drawings(out, rep, sched, tags):
             m = re.fullmatch(r"bevel ([0-9]+) " + NUM + "°(?: to " + NUM + "°)?", s)
             if m:
                 lo, hi = float(m.group(2)), float(m.group(3) or m.group(2))
-                cell = row["Bevel %s (least to most; °, + outside face larger)" % m.group(1)]
-                if [float(v) for v in cell.split(" to ")] != [lo, hi]:
-                    fail("%s: %s, schedule %r" % (path, s, cell))
+                least = row["Bevel %s least (°, + outside face larger)" % m.group(1)]
+                most = row["Bevel %s most (°)" % m.group(1)]
+                if [round(least, 2), round(most, 2)] != [lo, hi]:
+                    fail("%s: %s, schedule %r to %r" % (path, s, least, most))
         seen = 0
         for s in notes:
             m = re.fullmatch(r"bevels of (\S+) \(edges 1-([0-9]+)\): (.*?)( \(turned over.*\))?", s)
