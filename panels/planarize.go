@@ -362,8 +362,11 @@ func (s *solver) run(before []float64, opt PlanarizeOptions) ([]float64, int) {
 			}
 		}
 		// Between rounds: progress on the total excess, then the
-		// multiplier update and, where the gaps shrank too little, a
-		// heavier weight.
+		// multiplier update once the gaps are within a few tolerances
+		// (earlier, on a net far from flat, the multipliers' estimates
+		// lead to a worse answer: Conn, Gould and Toint 1991 update them
+		// only below a shrinking violation) and, where the gaps are still
+		// wide or shrank too little, a heavier weight.
 		if best.excess < (1-roundGain)*roundBest {
 			roundBest, stale = best.excess, 0
 		} else if stale++; stale >= stallRounds {
@@ -371,10 +374,12 @@ func (s *solver) run(before []float64, opt PlanarizeOptions) ([]float64, int) {
 		}
 		s.linearize(x)
 		v := s.violation()
-		for k := range s.cons {
-			s.cons[k].shift += s.cons[k].val
+		if v <= shiftGate*opt.TolMM {
+			for k := range s.cons {
+				s.cons[k].shift += s.cons[k].val
+			}
 		}
-		if v > violationShrink*viol {
+		if v > shiftGate*opt.TolMM || v > violationShrink*viol {
 			if s.w*weightRise > maxGapWeight {
 				break
 			}

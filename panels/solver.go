@@ -14,6 +14,7 @@ const (
 	weightRise       = 10.0  // the weight's factor when a round shrank the gaps too little
 	maxGapWeight     = 1e12  // no heavier weight: the round after it ends the run
 	violationShrink  = 0.25  // a round that shrinks the largest gap below this share keeps the weight
+	shiftGate        = 4.0   // the multipliers move once the largest gap is within this many tolerances
 	gnConverged      = 1e-5  // relative energy decrease that ends a round
 	roundSteps       = 30    // steps that end a round
 	roundGain        = 0.01  // a round gains when it cuts the total excess by this share
