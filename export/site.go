@@ -35,19 +35,19 @@ const (
 
 // HubFrameNote defines the hub angles for the people who read them; it is
 // in the legends of the plans (HubFrameShort is on every node tag).
-const HubFrameNote = "Hub angles: z = node axis; azimuth 0 = grid north (+y of the plan) projected on the hub plane " +
-	"(the plane normal to the axis), found with the plan before any member is in and marked on the hub " +
+const HubFrameNote = "Hub angles: z = node axis; azimuth 0 = grid north (+y of the plan) projected on the plane square to the axis " +
+	"(the hub's face), found with the plan before any member is in and marked on the hub " +
 	"(up, +z, instead where the axis lies within 5° of the north-south line); azimuth counter-clockwise seen " +
 	"from above the hub along the axis, 0 to 360°, arms listed going round the hub; elevation above (+) or " +
-	"below (-) the hub plane. Axis tilt: the axis's angle from vertical and the plan direction it leans " +
+	"below (-) the plane square to the axis. Axis tilt: the axis's angle from vertical and the plan direction it leans " +
 	"toward, counter-clockwise from grid north."
 
 // azimuthZeroText names a hub's azimuth 0 for the schedule.
 func azimuthZeroText(zero string) string {
 	if zero == nodes.ZeroUp {
-		return "up (+z) on the hub plane"
+		return "up (+z) on the plane square to the axis"
 	}
-	return "grid north (+y) on the hub plane"
+	return "grid north (+y) on the plane square to the axis"
 }
 
 // AxisTiltText says how a node's axis leans, for a tag.
@@ -57,7 +57,7 @@ func AxisTiltText(n NodeRow) string {
 		s += fmt.Sprintf(" toward %.0f° ccw from north", math.Mod(r(n.AxisTiltTowardDeg, 0), 360))
 	}
 	if n.AzimuthZero == nodes.ZeroUp {
-		s += "; az 0 = up (+z) on the hub plane"
+		s += "; az 0 = up (+z) on the plane square to the axis"
 	}
 	return s
 }

@@ -54,7 +54,7 @@ const (
 )
 
 // HubFrameShort is the hub angle definition as it fits on a node tag.
-const HubFrameShort = "az 0 = grid north (+y) on the hub plane, marked on the hub; az ccw seen from above; el + above the hub plane."
+const HubFrameShort = "az 0 = grid north (+y) on the plane square to the axis, marked on the hub; az ccw seen from above; el + above the plane square to the axis."
 
 // tagRow is one row of a tag's data column: a line of text, or a table
 // row of a name and two numbers (right-aligned in their columns).

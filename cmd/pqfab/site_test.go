@@ -239,7 +239,7 @@ func TestSiteTagsPDF(t *testing.T) {
 		}
 	}
 	flat := strings.Join(strings.Fields(pages[0]), " ")
-	if !strings.Contains(flat, "az 0 = grid north (+y) on the hub plane") || !strings.Contains(flat, "NODE") {
+	if !strings.Contains(flat, "az 0 = grid north (+y) on the plane square to the axis") || !strings.Contains(flat, "NODE") {
 		t.Errorf("first sheet (node tags) lacks the azimuth definition: %q", tail(flat, 400))
 	}
 	// Every member's tag names the end it is fixed at: its type's end A,
