@@ -20,6 +20,24 @@ type job struct {
 	steps  int
 	fits   [][]bool      // per shape and stock: it fits an empty sheet
 	extra  [][][]float64 // per shape and stock: turns beyond the usual ones that let it fit
+
+	progress func(Progress) // nil for none
+	toPlace  int            // parts that fit some stock
+	mu       sync.Mutex     // one call of progress at a time
+}
+
+// report tells the progress callback, if any, how a method goes.
+func (j *job) report(phase, method string, sheets []layoutSheet) {
+	if j.progress == nil {
+		return
+	}
+	placed := 0
+	for _, s := range sheets {
+		placed += len(s.parts)
+	}
+	j.mu.Lock()
+	defer j.mu.Unlock()
+	j.progress(Progress{Phase: phase, Method: method, Sheets: len(sheets), Placed: placed, Parts: j.toPlace})
 }
 
 // placedShape is a part of a shape on a sheet: its outline (from the
@@ -150,6 +168,7 @@ func (j *job) run() *Result {
 			fitsSome[si] = fitsSome[si] || j.fits[si][k]
 		}
 		if fitsSome[si] {
+			j.toPlace += len(sh.parts)
 			continue
 		}
 		reason := ReasonTooLarge
@@ -277,8 +296,7 @@ func (j *job) runOrders(fitsSome []bool) *layout {
 				order = append(order, si)
 			}
 		}
-		l := j.runNFP(info, order, allowed)
-		l.method = o.name
+		l := j.runNFP(info, order, allowed, o.name)
 		if best == nil || j.better(l, best) {
 			best = l
 		}
