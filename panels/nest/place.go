@@ -136,8 +136,10 @@ type sheetState struct {
 	near     []int            // grown pieces near the band searched
 	byX      []int            // no-fit polygons by their least x
 	pairs    []nfpPair
-	cellOf   []int32 // the no-fit polygons of each cell of the band, cell by cell
-	cellAt   []int32 // where each cell's run starts in cellOf
+	froms    []float64 // per band searched: the least right edge with room
+	edges    []int     // edges of one no-fit polygon
+	cellOf   []int32   // the no-fit polygons of each cell of the band, cell by cell
+	cellAt   []int32   // where each cell's run starts in cellOf
 	cellLo   float64
 	cellW    float64
 }
@@ -201,29 +203,57 @@ func (st *sheetState) place(o *nOrient, bound *score) (geom.Vec2, score, bool) {
 		}
 	}()
 	sz := sizeOf(o)
-	for k := first; k <= last; k++ {
-		if bound != nil && k > bound.band {
+	// With few parts on the sheet all bands are searched at once.
+	step := 1.0
+	if len(st.grown) <= wholeSheetPieces {
+		step = last - first + 1
+	}
+	for k0 := first; k0 <= last; k0 += step {
+		if bound != nil && k0 > bound.band {
 			break
 		}
-		from := st.roomFrom(sz, k)
-		if math.IsInf(from, 1) {
+		k1 := min(k0+step-1, last)
+		if bound != nil {
+			k1 = min(k1, bound.band)
+		}
+		froms, open := st.froms[:0], false
+		for k := k0; k <= k1; k++ {
+			f := st.roomFrom(sz, k)
+			froms = append(froms, f)
+			open = open || !math.IsInf(f, 1)
+		}
+		st.froms = froms
+		if !open {
 			continue
 		}
-		c, sc, ok := st.placeIn(o, k, ilo, ihi, bound, from)
-		switch {
-		case ok:
-			st.noRoom(sz, k, sc.right)
+		c, sc, ok := st.placeIn(o, k0, k1, ilo, ihi, bound, froms)
+		top := k1
+		if ok {
+			top = sc.band
+		}
+		for k := k0; k <= top; k++ {
+			switch {
+			case math.IsInf(froms[int(k-k0)], 1):
+			case ok && k == sc.band:
+				st.noRoom(sz, k, sc.right)
+			case bound == nil || k < bound.band:
+				// Below the bound's band the bound cut nothing: the band
+				// is full.
+				st.noRoom(sz, k, math.Inf(1))
+			case k == bound.band:
+				st.noRoom(sz, k, bound.right)
+			}
+		}
+		if ok {
 			return c, sc, true
-		case bound == nil || k < bound.band:
-			// Below the bound's band the bound cut nothing: the band is
-			// full.
-			st.noRoom(sz, k, math.Inf(1))
-		case k == bound.band:
-			st.noRoom(sz, k, bound.right)
 		}
 	}
 	return geom.Vec2{}, score{}, false
 }
+
+// wholeSheetPieces: up to this many grown pieces on a sheet, the placer
+// searches all bands at once (their no-fit polygons are few).
+const wholeSheetPieces = 64
 
 // bufUsed returns how many corners the no-fit polygons of the last call
 // took.
@@ -313,13 +343,13 @@ func (st *sheetState) noRoom(sz orientSize, k, right float64) {
 	st.records[b] = append(rs, noRoomRecord{sz, right})
 }
 
-// placeIn is place within band k, for positions whose right edge is at
-// least from.
-func (st *sheetState) placeIn(o *nOrient, k float64, ilo, ihi geom.Vec2, bound *score, from float64) (geom.Vec2, score, bool) {
-	cx := from - o.hi.X // least x of the reference point
+// placeIn is place within bands k0 to k1, for positions whose right
+// edge is at least froms[k-k0] in band k.
+func (st *sheetState) placeIn(o *nOrient, k0, k1 float64, ilo, ihi geom.Vec2, bound *score, froms []float64) (geom.Vec2, score, bool) {
+	cx := slices.Min(froms) - o.hi.X // least x of the reference point
 	hb := st.bandHeight()
-	ya := max(ilo.Y, (k-1)*hb-o.hi.Y) - stripPadMM
-	yb := min(ihi.Y, k*hb-o.hi.Y) + stripPadMM
+	ya := max(ilo.Y, (k0-1)*hb-o.hi.Y) - stripPadMM
+	yb := min(ihi.Y, k1*hb-o.hi.Y) + stripPadMM
 	// The no-fit polygons of the placed pieces that can reach the band
 	// and were not worked out in an earlier band of this call.
 	near := st.near[:0]
@@ -368,7 +398,7 @@ func (st *sheetState) placeIn(o *nOrient, k float64, ilo, ihi geom.Vec2, bound *
 			}
 		}
 	}
-	best, bestScore, found := st.firstFree(o, k, from, cands, ilo, ihi, bound)
+	best, bestScore, found := st.firstFree(o, k0, froms, cands, ilo, ihi, bound)
 	if found {
 		bound = &bestScore
 	}
@@ -402,17 +432,17 @@ func (st *sheetState) placeIn(o *nOrient, k float64, ilo, ihi geom.Vec2, bound *
 			pairs = append(pairs, nfpPair{kk, l, lb})
 		}
 	}
-	slices.SortFunc(pairs, func(a, b nfpPair) int {
-		if a.lb.less(b.lb) {
-			return -1
-		}
-		if b.lb.less(a.lb) {
-			return 1
-		}
-		return cmp.Or(cmp.Compare(a.k, b.k), cmp.Compare(a.l, b.l))
-	})
+	// A heap of the pairs: only those taken are put in order.
+	for i := len(pairs)/2 - 1; i >= 0; i-- {
+		siftDown(pairs, i)
+	}
 	st.pairs = pairs
-	for _, pr := range pairs {
+	for len(pairs) > 0 {
+		pr := pairs[0]
+		last := len(pairs) - 1
+		pairs[0] = pairs[last]
+		pairs = pairs[:last]
+		siftDown(pairs, 0)
 		if found && !pr.lb.less(bestScore) {
 			break
 		}
@@ -423,28 +453,58 @@ func (st *sheetState) placeIn(o *nOrient, k float64, ilo, ihi geom.Vec2, bound *
 		// cross there.
 		cands = cands[:0]
 		f, g := nfps[kk], nfps[l]
+		ge := st.edges[:0]
+		for m := range g {
+			a, b := g[m], g[(m+1)%len(g)]
+			if max(a.X, b.X) >= lox && min(a.X, b.X) <= hix && max(a.Y, b.Y) >= loy && min(a.Y, b.Y) <= hiy {
+				ge = append(ge, m)
+			}
+		}
+		st.edges = ge
 		for i := range f {
 			p, q := f[i], f[(i+1)%len(f)]
 			if max(p.X, q.X) < lox || min(p.X, q.X) > hix || max(p.Y, q.Y) < loy || min(p.Y, q.Y) > hiy {
 				continue
 			}
-			for m := range g {
-				a, b := g[m], g[(m+1)%len(g)]
-				if max(a.X, b.X) < lox || min(a.X, b.X) > hix || max(a.Y, b.Y) < loy || min(a.Y, b.Y) > hiy {
-					continue
-				}
-				cands = lineHits(cands, p, q, a, b)
+			for _, m := range ge {
+				cands = lineHits(cands, p, q, g[m], g[(m+1)%len(g)])
 			}
 		}
 		if found {
 			bound = &bestScore
 		}
-		if c, sc, ok := st.firstFree(o, k, from, cands, ilo, ihi, bound); ok {
+		if c, sc, ok := st.firstFree(o, k0, froms, cands, ilo, ihi, bound); ok {
 			best, bestScore, found = c, sc, true
 		}
 	}
 	st.cands = cands
 	return best, bestScore, found
+}
+
+// before orders pairs by their best score, then by their polygons.
+func (a nfpPair) before(b nfpPair) bool {
+	if a.lb.less(b.lb) || b.lb.less(a.lb) {
+		return a.lb.less(b.lb)
+	}
+	return a.k < b.k || (a.k == b.k && a.l < b.l)
+}
+
+// siftDown moves h[i] down the heap h (ordered by before) to its place.
+func siftDown(h []nfpPair, i int) {
+	for {
+		m := i
+		if l := 2*i + 1; l < len(h) && h[l].before(h[m]) {
+			m = l
+		}
+		if r := 2*i + 2; r < len(h) && h[r].before(h[m]) {
+			m = r
+		}
+		if m == i {
+			return
+		}
+		h[i], h[m] = h[m], h[i]
+		i = m
+	}
 }
 
 // nfpPair is a pair of no-fit polygons (k < l) whose boxes overlap, with
@@ -496,12 +556,13 @@ func (st *sheetState) cell(x float64) int {
 	return min(max(int(math.Floor((x-st.cellLo)/st.cellW)), 0), n-1)
 }
 
-// firstFree returns the best candidate position in band k, its right
-// edge at least from, that lies in
+// firstFree returns the best candidate position in bands k0 to
+// k0+len(froms)-1, its right edge at least froms[k-k0] in band k, that
+// lies in
 // the inner-fit rectangle, overlaps no part and beats bound. Each
 // candidate is checked against the parts only when it would beat the
 // best so far.
-func (st *sheetState) firstFree(o *nOrient, k, from float64, cands []geom.Vec2, ilo, ihi geom.Vec2, bound *score) (geom.Vec2, score, bool) {
+func (st *sheetState) firstFree(o *nOrient, k0 float64, froms []float64, cands []geom.Vec2, ilo, ihi geom.Vec2, bound *score) (geom.Vec2, score, bool) {
 	var best geom.Vec2
 	var bestScore score
 	found := false
@@ -514,7 +575,7 @@ func (st *sheetState) firstFree(o *nOrient, k, from float64, cands []geom.Vec2, 
 		}
 		c = geom.Vec2{X: min(max(c.X, ilo.X), ihi.X), Y: min(max(c.Y, ilo.Y), ihi.Y)}
 		sc := st.score(o, c)
-		if sc.band != k || sc.right < from || ((found || bound != nil) && !sc.less(bestScore)) {
+		if b := int(sc.band - k0); b < 0 || b >= len(froms) || sc.right < froms[b] || ((found || bound != nil) && !sc.less(bestScore)) {
 			continue
 		}
 		ok := true
