@@ -1,7 +1,9 @@
 package nest
 
 import (
+	"context"
 	"math"
+	"reflect"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -51,5 +53,43 @@ func BenchmarkNestTriangles(b *testing.B) {
 		b.Run(size.name, func(b *testing.B) {
 			_ = benchNest(b, triangleParts(size.nu, size.nv), []Stock{floatGlass})
 		})
+	}
+}
+
+// TestProgress: the progress callback hears of every sheet a method fills
+// (parts placed never more than the parts, never going back within a
+// method's layout) and changes nothing in the result.
+func TestProgress(t *testing.T) {
+	parts := triangleParts(6, 4)
+	stocks := []Stock{{Name: "board", WidthMM: 1200, HeightMM: 800, SpacingMM: 4, Rotation: Free}}
+	plain, err := NestWith(context.Background(), parts, stocks, Options{Steps: 2000})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var calls []Progress
+	r, err := NestWith(context.Background(), parts, stocks, Options{Steps: 2000, Progress: func(p Progress) { calls = append(calls, p) }})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !reflect.DeepEqual(plain, r) {
+		t.Error("the result changes with a progress callback")
+	}
+	if len(calls) < len(r.Sheets) {
+		t.Fatalf("%d progress calls for %d sheets", len(calls), len(r.Sheets))
+	}
+	last := map[string]Progress{}
+	for _, p := range calls {
+		if p.Parts != len(parts) || p.Placed > p.Parts || p.Sheets < 1 {
+			t.Fatalf("progress %+v for %d parts", p, len(parts))
+		}
+		if p.Phase == PhaseLayout {
+			if q, ok := last[p.Method]; ok && (p.Sheets < q.Sheets || p.Placed < q.Placed) {
+				t.Fatalf("progress went back: %+v after %+v", p, q)
+			}
+			last[p.Method] = p
+		}
+	}
+	if q, ok := last[r.Ordering]; !ok || q.Placed != len(parts)-len(r.Unplaced) {
+		t.Errorf("last progress of %q: %+v; result %d parts placed", r.Ordering, q, len(parts)-len(r.Unplaced))
 	}
 }
