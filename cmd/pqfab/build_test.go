@@ -403,10 +403,18 @@ func TestBuildErrors(t *testing.T) {
 // round writes a new output folder: replacing the last one would time the
 // file system's cleanup too. It reports the process's peak memory.
 func benchBuild(b *testing.B, panels int) {
+	benchBuildNet(b, func(path string) {
+		if _, _, err := runCmdB(b, "sample", "wave", "--panels", strconv.Itoa(panels), "-o", path); err != nil {
+			b.Fatal(err)
+		}
+	})
+}
+
+// benchBuildNet is benchBuild on the net that writeNet writes to the
+// path it is given.
+func benchBuildNet(b *testing.B, writeNet func(path string)) {
 	dir := b.TempDir()
-	if _, _, err := runCmdB(b, "sample", "wave", "--panels", strconv.Itoa(panels), "-o", filepath.Join(dir, "wave.obj")); err != nil {
-		b.Fatal(err)
-	}
+	writeNet(filepath.Join(dir, "wave.obj"))
 	job := filepath.Join(dir, "job.toml")
 	if err := os.WriteFile(job, samples.DemoJob(), 0o644); err != nil { // its net file is wave.obj
 		b.Fatal(err)

@@ -4,6 +4,7 @@ import (
 	"context"
 	"fmt"
 	"math"
+	"sync"
 
 	"pqfab/geom"
 	"pqfab/nodes"
@@ -55,13 +56,54 @@ func Parts(flats []panels.Flat) []nest.Part {
 	return parts
 }
 
+// nestShowing runs nest.NestWith and shows its progress to obs from this
+// goroutine (the observer's one), the latest state at a time.
+func nestShowing(ctx context.Context, parts []nest.Part, stocks []nest.Stock, opt nest.Options, obs Observer) (*nest.Result, error) {
+	var mu sync.Mutex
+	var last nest.Progress
+	news := make(chan struct{}, 1)
+	opt.Progress = func(p nest.Progress) {
+		mu.Lock()
+		last = p
+		mu.Unlock()
+		select {
+		case news <- struct{}{}:
+		default:
+		}
+	}
+	type answer struct {
+		res *nest.Result
+		err error
+	}
+	done := make(chan answer, 1)
+	go func() {
+		res, err := nest.NestWith(ctx, parts, stocks, opt)
+		done <- answer{res, err}
+	}()
+	for {
+		select {
+		case a := <-done:
+			return a.res, a.err
+		case <-news:
+			mu.Lock()
+			p := last
+			mu.Unlock()
+			note := fmt.Sprintf("nest: %s, %d sheets, %d of %d panels placed", p.Phase, p.Sheets, p.Placed, p.Parts)
+			if p.Phase == nest.PhaseImprove {
+				note = fmt.Sprintf("nest: %s, %d sheets", p.Phase, p.Sheets)
+			}
+			obs.Step("nest", p.Placed, p.Parts+1, note)
+		}
+	}
+}
+
 // Nest places the parts (made by Parts from flats) on the stock sheets
 // with the search options opt, reporting to obs as stage "nest"; when ctx
 // ends, the search stops early (Result.Stopped). Placement turns are given
 // for the panels' own cut outlines.
 func Nest(ctx context.Context, parts []nest.Part, flats []panels.Flat, stocks []nest.Stock, opt nest.Options, obs Observer) (*nest.Result, error) {
 	obs.Step("nest", 0, 1, fmt.Sprintf("nest: %d panels on %d stock sizes", len(parts), len(stocks)))
-	res, err := nest.NestWith(ctx, parts, stocks, opt)
+	res, err := nestShowing(ctx, parts, stocks, opt, obs)
 	obs.Step("nest", 1, 1, "nest: done")
 	if err != nil {
 		return nil, err

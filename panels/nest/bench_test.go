@@ -61,19 +61,26 @@ func TestWaveNestQuality(t *testing.T) {
 func BenchmarkNestWave(b *testing.B) {
 	for _, n := range []int{1000, 10000} {
 		b.Run(fmt.Sprintf("%dk", n/1000), func(b *testing.B) {
-			parts := waveParts(b, n)
-			var r *Result
-			for b.Loop() {
-				var err error
-				if r, err = Nest(parts, []Stock{floatGlass}); err != nil {
-					b.Fatal(err)
-				}
-			}
-			checkResult(b, parts, []Stock{floatGlass}, r)
-			b.ReportMetric(float64(len(r.Sheets))/float64(r.Stocks[0].AreaBound), "sheets/bound")
-			b.ReportMetric(float64(len(r.Sheets)), "sheets")
+			_ = benchNest(b, waveParts(b, n), []Stock{floatGlass})
 		})
 	}
+}
+
+// benchNest times Nest on parts and stocks, checks the last result and
+// reports its sheets and their ratio to the first stock's area bound; it
+// returns the result.
+func benchNest(b *testing.B, parts []Part, stocks []Stock) *Result {
+	var r *Result
+	for b.Loop() {
+		var err error
+		if r, err = Nest(parts, stocks); err != nil {
+			b.Fatal(err)
+		}
+	}
+	checkResult(b, parts, stocks, r)
+	b.ReportMetric(float64(len(r.Sheets))/float64(r.Stocks[0].AreaBound), "sheets/bound")
+	b.ReportMetric(float64(len(r.Sheets)), "sheets")
+	return r
 }
 
 // BenchmarkConvexBins nests the 170 convex-bins instances with a known
@@ -165,17 +172,8 @@ func BenchmarkGlass(b *testing.B) {
 				b.Run(fmt.Sprintf("%s/%gx%g/%s", name, st.WidthMM, st.HeightMM, rule), func(b *testing.B) {
 					stocks := []Stock{st}
 					stocks[0].Cuts = cuts
-					var r *Result
-					for b.Loop() {
-						var err error
-						if r, err = Nest(parts, stocks); err != nil {
-							b.Fatal(err)
-						}
-					}
-					checkResult(b, parts, stocks, r)
-					b.ReportMetric(float64(len(r.Sheets)), "sheets")
+					r := benchNest(b, parts, stocks)
 					b.ReportMetric(float64(r.Stocks[0].AreaBound), "bound")
-					b.ReportMetric(float64(len(r.Sheets))/float64(r.Stocks[0].AreaBound), "sheets/bound")
 				})
 			}
 		}

@@ -12,11 +12,16 @@
 //     laminated glass) need, and it also serves other stocks.
 //   - The no-fit polygon driver (place.go, fill.go) places parts by their
 //     true outlines (split into convex pieces), bottom-left, in a few
-//     orders of the parts; a part may lie in the notch of another.
+//     orders of the parts; a part may lie in the notch of another. Its
+//     work for one part does not grow with the parts on the sheet: it
+//     looks at one band of the sheet at a time, among the parts near it,
+//     and skips where parts of a size and turn found no room before.
 //
 // An improvement phase (improve.go) then tries to empty the worst sheets
 // by laying their parts onto others. The effort is counted in steps
-// (Options.Steps), never in time: the same input gives the same layout,
+// (Options.Steps), never in time, and the costly parts of the search
+// (other orders of the parts, repacking sheets of hundreds of parts) run
+// only when the steps pay for them: the same input gives the same layout,
 // whatever the machine; a context deadline only stops the search early,
 // and the result says so.
 //

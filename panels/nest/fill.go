@@ -34,7 +34,7 @@ type nfpShape struct {
 // sheet of stock si, skipping those done, and returns the sheet and the
 // positions in order of the parts placed.
 func fill(info []nfpShape, s Stock, si int, order []int, done []bool, start int) (*sheetState, []int) {
-	st := &sheetState{stock: s}
+	st := newSheetState(s)
 	var used []int
 	free := s.usableArea()
 	misses, skips := 0, 0
@@ -95,10 +95,11 @@ func dominated(info []nfpShape, a int, failed []int) bool {
 }
 
 // runNFP nests the parts in the given order (shape indices, one entry a
-// part, of parts known to fit some allowed stock) sheet after sheet.
+// part, of parts known to fit some allowed stock) sheet after sheet,
+// reporting progress as method.
 // Stocks not in allowed are not used.
-func (j *job) runNFP(info []nfpShape, order []int, allowed []bool) *layout {
-	lay := &layout{}
+func (j *job) runNFP(info []nfpShape, order []int, allowed []bool, method string) *layout {
+	lay := &layout{method: method}
 	priced := true
 	for _, s := range j.stocks {
 		if s.Price == 0 {
@@ -167,6 +168,7 @@ func (j *job) runNFP(info []nfpShape, order []int, allowed []bool) *layout {
 			ls.parts = append(ls.parts, placedShape{shape: p.shape, deg: p.o.rot, mirror: p.o.mirrored, t: p.t})
 		}
 		lay.sheets = append(lay.sheets, ls)
+		j.report(PhaseLayout, method, lay.sheets)
 		for _, k := range bestUsed {
 			done[k] = true
 		}

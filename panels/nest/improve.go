@@ -101,6 +101,7 @@ func (j *job) improve(lay *layout, budget, per int, repack repacker) int {
 		}
 		if kept {
 			clear(tried)
+			j.report(PhaseImprove, lay.method, lay.sheets)
 		}
 	}
 	return used

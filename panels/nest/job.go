@@ -20,6 +20,24 @@ type job struct {
 	steps  int
 	fits   [][]bool      // per shape and stock: it fits an empty sheet
 	extra  [][][]float64 // per shape and stock: turns beyond the usual ones that let it fit
+
+	progress func(Progress) // nil for none
+	toPlace  int            // parts that fit some stock
+	mu       sync.Mutex     // one call of progress at a time
+}
+
+// report tells the progress callback, if any, how a method goes.
+func (j *job) report(phase, method string, sheets []layoutSheet) {
+	if j.progress == nil {
+		return
+	}
+	placed := 0
+	for _, s := range sheets {
+		placed += len(s.parts)
+	}
+	j.mu.Lock()
+	defer j.mu.Unlock()
+	j.progress(Progress{Phase: phase, Method: method, Sheets: len(sheets), Placed: placed, Parts: j.toPlace})
 }
 
 // placedShape is a part of a shape on a sheet: its outline (from the
@@ -150,6 +168,7 @@ func (j *job) run() *Result {
 			fitsSome[si] = fitsSome[si] || j.fits[si][k]
 		}
 		if fitsSome[si] {
+			j.toPlace += len(sh.parts)
 			continue
 		}
 		reason := ReasonTooLarge
@@ -181,8 +200,9 @@ func (j *job) run() *Result {
 	}
 	// The free-piece packer is the only method for edge-to-edge cuts; for
 	// other stocks it runs beside the no-fit polygon driver unless the
-	// parts are many (where it is slow and rarely wins).
-	if anyCut || len(j.parts) <= manyParts {
+	// parts are many, or many to a sheet (where it is slow and rarely
+	// wins).
+	if anyCut || (len(j.parts) <= manyParts && j.perSheet(fitsSome) <= manyPerSheet) {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
@@ -277,21 +297,19 @@ func (j *job) runOrders(fitsSome []bool) *layout {
 				order = append(order, si)
 			}
 		}
-		l := j.runNFP(info, order, allowed)
-		l.method = o.name
+		l := j.runNFP(info, order, allowed, o.name)
 		if best == nil || j.better(l, best) {
 			best = l
 		}
-		if l.stopped {
+		if l.stopped || (oi == 0 && fillSteps(l)*len(orderings) > j.steps) {
 			break
 		}
 	}
 	// The improvement phase repacks pairs of sheets by each ordering in
 	// turn and keeps the sheet with the most part area; filling a sheet
-	// with n parts costs n² steps (its work grows with the square of the
-	// parts; a step takes about as long as a search step of the free-piece
-	// packer or longer).
-	repack := func(pool []int, k, _ int) (layoutSheet, int) {
+	// from n parts costs n² steps (fillSteps), and a fill the steps left
+	// cannot pay for is not made.
+	repack := func(pool []int, k, budget int) (layoutSheet, int) {
 		var bestSheet layoutSheet
 		steps := 0
 		for _, o := range orderings {
@@ -301,7 +319,13 @@ func (j *job) runOrders(fitsSome []bool) *layout {
 					order = append(order, si)
 				}
 			}
-			steps += max(1, len(order)*len(order))
+			cost := max(1, len(order)*len(order))
+			if steps+cost > budget {
+				// Not to be afforded: the budget counts as spent.
+				steps = max(steps, budget)
+				break
+			}
+			steps += cost
 			st, _ := fill(info, j.stocks[k], k, order, make([]bool, len(order)), 0)
 			if st.area > bestSheet.area {
 				bestSheet = layoutSheet{stock: k, area: st.area}
@@ -315,6 +339,45 @@ func (j *job) runOrders(fitsSome []bool) *layout {
 	}
 	best.repack, best.budget, best.perRepack = repack, j.steps, j.steps
 	return best
+}
+
+// fillSteps returns what the no-fit polygon driver's layout cost in
+// steps: n² for a sheet of n parts. The driver tries its other orders of
+// the parts only when the steps pay for all of them: with hundreds of
+// parts to a sheet one order is all the steps allow.
+func fillSteps(l *layout) int {
+	n := 0
+	for _, s := range l.sheets {
+		n += len(s.parts) * len(s.parts)
+	}
+	return n
+}
+
+// manyPerSheet: when more parts than this go on a sheet of the largest
+// stock (by their mean area), the free-piece packer does not run for
+// stocks without edge-to-edge cuts.
+const manyPerSheet = 100
+
+// perSheet returns how many of the parts that fit some stock would go on
+// a sheet of the largest stock by their mean area and the sheet's usable
+// area.
+func (j *job) perSheet(fitsSome []bool) float64 {
+	var area float64
+	n := 0
+	for si, sh := range j.shapes {
+		if fitsSome[si] {
+			area += float64(len(sh.parts)) * sh.area
+			n += len(sh.parts)
+		}
+	}
+	var most float64
+	for _, st := range j.stocks {
+		most = max(most, st.usableArea())
+	}
+	if area == 0 {
+		return 0
+	}
+	return most / (area / float64(n))
 }
 
 // manyParts: above this many parts the no-fit polygon driver tries one

@@ -101,6 +101,7 @@ func (j *job) runPieces(fitsSome []bool, budget int) *layout {
 			partsLeft--
 		}
 		lay.sheets = append(lay.sheets, ls)
+		j.report(PhaseLayout, lay.method, lay.sheets)
 	}
 	repack := func(pool []int, k, b int) (layoutSheet, int) {
 		saved := slices.Clone(left)
