@@ -16,6 +16,7 @@ import (
 	"pqfab/nodes/bars"
 	"pqfab/panels"
 	"pqfab/panels/nest"
+	"pqfab/parttype"
 )
 
 // Policy says what a build does when the job cannot be met in full.
@@ -40,7 +41,7 @@ type Result struct {
 	Structure      *nodes.Structure
 	Flats          []panels.Flat
 	PanelTypes     []panels.Type
-	PanelTypeBound geom.TypeBound // lower bound on the number of panel types
+	PanelTypeBound parttype.Bound // lower bound on the number of panel types
 	// PanelTypeSetOut is each panel type's nominal set-out outline: its
 	// nominal cut outline grown by the edge inset.
 	PanelTypeSetOut []geom.Polygon
