@@ -14,6 +14,7 @@ import (
 	"context"
 	"pqfab/export"
 	"pqfab/internal/job"
+	"pqfab/internal/outdir"
 	"pqfab/internal/pipeline"
 )
 
@@ -33,6 +34,10 @@ type Opener = pipeline.Opener
 // tolerance or fit no stock sheet.
 type Policy = pipeline.Policy
 
+// WriteOptions say what Write may replace (Force) and which input files
+// it must keep (Keep).
+type WriteOptions = outdir.Options
+
 // ParseJob reads and checks a job file's text; file names it in messages
 // and is where the net file is looked for.
 func ParseJob(data []byte, file string) (*Job, error) { return job.Parse(data, file) }
@@ -47,7 +52,7 @@ func Run(ctx context.Context, j *Job, open Opener, obs Observer, pol Policy) (*R
 // and returns the report model. It replaces an existing folder only when
 // pqfab wrote it, it is empty, or opt.Force is set, and never a folder
 // holding the job's input files.
-func Write(dir string, r *Result, opt export.WriteOptions, obs Observer) (*export.Report, error) {
+func Write(dir string, r *Result, opt WriteOptions, obs Observer) (*export.Report, error) {
 	opt.Keep = append(opt.Keep, r.InputFiles()...)
 	return pipeline.Write(dir, r, opt, obs)
 }

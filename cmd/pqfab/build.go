@@ -8,8 +8,8 @@ import (
 	"io"
 	"os"
 
-	"pqfab/export"
 	"pqfab/internal/job"
+	"pqfab/internal/outdir"
 	"pqfab/internal/pipeline"
 	"pqfab/samples"
 )
@@ -70,7 +70,7 @@ func runDemo(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 func build(j *job.Job, open pipeline.Opener, keep []string, bf buildFlags, stdout, stderr io.Writer) error {
 	obs := &observer{stderr: stderr, quiet: bf.quiet}
 	defer obs.finish()
-	var tmp export.TempFolder
+	var tmp outdir.TempFolder
 	stop := onSignal(func() {
 		tmp.Remove() // holds tmp's lock until the exit: build cannot return meanwhile
 		fmt.Fprintln(stderr, "pqfab: interrupted; nothing written")
@@ -78,7 +78,7 @@ func build(j *job.Job, open pipeline.Opener, keep []string, bf buildFlags, stdou
 	})
 	defer stop()
 	defer tmp.Done() // waits for a signal handler that has begun: it exits
-	opt := export.WriteOptions{Force: bf.force, Keep: keep, OnTemp: tmp.Set}
+	opt := outdir.Options{Force: bf.force, Keep: keep, OnTemp: tmp.Set}
 	if bf.nestSeconds >= 0 {
 		j.Nesting.Seconds = bf.nestSeconds // the flag overrides the job
 	}

@@ -10,6 +10,7 @@ import (
 
 	"pqfab/export"
 	"pqfab/internal/job"
+	"pqfab/internal/outdir"
 )
 
 // DiagnosticPath returns where a build into dir that misses the flatness
@@ -22,20 +23,20 @@ func DiagnosticPath(dir string) string { return filepath.Clean(dir) + "-planarit
 // missed and pol.Continue is false it writes only the diagnostic report
 // and returns the *PlanarityFailure with Path set. A successful build
 // removes a stale diagnostic report that pqfab wrote for dir earlier.
-func Build(ctx context.Context, j *job.Job, open Opener, dir string, opt export.WriteOptions, pol Policy, obs Observer) (*export.Report, error) {
+func Build(ctx context.Context, j *job.Job, open Opener, dir string, opt outdir.Options, pol Policy, obs Observer) (*export.Report, error) {
 	diag := DiagnosticPath(dir)
-	diagOpt := export.WriteOptions{Force: opt.Force, Keep: opt.Keep}
-	if err := export.CheckFolder(dir, opt); err != nil {
+	diagOpt := outdir.Options{Force: opt.Force, Keep: opt.Keep}
+	if err := outdir.CheckFolder(dir, opt); err != nil {
 		return nil, err
 	}
-	if err := export.CheckFiles(diagOpt, diag); err != nil {
+	if err := outdir.CheckFiles(diagOpt, diag); err != nil {
 		return nil, err
 	}
 	res, err := Run(ctx, j, open, obs, pol)
 	var pf *PlanarityFailure
 	if errors.As(err, &pf) {
 		pf.Path = diag
-		if werr := export.WriteFileAtomic(diag, diagOpt, func(w io.Writer) error {
+		if werr := outdir.WriteFileAtomic(diag, diagOpt, func(w io.Writer) error {
 			enc := json.NewEncoder(w)
 			enc.SetIndent("", " ")
 			return enc.Encode(pf.Report)
@@ -50,7 +51,7 @@ func Build(ctx context.Context, j *job.Job, open Opener, dir string, opt export.
 	if err != nil {
 		return nil, err
 	}
-	if err := export.RemoveOwnFile(diag); err != nil {
+	if err := outdir.RemoveOwnFile(diag); err != nil {
 		obs.Warn(fmt.Sprintf("the stale diagnostic report %s could not be removed: %v", diag, err))
 	}
 	return rep, nil

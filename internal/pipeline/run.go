@@ -12,6 +12,7 @@ import (
 	"pqfab/export"
 	"pqfab/geom"
 	"pqfab/internal/job"
+	"pqfab/internal/outdir"
 	"pqfab/nodes"
 	"pqfab/nodes/bars"
 	"pqfab/panels"
@@ -324,11 +325,11 @@ func (r *Result) Bundle() *export.Bundle {
 }
 
 // Write writes every output of the result into the folder dir, atomically
-// and only where opt allows (export.WriteFolder; list the job's files on
+// and only where opt allows (outdir.WriteFolder; list the job's files on
 // disk in opt.Keep, see InputFiles), reporting each file to obs as stage
 // "write", and returns the report. The planarized net (net-flat.obj) is
 // written in the net file's order (FileNet).
-func Write(dir string, r *Result, opt export.WriteOptions, obs Observer) (*export.Report, error) {
+func Write(dir string, r *Result, opt outdir.Options, obs Observer) (*export.Report, error) {
 	b := r.Bundle()
 	rep := export.BuildReport(b)
 	err := export.WriteBuild(dir, opt, r.FileNet(), b.Warnings, rep, func(done, total int, what string) { obs.Step("write", done, total, "write "+what) })
