@@ -53,6 +53,6 @@ func Run(ctx context.Context, j *Job, open Opener, obs Observer, pol Policy) (*R
 // pqfab wrote it, it is empty, or opt.Force is set, and never a folder
 // holding the job's input files.
 func Write(dir string, r *Result, opt WriteOptions, obs Observer) (*export.Report, error) {
-	opt.Keep = append(opt.Keep, r.InputFiles()...)
+	opt.Keep = append(opt.Keep, pipeline.OutputOptions(opt.Force, r.Job.File, r.NetPath).Keep...)
 	return pipeline.Write(dir, r, opt, obs)
 }

@@ -50,7 +50,7 @@ func runBuild(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	return build(j, pipeline.OpenFile, append([]string{j.File}, pipeline.NetFiles(j.NetPath())...), bf, stdout, stderr)
+	return build(j, pipeline.OpenFile, []string{j.File, j.NetPath()}, bf, stdout, stderr)
 }
 
 func runDemo(args []string, _ io.Reader, stdout, stderr io.Writer) error {
@@ -62,12 +62,12 @@ func runDemo(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	return build(j, samples.OpenDemo, nil, bf, stdout, stderr)
+	return build(j, samples.OpenDemo, nil, bf, stdout, stderr) // the demo reads nothing from disk
 }
 
 // build runs the job and writes the output folder (pipeline.Build). SIGINT
 // and SIGTERM remove the temporary folder before pqfab ends.
-func build(j *job.Job, open pipeline.Opener, keep []string, bf buildFlags, stdout, stderr io.Writer) error {
+func build(j *job.Job, open pipeline.Opener, inputs []string, bf buildFlags, stdout, stderr io.Writer) error {
 	obs := &observer{stderr: stderr, quiet: bf.quiet}
 	defer obs.finish()
 	var tmp outdir.TempFolder
@@ -78,7 +78,8 @@ func build(j *job.Job, open pipeline.Opener, keep []string, bf buildFlags, stdou
 	})
 	defer stop()
 	defer tmp.Done() // waits for a signal handler that has begun: it exits
-	opt := outdir.Options{Force: bf.force, Keep: keep, OnTemp: tmp.Set}
+	opt := pipeline.OutputOptions(bf.force, inputs...)
+	opt.OnTemp = tmp.Set
 	if bf.nestSeconds >= 0 {
 		j.Nesting.Seconds = bf.nestSeconds // the flag overrides the job
 	}

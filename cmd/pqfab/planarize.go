@@ -37,7 +37,7 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err := names.check(opt.Validate()); err != nil {
 		return err
 	}
-	wopt := outdir.Options{Force: *force, Keep: pipeline.NetFiles(pos[0])}
+	wopt := pipeline.OutputOptions(*force, pos[0])
 	if err := outdir.CheckFiles(wopt, *out, *report); err != nil {
 		return err
 	}

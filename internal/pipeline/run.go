@@ -5,8 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"path/filepath"
-	"strings"
 	"time"
 
 	"pqfab/export"
@@ -325,8 +323,8 @@ func (r *Result) Bundle() *export.Bundle {
 }
 
 // Write writes every output of the result into the folder dir, atomically
-// and only where opt allows (outdir.WriteFolder; list the job's files on
-// disk in opt.Keep, see InputFiles), reporting each file to obs as stage
+// and only where opt allows (outdir.WriteFolder; opt from OutputOptions,
+// naming the job's files on disk), reporting each file to obs as stage
 // "write", and returns the report. The planarized net (net-flat.obj) is
 // written in the net file's order (FileNet).
 func Write(dir string, r *Result, opt outdir.Options, obs Observer) (*export.Report, error) {
@@ -337,21 +335,6 @@ func Write(dir string, r *Result, opt outdir.Options, obs Observer) (*export.Rep
 		return nil, err
 	}
 	return rep, nil
-}
-
-// InputFiles lists the files the job reads: the job file and the net
-// (both files of a CSV pair). Outputs never replace them.
-func (r *Result) InputFiles() []string {
-	return append([]string{r.Job.File}, NetFiles(r.NetPath)...)
-}
-
-// NetFiles lists the files a net path reads: the file, and the panels
-// file of a CSV pair.
-func NetFiles(path string) []string {
-	if pp, err := geom.PanelsPathFor(path); err == nil && strings.EqualFold(filepath.Ext(path), ".csv") {
-		return []string{path, pp}
-	}
-	return []string{path}
 }
 
 // spec turns a job's panel specification into the report's.
