@@ -237,6 +237,29 @@ func takeCutPlan(j *job.Job, res *Result, plan *bars.Plan, err error, pol Policy
 	return nil
 }
 
+// setOutlines returns each panel type's set-out outline: its nominal cut
+// outline grown back by the edge inset d (the inset's edge lines moved
+// out again). For a triangle or a quad, convex or not, this cannot fail:
+// growing lengthens each edge by d·(cot(a/2) + cot(b/2)) for the inner
+// angles a, b at its ends (a square's edges grow by 2d), positive since
+// a + b < 360° (a quad's four angles sum to 360°). With five or more
+// corners an edge between two reflex corners shortens and can vanish;
+// the error names the type.
+func setOutlines(types []panels.Type, insetMM float64) ([]geom.Polygon, error) {
+	var out []geom.Polygon
+	for _, t := range types {
+		grown := t.Outline
+		if insetMM > 0 {
+			var err error
+			if grown, err = panels.Inset(t.Outline, -insetMM); err != nil {
+				return nil, fmt.Errorf("panel type %s: its nominal outline cannot be grown back by the %g mm edge inset: %w", t.Name, insetMM, err)
+			}
+		}
+		out = append(out, grown)
+	}
+	return out, nil
+}
+
 // panelsAndNest lays the panels flat, groups them into types and nests
 // them (Run).
 func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) error {
@@ -275,15 +298,8 @@ func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) e
 			t.Start[n] = 0
 		}
 	}
-	inset := j.Material().EdgeInsetMM
-	for _, t := range res.PanelTypes {
-		out := t.Outline
-		if inset > 0 {
-			if grown, err := panels.Inset(t.Outline, -inset); err == nil {
-				out = grown
-			}
-		}
-		res.PanelTypeSetOut = append(res.PanelTypeSetOut, out)
+	if res.PanelTypeSetOut, err = setOutlines(res.PanelTypes, j.Material().EdgeInsetMM); err != nil {
+		return j.KeyError("panel.edge_inset_mm", err)
 	}
 	if res.TypeSpecs, err = typeSpecs(j, res.PanelTypes, res.Flats, pick); err != nil {
 		return err
