@@ -81,9 +81,10 @@ var (
 	ErrMembersUnplaced = errors.New("members are on no bar")
 )
 
-// Run runs job j: it reads the net through open, checks and planarizes it,
-// computes nodes, members, panels and types, and nests the panels. Errors
-// name the file, the line and the element or job key.
+// Run computes job j and writes nothing (Build runs it, then writes): it
+// reads the net through open, checks and planarizes it, computes nodes,
+// members, panels and types, and nests the panels. Errors name the file,
+// the line and the element or job key.
 //
 // ctx, and the job's nesting.seconds when not 0, bound the nesting's
 // search in time: when either ends, the search stops early and a warning
@@ -338,12 +339,11 @@ func (r *Result) Bundle() *export.Bundle {
 		PanelMaterial: r.Job.Material(), PanelSpec: spec(r.Job.Panel.PanelSpec), TypeSpecs: r.TypeSpecs}
 }
 
-// Write writes every output of the result into the folder dir, atomically
-// and only where opt allows (outdir.WriteFolder; opt from OutputOptions,
-// naming the job's files on disk), reporting each file to obs as stage
+// write writes every output of the result into the folder dir, atomically
+// and only where opt allows (outdir.WriteFolder), reporting each file to obs as stage
 // "write", and returns the report. The planarized net (net-flat.obj) is
 // written in the net file's order (FileNet).
-func Write(dir string, r *Result, opt outdir.Options, obs Observer) (*export.Report, error) {
+func write(dir string, r *Result, opt outdir.Options, obs Observer) (*export.Report, error) {
 	b := r.Bundle()
 	rep := export.BuildReport(b)
 	err := export.WriteBuild(dir, opt, r.FileNet(), b.Warnings, rep, func(done, total int, what string) { obs.Step("write", done, total, "write "+what) })
