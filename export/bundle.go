@@ -9,6 +9,7 @@ import (
 	"pqfab/nodes"
 	"pqfab/panels"
 	"pqfab/panels/nest"
+	"pqfab/parttype"
 )
 
 // Caution is printed in every report and schedule.
@@ -33,7 +34,7 @@ type Bundle struct {
 	Structure      *nodes.Structure
 	Flats          []panels.Flat // one per face
 	PanelTypes     []panels.Type
-	PanelTypeBound geom.TypeBound
+	PanelTypeBound parttype.Bound
 	// PanelTypeSetOut is each panel type's nominal set-out outline (its
 	// nominal cut outline grown by the edge inset), for the drawings.
 	PanelTypeSetOut []geom.Polygon

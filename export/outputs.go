@@ -8,6 +8,7 @@ import (
 	"sync"
 
 	"pqfab/geom"
+	"pqfab/internal/outdir"
 )
 
 // Output file names inside the build folder.
@@ -26,13 +27,13 @@ const (
 type Progress func(done, total int, what string)
 
 // WriteBuild writes every output of a build into dir, atomically and only
-// where opt allows (see WriteFolder): all from the report, except
+// where opt allows (see outdir.WriteFolder): all from the report, except
 // net-flat.obj, the planarized net with the build's warnings (the
 // bundle's, BuildReport) in its header. The files are written side by
 // side, as many at a time as there are processors. It holds nothing else
 // of the build, so the rest can be freed while it writes.
-func WriteBuild(dir string, opt WriteOptions, net *geom.Net, warnings []string, rep *Report, progress Progress) error {
-	return WriteFolder(dir, opt, func(tmp string) error {
+func WriteBuild(dir string, opt outdir.Options, net *geom.Net, warnings []string, rep *Report, progress Progress) error {
+	return outdir.WriteFolder(dir, opt, func(tmp string) error {
 		for _, d := range []string{DirSheets, DirSite, DirPanelTypes, DirMemberTypes} {
 			if err := os.Mkdir(filepath.Join(tmp, d), 0o755); err != nil {
 				return err
@@ -51,7 +52,7 @@ func WriteBuild(dir string, opt WriteOptions, net *geom.Net, warnings []string, 
 		}
 		file := func(name string, write func(w io.Writer) error) func() error {
 			return func() error {
-				if err := writeFile(filepath.Join(tmp, name), write); err != nil {
+				if err := outdir.FillFile(filepath.Join(tmp, name), write); err != nil {
 					return err
 				}
 				step(name)

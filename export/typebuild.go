@@ -10,12 +10,13 @@ import (
 	"pqfab/nodes"
 	"pqfab/nodes/bars"
 	"pqfab/panels"
+	"pqfab/parttype"
 )
 
 // boundRow turns a bound on the number of types of parts (the noun, such
 // as "members"; apart says which of them never share a type) into a row
 // with its reason in words.
-func boundRow(b geom.TypeBound, noun, apart string) TypeBoundRow {
+func boundRow(b parttype.Bound, noun, apart string) TypeBoundRow {
 	return TypeBoundRow{Count: b.Count, Quantity: b.Quantity, Reason: boundReason(b, noun, apart)}
 }
 
@@ -24,7 +25,7 @@ func boundRow(b geom.TypeBound, noun, apart string) TypeBoundRow {
 // tolerances, so no two of them can share a type", or "… by cut length
 // alone the members need at least 37 types"; a bound that adds up sets of
 // parts that never share a type gives each set's share.
-func boundReason(b geom.TypeBound, noun, apart string) string {
+func boundReason(b parttype.Bound, noun, apart string) string {
 	types := func(n int) string {
 		if n == 1 {
 			return "1 type"

@@ -3,21 +3,21 @@ package export
 import (
 	"testing"
 
-	"pqfab/geom"
+	"pqfab/parttype"
 )
 
 // TestBoundReason: the fewest-types reason says, in words, what forces the
 // count: parts pairwise apart, one quantity alone, or a sum over sets of
 // parts that never share a type.
 func TestBoundReason(t *testing.T) {
-	one := func(n int, key string) geom.TypeBound {
-		return geom.TypeBound{Count: n, Terms: []geom.BoundTerm{{Count: n, Key: key}}}
+	one := func(n int, key string) parttype.Bound {
+		return parttype.Bound{Count: n, Terms: []parttype.BoundTerm{{Count: n, Key: key}}}
 	}
 	for _, tc := range []struct {
-		b    geom.TypeBound
+		b    parttype.Bound
 		want string
 	}{
-		{geom.TypeBound{}, ""},
+		{parttype.Bound{}, ""},
 		{one(37, ""), "at least 37 types: 37 of the members differ pairwise by more than the tolerances, so no two of them can share a type"},
 		{one(12, "cut length"), "at least 12 types: by cut length alone the members need at least 12 types (values further apart than the tolerance cannot share a type)"},
 		{one(1, ""), "at least 1 type: there are members"},

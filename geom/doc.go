@@ -2,9 +2,7 @@
 // vectors, least-squares planes, 2D polygons, the quad net (nodes, faces,
 // derived edges with panel adjacency, boundary loops, valence), readers for
 // net files (Wavefront OBJ, OFF, a CSV pair), validation of what was read,
-// the plan bays that labels are made from, and the grouping of parts into
-// types within tolerances (GroupTypes) that member, node and panel types
-// share.
+// and the plan bays that labels are made from.
 //
 // Conventions:
 //   - Lengths are millimetres (float64). Readers convert from the caller's

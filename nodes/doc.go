@@ -11,7 +11,7 @@
 // the same members at node and agree within the angle tolerance in every
 // arm's elevation and azimuth from the type's first arm. Each type's
 // nominal part is the middle of each value's range, so every part lies
-// within half the tolerance of it. See geom.GroupTypes for the method.
+// within half the tolerance of it. See parttype.Solve for the method.
 //
 // Lengths are millimetres; angles are radians inside and degrees in every
 // exported field named …Deg. z is up; panels run counter-clockwise seen

@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"pqfab/geom"
+	"pqfab/parttype"
 )
 
 // Options sets up the whole node and member computation.
@@ -43,9 +44,9 @@ type Structure struct {
 	Members     []Member
 	MemberTypes []MemberType
 	NodeTypes   []NodeType
-	// Lower bounds on the numbers of types (see geom.TypeBound).
-	MemberTypeBound geom.TypeBound
-	NodeTypeBound   geom.TypeBound
+	// Lower bounds on the numbers of types (see parttype.Bound).
+	MemberTypeBound parttype.Bound
+	NodeTypeBound   parttype.Bound
 	// TwistNormalDeg is the largest |twist| with normal axes, for the
 	// report; equal to the members' largest twist for AxisNormal.
 	TwistNormalDeg float64

@@ -6,7 +6,7 @@ import (
 	"maps"
 	"slices"
 
-	"pqfab/geom"
+	"pqfab/parttype"
 )
 
 // Type tolerances: defaults, and the largest values accepted (beyond
@@ -78,17 +78,17 @@ func memberCoords(m Member, reversed bool) [memberDim]float64 {
 }
 
 // GroupMembers sorts members into the fewest types it finds (see
-// geom.GroupTypes for the method and its guarantees), sets each member's
+// parttype.Solve for the method and its guarantees), sets each member's
 // Type, and returns the types numbered by nominal cut length, ties by the
 // nominal end angles and twist, with a lower bound on their number.
-func GroupMembers(ms []Member, tol TypeOptions) ([]MemberType, geom.TypeBound, error) {
+func GroupMembers(ms []Member, tol TypeOptions) ([]MemberType, parttype.Bound, error) {
 	if err := tol.Validate(); err != nil {
-		return nil, geom.TypeBound{}, err
+		return nil, parttype.Bound{}, err
 	}
 	L, A := tol.LengthTolMM, tol.AngleTolDeg
-	p := &geom.TypeProblem{Parts: len(ms), Dim: memberDim, Tol: []float64{L, A, A, A, A, A},
+	p := &parttype.Problem{Parts: len(ms), Dim: memberDim, Tol: []float64{L, A, A, A, A, A},
 		Compose: [][]int{{0, 1}, {1, 0}}, Permutes: true, Coords: make([]float64, 0, 2*memberDim*len(ms))}
-	keys := []geom.TypeKey{{Name: "cut length", Tol: L}, {Name: "twist", Tol: A},
+	keys := []parttype.Key{{Name: "cut length", Tol: L}, {Name: "twist", Tol: A},
 		{Name: "smaller mitre", Tol: A}, {Name: "larger mitre", Tol: A},
 		{Name: "smaller of bevel A and −bevel B", Tol: A}, {Name: "larger of bevel A and −bevel B", Tol: A}}
 	for k := range keys {
@@ -104,9 +104,9 @@ func GroupMembers(ms []Member, tol TypeOptions) ([]MemberType, geom.TypeBound, e
 		}
 	}
 	p.Keys = keys
-	groups, bound, err := geom.GroupTypes(p)
+	groups, bound, err := parttype.Solve(p)
 	if err != nil {
-		return nil, geom.TypeBound{}, err
+		return nil, parttype.Bound{}, err
 	}
 	types := make([]MemberType, len(groups))
 	for t, g := range groups {
@@ -221,12 +221,12 @@ func nodeCoords(dst []float64, nd Node, sorted []int, s int) []float64 {
 }
 
 // GroupNodes sorts nodes into the fewest types it finds (see
-// geom.GroupTypes), nodes with different numbers of members apart, sets
+// parttype.Solve), nodes with different numbers of members apart, sets
 // each node's Type, and returns the types numbered by members at node,
 // then by the nominal arms, with a lower bound on their number.
-func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, geom.TypeBound, error) {
+func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, parttype.Bound, error) {
 	if err := tol.Validate(); err != nil {
-		return nil, geom.TypeBound{}, err
+		return nil, parttype.Bound{}, err
 	}
 	A := tol.AngleTolDeg
 	byCount := map[int][]int{}
@@ -235,14 +235,14 @@ func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, geom.TypeBound, error)
 	}
 	counts := slices.Sorted(maps.Keys(byCount))
 	var types []NodeType
-	var bound geom.TypeBound
+	var bound parttype.Bound
 	for _, k := range counts {
 		idx := byCount[k]
 		if k == 0 {
-			return nil, geom.TypeBound{}, fmt.Errorf("node %s has no members", nds[idx[0]].Label)
+			return nil, parttype.Bound{}, fmt.Errorf("node %s has no members", nds[idx[0]].Label)
 		}
 		dim := 2*k - 1
-		p := &geom.TypeProblem{Parts: len(idx), Dim: dim, Tol: make([]float64, dim), Compose: make([][]int, k),
+		p := &parttype.Problem{Parts: len(idx), Dim: dim, Tol: make([]float64, dim), Compose: make([][]int, k),
 			Coords: make([]float64, 0, len(idx)*k*dim)}
 		for d := range p.Tol {
 			p.Tol[d] = A
@@ -257,10 +257,10 @@ func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, geom.TypeBound, error)
 		// gaps between arms sorted (each a difference of two azimuths
 		// measured from the first arm, so within twice the tolerance).
 		for j := range k {
-			p.Keys = append(p.Keys, geom.TypeKey{Name: geom.Ordinal(j, k, "lowest", "highest") + " arm elevation", Tol: A, Values: make([]float64, len(idx))})
+			p.Keys = append(p.Keys, parttype.Key{Name: parttype.Ordinal(j, k, "lowest", "highest") + " arm elevation", Tol: A, Values: make([]float64, len(idx))})
 		}
 		for j := range k {
-			p.Keys = append(p.Keys, geom.TypeKey{Name: geom.Ordinal(j, k, "smallest", "largest") + " angle between neighbouring arms", Tol: 2 * A, Values: make([]float64, len(idx))})
+			p.Keys = append(p.Keys, parttype.Key{Name: parttype.Ordinal(j, k, "smallest", "largest") + " angle between neighbouring arms", Tol: 2 * A, Values: make([]float64, len(idx))})
 		}
 		sorted := make([][]int, len(idx))
 		sortedAll := make([]int, len(idx)*k)
@@ -286,9 +286,9 @@ func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, geom.TypeBound, error)
 				p.Keys[k+j].Values[n] = gap[j]
 			}
 		}
-		groups, b, err := geom.GroupTypes(p)
+		groups, b, err := parttype.Solve(p)
 		if err != nil {
-			return nil, geom.TypeBound{}, err
+			return nil, parttype.Bound{}, err
 		}
 		bound = bound.Add(b.Of(fmt.Sprintf("nodes with %d members", k)))
 		for _, g := range groups {

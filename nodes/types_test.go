@@ -11,6 +11,7 @@ import (
 
 	"pqfab/geom"
 	"pqfab/internal/typenets"
+	"pqfab/parttype"
 	"pqfab/samples"
 )
 
@@ -326,7 +327,7 @@ func TestTypes(t *testing.T) {
 }
 
 // TypeResolutionMM is the rounding the type order is decided on.
-const TypeResolutionMM = geom.TypeResolution
+const TypeResolutionMM = parttype.Resolution
 
 // TestTypePromise: on every sample, and on the canopy with every node
 // moved by up to ±2 mm (seeded), which splits types near the tolerance,
@@ -645,7 +646,7 @@ func BenchmarkMemberTypes100k(b *testing.B) {
 	}
 	b.ReportAllocs()
 	var types []MemberType
-	var bound geom.TypeBound
+	var bound parttype.Bound
 	for b.Loop() {
 		if types, bound, err = GroupMembers(ms, defaultTol); err != nil {
 			b.Fatal(err)
@@ -674,7 +675,7 @@ func BenchmarkNodeTypes50k(b *testing.B) {
 	}
 	b.ReportAllocs()
 	var types []NodeType
-	var bound geom.TypeBound
+	var bound parttype.Bound
 	for b.Loop() {
 		if types, bound, err = GroupNodes(nds, defaultTol); err != nil {
 			b.Fatal(err)

@@ -10,6 +10,7 @@ import (
 	"gonum.org/v1/gonum/mat"
 
 	"pqfab/geom"
+	"pqfab/parttype"
 )
 
 // Panel type tolerances: defaults, and the largest values accepted.
@@ -236,13 +237,13 @@ func cornerAngles(p geom.Polygon) []float64 {
 }
 
 // Group sorts flat panels into the fewest types it finds by their cut
-// outlines (see geom.GroupTypes for the method and its guarantees), panels
+// outlines (see parttype.Solve for the method and its guarantees), panels
 // with different corner counts or specification groups (Flat.SpecGroup) apart, sets each panel's Type, and returns
 // the types numbered by nominal area, ties by the nominal edges, with a
 // lower bound on their number.
-func Group(flats []Flat, opt TypeOptions) ([]Type, geom.TypeBound, error) {
+func Group(flats []Flat, opt TypeOptions) ([]Type, parttype.Bound, error) {
 	if err := opt.Validate(); err != nil {
-		return nil, geom.TypeBound{}, err
+		return nil, parttype.Bound{}, err
 	}
 	// Panels with other corner counts or in other specification groups
 	// never share a type.
@@ -258,14 +259,14 @@ func Group(flats []Flat, opt TypeOptions) ([]Type, geom.TypeBound, error) {
 		return cmp.Compare(a[1], b[1])
 	})
 	var types []Type
-	var bound geom.TypeBound
+	var bound parttype.Bound
 	for _, key := range counts {
 		k := key[1]
 		sh := newShape(k)
 		sh.bevels = opt.Bevels
 		ts, b, err := groupShape(flats, byCount[key], sh, opt)
 		if err != nil {
-			return nil, geom.TypeBound{}, err
+			return nil, parttype.Bound{}, err
 		}
 		types = append(types, ts...)
 		bound = bound.Add(b.Of(fmt.Sprintf("%d-corner panels", k)))
@@ -288,14 +289,14 @@ func Group(flats []Flat, opt TypeOptions) ([]Type, geom.TypeBound, error) {
 const areaResolutionM2 = 1e-6
 
 // groupShape groups the panels idx, all with the corners of s.
-func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type, geom.TypeBound, error) {
+func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type, parttype.Bound, error) {
 	k := s.k
 	G := k
 	if opt.Mirror {
 		G = 2 * k
 	}
 	full := s.full()
-	p := &geom.TypeProblem{Parts: len(idx), Dim: full, Tol: make([]float64, full), Compose: make([][]int, G),
+	p := &parttype.Problem{Parts: len(idx), Dim: full, Tol: make([]float64, full), Compose: make([][]int, G),
 		Permutes: true, Coords: make([]float64, 0, len(idx)*G*full)}
 	for d := range p.Tol {
 		p.Tol[d] = opt.TolMM
@@ -319,8 +320,8 @@ func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type,
 	nd := len(s.diags)
 	addKeys := func(n int, what, first, last string, tol float64) {
 		for j := range n {
-			name := geom.Ordinal(j, n, first, last) + " " + what
-			p.Keys = append(p.Keys, geom.TypeKey{Name: name, Tol: tol, Values: make([]float64, len(idx))})
+			name := parttype.Ordinal(j, n, first, last) + " " + what
+			p.Keys = append(p.Keys, parttype.Key{Name: name, Tol: tol, Values: make([]float64, len(idx))})
 		}
 	}
 	addKeys(k, "edge", "shortest", "longest", opt.TolMM)
@@ -362,9 +363,9 @@ func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type,
 			p.Keys[j].Values[n] = v
 		}
 	}
-	groups, bound, err := geom.GroupTypes(p)
+	groups, bound, err := parttype.Solve(p)
 	if err != nil {
-		return nil, geom.TypeBound{}, err
+		return nil, parttype.Bound{}, err
 	}
 	types := make([]Type, len(groups))
 	for t, g := range groups {
@@ -374,7 +375,7 @@ func groupShape(flats []Flat, idx []int, s panelShape, opt TypeOptions) ([]Type,
 }
 
 // panelType fills a type from its group.
-func panelType(flats []Flat, idx []int, s panelShape, g geom.TypeGroup) Type {
+func panelType(flats []Flat, idx []int, s panelShape, g parttype.Group) Type {
 	k, nd := s.k, len(s.diags)
 	nom := g.Nominal()
 	ty := Type{EdgeMM: nom[:k], AngleDeg: nom[k+nd : s.dim]}

@@ -9,6 +9,7 @@ import (
 
 	"pqfab/geom"
 	"pqfab/internal/typenets"
+	"pqfab/parttype"
 	"pqfab/samples"
 )
 
@@ -385,7 +386,7 @@ func benchPanelTypes(b *testing.B, panels int) {
 	}
 	b.ReportAllocs()
 	var types []Type
-	var bound geom.TypeBound
+	var bound parttype.Bound
 	for b.Loop() {
 		if types, bound, err = Group(flats, defaultTypes); err != nil {
 			b.Fatal(err)

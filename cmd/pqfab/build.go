@@ -8,8 +8,8 @@ import (
 	"io"
 	"os"
 
-	"pqfab/export"
-	"pqfab/internal/job"
+	"pqfab"
+	"pqfab/internal/outdir"
 	"pqfab/internal/pipeline"
 	"pqfab/samples"
 )
@@ -46,11 +46,11 @@ func runBuild(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err // flag.ErrHelp after -h: run ends without an error
 	}
-	j, err := job.ReadFile(pos[0])
+	j, err := pqfab.ReadJob(pos[0])
 	if err != nil {
 		return err
 	}
-	return build(j, pipeline.OpenFile, append([]string{j.File}, pipeline.NetFiles(j.NetPath())...), bf, stdout, stderr)
+	return build(j, nil, bf, stdout, stderr) // nil: the job's net is read from disk
 }
 
 func runDemo(args []string, _ io.Reader, stdout, stderr io.Writer) error {
@@ -58,19 +58,19 @@ func runDemo(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err // flag.ErrHelp after -h: run ends without an error
 	}
-	j, err := job.Parse(samples.DemoJob(), samples.DemoJobName)
+	j, err := pqfab.ParseJob(samples.DemoJob(), samples.DemoJobName)
 	if err != nil {
 		return err
 	}
-	return build(j, samples.OpenDemo, nil, bf, stdout, stderr)
+	return build(j, samples.OpenDemo, bf, stdout, stderr) // the demo reads nothing from disk
 }
 
-// build runs the job and writes the output folder (pipeline.Build). SIGINT
+// build runs the job and writes the output folder (pqfab.Build). SIGINT
 // and SIGTERM remove the temporary folder before pqfab ends.
-func build(j *job.Job, open pipeline.Opener, keep []string, bf buildFlags, stdout, stderr io.Writer) error {
+func build(j *pqfab.Job, open pqfab.Opener, bf buildFlags, stdout, stderr io.Writer) error {
 	obs := &observer{stderr: stderr, quiet: bf.quiet}
 	defer obs.finish()
-	var tmp export.TempFolder
+	var tmp outdir.TempFolder
 	stop := onSignal(func() {
 		tmp.Remove() // holds tmp's lock until the exit: build cannot return meanwhile
 		fmt.Fprintln(stderr, "pqfab: interrupted; nothing written")
@@ -78,16 +78,16 @@ func build(j *job.Job, open pipeline.Opener, keep []string, bf buildFlags, stdou
 	})
 	defer stop()
 	defer tmp.Done() // waits for a signal handler that has begun: it exits
-	opt := export.WriteOptions{Force: bf.force, Keep: keep, OnTemp: tmp.Set}
+	opt := pqfab.Options{Open: open, Force: bf.force, OnTemp: tmp.Set, Policy: pqfab.Policy{Continue: bf.cont}}
 	if bf.nestSeconds >= 0 {
 		j.Nesting.Seconds = bf.nestSeconds // the flag overrides the job
 	}
-	rep, err := pipeline.Build(context.Background(), j, open, bf.out, opt, pipeline.Policy{Continue: bf.cont}, obs)
-	var pf *pipeline.PlanarityFailure
+	rep, err := pqfab.Build(context.Background(), j, bf.out, opt, obs)
+	var pf *pqfab.PlanarityFailure
 	switch {
 	case errors.As(err, &pf):
 		return obs.attach(fmt.Errorf("%v; nothing built (diagnostic report: %s; --continue builds anyway)", err, pf.Path))
-	case errors.Is(err, pipeline.ErrUnplaced), errors.Is(err, pipeline.ErrMembersUnplaced):
+	case errors.Is(err, pqfab.ErrUnplaced), errors.Is(err, pqfab.ErrMembersUnplaced):
 		return obs.attach(fmt.Errorf("%w; add a larger or more stock, or --continue lists them as unplaced", err))
 	case err != nil:
 		return obs.attach(err)

@@ -6,6 +6,7 @@ import (
 
 	"pqfab/export"
 	"pqfab/internal/job"
+	"pqfab/internal/outdir"
 	"pqfab/internal/pipeline"
 	"pqfab/panels"
 )
@@ -36,8 +37,8 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err := names.check(opt.Validate()); err != nil {
 		return err
 	}
-	wopt := export.WriteOptions{Force: *force, Keep: pipeline.NetFiles(pos[0])}
-	if err := export.CheckFiles(wopt, *out, *report); err != nil {
+	wopt := pipeline.OutputOptions(*force, pos[0])
+	if err := outdir.CheckFiles(wopt, *out, *report); err != nil {
 		return err
 	}
 	in, err := loadNet(pos[0], nf, stderr)
@@ -62,14 +63,14 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 		return err
 	}
 	if *report != "" {
-		if err := export.WriteFileAtomic(*report, wopt, func(w io.Writer) error { return writeJSON(w, rep) }); err != nil {
+		if err := outdir.WriteFileAtomic(*report, wopt, func(w io.Writer) error { return writeJSON(w, rep) }); err != nil {
 			return err
 		}
 	}
 	if perr != nil {
 		return perr // nothing written but the report asked for
 	}
-	return export.WriteFileAtomic(*out, wopt, func(w io.Writer) error {
+	return outdir.WriteFileAtomic(*out, wopt, func(w io.Writer) error {
 		return export.WriteOBJ(w, in.Order.Apply(pipeline.Moved(in.Net, res)), "pqfab: the net of "+in.Net.Source+" with flat panels")
 	})
 }

@@ -6,6 +6,8 @@ import (
 	"strings"
 
 	"pqfab/export"
+	"pqfab/internal/outdir"
+	"pqfab/internal/pipeline"
 	"pqfab/samples"
 )
 
@@ -25,7 +27,7 @@ func runSample(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return usagef("%v", err)
 	}
-	if err := export.WriteFileAtomic(*out, export.WriteOptions{Force: *force}, func(w io.Writer) error {
+	if err := outdir.WriteFileAtomic(*out, pipeline.OutputOptions(*force), func(w io.Writer) error {
 		return export.WriteOBJ(w, net, fmt.Sprintf("pqfab sample %s: %s", pos[0], samples.Describe(pos[0])))
 	}); err != nil {
 		return err

@@ -4,7 +4,10 @@
 // result to the writers in package export. Each stage is a function of its
 // own (LoadNet, Supports, Planarize, Structure, Panels, Nest) so that the
 // single-stage commands run exactly what the whole build runs; Run chains
-// them for a job file and Write writes the output folder.
+// them for a job file, and Build checks the output, runs the job and
+// writes the output folder. Build is the one way a build starts: the
+// module root's pqfab.Build is Build, and the command's build and demo
+// call it.
 //
 // Lengths are millimetres, angles degrees in every result field named
 // …Deg; z is up and panels run counter-clockwise seen from above or

@@ -5,17 +5,17 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"path/filepath"
-	"strings"
 	"time"
 
 	"pqfab/export"
 	"pqfab/geom"
 	"pqfab/internal/job"
+	"pqfab/internal/outdir"
 	"pqfab/nodes"
 	"pqfab/nodes/bars"
 	"pqfab/panels"
 	"pqfab/panels/nest"
+	"pqfab/parttype"
 )
 
 // Policy says what a build does when the job cannot be met in full.
@@ -40,7 +40,7 @@ type Result struct {
 	Structure      *nodes.Structure
 	Flats          []panels.Flat
 	PanelTypes     []panels.Type
-	PanelTypeBound geom.TypeBound // lower bound on the number of panel types
+	PanelTypeBound parttype.Bound // lower bound on the number of panel types
 	// PanelTypeSetOut is each panel type's nominal set-out outline: its
 	// nominal cut outline grown by the edge inset.
 	PanelTypeSetOut []geom.Polygon
@@ -81,9 +81,10 @@ var (
 	ErrMembersUnplaced = errors.New("members are on no bar")
 )
 
-// Run runs job j: it reads the net through open, checks and planarizes it,
-// computes nodes, members, panels and types, and nests the panels. Errors
-// name the file, the line and the element or job key.
+// Run computes job j and writes nothing (Build runs it, then writes): it
+// reads the net through open, checks and planarizes it, computes nodes,
+// members, panels and types, and nests the panels. Errors name the file,
+// the line and the element or job key.
 //
 // ctx, and the job's nesting.seconds when not 0, bound the nesting's
 // search in time: when either ends, the search stops early and a warning
@@ -237,6 +238,29 @@ func takeCutPlan(j *job.Job, res *Result, plan *bars.Plan, err error, pol Policy
 	return nil
 }
 
+// setOutlines returns each panel type's set-out outline: its nominal cut
+// outline grown back by the edge inset d (the inset's edge lines moved
+// out again). For a triangle or a quad, convex or not, this cannot fail:
+// growing lengthens each edge by d·(cot(a/2) + cot(b/2)) for the inner
+// angles a, b at its ends (a square's edges grow by 2d), positive since
+// a + b < 360° (a quad's four angles sum to 360°). With five or more
+// corners an edge between two reflex corners shortens and can vanish;
+// the error names the type.
+func setOutlines(types []panels.Type, insetMM float64) ([]geom.Polygon, error) {
+	var out []geom.Polygon
+	for _, t := range types {
+		grown := t.Outline
+		if insetMM > 0 {
+			var err error
+			if grown, err = panels.Inset(t.Outline, -insetMM); err != nil {
+				return nil, fmt.Errorf("panel type %s: its nominal outline cannot be grown back by the %g mm edge inset: %w", t.Name, insetMM, err)
+			}
+		}
+		out = append(out, grown)
+	}
+	return out, nil
+}
+
 // panelsAndNest lays the panels flat, groups them into types and nests
 // them (Run).
 func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) error {
@@ -275,15 +299,8 @@ func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) e
 			t.Start[n] = 0
 		}
 	}
-	inset := j.Material().EdgeInsetMM
-	for _, t := range res.PanelTypes {
-		out := t.Outline
-		if inset > 0 {
-			if grown, err := panels.Inset(t.Outline, -inset); err == nil {
-				out = grown
-			}
-		}
-		res.PanelTypeSetOut = append(res.PanelTypeSetOut, out)
+	if res.PanelTypeSetOut, err = setOutlines(res.PanelTypes, j.Material().EdgeInsetMM); err != nil {
+		return j.KeyError("panel.edge_inset_mm", err)
 	}
 	if res.TypeSpecs, err = typeSpecs(j, res.PanelTypes, res.Flats, pick); err != nil {
 		return err
@@ -322,12 +339,11 @@ func (r *Result) Bundle() *export.Bundle {
 		PanelMaterial: r.Job.Material(), PanelSpec: spec(r.Job.Panel.PanelSpec), TypeSpecs: r.TypeSpecs}
 }
 
-// Write writes every output of the result into the folder dir, atomically
-// and only where opt allows (export.WriteFolder; list the job's files on
-// disk in opt.Keep, see InputFiles), reporting each file to obs as stage
+// write writes every output of the result into the folder dir, atomically
+// and only where opt allows (outdir.WriteFolder), reporting each file to obs as stage
 // "write", and returns the report. The planarized net (net-flat.obj) is
 // written in the net file's order (FileNet).
-func Write(dir string, r *Result, opt export.WriteOptions, obs Observer) (*export.Report, error) {
+func write(dir string, r *Result, opt outdir.Options, obs Observer) (*export.Report, error) {
 	b := r.Bundle()
 	rep := export.BuildReport(b)
 	err := export.WriteBuild(dir, opt, r.FileNet(), b.Warnings, rep, func(done, total int, what string) { obs.Step("write", done, total, "write "+what) })
@@ -335,21 +351,6 @@ func Write(dir string, r *Result, opt export.WriteOptions, obs Observer) (*expor
 		return nil, err
 	}
 	return rep, nil
-}
-
-// InputFiles lists the files the job reads: the job file and the net
-// (both files of a CSV pair). Outputs never replace them.
-func (r *Result) InputFiles() []string {
-	return append([]string{r.Job.File}, NetFiles(r.NetPath)...)
-}
-
-// NetFiles lists the files a net path reads: the file, and the panels
-// file of a CSV pair.
-func NetFiles(path string) []string {
-	if pp, err := geom.PanelsPathFor(path); err == nil && strings.EqualFold(filepath.Ext(path), ".csv") {
-		return []string{path, pp}
-	}
-	return []string{path}
 }
 
 // spec turns a job's panel specification into the report's.

@@ -1,4 +1,4 @@
-package export
+package outdir
 
 import (
 	"errors"
@@ -55,12 +55,12 @@ func TestWriteFileAtomic(t *testing.T) {
 	path := filepath.Join(dir, "net.obj")
 	writeText(t, path, "old")
 	// A file pqfab did not write is not replaced without Force.
-	err := WriteFileAtomic(path, WriteOptions{}, func(w io.Writer) error { _, err := io.WriteString(w, "new"); return err })
+	err := WriteFileAtomic(path, Options{}, func(w io.Writer) error { _, err := io.WriteString(w, "new"); return err })
 	if !errors.Is(err, ErrNotOurs) || !strings.Contains(err.Error(), "--force") {
 		t.Fatalf("foreign file: got %v", err)
 	}
 	// A failed write leaves the old file.
-	err = WriteFileAtomic(path, WriteOptions{Force: true}, func(w io.Writer) error {
+	err = WriteFileAtomic(path, Options{Force: true}, func(w io.Writer) error {
 		io.WriteString(w, "half")
 		return errors.New("disk on fire")
 	})
@@ -71,11 +71,11 @@ func TestWriteFileAtomic(t *testing.T) {
 		t.Errorf("failed write changed the file to %q", got)
 	}
 	own := "# net\n# units: mm, z up; written by pqfab\nv 0 0 0\n"
-	if err := WriteFileAtomic(path, WriteOptions{Force: true}, func(w io.Writer) error { _, err := io.WriteString(w, own); return err }); err != nil {
+	if err := WriteFileAtomic(path, Options{Force: true}, func(w io.Writer) error { _, err := io.WriteString(w, own); return err }); err != nil {
 		t.Fatal(err)
 	}
 	// pqfab's own file is replaced without Force.
-	if err := WriteFileAtomic(path, WriteOptions{}, func(w io.Writer) error { _, err := io.WriteString(w, own+"v 1 1 1\n"); return err }); err != nil {
+	if err := WriteFileAtomic(path, Options{}, func(w io.Writer) error { _, err := io.WriteString(w, own+"v 1 1 1\n"); return err }); err != nil {
 		t.Fatal(err)
 	}
 	if got := readText(t, path); got != own+"v 1 1 1\n" {
@@ -84,11 +84,11 @@ func TestWriteFileAtomic(t *testing.T) {
 	if ents, _ := os.ReadDir(dir); len(ents) != 1 {
 		t.Errorf("leftover files: %v", ents)
 	}
-	if err := WriteFileAtomic(filepath.Join(dir, "missing", "x.obj"), WriteOptions{}, func(io.Writer) error { return nil }); err == nil {
+	if err := WriteFileAtomic(filepath.Join(dir, "missing", "x.obj"), Options{}, func(io.Writer) error { return nil }); err == nil {
 		t.Error("missing folder: want an error")
 	}
 	// An input file is never replaced, not even with Force.
-	err = WriteFileAtomic(path, WriteOptions{Force: true, Keep: []string{path}}, func(io.Writer) error { return nil })
+	err = WriteFileAtomic(path, Options{Force: true, Keep: []string{path}}, func(io.Writer) error { return nil })
 	if err == nil || !strings.Contains(err.Error(), "never replaces an input file") {
 		t.Errorf("kept file: got %v", err)
 	}
@@ -100,20 +100,20 @@ func TestFolderOwnership(t *testing.T) {
 	base := t.TempDir()
 	out := filepath.Join(base, "out")
 	writeText(t, filepath.Join(out, "thesis.docx"), "years of work")
-	err := WriteFolder(out, WriteOptions{}, fillWith("new"))
+	err := WriteFolder(out, Options{}, fillWith("new"))
 	if !errors.Is(err, ErrNotOurs) || !strings.Contains(err.Error(), "thesis.docx") || !strings.Contains(err.Error(), "--force") {
 		t.Fatalf("foreign folder: got %v", err)
 	}
 	if got := readText(t, filepath.Join(out, "thesis.docx")); got != "years of work" {
 		t.Fatal("foreign folder touched")
 	}
-	if err := WriteFolder(out, WriteOptions{Force: true}, fillWith("one")); err != nil {
+	if err := WriteFolder(out, Options{Force: true}, fillWith("one")); err != nil {
 		t.Fatal(err)
 	}
 	if got := readText(t, filepath.Join(out, MarkerFile)); got != markerText {
 		t.Errorf("marker %q", got)
 	}
-	if err := WriteFolder(out, WriteOptions{}, fillWith("two")); err != nil {
+	if err := WriteFolder(out, Options{}, fillWith("two")); err != nil {
 		t.Fatalf("own folder: %v", err)
 	}
 	if got := readText(t, filepath.Join(out, "a.txt")); got != "two" {
@@ -123,7 +123,7 @@ func TestFolderOwnership(t *testing.T) {
 	if err := os.Mkdir(empty, 0o755); err != nil {
 		t.Fatal(err)
 	}
-	if err := WriteFolder(empty, WriteOptions{}, fillWith("x")); err != nil {
+	if err := WriteFolder(empty, Options{}, fillWith("x")); err != nil {
 		t.Errorf("empty folder: %v", err)
 	}
 	if l := leftovers(t, base); len(l) > 0 {
@@ -149,7 +149,7 @@ func TestFolderNeverReplaced(t *testing.T) {
 		t.Fatal(err)
 	}
 	t.Chdir(work)
-	force := WriteOptions{Force: true, Keep: []string{job}}
+	force := Options{Force: true, Keep: []string{job}}
 	for _, tc := range []struct{ dir, want string }{
 		{proj, "a folder holding an input file"},
 		{base, "a folder holding an input file"},
@@ -186,7 +186,7 @@ func TestInterruptedSwap(t *testing.T) {
 		t.Fatal(err)
 	}
 	writeText(t, filepath.Join(foreign, "keep.txt"), "mine")
-	err := WriteFolder(out, WriteOptions{}, func(string) error { return errors.New("fails") })
+	err := WriteFolder(out, Options{}, func(string) error { return errors.New("fails") })
 	if err == nil {
 		t.Fatal("want the fill error")
 	}
@@ -196,7 +196,7 @@ func TestInterruptedSwap(t *testing.T) {
 	if l := leftovers(t, base); len(l) != 1 || l[0] != ".out.pqfab-tmp-999" {
 		t.Errorf("leftovers %v, want only the foreign folder", l)
 	}
-	if err := WriteFolder(out, WriteOptions{}, fillWith("next")); err != nil {
+	if err := WriteFolder(out, Options{}, fillWith("next")); err != nil {
 		t.Fatal(err)
 	}
 	if got := readText(t, filepath.Join(out, "a.txt")); got != "next" {
@@ -215,12 +215,12 @@ func TestFolderLock(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	err = WriteFolder(out, WriteOptions{}, fillWith("x"))
+	err = WriteFolder(out, Options{}, fillWith("x"))
 	if err == nil || !strings.Contains(err.Error(), "another pqfab build is writing") {
 		t.Errorf("got %v", err)
 	}
 	l.unlock()
-	if err := WriteFolder(out, WriteOptions{}, fillWith("x")); err != nil {
+	if err := WriteFolder(out, Options{}, fillWith("x")); err != nil {
 		t.Errorf("after unlock: %v", err)
 	}
 	if _, err := os.Stat(filepath.Join(filepath.Dir(out), ".out.pqfab-lock")); err == nil {

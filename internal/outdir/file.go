@@ -1,4 +1,4 @@
-package export
+package outdir
 
 import (
 	"bufio"
@@ -13,7 +13,7 @@ import (
 // file intact and never a half-written one. An existing file is replaced
 // only when pqfab wrote it (its signature in the first kilobytes) or with
 // opt.Force, and never when opt.Keep lists it.
-func WriteFileAtomic(path string, opt WriteOptions, write func(w io.Writer) error) (err error) {
+func WriteFileAtomic(path string, opt Options, write func(w io.Writer) error) (err error) {
 	if err := checkFile(path, opt); err != nil {
 		return err
 	}

@@ -1,4 +1,4 @@
-package geom
+package parttype
 
 import (
 	"cmp"
@@ -81,11 +81,11 @@ func (tp *testProblem) coords(p, s int) []float64 {
 	return v
 }
 
-// problem turns the test problem into a TypeProblem, with keys: "ends"
+// problem turns the test problem into a Problem, with keys: "ends"
 // the length; "ring" the values sorted; "hub" the elevations sorted.
-func (tp *testProblem) problem() *TypeProblem {
+func (tp *testProblem) problem() *Problem {
 	G := tp.variants()
-	p := &TypeProblem{Parts: len(tp.raw), Dim: len(tp.tol), Tol: tp.tol, Compose: make([][]int, G), Permutes: tp.kind != "hub"}
+	p := &Problem{Parts: len(tp.raw), Dim: len(tp.tol), Tol: tp.tol, Compose: make([][]int, G), Permutes: tp.kind != "hub"}
 	for a := range G {
 		p.Compose[a] = make([]int, G)
 		for b := range G {
@@ -103,18 +103,18 @@ func (tp *testProblem) problem() *TypeProblem {
 	}
 	switch tp.kind {
 	case "ends":
-		k := TypeKey{Name: "x", Tol: tp.tol[0]}
+		k := Key{Name: "x", Tol: tp.tol[0]}
 		for _, r := range tp.raw {
 			k.Values = append(k.Values, r[0])
 		}
-		p.Keys = []TypeKey{k}
+		p.Keys = []Key{k}
 	default:
 		off := 0
 		if tp.kind == "hub" {
 			off = tp.k
 		}
 		for j := range tp.k {
-			k := TypeKey{Name: fmt.Sprint("value ", j), Tol: tp.tol[len(tp.tol)-1]}
+			k := Key{Name: fmt.Sprint("value ", j), Tol: tp.tol[len(tp.tol)-1]}
 			for _, r := range tp.raw {
 				s := slices.Sorted(slices.Values(r[off : off+tp.k]))
 				k.Values = append(k.Values, s[j])
@@ -259,7 +259,7 @@ func (tp *testProblem) optimum() int {
 // within the tolerance, and Min and Max are those ranges; no two groups
 // can be merged with one read in a common variant (and, where the
 // variants are not permutations, the other too).
-func checkGroups(t *testing.T, name string, tp *testProblem, groups []TypeGroup) {
+func checkGroups(t *testing.T, name string, tp *testProblem, groups []Group) {
 	t.Helper()
 	seen := make([]int, len(tp.raw))
 	G := tp.variants()
@@ -327,16 +327,16 @@ func checkGroups(t *testing.T, name string, tp *testProblem, groups []TypeGroup)
 	}
 }
 
-// TestGroupTypesSmall: on small random problems of every kind, the types
+// TestSolveSmall: on small random problems of every kind, the types
 // keep the tolerances, none can be merged, and the bound and the count
 // bracket the true fewest types, found by brute force over every cover.
-func TestGroupTypesSmall(t *testing.T) {
+func TestSolveSmall(t *testing.T) {
 	rng := rand.New(rand.NewPCG(1, 12))
 	for _, kind := range []string{"ends", "ring", "hub"} {
 		optimal, runs := 0, 0
 		for trial := range 60 {
 			tp := randomProblem(rng, kind, 2+rng.IntN(6))
-			groups, bound, err := GroupTypes(tp.problem())
+			groups, bound, err := Solve(tp.problem())
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -358,14 +358,14 @@ func TestGroupTypesSmall(t *testing.T) {
 	}
 }
 
-// TestGroupTypesLarge: larger random problems keep the tolerances, cannot
+// TestSolveLarge: larger random problems keep the tolerances, cannot
 // be merged, and stay at or above their bound.
-func TestGroupTypesLarge(t *testing.T) {
+func TestSolveLarge(t *testing.T) {
 	rng := rand.New(rand.NewPCG(2, 12))
 	for _, kind := range []string{"ends", "ring", "hub"} {
 		for trial := range 5 {
 			tp := randomProblem(rng, kind, 300)
-			groups, bound, err := GroupTypes(tp.problem())
+			groups, bound, err := Solve(tp.problem())
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -377,21 +377,21 @@ func TestGroupTypesLarge(t *testing.T) {
 	}
 }
 
-// TestGroupTypesOneDimension: with one coordinate and no symmetry the
+// TestSolveOneDimension: with one coordinate and no symmetry the
 // sweep is the greedy interval cover, which is optimal (CoverCount), and
 // the bound equals it.
-func TestGroupTypesOneDimension(t *testing.T) {
+func TestSolveOneDimension(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 12))
 	for trial := range 20 {
 		n := 1 + rng.IntN(500)
 		tol := []float64{0, 0.1, 1, 7}[trial%4]
-		p := &TypeProblem{Parts: n, Dim: 1, Tol: []float64{tol}, Compose: [][]int{{0}}, Permutes: true}
+		p := &Problem{Parts: n, Dim: 1, Tol: []float64{tol}, Compose: [][]int{{0}}, Permutes: true}
 		for range n {
 			x := math.Round(100*rng.Float64()*10) / 10 // repeated values too
 			p.Coords = append(p.Coords, x)
 		}
-		p.Keys = []TypeKey{{Name: "x", Tol: tol, Values: p.Coords}}
-		groups, bound, err := GroupTypes(p)
+		p.Keys = []Key{{Name: "x", Tol: tol, Values: p.Coords}}
+		groups, bound, err := Solve(p)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -402,14 +402,14 @@ func TestGroupTypesOneDimension(t *testing.T) {
 	}
 }
 
-// TestGroupTypesOrderIndependent: the parts in another order give the
+// TestSolveOrderIndependent: the parts in another order give the
 // same types: the same sets of parts with the same ranges, in the same
 // order.
-func TestGroupTypesOrderIndependent(t *testing.T) {
+func TestSolveOrderIndependent(t *testing.T) {
 	rng := rand.New(rand.NewPCG(4, 12))
 	for _, kind := range []string{"ends", "ring", "hub"} {
 		tp := randomProblem(rng, kind, 400)
-		a, _, err := GroupTypes(tp.problem())
+		a, _, err := Solve(tp.problem())
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -418,7 +418,7 @@ func TestGroupTypesOrderIndependent(t *testing.T) {
 		for _, p := range perm {
 			sh.raw = append(sh.raw, tp.raw[p])
 		}
-		b, _, err := GroupTypes(sh.problem())
+		b, _, err := Solve(sh.problem())
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -438,13 +438,13 @@ func TestGroupTypesOrderIndependent(t *testing.T) {
 	}
 }
 
-// TestGroupTypesIdentical: parts that agree within the resolution share a
+// TestSolveIdentical: parts that agree within the resolution share a
 // type, even where the tolerance would let the sweep split them.
-func TestGroupTypesIdentical(t *testing.T) {
-	p := &TypeProblem{Parts: 6, Dim: 1, Tol: []float64{1}, Compose: [][]int{{0}}, Permutes: true,
+func TestSolveIdentical(t *testing.T) {
+	p := &Problem{Parts: 6, Dim: 1, Tol: []float64{1}, Compose: [][]int{{0}}, Permutes: true,
 		Coords: []float64{0, 0.9, 0.9 + 1e-9, 1.8, 0.9 - 1e-9, 2.7}}
-	p.Keys = []TypeKey{{Name: "x", Tol: 1, Values: p.Coords}}
-	groups, _, err := GroupTypes(p)
+	p.Keys = []Key{{Name: "x", Tol: 1, Values: p.Coords}}
+	groups, _, err := Solve(p)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -455,50 +455,50 @@ func TestGroupTypesIdentical(t *testing.T) {
 	}
 }
 
-func TestGroupTypesBadProblem(t *testing.T) {
-	good := func() *TypeProblem {
-		return &TypeProblem{Parts: 2, Dim: 1, Tol: []float64{1}, Compose: [][]int{{0, 1}, {1, 0}}, Permutes: true,
-			Coords: []float64{1, 1, 2, 2}, Keys: []TypeKey{{Name: "x", Tol: 1, Values: []float64{1, 2}}}}
+func TestSolveBadProblem(t *testing.T) {
+	good := func() *Problem {
+		return &Problem{Parts: 2, Dim: 1, Tol: []float64{1}, Compose: [][]int{{0, 1}, {1, 0}}, Permutes: true,
+			Coords: []float64{1, 1, 2, 2}, Keys: []Key{{Name: "x", Tol: 1, Values: []float64{1, 2}}}}
 	}
 	for _, tc := range []struct {
 		name  string
-		spoil func(p *TypeProblem)
+		spoil func(p *Problem)
 	}{
-		{"tolerances", func(p *TypeProblem) { p.Tol = nil }},
-		{"negative tolerance", func(p *TypeProblem) { p.Tol[0] = -1 }},
-		{"NaN tolerance", func(p *TypeProblem) { p.Tol[0] = math.NaN() }},
-		{"coordinates", func(p *TypeProblem) { p.Coords = p.Coords[:3] }},
-		{"NaN coordinate", func(p *TypeProblem) { p.Coords[2] = math.NaN() }},
-		{"no key", func(p *TypeProblem) { p.Keys = nil }},
-		{"short key", func(p *TypeProblem) { p.Keys[0].Values = p.Keys[0].Values[:1] }},
-		{"identity", func(p *TypeProblem) { p.Compose = [][]int{{1, 0}, {0, 1}} }},
+		{"tolerances", func(p *Problem) { p.Tol = nil }},
+		{"negative tolerance", func(p *Problem) { p.Tol[0] = -1 }},
+		{"NaN tolerance", func(p *Problem) { p.Tol[0] = math.NaN() }},
+		{"coordinates", func(p *Problem) { p.Coords = p.Coords[:3] }},
+		{"NaN coordinate", func(p *Problem) { p.Coords[2] = math.NaN() }},
+		{"no key", func(p *Problem) { p.Keys = nil }},
+		{"short key", func(p *Problem) { p.Keys[0].Values = p.Keys[0].Values[:1] }},
+		{"identity", func(p *Problem) { p.Compose = [][]int{{1, 0}, {0, 1}} }},
 	} {
 		p := good()
 		tc.spoil(p)
-		if _, _, err := GroupTypes(p); err == nil {
+		if _, _, err := Solve(p); err == nil {
 			t.Errorf("%s: want an error", tc.name)
 		}
 	}
-	if g, b, err := GroupTypes(good()); err != nil || len(g) != 1 || b.Count != 1 {
+	if g, b, err := Solve(good()); err != nil || len(g) != 1 || b.Count != 1 {
 		t.Errorf("good problem: %v %v %v", g, b, err)
 	}
 }
 
-func TestTypeBoundAdd(t *testing.T) {
-	tb := func(n int, keys ...string) TypeBound {
-		var b TypeBound
+func TestBoundAdd(t *testing.T) {
+	tb := func(n int, keys ...string) Bound {
+		var b Bound
 		for _, k := range keys {
-			b = b.Add(TypeBound{Count: n, Quantity: k, Terms: []BoundTerm{{Count: n, Key: k}}})
+			b = b.Add(Bound{Count: n, Quantity: k, Terms: []BoundTerm{{Count: n, Key: k}}})
 		}
 		return b
 	}
 	for _, tc := range []struct {
-		a, b  TypeBound
+		a, b  Bound
 		count int
 		q     string
 	}{
-		{TypeBound{}, tb(3, "x"), 3, "x"},
-		{tb(3, "x"), TypeBound{}, 3, "x"},
+		{Bound{}, tb(3, "x"), 3, "x"},
+		{tb(3, "x"), Bound{}, 3, "x"},
 		{tb(3, "x"), tb(2, "x"), 5, "x"},
 		{tb(3, "x"), tb(2, "y"), 5, "x; y"},
 		{tb(3, "x").Add(tb(2, "y")), tb(1, "x"), 6, "x; y"},

@@ -1,4 +1,4 @@
-package export
+package outdir
 
 import (
 	"bufio"
@@ -28,7 +28,7 @@ import (
 // a run killed between the two renames leaves both, and the next run
 // puts the old folder back before it starts (recoverLeftovers), so no run
 // ever loses the previous folder.
-func WriteFolder(dir string, opt WriteOptions, fill func(tmp string) error) (err error) {
+func WriteFolder(dir string, opt Options, fill func(tmp string) error) (err error) {
 	dir = filepath.Clean(dir)
 	if err := CheckFolder(dir, opt); err != nil {
 		return err
@@ -63,7 +63,7 @@ func WriteFolder(dir string, opt WriteOptions, fill func(tmp string) error) (err
 	if err = fill(tmp); err != nil {
 		return err
 	}
-	if err = writeFile(marker, func(w io.Writer) error { _, err := io.WriteString(w, markerText); return err }); err != nil {
+	if err = FillFile(marker, func(w io.Writer) error { _, err := io.WriteString(w, markerText); return err }); err != nil {
 		return err
 	}
 	old := ""
@@ -104,7 +104,7 @@ func makeTemp(parent, prefix string, onTemp func(string)) (string, error) {
 
 // CheckFolder reports, before any work is done, whether WriteFolder could
 // write dir with opt: the same checks, without taking the lock.
-func CheckFolder(dir string, opt WriteOptions) error {
+func CheckFolder(dir string, opt Options) error {
 	dir = filepath.Clean(dir)
 	if err := guard(dir, true, opt); err != nil {
 		return err
@@ -125,7 +125,7 @@ func CheckFolder(dir string, opt WriteOptions) error {
 // CheckFiles reports, before any work is done, whether WriteFileAtomic
 // could write each of paths with opt, and refuses two outputs that are
 // the same file. Empty paths are skipped.
-func CheckFiles(opt WriteOptions, paths ...string) error {
+func CheckFiles(opt Options, paths ...string) error {
 	seen := map[string]string{}
 	for _, p := range paths {
 		if p == "" {
@@ -146,9 +146,10 @@ func CheckFiles(opt WriteOptions, paths ...string) error {
 	return nil
 }
 
-// writeFile writes one file (inside a folder being built), checking the
-// flush and close errors.
-func writeFile(path string, write func(w io.Writer) error) error {
+// FillFile writes one file inside a folder being built (from WriteFolder's
+// fill), checking the flush and close errors. It checks nothing else: the
+// folder is new and pqfab's own.
+func FillFile(path string, write func(w io.Writer) error) error {
 	f, err := os.Create(path)
 	if err != nil {
 		return fmt.Errorf("%s: %w", path, unwrapPath(err))

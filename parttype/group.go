@@ -1,4 +1,4 @@
-package geom
+package parttype
 
 import (
 	"cmp"
@@ -9,15 +9,15 @@ import (
 	"strings"
 )
 
-// TypeResolution is the resolution, in each coordinate's own unit (mm or
+// Resolution is the resolution, in each coordinate's own unit (mm or
 // degrees), to which values are rounded wherever the grouping orders or
 // compares parts for anything but the tolerance: sorting, ties, which
 // reading of a part comes first. Parts whose coordinates agree within it
 // (and within the tolerance) are treated as one part, so they always share
 // a type and their order in the input does not matter.
-const TypeResolution = 1e-6
+const Resolution = 1e-6
 
-// TypeProblem describes parts to sort into types (congruent-part counting:
+// Problem describes parts to sort into types (congruent-part counting:
 // member, node and panel types). Each part is described by coordinates, a
 // vector of Dim values, and can be read in several ways: one reading
 // (variant) for each element of a finite symmetry group, such as a member
@@ -28,7 +28,7 @@ const TypeResolution = 1e-6
 // parts in a type agrees within every tolerance, and every part lies within
 // half the tolerance of the type's nominal part (the middle of each
 // coordinate's range).
-type TypeProblem struct {
+type Problem struct {
 	Parts int       // number of parts
 	Dim   int       // coordinates per variant
 	Tol   []float64 // per coordinate, ≥ 0
@@ -51,18 +51,18 @@ type TypeProblem struct {
 	// order statistic of coordinates the symmetries permute, such as the
 	// shortest edge). At least one. Every key gives a lower bound; the
 	// sweep runs along the most spread one.
-	Keys []TypeKey
+	Keys []Key
 }
 
-// TypeKey is a quantity that no symmetry changes: one value per part, and
+// Key is a quantity that no symmetry changes: one value per part, and
 // the range it stays within inside every type.
-type TypeKey struct {
+type Key struct {
 	Name   string // such as "cut length"
 	Tol    float64
 	Values []float64
 }
 
-// Ordinal names the j-th of n sorted values for a TypeKey's name: first
+// Ordinal names the j-th of n sorted values for a Key's name: first
 // ("lowest", "shortest", …), "2nd lowest", "3rd lowest", …, last.
 func Ordinal(j, n int, first, last string) string {
 	switch {
@@ -85,9 +85,9 @@ func Ordinal(j, n int, first, last string) string {
 	return fmt.Sprintf("%d%s %s", j+1, suffix, first)
 }
 
-// TypeGroup is one type: its parts, the variant each is read in, and the
+// Group is one type: its parts, the variant each is read in, and the
 // range of each coordinate over the parts in those variants.
-type TypeGroup struct {
+type Group struct {
 	Parts    []int     // ascending
 	Variants []int     // per entry of Parts
 	Min, Max []float64 // per coordinate
@@ -95,7 +95,7 @@ type TypeGroup struct {
 
 // Nominal returns the type's nominal coordinates: the middle of each
 // coordinate's range.
-func (g TypeGroup) Nominal() []float64 {
+func (g Group) Nominal() []float64 {
 	out := make([]float64, len(g.Min))
 	for d := range out {
 		out[d] = (g.Min[d] + g.Max[d]) / 2
@@ -103,16 +103,16 @@ func (g TypeGroup) Nominal() []float64 {
 	return out
 }
 
-// TypeBound is a lower bound on the number of types: no grouping that
+// Bound is a lower bound on the number of types: no grouping that
 // keeps the tolerances has fewer. Quantity says what gave it; Terms say
 // it term by term, one per set of parts that never share a type.
-type TypeBound struct {
+type Bound struct {
 	Count    int
 	Quantity string
 	Terms    []BoundTerm
 }
 
-// BoundTerm is one set of parts' share of a TypeBound: either one
+// BoundTerm is one set of parts' share of a Bound: either one
 // quantity alone spreads the parts over Count types (Key names it), or
 // Count parts differ pairwise by more than the tolerances (Key is empty),
 // so that each needs a type of its own.
@@ -140,8 +140,8 @@ func (t BoundTerm) quantity() string {
 
 // Of returns the bound with its terms' parts named (where they are not
 // yet), for a set of parts that is grouped apart from others.
-func (b TypeBound) Of(parts string) TypeBound {
-	out := TypeBound{Count: b.Count}
+func (b Bound) Of(parts string) Bound {
+	out := Bound{Count: b.Count}
 	for _, t := range b.Terms {
 		if t.Parts == "" {
 			t.Parts = parts
@@ -166,7 +166,7 @@ func quantities(terms []BoundTerm) string {
 // Add returns the bound for two sets of parts that never share a type
 // (such as panels with different corner counts): the counts add, the
 // terms follow each other and the quantities are listed once each.
-func (b TypeBound) Add(o TypeBound) TypeBound {
+func (b Bound) Add(o Bound) Bound {
 	switch {
 	case o.Count == 0:
 		return b
@@ -174,22 +174,22 @@ func (b TypeBound) Add(o TypeBound) TypeBound {
 		return o
 	}
 	terms := append(slices.Clone(b.Terms), o.Terms...)
-	return TypeBound{Count: b.Count + o.Count, Quantity: quantities(terms), Terms: terms}
+	return Bound{Count: b.Count + o.Count, Quantity: quantities(terms), Terms: terms}
 }
 
-// MaxTypeRefineRounds caps the rounds of refinement (merging types, then
+// MaxRefineRounds caps the rounds of refinement (merging types, then
 // emptying small types into others) after the sweep. The last step is
 // always a full merge pass, so the cap never leaves two mergeable types.
-const MaxTypeRefineRounds = 8
+const MaxRefineRounds = 8
 
-// GroupTypes sorts parts into the fewest types it can find in which every
+// Solve sorts parts into the fewest types it can find in which every
 // coordinate ranges within its tolerance, and returns them with a lower
 // bound on the count.
 //
 // Method:
 //  1. Parts are sorted by the keys, most spread first (see sweepKey),
-//     ties by their rounded coordinates, all rounded to TypeResolution;
-//     parts that agree within TypeResolution (and the tolerances) become
+//     ties by their rounded coordinates, all rounded to Resolution;
+//     parts that agree within Resolution (and the tolerances) become
 //     one item.
 //  2. Sweep: each item in that order joins, in the variant that fits
 //     best, the open type whose ranges it grows least (sum of squared
@@ -202,32 +202,32 @@ const MaxTypeRefineRounds = 8
 //     of one read in a common variant (and, where the variants are not
 //     permutations, the other in another); then empty types, smallest
 //     first, by moving each of their items into another type it fits, if
-//     need be after pushing up to MaxTypeEject items of that type into
+//     need be after pushing up to MaxEject items of that type into
 //     others. The last step is a merge pass that finds nothing to merge.
 //
 // Guarantees: every type keeps every tolerance; no two types can be
 // merged with each read in a common variant; the count is at least the
 // returned bound (how far above it is the quality of the heuristic: box
 // cover is NP-hard in two or more dimensions). The order of the work is
-// decided on values rounded to TypeResolution, so the result does not
+// decided on values rounded to Resolution, so the result does not
 // depend on the order of the parts, except among parts equal to that
 // resolution, which are interchangeable.
 //
 // Types come out in the order of their rounded nominal coordinates, each
 // in the variant whose nominal coordinates come first (among those where
 // the type keeps its tolerances).
-func GroupTypes(p *TypeProblem) ([]TypeGroup, TypeBound, error) {
+func Solve(p *Problem) ([]Group, Bound, error) {
 	if err := p.check(); err != nil {
-		return nil, TypeBound{}, err
+		return nil, Bound{}, err
 	}
 	if p.Parts == 0 {
-		return nil, TypeBound{}, nil
+		return nil, Bound{}, nil
 	}
 	g := newGrouper(p)
 	g.makeItems()
 	bound := g.bound()
 	g.sweep()
-	for range MaxTypeRefineRounds {
+	for range MaxRefineRounds {
 		for g.mergePass() {
 		}
 		if !g.emptyPass() {
@@ -239,7 +239,7 @@ func GroupTypes(p *TypeProblem) ([]TypeGroup, TypeBound, error) {
 	return g.result(), bound, nil
 }
 
-func (p *TypeProblem) check() error {
+func (p *Problem) check() error {
 	G := len(p.Compose)
 	switch {
 	case p.Parts < 0 || p.Dim < 1 || G < 1:
@@ -278,7 +278,7 @@ func (p *TypeProblem) check() error {
 // boxes, box v holding the lows (Dim values) then the highs of the
 // coordinates of their parts, each read in Compose[its variant][v].
 
-// item is a set of parts that agree within TypeResolution. An item of one
+// item is a set of parts that agree within Resolution. An item of one
 // part keeps no boxes: they are the part's coordinates.
 type item struct {
 	rep      int // first part
@@ -336,7 +336,7 @@ type typ struct {
 }
 
 type grouper struct {
-	p        *TypeProblem
+	p        *Problem
 	G, D     int
 	inv      []int // inverse variant
 	frames   []int // variants of a type tried when it grows
@@ -363,9 +363,9 @@ type grouper struct {
 // keySlack absorbs the rounding of keys computed from coordinates (such
 // as differences of angles): far below any tolerance, far above float
 // noise.
-const keySlack = 2 * TypeResolution
+const keySlack = 2 * Resolution
 
-func newGrouper(p *TypeProblem) *grouper {
+func newGrouper(p *Problem) *grouper {
 	G := len(p.Compose)
 	g := &grouper{p: p, G: G, D: p.Dim, inv: make([]int, G)}
 	for a := range G {
@@ -404,10 +404,10 @@ func (g *grouper) ibox(i, v int) (lo, hi []float64) {
 	return b[:g.D], b[g.D : 2*g.D]
 }
 
-// rounded compares two vectors on values rounded to TypeResolution.
+// rounded compares two vectors on values rounded to Resolution.
 func rounded(a, b []float64) int {
 	for d := range a {
-		if c := cmp.Compare(math.Round(a[d]/TypeResolution), math.Round(b[d]/TypeResolution)); c != 0 {
+		if c := cmp.Compare(math.Round(a[d]/Resolution), math.Round(b[d]/Resolution)); c != 0 {
 			return c
 		}
 	}
@@ -441,7 +441,7 @@ func (g *grouper) makeItems() {
 	// The first two keys rounded once; the others, rarely needed, when
 	// compared.
 	rq := make([][2]float64, p.Parts)
-	round := func(k, i int) float64 { return math.Round(p.Keys[g.keyOrder[k]].Values[i] / TypeResolution) }
+	round := func(k, i int) float64 { return math.Round(p.Keys[g.keyOrder[k]].Values[i] / Resolution) }
 	for i := range order {
 		order[i] = i
 		canon[i] = g.canonical(i)
@@ -469,7 +469,7 @@ func (g *grouper) makeItems() {
 	})
 	atomTol := make([]float64, g.D)
 	for d, t := range p.Tol {
-		atomTol[d] = min(t, TypeResolution)
+		atomTol[d] = min(t, Resolution)
 	}
 	spread := make([]float64, g.D)
 	for d := range g.D {
@@ -487,7 +487,7 @@ func (g *grouper) makeItems() {
 	lo := 0
 	for _, part := range order {
 		q := g.q[part]
-		for lo < len(g.items) && g.items[lo].qlo < q-3*TypeResolution {
+		for lo < len(g.items) && g.items[lo].qlo < q-3*Resolution {
 			lo++
 		}
 		joined := false
@@ -720,14 +720,14 @@ func (g *grouper) mergePass() bool {
 	return merged
 }
 
-// MaxTypeEject is the most items an item may push out of a type while a
+// MaxEject is the most items an item may push out of a type while a
 // type is being emptied.
-const MaxTypeEject = 3
+const MaxEject = 3
 
 // emptyPass tries, smallest type first, to move every item of a type into
 // other types: each item into the type it grows least, or, if it fits
 // none, into the type it fits after pushing out the fewest of its items
-// (at most MaxTypeEject), which must then fit other types. It reports
+// (at most MaxEject), which must then fit other types. It reports
 // whether it emptied any type.
 func (g *grouper) emptyPass() bool {
 	byKey := g.alive()
@@ -822,7 +822,7 @@ func (g *grouper) place(i, t, also int, byKey []int, qlo0 []float64) bool {
 }
 
 // eject puts item i into a type u (not t) where it fits after pushing out
-// the fewest items (at most MaxTypeEject, and not all), then places those
+// the fewest items (at most MaxEject, and not all), then places those
 // items elsewhere (not in t or u). An item of u must go if it lies further
 // than a tolerance from item i in some coordinate; the rest keep every
 // range within its tolerance, since they already did among themselves.
@@ -865,7 +865,7 @@ func (g *grouper) eject(i, t int, byKey []int, qlo0 []float64) bool {
 			top[k] = cand{u, v, over}
 		}
 	}
-	bu, bv, bn := -1, 0, MaxTypeEject+1
+	bu, bv, bn := -1, 0, MaxEject+1
 	var out, best []int
 	for _, c := range top[:n] {
 		tu := &g.types[c.u]
@@ -959,7 +959,7 @@ func (g *grouper) keeps(t *typ, h int) bool {
 // result lists the types: parts ascending with their variants, each type
 // in its variant whose rounded nominal coordinates come first (among
 // those that keep the tolerances), types in the order of those.
-func (g *grouper) result() []TypeGroup {
+func (g *grouper) result() []Group {
 	// Parts by item.
 	start := make([]int, len(g.items)+1)
 	for _, i := range g.itemOf {
@@ -981,7 +981,7 @@ func (g *grouper) result() []TypeGroup {
 		}
 		return out
 	}
-	var out []TypeGroup
+	var out []Group
 	for ti := range g.types {
 		t := &g.types[ti]
 		if !t.alive {
@@ -1006,7 +1006,7 @@ func (g *grouper) result() []TypeGroup {
 			}
 		}
 		slices.SortFunc(pvs, func(a, b pv) int { return cmp.Compare(a.p, b.p) })
-		tg := TypeGroup{Parts: make([]int, len(pvs)), Variants: make([]int, len(pvs))}
+		tg := Group{Parts: make([]int, len(pvs)), Variants: make([]int, len(pvs))}
 		for k, x := range pvs {
 			tg.Parts[k], tg.Variants[k] = x.p, x.v
 		}
@@ -1014,7 +1014,7 @@ func (g *grouper) result() []TypeGroup {
 		tg.Min, tg.Max = slices.Clone(b[:g.D]), slices.Clone(b[g.D:])
 		out = append(out, tg)
 	}
-	slices.SortFunc(out, func(a, b TypeGroup) int {
+	slices.SortFunc(out, func(a, b Group) int {
 		if c := rounded(a.Nominal(), b.Nominal()); c != 0 {
 			return c
 		}

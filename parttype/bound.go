@@ -1,4 +1,4 @@
-package geom
+package parttype
 
 import (
 	"math"
@@ -71,7 +71,7 @@ const SweepSpreadFraction = 0.125
 // greedy on the graph of parts that agree (a standard heuristic for an
 // independent set), or, when that graph would take more than
 // apartPairsCap comparisons a part, by taking parts in sweep order.
-func (g *grouper) bound() TypeBound {
+func (g *grouper) bound() Bound {
 	t := BoundTerm{Count: g.keyBound, Key: g.p.Keys[g.boundKey].Name}
 	n, ok := g.apartGraph()
 	if !ok {
@@ -80,7 +80,7 @@ func (g *grouper) bound() TypeBound {
 	if n > t.Count {
 		t = BoundTerm{Count: n}
 	}
-	return TypeBound{Count: t.Count, Quantity: t.quantity(), Terms: []BoundTerm{t}}
+	return Bound{Count: t.Count, Quantity: t.quantity(), Terms: []BoundTerm{t}}
 }
 
 // apartSweep adds, in sweep order, each item whose representative part

@@ -1,4 +1,4 @@
-package export
+package outdir
 
 import (
 	"bytes"
@@ -13,8 +13,8 @@ import (
 	"syscall"
 )
 
-// WriteOptions say what the writers may replace.
-type WriteOptions struct {
+// Options say what the writers may replace.
+type Options struct {
 	// Force replaces an existing folder or file that pqfab did not write.
 	// It never replaces what Keep protects.
 	Force bool
@@ -55,7 +55,7 @@ func lockName(base string) string  { return "." + base + ".pqfab-lock" }
 // guard refuses to replace path (a folder when dir is set, else a file)
 // when that would lose a kept file, the current folder, the home folder
 // or the root, whatever Force says.
-func guard(path string, dir bool, opt WriteOptions) error {
+func guard(path string, dir bool, opt Options) error {
 	abs, err := realAbs(path)
 	if err != nil {
 		return fmt.Errorf("%s: %w", path, err)
@@ -174,7 +174,7 @@ func ownedFile(path string) bool {
 
 // checkFile checks that path may be written: a new file, or a regular
 // file pqfab wrote, or any regular file with force; never a kept file.
-func checkFile(path string, opt WriteOptions) error {
+func checkFile(path string, opt Options) error {
 	if err := guard(path, false, opt); err != nil {
 		return err
 	}
@@ -194,7 +194,7 @@ func checkFile(path string, opt WriteOptions) error {
 }
 
 // TempFolder tracks the temporary folder of a write for a signal handler:
-// WriteOptions.OnTemp = t.Set, and on a signal t.Remove. Its methods are
+// Options.OnTemp = t.Set, and on a signal t.Remove. Its methods are
 // safe to call from several goroutines.
 type TempFolder struct {
 	mu   sync.Mutex
