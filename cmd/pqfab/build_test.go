@@ -240,33 +240,6 @@ func TestBuildDeterministic(t *testing.T) {
 	sameTrees(t, a, b)
 }
 
-// sameTrees checks that two output folders hold the same files with the
-// same bytes.
-func sameTrees(t *testing.T, a, b string) {
-	t.Helper()
-	n := 0
-	err := filepath.Walk(a, func(p string, info os.FileInfo, err error) error {
-		if err != nil || info.IsDir() {
-			return err
-		}
-		rel, _ := filepath.Rel(a, p)
-		x, _ := os.ReadFile(p)
-		y, err := os.ReadFile(filepath.Join(b, rel))
-		if err != nil {
-			t.Errorf("%s missing from the second build", rel)
-			return nil
-		}
-		if !bytes.Equal(x, y) {
-			t.Errorf("%s differs between builds", rel)
-		}
-		n++
-		return nil
-	})
-	if err != nil || n < 6 {
-		t.Fatalf("compared %d files: %v", n, err)
-	}
-}
-
 // writeJob writes a small wave net and a job using it; extra is appended
 // to the [flatness] table.
 func writeJob(t *testing.T, dir, flatness string) string {
