@@ -63,6 +63,7 @@ func loadReport(t *testing.T, dir string) *export.Report {
 // signs agree across schedule, type drawing and tag, drawing texts are dark
 // and clear of the outlines and print the schedule's numbers.
 func TestDemoReadBack(t *testing.T) {
+	endToEnd(t)
 	dir := filepath.Join(t.TempDir(), "out")
 	if _, _, err := runCmd(t, "demo", "-q", "-o", dir); err != nil {
 		t.Fatal(err)
@@ -108,6 +109,7 @@ func checkWords(t *testing.T, dir string) {
 // each panel's own edges too), and the read-back of tags, drawings and
 // schedule (readback_panel_marks.py) holds with turned-over panels.
 func TestBevelledTypes(t *testing.T) {
+	endToEnd(t)
 	dir := t.TempDir()
 	if _, _, err := runCmd(t, "sample", "wave", "--panels", "120", "-o", filepath.Join(dir, "w.obj")); err != nil {
 		t.Fatal(err)
@@ -230,6 +232,7 @@ func checkAccounting(t *testing.T, dir string) {
 
 // TestBuildDeterministic: the same job twice gives byte-identical files.
 func TestBuildDeterministic(t *testing.T) {
+	endToEnd(t)
 	base := t.TempDir()
 	a, b := filepath.Join(base, "a"), filepath.Join(base, "b")
 	for _, d := range []string{a, b} {
@@ -271,6 +274,7 @@ spacing_mm = 6
 // only the diagnostic report, exits non-zero and leaves the old folder
 // alone; --continue builds anyway.
 func TestPlanarityFailure(t *testing.T) {
+	endToEnd(t)
 	dir := t.TempDir()
 	job := writeJob(t, dir, "max_move_mm = 0.5")
 	out := filepath.Join(dir, "out")

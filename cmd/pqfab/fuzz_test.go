@@ -11,6 +11,7 @@ import (
 // TestAllSamplesBuild builds every sample twice: identical bytes, and every
 // panel, member and node accounted for.
 func TestAllSamplesBuild(t *testing.T) {
+	endToEnd(t)
 	for _, name := range samples.Names() {
 		t.Run(name, func(t *testing.T) {
 			dir := t.TempDir()

@@ -19,6 +19,15 @@ func runCmd(t *testing.T, args ...string) (string, string, error) {
 	return out.String(), errb.String(), err
 }
 
+// endToEnd skips a test of whole builds (seconds to a minute each) in a
+// quick run, go test -short; CI runs them all.
+func endToEnd(t *testing.T) {
+	t.Helper()
+	if testing.Short() {
+		t.Skip("end-to-end build: run without -short")
+	}
+}
+
 func TestSampleInspect(t *testing.T) {
 	dir := t.TempDir()
 	for _, name := range []string{"canopy", "dome", "wave"} {

@@ -227,6 +227,7 @@ func nodesOf(o strictOBJ) []geom.Vec {
 // planarized position of the file's node i (the build's own result mapped
 // through the file order) and panel j as the file's panel j.
 func TestBuildNetKeepsFileOrder(t *testing.T) {
+	endToEnd(t)
 	dir := t.TempDir()
 	in := fileOrderNet(t, dir, 4)
 	jobText := "[net]\nfile = \"net.obj\"\n" + goodStock

@@ -53,6 +53,7 @@ func pqfabLeftovers(t *testing.T, dir string) []string {
 // TestOutputSafety: outputs never replace what pqfab did not write, nor
 // the inputs, the current folder or a folder above them.
 func TestOutputSafety(t *testing.T) {
+	endToEnd(t)
 	dir := t.TempDir()
 	proj := filepath.Join(dir, "proj")
 	if err := os.Mkdir(proj, 0o755); err != nil {
@@ -171,6 +172,7 @@ func bigJob(t *testing.T, dir string) string {
 // previous folder as it was; a SIGKILL leaves the temporary folder, which
 // the next run removes.
 func TestInterruptDuringWrite(t *testing.T) {
+	endToEnd(t)
 	dir := t.TempDir()
 	job := bigJob(t, dir)
 	out := filepath.Join(dir, "out")

@@ -58,6 +58,7 @@ func TestPanelShapesInSchedule(t *testing.T) {
 // the schedule and report.json agree on every panel's corner 1 and edges
 // (readback_types.py, Debian's ezdxf).
 func TestTurnedOverPanels(t *testing.T) {
+	endToEnd(t)
 	dir := t.TempDir()
 	if _, _, err := runCmd(t, "sample", "canopy", "--panels", "96", "-o", filepath.Join(dir, "c.obj")); err != nil {
 		t.Fatal(err)
@@ -87,6 +88,7 @@ func TestTurnedOverPanels(t *testing.T) {
 // edge to edge, crosses no part, and every part comes free whole and
 // alone; the schedule's Sheets sheet gives each sheet's cuts.
 func TestGlassCutsReplay(t *testing.T) {
+	endToEnd(t)
 	dir := t.TempDir()
 	if _, _, err := runCmd(t, "sample", "dome", "--panels", "80", "-o", filepath.Join(dir, "d.obj")); err != nil {
 		t.Fatal(err)

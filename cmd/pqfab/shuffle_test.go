@@ -111,6 +111,7 @@ func dropIDs(v any) {
 // labels, types, sheets, cost and drawings: every output file is the same
 // but for input ids, for every sample and several seeds.
 func TestShuffledInputSameAnswer(t *testing.T) {
+	endToEnd(t)
 	job := "title = \"shuffle\"\n[net]\nfile = \"net.obj\"\n[nodes]\nhub_radius_mm = 50\n[panel]\nedge_inset_mm = 5\n" + goodStock +
 		"price = 400\n[[stock]]\nname = \"split\"\nwidth_mm = 3210\nheight_mm = 2250\nmargin_mm = 15\nspacing_mm = 6\nprice = 190\n" +
 		"[rates]\ncurrency = \"EUR\"\nmember_per_m = 90\nnode_each = 150\npanel_per_m2 = 200\n"
