@@ -21,6 +21,7 @@ const chromium = "/usr/bin/chromium"
 // non-white).
 func TestReportRendersInChromium(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	out := filepath.Join(dir, "out")
 	if _, _, err := runCmd(t, "demo", "-q", "-o", out); err != nil {

@@ -64,6 +64,7 @@ func loadReport(t *testing.T, dir string) *export.Report {
 // and clear of the outlines and print the schedule's numbers.
 func TestDemoReadBack(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	dir := filepath.Join(t.TempDir(), "out")
 	if _, _, err := runCmd(t, "demo", "-q", "-o", dir); err != nil {
 		t.Fatal(err)
@@ -110,6 +111,7 @@ func checkWords(t *testing.T, dir string) {
 // schedule (readback_panel_marks.py) holds with turned-over panels.
 func TestBevelledTypes(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	if _, _, err := runCmd(t, "sample", "wave", "--panels", "120", "-o", filepath.Join(dir, "w.obj")); err != nil {
 		t.Fatal(err)
@@ -233,6 +235,7 @@ func checkAccounting(t *testing.T, dir string) {
 // TestBuildDeterministic: the same job twice gives byte-identical files.
 func TestBuildDeterministic(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	base := t.TempDir()
 	a, b := filepath.Join(base, "a"), filepath.Join(base, "b")
 	for _, d := range []string{a, b} {
@@ -275,6 +278,7 @@ spacing_mm = 6
 // alone; --continue builds anyway.
 func TestPlanarityFailure(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	job := writeJob(t, dir, "max_move_mm = 0.5")
 	out := filepath.Join(dir, "out")
@@ -346,6 +350,7 @@ print(any(r[0] == "Warning" and "flatness tolerance" in (r[1] or "") for r in ws
 }
 
 func TestBuildErrors(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	job := writeJob(t, dir, "")
 	notDir := filepath.Join(dir, "file")

@@ -18,7 +18,8 @@ var update = flag.Bool("update", false, "rewrite golden files")
 // every sheet by openpyxl (Debian's python3-openpyxl, xlsx_text.py) in
 // schedule.txt, the site PDFs by pdftotext -layout (Debian's
 // poppler-utils) in plan.txt and tags.txt. It is the quick run's
-// (go test -short) end-to-end build.
+// (go test -short) end-to-end build. Not parallel: it changes the working
+// folder.
 func TestGoldenBuild(t *testing.T) {
 	dir := t.TempDir()
 	net := "v 0 0 0\nv 1500 0 0\nv 1500 1200 30\nv 0 1200 0\nv 3000 0 0\nv 3000 1200 0\nf 1 2 3 4\nf 2 5 6 3\n"

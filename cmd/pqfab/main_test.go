@@ -29,6 +29,7 @@ func endToEnd(t *testing.T) {
 }
 
 func TestSampleInspect(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	for _, name := range []string{"canopy", "dome", "wave"} {
 		path := filepath.Join(dir, name+".obj")
@@ -61,6 +62,7 @@ func TestSampleInspect(t *testing.T) {
 }
 
 func TestCommandErrors(t *testing.T) {
+	t.Parallel()
 	tests := []struct {
 		args []string
 		want string
@@ -90,6 +92,7 @@ func TestCommandErrors(t *testing.T) {
 }
 
 func TestPlanarizeCommand(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	in := filepath.Join(dir, "wave.obj")
 	if _, _, err := runCmd(t, "sample", "wave", "--panels", "400", "-o", in); err != nil {
@@ -130,6 +133,7 @@ func TestPlanarizeCommand(t *testing.T) {
 }
 
 func TestMembersCommand(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	for _, name := range []string{"canopy", "dome", "wave"} {
 		path := filepath.Join(dir, name+".obj")
@@ -161,6 +165,7 @@ func TestMembersCommand(t *testing.T) {
 }
 
 func TestNestCommand(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	path := filepath.Join(dir, "canopy.obj")
 	if _, _, err := runCmd(t, "sample", "canopy", "--panels", "60", "-o", path); err != nil {
@@ -187,6 +192,7 @@ func TestNestCommand(t *testing.T) {
 // one warning, and the build goes on (one rule: the warning says so and the
 // outputs hold only the net's used nodes).
 func TestUnusedNodesLeftOut(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	net := goodQuad + "v 9000 9000 0\n"
 	for name, body := range map[string]string{"n.obj": net, "job.toml": jobFor("n.obj")} {

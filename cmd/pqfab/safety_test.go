@@ -51,7 +51,8 @@ func pqfabLeftovers(t *testing.T, dir string) []string {
 }
 
 // TestOutputSafety: outputs never replace what pqfab did not write, nor
-// the inputs, the current folder or a folder above them.
+// the inputs, the current folder or a folder above them. Not parallel:
+// it changes the working folder.
 func TestOutputSafety(t *testing.T) {
 	endToEnd(t)
 	dir := t.TempDir()
@@ -173,6 +174,7 @@ func bigJob(t *testing.T, dir string) string {
 // the next run removes.
 func TestInterruptDuringWrite(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	job := bigJob(t, dir)
 	out := filepath.Join(dir, "out")

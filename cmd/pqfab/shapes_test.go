@@ -34,6 +34,7 @@ f 2 10 5
 // report.json, the angles summing to (n−2)·180° (readback_shapes.py, with
 // Debian's openpyxl).
 func TestPanelShapesInSchedule(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	job := "[net]\nfile = \"shapes.obj\"\n[supports]\nmode = \"none\"\n[panel]\nedge_inset_mm = 8\n" + goodStock
 	for name, body := range map[string]string{"shapes.obj": shapesNet, "job.toml": job} {
@@ -59,6 +60,7 @@ func TestPanelShapesInSchedule(t *testing.T) {
 // (readback_types.py, Debian's ezdxf).
 func TestTurnedOverPanels(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	if _, _, err := runCmd(t, "sample", "canopy", "--panels", "96", "-o", filepath.Join(dir, "c.obj")); err != nil {
 		t.Fatal(err)
@@ -89,6 +91,7 @@ func TestTurnedOverPanels(t *testing.T) {
 // alone; the schedule's Sheets sheet gives each sheet's cuts.
 func TestGlassCutsReplay(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	if _, _, err := runCmd(t, "sample", "dome", "--panels", "80", "-o", filepath.Join(dir, "d.obj")); err != nil {
 		t.Fatal(err)

@@ -109,7 +109,8 @@ func dropIDs(v any) {
 // TestShuffledInputSameAnswer: the same net with its nodes and panels in
 // another order and every panel starting at another corner gives the same
 // labels, types, sheets, cost and drawings: every output file is the same
-// but for input ids, for every sample and several seeds.
+// but for input ids, for every sample and several seeds. Not parallel:
+// it changes the working folder.
 func TestShuffledInputSameAnswer(t *testing.T) {
 	endToEnd(t)
 	job := "title = \"shuffle\"\n[net]\nfile = \"net.obj\"\n[nodes]\nhub_radius_mm = 50\n[panel]\nedge_inset_mm = 5\n" + goodStock +

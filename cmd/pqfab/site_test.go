@@ -122,6 +122,7 @@ func partsByBay(rep *export.Report) map[string][]string {
 // and for every bay, each pointing to the bay's page.
 func TestSitePlanPDF(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	out, rep := buildSiteJob(t, dir)
 	path := filepath.Join(out, export.FilePlanPDF)
@@ -217,6 +218,7 @@ func TestSitePlanPDF(t *testing.T) {
 // exactly the label of the part in that slot.
 func TestSiteTagsPDF(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	out, rep := buildSiteJob(t, dir)
 	path := filepath.Join(out, export.FileTagsPDF)
@@ -437,6 +439,7 @@ func writePNG(t *testing.T, path string, img image.Image) {
 // the same script must fail.
 func TestSitePlanDXF(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	out, _ := buildSiteJob(t, dir)
 	readBack(t, "check_plan_dxf.py", out)
@@ -477,6 +480,7 @@ func consoleErrors(log string) []string {
 // forbids other sources.
 func TestSiteViewInChromium(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	out, rep := buildSiteJob(t, dir)
 	page := filepath.Join(out, export.FileView)
@@ -574,6 +578,7 @@ func TestSiteViewInChromium(t *testing.T) {
 // the same.
 func TestSiteDeterministic(t *testing.T) {
 	endToEnd(t)
+	t.Parallel()
 	a, _ := buildSiteJob(t, t.TempDir())
 	b, _ := buildSiteJob(t, t.TempDir())
 	for _, name := range []string{export.FilePlanPDF, export.FileTagsPDF, export.FileView, export.FileAssembly} {

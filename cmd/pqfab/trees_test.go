@@ -124,6 +124,7 @@ func TestTreeDiff(t *testing.T) {
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
+			t.Parallel()
 			a, b := filepath.Join(t.TempDir(), "a"), filepath.Join(t.TempDir(), "b")
 			write(a, tc.a)
 			write(b, tc.b)
