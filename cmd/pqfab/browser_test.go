@@ -20,6 +20,8 @@ const chromium = "/usr/bin/chromium"
 // PNG: no console errors, and the picture is not blank (many colours, much
 // non-white).
 func TestReportRendersInChromium(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	out := filepath.Join(dir, "out")
 	if _, _, err := runCmd(t, "demo", "-q", "-o", out); err != nil {

@@ -63,6 +63,8 @@ func loadReport(t *testing.T, dir string) *export.Report {
 // signs agree across schedule, type drawing and tag, drawing texts are dark
 // and clear of the outlines and print the schedule's numbers.
 func TestDemoReadBack(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	dir := filepath.Join(t.TempDir(), "out")
 	if _, _, err := runCmd(t, "demo", "-q", "-o", dir); err != nil {
 		t.Fatal(err)
@@ -108,6 +110,8 @@ func checkWords(t *testing.T, dir string) {
 // each panel's own edges too), and the read-back of tags, drawings and
 // schedule (readback_panel_marks.py) holds with turned-over panels.
 func TestBevelledTypes(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	if _, _, err := runCmd(t, "sample", "wave", "--panels", "120", "-o", filepath.Join(dir, "w.obj")); err != nil {
 		t.Fatal(err)
@@ -230,6 +234,8 @@ func checkAccounting(t *testing.T, dir string) {
 
 // TestBuildDeterministic: the same job twice gives byte-identical files.
 func TestBuildDeterministic(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	base := t.TempDir()
 	a, b := filepath.Join(base, "a"), filepath.Join(base, "b")
 	for _, d := range []string{a, b} {
@@ -238,33 +244,6 @@ func TestBuildDeterministic(t *testing.T) {
 		}
 	}
 	sameTrees(t, a, b)
-}
-
-// sameTrees checks that two output folders hold the same files with the
-// same bytes.
-func sameTrees(t *testing.T, a, b string) {
-	t.Helper()
-	n := 0
-	err := filepath.Walk(a, func(p string, info os.FileInfo, err error) error {
-		if err != nil || info.IsDir() {
-			return err
-		}
-		rel, _ := filepath.Rel(a, p)
-		x, _ := os.ReadFile(p)
-		y, err := os.ReadFile(filepath.Join(b, rel))
-		if err != nil {
-			t.Errorf("%s missing from the second build", rel)
-			return nil
-		}
-		if !bytes.Equal(x, y) {
-			t.Errorf("%s differs between builds", rel)
-		}
-		n++
-		return nil
-	})
-	if err != nil || n < 6 {
-		t.Fatalf("compared %d files: %v", n, err)
-	}
 }
 
 // writeJob writes a small wave net and a job using it; extra is appended
@@ -298,6 +277,8 @@ spacing_mm = 6
 // only the diagnostic report, exits non-zero and leaves the old folder
 // alone; --continue builds anyway.
 func TestPlanarityFailure(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	job := writeJob(t, dir, "max_move_mm = 0.5")
 	out := filepath.Join(dir, "out")
@@ -369,6 +350,7 @@ print(any(r[0] == "Warning" and "flatness tolerance" in (r[1] or "") for r in ws
 }
 
 func TestBuildErrors(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	job := writeJob(t, dir, "")
 	notDir := filepath.Join(dir, "file")

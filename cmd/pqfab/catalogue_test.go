@@ -17,6 +17,7 @@ func jobFor(net string) string { return "[net]\nfile = \"" + net + "\"\n" + good
 // Each gives one clear line naming the file, the line and the element, a
 // non-zero exit, and no output folder (nor any temporary left behind).
 func TestBadInputCatalogue(t *testing.T) {
+	t.Parallel()
 	tests := []struct {
 		name  string
 		files map[string]string // written into a fresh folder; "job.toml" is built
@@ -77,6 +78,7 @@ func TestBadInputCatalogue(t *testing.T) {
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
+			t.Parallel()
 			dir := t.TempDir()
 			for name, body := range tc.files {
 				if err := os.MkdirAll(filepath.Dir(filepath.Join(dir, name)), 0o755); err != nil {

@@ -33,6 +33,7 @@ func flagDefaults(t *testing.T, cmd string) map[string]string {
 // its required keys), so a command and a build given the same net and no
 // settings do the same work.
 func TestFlagDefaultsAreJobDefaults(t *testing.T) {
+	t.Parallel()
 	j, err := job.Parse([]byte("[net]\nfile = \"n.obj\"\n[[stock]]\nwidth_mm = 6000\nheight_mm = 3210\n"), "job.toml")
 	if err != nil {
 		t.Fatal(err)

@@ -11,8 +11,11 @@ import (
 // TestAllSamplesBuild builds every sample twice: identical bytes, and every
 // panel, member and node accounted for.
 func TestAllSamplesBuild(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	for _, name := range samples.Names() {
 		t.Run(name, func(t *testing.T) {
+			t.Parallel()
 			dir := t.TempDir()
 			if _, _, err := runCmd(t, "sample", name, "--panels", "250", "-o", filepath.Join(dir, "net.obj")); err != nil {
 				t.Fatal(err)

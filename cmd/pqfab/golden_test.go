@@ -13,7 +13,13 @@ var update = flag.Bool("update", false, "rewrite golden files")
 
 // TestGoldenBuild builds a two-panel job and compares every writer's
 // output with the golden files in testdata/golden (go test -update
-// rewrites them; read the diff before committing).
+// rewrites them; read the diff before committing). Files that are not
+// text are compared as text read back by outside readers: the schedule's
+// every sheet by openpyxl (Debian's python3-openpyxl, xlsx_text.py) in
+// schedule.txt, the site PDFs by pdftotext -layout (Debian's
+// poppler-utils) in plan.txt and tags.txt. It is the quick run's
+// (go test -short) end-to-end build. Not parallel: it changes the working
+// folder.
 func TestGoldenBuild(t *testing.T) {
 	dir := t.TempDir()
 	net := "v 0 0 0\nv 1500 0 0\nv 1500 1200 30\nv 0 1200 0\nv 3000 0 0\nv 3000 1200 0\nf 1 2 3 4\nf 2 5 6 3\n"
@@ -60,22 +66,43 @@ panel_per_m2 = 50
 		if err != nil {
 			t.Fatal(err)
 		}
-		golden := filepath.Join(goldenDir, filepath.Base(name))
-		if *update {
-			if err := os.MkdirAll(filepath.Dir(golden), 0o755); err != nil {
-				t.Fatal(err)
-			}
-			if err := os.WriteFile(golden, got, 0o644); err != nil {
-				t.Fatal(err)
-			}
-			continue
+		checkGolden(t, filepath.Join(goldenDir, filepath.Base(name)), got, name)
+	}
+	texts := []struct{ golden, file, reader string }{
+		{"schedule.txt", export.FileSchedule, "openpyxl"},
+		{"plan.txt", export.FilePlanPDF, "pdftotext"},
+		{"tags.txt", export.FileTagsPDF, "pdftotext"},
+	}
+	for _, tx := range texts {
+		path := filepath.Join(out, filepath.FromSlash(tx.file))
+		var got string
+		if tx.reader == "openpyxl" {
+			got = runTool(t, debianPython, filepath.Join(goldenDir, "..", "xlsx_text.py"), path)
+		} else {
+			got = runTool(t, pdftotext, "-layout", "-enc", "UTF-8", path, "-")
 		}
-		want, err := os.ReadFile(golden)
-		if err != nil {
+		checkGolden(t, filepath.Join(goldenDir, tx.golden), []byte(got), tx.file+" read by "+tx.reader)
+	}
+}
+
+// checkGolden compares got, what is named what, with the golden file, or
+// rewrites the golden file with -update.
+func checkGolden(t *testing.T, golden string, got []byte, what string) {
+	t.Helper()
+	if *update {
+		if err := os.MkdirAll(filepath.Dir(golden), 0o755); err != nil {
 			t.Fatal(err)
 		}
-		if string(got) != string(want) {
-			t.Errorf("%s differs from %s (go test -update rewrites it)", name, golden)
+		if err := os.WriteFile(golden, got, 0o644); err != nil {
+			t.Fatal(err)
 		}
+		return
+	}
+	want, err := os.ReadFile(golden)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if string(got) != string(want) {
+		t.Errorf("%s differs from %s (go test -update rewrites it)", what, golden)
 	}
 }

@@ -19,7 +19,17 @@ func runCmd(t *testing.T, args ...string) (string, string, error) {
 	return out.String(), errb.String(), err
 }
 
+// endToEnd skips a test of whole builds (seconds to a minute each) in a
+// quick run, go test -short; CI runs them all.
+func endToEnd(t *testing.T) {
+	t.Helper()
+	if testing.Short() {
+		t.Skip("end-to-end build: run without -short")
+	}
+}
+
 func TestSampleInspect(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	for _, name := range []string{"canopy", "dome", "wave"} {
 		path := filepath.Join(dir, name+".obj")
@@ -52,6 +62,7 @@ func TestSampleInspect(t *testing.T) {
 }
 
 func TestCommandErrors(t *testing.T) {
+	t.Parallel()
 	tests := []struct {
 		args []string
 		want string
@@ -81,6 +92,7 @@ func TestCommandErrors(t *testing.T) {
 }
 
 func TestPlanarizeCommand(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	in := filepath.Join(dir, "wave.obj")
 	if _, _, err := runCmd(t, "sample", "wave", "--panels", "400", "-o", in); err != nil {
@@ -121,6 +133,7 @@ func TestPlanarizeCommand(t *testing.T) {
 }
 
 func TestMembersCommand(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	for _, name := range []string{"canopy", "dome", "wave"} {
 		path := filepath.Join(dir, name+".obj")
@@ -152,6 +165,7 @@ func TestMembersCommand(t *testing.T) {
 }
 
 func TestNestCommand(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	path := filepath.Join(dir, "canopy.obj")
 	if _, _, err := runCmd(t, "sample", "canopy", "--panels", "60", "-o", path); err != nil {
@@ -178,6 +192,7 @@ func TestNestCommand(t *testing.T) {
 // one warning, and the build goes on (one rule: the warning says so and the
 // outputs hold only the net's used nodes).
 func TestUnusedNodesLeftOut(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	net := goodQuad + "v 9000 9000 0\n"
 	for name, body := range map[string]string{"n.obj": net, "job.toml": jobFor("n.obj")} {

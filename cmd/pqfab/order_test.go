@@ -165,6 +165,7 @@ func slicesEqual(a, b []int) bool { return fmt.Sprint(a) == fmt.Sprint(b) }
 // the file plus its move in the report, looked up by id), and a node in
 // no panel where the file has it.
 func TestPlanarizeKeepsFileOrder(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	in := fileOrderNet(t, dir, 3)
 	out, report := filepath.Join(dir, "flat.obj"), filepath.Join(dir, "moves.json")
@@ -227,6 +228,8 @@ func nodesOf(o strictOBJ) []geom.Vec {
 // planarized position of the file's node i (the build's own result mapped
 // through the file order) and panel j as the file's panel j.
 func TestBuildNetKeepsFileOrder(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	in := fileOrderNet(t, dir, 4)
 	jobText := "[net]\nfile = \"net.obj\"\n" + goodStock

@@ -51,8 +51,10 @@ func pqfabLeftovers(t *testing.T, dir string) []string {
 }
 
 // TestOutputSafety: outputs never replace what pqfab did not write, nor
-// the inputs, the current folder or a folder above them.
+// the inputs, the current folder or a folder above them. Not parallel:
+// it changes the working folder.
 func TestOutputSafety(t *testing.T) {
+	endToEnd(t)
 	dir := t.TempDir()
 	proj := filepath.Join(dir, "proj")
 	if err := os.Mkdir(proj, 0o755); err != nil {
@@ -171,6 +173,8 @@ func bigJob(t *testing.T, dir string) string {
 // previous folder as it was; a SIGKILL leaves the temporary folder, which
 // the next run removes.
 func TestInterruptDuringWrite(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	job := bigJob(t, dir)
 	out := filepath.Join(dir, "out")

@@ -34,6 +34,7 @@ f 2 10 5
 // report.json, the angles summing to (n−2)·180° (readback_shapes.py, with
 // Debian's openpyxl).
 func TestPanelShapesInSchedule(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	job := "[net]\nfile = \"shapes.obj\"\n[supports]\nmode = \"none\"\n[panel]\nedge_inset_mm = 8\n" + goodStock
 	for name, body := range map[string]string{"shapes.obj": shapesNet, "job.toml": job} {
@@ -58,6 +59,8 @@ func TestPanelShapesInSchedule(t *testing.T) {
 // the schedule and report.json agree on every panel's corner 1 and edges
 // (readback_types.py, Debian's ezdxf).
 func TestTurnedOverPanels(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	if _, _, err := runCmd(t, "sample", "canopy", "--panels", "96", "-o", filepath.Join(dir, "c.obj")); err != nil {
 		t.Fatal(err)
@@ -87,6 +90,8 @@ func TestTurnedOverPanels(t *testing.T) {
 // edge to edge, crosses no part, and every part comes free whole and
 // alone; the schedule's Sheets sheet gives each sheet's cuts.
 func TestGlassCutsReplay(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	if _, _, err := runCmd(t, "sample", "dome", "--panels", "80", "-o", filepath.Join(dir, "d.obj")); err != nil {
 		t.Fatal(err)

@@ -121,6 +121,8 @@ func partsByBay(rep *export.Report) map[string][]string {
 // -bbox); pdftohtml -xml (poppler-utils) finds a bookmark for the index
 // and for every bay, each pointing to the bay's page.
 func TestSitePlanPDF(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	out, rep := buildSiteJob(t, dir)
 	path := filepath.Join(out, export.FilePlanPDF)
@@ -215,6 +217,8 @@ func TestSitePlanPDF(t *testing.T) {
 // sheets and zbarimg (zbar-tools) decodes each sampled tag's QR code to
 // exactly the label of the part in that slot.
 func TestSiteTagsPDF(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	out, rep := buildSiteJob(t, dir)
 	path := filepath.Join(out, export.FileTagsPDF)
@@ -434,6 +438,8 @@ func writePNG(t *testing.T, path string, img image.Image) {
 // present, every label near its part; with one label moved onto another
 // the same script must fail.
 func TestSitePlanDXF(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	out, _ := buildSiteJob(t, dir)
 	readBack(t, "check_plan_dxf.py", out)
@@ -473,6 +479,8 @@ func consoleErrors(log string) []string {
 // the network: every script is inline and a content security policy
 // forbids other sources.
 func TestSiteViewInChromium(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	dir := t.TempDir()
 	out, rep := buildSiteJob(t, dir)
 	page := filepath.Join(out, export.FileView)
@@ -569,6 +577,8 @@ func TestSiteViewInChromium(t *testing.T) {
 // TestSiteDeterministic: the site files of two builds are byte for byte
 // the same.
 func TestSiteDeterministic(t *testing.T) {
+	endToEnd(t)
+	t.Parallel()
 	a, _ := buildSiteJob(t, t.TempDir())
 	b, _ := buildSiteJob(t, t.TempDir())
 	for _, name := range []string{export.FilePlanPDF, export.FileTagsPDF, export.FileView, export.FileAssembly} {

@@ -18,6 +18,7 @@ import (
 // and net-flat.obj still holds exactly the net's nodes and panels (an id
 // must never start a new OBJ statement).
 func TestTextReachesFilesSafely(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	title := `Bibliothèque d'été 中 \U+0041 100%% "quoted" <b>`
 	nodes := "id,x,y,z\n\"a\tv 9 9 9\",0,0,0\n\"b\tc\",1500,0,0\nc,1500,1200,0\nd,0,1200,0\ne,3000,0,0\nf,3000,1200,0\n"
