@@ -18,9 +18,12 @@ const (
 	LayerNote   = "PQ-NOTE"    // notes: parts of the type, faces, specification
 )
 
-// typeLayers are the layers of every type drawing.
-var typeLayers = []dxfLayer{{LayerPart, color.Red, nil}, {LayerSetOut, color.Grey128, nil}, {LayerBlank, color.Cyan, nil},
-	{LayerDim, color.Yellow, nil}, {LayerNote, color.Green, nil}, {LayerTitle, color.White, nil}}
+// typeLayers are the layers of a member type drawing, in dark colours
+// that read on white paper, as the panel type drawings' (AutoCAD colour
+// index: 14 dark red, 30 orange, 5 blue, 250 dark grey; no yellow or white
+// text).
+var typeLayers = []dxfLayer{{LayerPart, 14, nil}, {LayerSetOut, color.Grey128, nil}, {LayerBlank, 30, nil},
+	{LayerDim, color.Blue, nil}, {LayerNote, color.Grey51, nil}, {LayerTitle, color.Grey51, nil}}
 
 // Texts of the member type drawings start with these words, so a reader
 // can find each number (the read-back tests do).
