@@ -131,7 +131,7 @@ func BuildReport(b *Bundle) *Report {
 			rep.Sheets = append(rep.Sheets, row)
 		}
 		for _, u := range nr.Unplaced {
-			rep.Unplaced = append(rep.Unplaced, UnplacedRow{Panel: b.Flats[u.Part].Label, Reason: u.Reason})
+			rep.Unplaced = append(rep.Unplaced, UnplacedRow{Panel: b.Flats[u.Part].Label, Reason: u.Reason.String()})
 		}
 		for _, u := range nr.Stocks {
 			st := b.Stocks[u.Stock]

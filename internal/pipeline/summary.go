@@ -213,7 +213,7 @@ func SummarizeNest(res *nest.Result, stocks []nest.Stock, parts []nest.Part) *Ne
 		s.Stocks = append(s.Stocks, NestStockRow{Name: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM, Sheets: u.Sheets, AreaBound: u.AreaBound})
 	}
 	for _, u := range res.Unplaced {
-		s.Unplaced = append(s.Unplaced, NestUnplacedRow{Panel: parts[u.Part].Label, Reason: u.Reason})
+		s.Unplaced = append(s.Unplaced, NestUnplacedRow{Panel: parts[u.Part].Label, Reason: u.Reason.String()})
 	}
 	return s
 }

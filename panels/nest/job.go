@@ -59,7 +59,7 @@ type layoutSheet struct {
 
 type unplacedShape struct {
 	shape  int
-	reason string
+	reason Reason
 }
 
 // layout is a method's answer, by shapes, with what its improvement

@@ -91,15 +91,31 @@ type Cut struct {
 // Unplaced is a part that is on no sheet, with the reason.
 type Unplaced struct {
 	Part   int
-	Reason string
+	Reason Reason
 }
+
+// Reason is why a part is on no sheet.
+type Reason int
 
 // Reasons a part is unplaced.
 const (
-	ReasonTooLarge  = "larger than every stock sheet (inside its margins) in every allowed rotation"
-	ReasonNoStock   = "no stock sheet left that it fits"
-	ReasonNonConvex = "its outline is not convex, so edge-to-edge cuts cannot free it, and it fits no other stock"
+	ReasonTooLarge  Reason = iota + 1 // larger than every stock sheet in every allowed rotation
+	ReasonNoStock                     // the counted stock ran out
+	ReasonNonConvex                   // edge-to-edge cuts cannot free it and no other stock takes it
 )
+
+// String says the reason in plain words.
+func (r Reason) String() string {
+	switch r {
+	case ReasonTooLarge:
+		return "larger than every stock sheet (inside its margins) in every allowed rotation"
+	case ReasonNoStock:
+		return "no stock sheet left that it fits"
+	case ReasonNonConvex:
+		return "its outline is not convex, so edge-to-edge cuts cannot free it, and it fits no other stock"
+	}
+	return fmt.Sprintf("Reason(%d)", int(r))
+}
 
 // StockUse sums up one stock size.
 type StockUse struct {

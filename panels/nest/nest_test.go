@@ -82,7 +82,7 @@ func checkResult(t testing.TB, parts []Part, stocks []Stock, r *Result) {
 	}
 	for _, u := range r.Unplaced {
 		seen[u.Part]++
-		if u.Reason == "" {
+		if u.Reason == 0 {
 			t.Fatalf("part %d unplaced without a reason", u.Part)
 		}
 	}
@@ -347,7 +347,7 @@ func TestCountLimit(t *testing.T) {
 		t.Fatal(err)
 	}
 	checkResult(t, parts, stocks, r)
-	if len(r.Sheets) != 2 || len(r.Unplaced) != 2 || r.Unplaced[0].Reason != "no stock sheet left that it fits" {
+	if len(r.Sheets) != 2 || len(r.Unplaced) != 2 || r.Unplaced[0].Reason != ReasonNoStock {
 		t.Errorf("sheets %d unplaced %+v", len(r.Sheets), r.Unplaced)
 	}
 	if _, err := Nest(parts, nil); err == nil {
