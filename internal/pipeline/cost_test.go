@@ -1,16 +1,11 @@
 package pipeline_test
 
 import (
-	"context"
-	"io"
-	"io/fs"
 	"math"
 	"strings"
 	"testing"
 
 	"pqfab/export"
-	"pqfab/internal/job"
-	"pqfab/internal/pipeline"
 )
 
 // TestCostChargesEachQuantityOnce builds a two-panel job with priced and
@@ -20,16 +15,9 @@ import (
 // both); making lines charge cut length and cut area, and setup lines
 // the number of distinct types.
 func TestCostChargesEachQuantityOnce(t *testing.T) {
-	files := map[string]string{
+	open := textOpener(map[string]string{
 		"net.obj": "v 0 0 0\nv 1500 0 0\nv 1500 1200 30\nv 0 1200 0\nv 3000 0 0\nv 3000 1200 0\nf 1 2 3 4\nf 2 5 6 3\n",
-	}
-	open := func(name string) (io.ReadCloser, error) {
-		s, ok := files[name]
-		if !ok {
-			return nil, fs.ErrNotExist
-		}
-		return io.NopCloser(strings.NewReader(s)), nil
-	}
+	})
 	base := `[net]
 file = "net.obj"
 [supports]
@@ -66,11 +54,7 @@ sheet_per_m2 = 17
 		{"unpriced stock", "0", "0", false, "m²", "m", 17, 3},
 	} {
 		text := strings.NewReplacer("%BAR%", tc.bar, "%SHEET%", tc.sheet).Replace(base)
-		j, err := job.Parse([]byte(text), "job.toml")
-		if err != nil {
-			t.Fatal(err)
-		}
-		res, err := pipeline.Run(context.Background(), j, open, pipeline.Quiet{}, pipeline.Policy{})
+		res, err := runJob(t, text, open)
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -1,41 +1,18 @@
 package pipeline_test
 
 import (
-	"context"
-	"io"
-	"io/fs"
 	"math"
 	"strings"
 	"testing"
 
 	"pqfab/export"
-	"pqfab/internal/job"
 	"pqfab/internal/pipeline"
-	"pqfab/samples"
 )
-
-// domeOpener opens "net.obj": the sample dome of the given panel count
-// as OBJ.
-func domeOpener(t *testing.T, panels int) pipeline.Opener {
-	t.Helper()
-	net, _ := samples.Make("dome", panels)
-	var obj strings.Builder
-	if err := export.WriteOBJ(&obj, net, "dome"); err != nil {
-		t.Fatal(err)
-	}
-	return func(name string) (io.ReadCloser, error) {
-		if name != "net.obj" {
-			return nil, fs.ErrNotExist
-		}
-		return io.NopCloser(strings.NewReader(obj.String())), nil
-	}
-}
 
 // runDome runs a job on a sample dome of 120 panels; extra is appended to
 // a job with [panel] settings and one stock.
 func runDome(t *testing.T, extra string) (*pipeline.Result, error) {
 	t.Helper()
-	open := domeOpener(t, 120)
 	text := `[net]
 file = "net.obj"
 [nodes]
@@ -53,11 +30,7 @@ name = "float"
 width_mm = 6000
 height_mm = 3210
 ` + extra
-	j, err := job.Parse([]byte(text), "job.toml")
-	if err != nil {
-		t.Fatal(err)
-	}
-	return pipeline.Run(context.Background(), j, open, pipeline.Quiet{}, pipeline.Policy{})
+	return runJob(t, text, sampleOpener(t, "dome", 120))
 }
 
 // TestPanelTypeOverrides: a [[panel_type]] table picking a bay gives its
