@@ -14,21 +14,20 @@ package pqfab
 
 import (
 	"context"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
 
 	"pqfab/export"
 	"pqfab/internal/job"
+	"pqfab/internal/outdir"
 	"pqfab/internal/pipeline"
+	"pqfab/internal/report"
 )
 
 // Job is a parsed job file; see the README for its keys.
 type Job = job.Job
-
-// Options say where a build reads its net (Open; nil: from disk), which
-// files it must never replace (the job and net files when read from
-// disk, and Keep), whether it replaces an output folder pqfab did not
-// write (Force) and whether it goes on past panels that miss the
-// flatness tolerance or fit no stock (Continue).
-type Options = pipeline.BuildOptions
 
 // Policy says whether a build goes on when panels miss the flatness
 // tolerance or fit no stock sheet (Options.Policy).
@@ -44,7 +43,7 @@ type Observer = pipeline.Observer
 type Quiet = pipeline.Quiet
 
 // Report is what a build wrote: the model of every output file.
-type Report = export.Report
+type Report = report.Report
 
 // PlanarityFailure is the error of a build whose panels miss the flatness
 // tolerance (without Continue); Path is its diagnostic report.
@@ -65,14 +64,76 @@ func ReadJob(path string) (*Job, error) { return job.ReadFile(path) }
 // and is where the net file is looked for.
 func ParseJob(data []byte, file string) (*Job, error) { return job.Parse(data, file) }
 
+// Options say where a build reads its net, what it may replace and
+// whether it goes on past panels that miss the flatness tolerance or fit
+// no stock (Policy).
+type Options struct {
+	// Open reads the net file (and the panels file of a CSV pair). Nil
+	// reads them from disk (pipeline.OpenFile), and then the job file and the net
+	// files are inputs no output may replace (pipeline.OutputOptions).
+	Open Opener
+	// Keep lists more files no output may replace, such as the files on
+	// disk that Open reads.
+	Keep []string
+	// Force replaces an output folder or diagnostic report that pqfab did
+	// not write; never an input.
+	Force bool
+	// OnTemp, if set, is told the temporary output folder's path before
+	// anything is written into it, so that a signal handler can remove it
+	// (outdir.TempFolder).
+	OnTemp func(path string)
+	Policy
+}
+
 // Build runs job j and writes every output into the folder dir, whole or
-// not at all. Before any work it checks that dir and its diagnostic
-// report (DIR-planarity.json) may be written: an existing folder is
-// replaced only when pqfab wrote it, it is empty, or opt.Force is set, and
-// never when it holds an input. When the panels miss the flatness
-// tolerance and opt.Continue is false, Build writes only the diagnostic
-// report and returns a *PlanarityFailure. A deadline on ctx, or the job's
-// nesting.seconds, stops the nesting's search early (with a warning).
+// not at all; it is the one way a build starts (the command's build and
+// demo call it). It checks first that dir and its diagnostic report
+// (DIR-planarity.json) may be written: an existing folder is replaced only
+// when pqfab wrote it, it is empty, or opt.Force is set, and never when it
+// holds an input (pipeline.OutputOptions). Then it runs the job
+// (pipeline.Run), fills the report from the result (report.New) and writes
+// every file from the report (export.WriteBuild). A deadline on ctx, or the
+// job's nesting.seconds, stops the nesting's search early (with a warning).
+// When the flatness tolerance is missed and opt.Continue is false it
+// writes only the diagnostic report and returns the *PlanarityFailure
+// with Path set. A successful build removes a stale diagnostic report
+// that pqfab wrote for dir earlier.
 func Build(ctx context.Context, j *Job, dir string, opt Options, obs Observer) (*Report, error) {
-	return pipeline.Build(ctx, j, dir, opt, obs)
+	open, inputs := opt.Open, opt.Keep
+	if open == nil {
+		open, inputs = pipeline.OpenFile, append([]string{j.File, j.NetPath()}, opt.Keep...)
+	}
+	diag := pipeline.DiagnosticPath(dir)
+	diagOpt := pipeline.OutputOptions(opt.Force, inputs...)
+	wopt := diagOpt
+	wopt.OnTemp = opt.OnTemp
+	if err := outdir.CheckFolder(dir, wopt); err != nil {
+		return nil, err
+	}
+	if err := outdir.CheckFiles(diagOpt, diag); err != nil {
+		return nil, err
+	}
+	res, err := pipeline.Run(ctx, j, open, obs, opt.Policy)
+	var pf *PlanarityFailure
+	if errors.As(err, &pf) {
+		pf.Path = diag
+		if werr := outdir.WriteFileAtomic(diag, diagOpt, func(w io.Writer) error {
+			enc := json.NewEncoder(w)
+			enc.SetIndent("", " ")
+			return enc.Encode(pf.Report)
+		}); werr != nil {
+			return nil, fmt.Errorf("%v (and the diagnostic report could not be written: %v)", err, werr)
+		}
+		return nil, pf
+	} else if err != nil {
+		return nil, err
+	}
+	rep := report.New(res)
+	if err := export.WriteBuild(dir, wopt, res.FileNet(), res.Warnings, rep, func(done, total int, what string) { obs.Step("write", done, total, "write "+what) }); err != nil {
+		return nil, err
+	}
+	if err := outdir.RemoveOwnFile(diag); err != nil {
+		obs.Warn(fmt.Sprintf("the stale diagnostic report %s could not be removed: %v", diag, err))
+	}
+	return rep, nil
 }

@@ -12,6 +12,7 @@ import (
 	"github.com/yofu/dxf/table"
 
 	"pqfab/geom"
+	"pqfab/internal/report"
 )
 
 // Layers of the assembly plan beyond the shared ones in dxf.go.
@@ -72,7 +73,7 @@ type planLabel struct {
 // candidates off the member lines, smaller if need be, else moved away
 // with a leader line. Every member is also drawn as a 3D line at its true
 // height. It holds the DXF lock while it works (see dxfMu).
-func WriteAssemblyDXF(w io.Writer, rep *Report) error {
+func WriteAssemblyDXF(w io.Writer, rep *report.Report) error {
 	m, err := newSiteModel(rep)
 	if err != nil {
 		return err
@@ -90,7 +91,7 @@ func WriteAssemblyDXF(w io.Writer, rep *Report) error {
 }
 
 // drawAssembly draws the assembly plan.
-func drawAssembly(d *dxfDoc, rep *Report, m *siteModel, ps planScale, pl *assemblyLayout) error {
+func drawAssembly(d *dxfDoc, rep *report.Report, m *siteModel, ps planScale, pl *assemblyLayout) error {
 	var steps []func() error
 	add := func(f func() error) { steps = append(steps, f) }
 	layer := func(name string) { add(func() error { return useLayer(d, name) }) }
@@ -409,7 +410,7 @@ func legendBlock(m *siteModel, ps planScale, x, top float64) ([]planText, float6
 // titleBlock lays out the title, what the drawing is, counts and the
 // caution, top-left corner at (x, top), at most width wide; it returns the
 // texts and the frame around them.
-func titleBlock(rep *Report, ps planScale, x, top, width float64) ([]planText, [][2]float64) {
+func titleBlock(rep *report.Report, ps planScale, x, top, width float64) ([]planText, [][2]float64) {
 	var out []planText
 	th := 5 * ps.h
 	y := top - th - ps.h
@@ -427,7 +428,7 @@ func titleBlock(rep *Report, ps planScale, x, top, width float64) ([]planText, [
 	y -= 3.5 * ps.h
 	ch := 1.6 * ps.h
 	chars := max(20, int((width-4*ps.h)/(DXFCharWidth*ch)))
-	for _, para := range append([]string{"CAUTION: " + Caution}, warningLines(rep.Warnings)...) {
+	for _, para := range append([]string{"CAUTION: " + report.Caution}, warningLines(rep.Warnings)...) {
 		for _, l := range wrapWords(para, chars) {
 			out = append(out, planText{l, left, y, ch})
 			y -= 2.6 * ps.h
@@ -440,7 +441,7 @@ func titleBlock(rep *Report, ps planScale, x, top, width float64) ([]planText, [
 // barOutline returns the plan outline of a member's top face: the
 // section width across the member (along its frame's Y axis) and the cut
 // length between the hub setbacks.
-func barOutline(m MemberRow, a, b [3]float64, width float64) [][2]float64 {
+func barOutline(m report.MemberRow, a, b [3]float64, width float64) [][2]float64 {
 	d := [3]float64{b[0] - a[0], b[1] - a[1], b[2] - a[2]}
 	l := math.Sqrt(d[0]*d[0] + d[1]*d[1] + d[2]*d[2])
 	at := func(t, side float64) [2]float64 {

@@ -6,6 +6,7 @@ import (
 	"image/color"
 	"io"
 	"math"
+	"pqfab/internal/report"
 	"strings"
 )
 
@@ -24,7 +25,7 @@ type planView struct {
 }
 
 type htmlPage struct {
-	R          *Report
+	R          *report.Report
 	BarChart   template.HTML
 	MoreBars   int
 	Plans      []planView
@@ -39,8 +40,8 @@ type htmlPage struct {
 // external files) with the summary and cautions, plan views coloured by
 // node move, member twist and panel type, histograms, the type tables and
 // a preview of every stock sheet.
-func WriteHTML(w io.Writer, rep *Report) error {
-	pg := &htmlPage{R: rep, CostNote: CostNote}
+func WriteHTML(w io.Writer, rep *report.Report) error {
+	pg := &htmlPage{R: rep, CostNote: report.CostNote}
 	pg.Plans = planViews(rep)
 	var flatB, flatA, twist, cut []float64
 	for _, p := range rep.Panels {
@@ -85,7 +86,7 @@ func WriteHTML(w io.Writer, rep *Report) error {
 // planViews draws the plan three times: panels coloured by the largest
 // move of their corners, members coloured by twist, panels coloured by
 // type.
-func planViews(rep *Report) []planView {
+func planViews(rep *report.Report) []planView {
 	pos := make(map[string][3]float64, len(rep.Nodes))
 	moveOf := make(map[string]float64, len(rep.Nodes))
 	lox, loy, hix, hiy := math.Inf(1), math.Inf(1), math.Inf(-1), math.Inf(-1)
@@ -176,7 +177,7 @@ func planViews(rep *Report) []planView {
 }
 
 // sheetSVG draws one stock sheet with its parts and labels.
-func sheetSVG(rep *Report, s SheetRow) string {
+func sheetSVG(rep *report.Report, s report.SheetRow) string {
 	const w = 420.0
 	scale := w / s.WidthMM
 	h := s.HeightMM * scale
@@ -195,7 +196,7 @@ func sheetSVG(rep *Report, s SheetRow) string {
 			}
 			fmt.Fprintf(&b, "%.1f,%.1f", v[0]*scale, h-v[1]*scale)
 		}
-		fmt.Fprintf(&b, `" fill="%s" stroke="#222" stroke-width="0.6"/>`, typeColour(index[rep.panelRow(p.Panel).Type]))
+		fmt.Fprintf(&b, `" fill="%s" stroke="#222" stroke-width="0.6"/>`, typeColour(index[rep.Panel(p.Panel).Type]))
 		cx, cy, _ := labelSpot(p.Outline)
 		fmt.Fprintf(&b, `<text x="%.1f" y="%.1f" font-size="9" text-anchor="middle">%s</text>`, cx*scale, h-cy*scale, template.HTMLEscapeString(p.Panel))
 	}

@@ -4,6 +4,7 @@ import (
 	"bufio"
 	"encoding/json"
 	"io"
+	"pqfab/internal/report"
 	"reflect"
 	"strings"
 )
@@ -12,7 +13,7 @@ import (
 // the report's top-level lists are encoded one row at a time, so the
 // encoder never holds the whole file; the bytes are those of
 // json.Encoder.Encode for the whole report.
-func WriteJSON(w io.Writer, rep *Report) error {
+func WriteJSON(w io.Writer, rep *report.Report) error {
 	bw := bufio.NewWriterSize(w, 1<<16)
 	if err := streamObject(bw, reflect.ValueOf(rep).Elem()); err != nil {
 		return err

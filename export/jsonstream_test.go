@@ -3,6 +3,7 @@ package export
 import (
 	"bytes"
 	"encoding/json"
+	"pqfab/internal/report"
 	"testing"
 )
 
@@ -11,9 +12,9 @@ import (
 // library is the reference), with HTML-sensitive text, nil and empty
 // lists, an omitted and a present optional field.
 func TestWriteJSONStreamsSameBytes(t *testing.T) {
-	for _, rep := range []*Report{
-		{Title: "a <b> & \"c\" é", Warnings: []string{}, Nodes: []NodeRow{{Label: "A1-01", Arms: []ArmRow{{Member: "A1-M01", AzimuthDeg: 12.5}}}}},
-		{Title: "t", Cost: &Cost{Currency: "EUR", Lines: []CostLine{{Item: "x", Amount: 1.5}}}, Panels: []PanelRow{{Label: "A1-P01", Corners: []string{"a", "b"}}}, Sheets: []SheetRow{}},
+	for _, rep := range []*report.Report{
+		{Title: "a <b> & \"c\" é", Warnings: []string{}, Nodes: []report.NodeRow{{Label: "A1-01", Arms: []report.ArmRow{{Member: "A1-M01", AzimuthDeg: 12.5}}}}},
+		{Title: "t", Cost: &report.Cost{Currency: "EUR", Lines: []report.CostLine{{Item: "x", Amount: 1.5}}}, Panels: []report.PanelRow{{Label: "A1-P01", Corners: []string{"a", "b"}}}, Sheets: []report.SheetRow{}},
 	} {
 		var want, got bytes.Buffer
 		if err := json.NewEncoder(&want).Encode(rep); err != nil {

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"pqfab/internal/report"
 	"strings"
 
 	"github.com/yofu/dxf/color"
@@ -46,18 +47,11 @@ type memberDrawing struct {
 	WallMM                float64 // hollow section's wall; 0 solid
 	CutLengthMM, BlankMM  float64
 	SetOutMM              float64 // node to node
-	Faces                 FaceLengthsRow
-	Ends                  [2]TypeEndRow // nominal mitre, bevel and setback at A and B
+	Faces                 report.FaceLengthsRow
+	Ends                  [2]report.TypeEndRow // nominal mitre, bevel and setback at A and B
 	TwistDeg              float64
 	DevMM, DevDeg         float64 // largest deviation of a part from the nominal
 	Warnings              []string
-}
-
-// endOffset returns how far along the member axis the end cut at section
-// point (y, z) lies from the cut's axis point, for a plane with the given
-// mitre and bevel (normal oriented along +x): x = −y·tan(mitre) − z·tan(bevel).
-func endOffset(e TypeEndRow, y, z float64) float64 {
-	return -y*math.Tan(e.MitreDeg*math.Pi/180) - z*math.Tan(e.BevelDeg*math.Pi/180)
 }
 
 // samePointMM: opposite faces whose lengths differ by less than this
@@ -104,11 +98,11 @@ func drawMember(d *dxfDoc, m memberDrawing) error {
 	// A view: the member between its cuts, seen across the coordinate c
 	// (z in the elevation, y in the plan), drawn with c upwards at y0.
 	view := func(y0, half float64, onZ bool) [][2]float64 {
-		off := func(e TypeEndRow, c float64) float64 {
+		off := func(e report.TypeEndRow, c float64) float64 {
 			if onZ {
-				return endOffset(e, 0, c)
+				return e.Offset(0, c)
 			}
-			return endOffset(e, c, 0)
+			return e.Offset(c, 0)
 		}
 		return [][2]float64{{off(a, -half), y0 - half}, {L + off(b, -half), y0 - half}, {L + off(b, half), y0 + half}, {off(a, half), y0 + half}}
 	}
@@ -206,7 +200,7 @@ func drawMember(d *dxfDoc, m memberDrawing) error {
 	yt := yTwist - row - (1.5*float64(len(notes))+1)*h
 	add(func() error { return useLayer(d, LayerTitle) })
 	add(func() error { return text(d, m.Title+" - member type "+m.Name+", mm, 1:1", L/2, yt, 0, 1.5*h, 0) })
-	add(func() error { return text(d, "CAUTION: "+Caution, L/2, yt-2.2*h, 0, 0.6*h, 0) })
+	add(func() error { return text(d, "CAUTION: "+report.Caution, L/2, yt-2.2*h, 0, 0.6*h, 0) })
 	for i, wl := range warningLines(m.Warnings) {
 		add(func() error { return text(d, wl, L/2, yt-(3.4+1.2*float64(i))*h, 0, 0.6*h, 0) })
 	}
@@ -221,7 +215,7 @@ func drawMember(d *dxfDoc, m memberDrawing) error {
 // endAllowance returns how far a member's blank reaches past an end cut's
 // axis point: (w/2)·|tan mitre| + (d/2)·|tan bevel| (nodes/bars derives
 // it), for drawing the blank.
-func endAllowance(e TypeEndRow, w, d float64) float64 {
+func endAllowance(e report.TypeEndRow, w, d float64) float64 {
 	return w/2*math.Abs(math.Tan(e.MitreDeg*math.Pi/180)) + d/2*math.Abs(math.Tan(e.BevelDeg*math.Pi/180))
 }
 
@@ -262,7 +256,7 @@ func wrapLabels(lead string, labels []string, per int) []string {
 // WriteMemberTypeDXF writes member type t of the report as a drawing
 // (member-types/MT-NNN.dxf). Safe to call concurrently: drawings are built
 // one at a time.
-func WriteMemberTypeDXF(w io.Writer, rep *Report, t int) error {
+func WriteMemberTypeDXF(w io.Writer, rep *report.Report, t int) error {
 	mt := rep.MemberTypes[t]
 	return writeMemberDXF(w, memberDrawing{Title: rep.Title, Name: mt.Name, Material: rep.MemberMaterial.Name, Count: mt.Count,
 		Parts: mt.Parts, ReadFromB: mt.ReadFromB, WidthMM: rep.Section.WidthMM, DepthMM: rep.Section.DepthMM, WallMM: rep.Section.WallMM,

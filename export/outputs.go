@@ -9,18 +9,7 @@ import (
 
 	"pqfab/geom"
 	"pqfab/internal/outdir"
-)
-
-// Output file names inside the build folder.
-const (
-	FileSchedule   = "schedule.xlsx"
-	FileAssembly   = "assembly-plan.dxf"
-	FileNet        = "net-flat.obj"
-	FileReport     = "report.json"
-	FileHTML       = "report.html"
-	DirSheets      = "sheets"
-	DirPanelTypes  = "panel-types"
-	DirMemberTypes = "member-types"
+	"pqfab/internal/report"
 )
 
 // Progress is told how many output files are done of how many.
@@ -29,17 +18,17 @@ type Progress func(done, total int, what string)
 // WriteBuild writes every output of a build into dir, atomically and only
 // where opt allows (see outdir.WriteFolder): all from the report, except
 // net-flat.obj, the planarized net with the build's warnings (the
-// bundle's, BuildReport) in its header. The files are written side by
+// result's, before the report adds its own) in its header. The files are written side by
 // side, as many at a time as there are processors. It holds nothing else
 // of the build, so the rest can be freed while it writes.
-func WriteBuild(dir string, opt outdir.Options, net *geom.Net, warnings []string, rep *Report, progress Progress) error {
+func WriteBuild(dir string, opt outdir.Options, net *geom.Net, warnings []string, rep *report.Report, progress Progress) error {
 	return outdir.WriteFolder(dir, opt, func(tmp string) error {
-		for _, d := range []string{DirSheets, DirSite, DirPanelTypes, DirMemberTypes} {
+		for _, d := range []string{report.DirSheets, report.DirSite, report.DirPanelTypes, report.DirMemberTypes} {
 			if err := os.Mkdir(filepath.Join(tmp, d), 0o755); err != nil {
 				return err
 			}
 		}
-		total := 5 + SiteFiles + len(rep.Sheets) + len(rep.PanelTypes) + len(rep.MemberTypes)
+		total := 5 + report.SiteFiles + len(rep.Sheets) + len(rep.PanelTypes) + len(rep.MemberTypes)
 		var mu sync.Mutex
 		done := 0
 		step := func(what string) {
@@ -63,24 +52,24 @@ func WriteBuild(dir string, opt outdir.Options, net *geom.Net, warnings []string
 		// there are processors, take them in order; each file's bytes
 		// depend only on the report, never on which worker wrote it.
 		jobs := []func() error{
-			file(FileAssembly, func(w io.Writer) error { return WriteAssemblyDXF(w, rep) }),
-			file(FileSchedule, func(w io.Writer) error { return WriteSchedule(w, rep) }),
-			file(FileReport, func(w io.Writer) error { return WriteJSON(w, rep) }),
-			file(FileHTML, func(w io.Writer) error { return WriteHTML(w, rep) }),
-			file(FileView, func(w io.Writer) error { return WriteView(w, rep) }),
-			file(FilePlanPDF, func(w io.Writer) error { return WritePlanPDF(w, rep) }),
-			file(FileTagsPDF, func(w io.Writer) error { return WriteTagsPDF(w, rep) }),
-			file(FileNet, func(w io.Writer) error { return WriteOBJ(w, net, "pqfab planarized net: "+rep.Title, warnings...) }),
+			file(report.FileAssembly, func(w io.Writer) error { return WriteAssemblyDXF(w, rep) }),
+			file(report.FileSchedule, func(w io.Writer) error { return WriteSchedule(w, rep) }),
+			file(report.FileReport, func(w io.Writer) error { return WriteJSON(w, rep) }),
+			file(report.FileHTML, func(w io.Writer) error { return WriteHTML(w, rep) }),
+			file(report.FileView, func(w io.Writer) error { return WriteView(w, rep) }),
+			file(report.FilePlanPDF, func(w io.Writer) error { return WritePlanPDF(w, rep) }),
+			file(report.FileTagsPDF, func(w io.Writer) error { return WriteTagsPDF(w, rep) }),
+			file(report.FileNet, func(w io.Writer) error { return WriteOBJ(w, net, "pqfab planarized net: "+rep.Title, warnings...) }),
 		}
 		for i := range rep.Sheets {
-			name := filepath.Join(DirSheets, SheetFile(i, len(rep.Sheets)))
+			name := filepath.Join(report.DirSheets, SheetFile(i, len(rep.Sheets)))
 			jobs = append(jobs, file(name, func(w io.Writer) error { return WriteSheetDXF(w, rep, i) }))
 		}
 		for i, t := range rep.PanelTypes {
-			jobs = append(jobs, file(filepath.Join(DirPanelTypes, t.Name+".dxf"), func(w io.Writer) error { return WritePanelTypeDXF(w, rep, i) }))
+			jobs = append(jobs, file(filepath.Join(report.DirPanelTypes, t.Name+".dxf"), func(w io.Writer) error { return WritePanelTypeDXF(w, rep, i) }))
 		}
 		for i, t := range rep.MemberTypes {
-			jobs = append(jobs, file(filepath.Join(DirMemberTypes, t.Name+".dxf"), func(w io.Writer) error { return WriteMemberTypeDXF(w, rep, i) }))
+			jobs = append(jobs, file(filepath.Join(report.DirMemberTypes, t.Name+".dxf"), func(w io.Writer) error { return WriteMemberTypeDXF(w, rep, i) }))
 		}
 		errs := make([]error, len(jobs))
 		next := make(chan int)

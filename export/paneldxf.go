@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"pqfab/internal/report"
 	"strings"
 
 	"github.com/yofu/dxf/color"
@@ -39,11 +40,11 @@ type panelDrawing struct {
 	Mirrored              []string // parts cut from this shape turned over
 	Cut, SetOut           [][2]float64
 	EdgesMM, AnglesDeg    []float64
-	Diagonals             []DiagonalRow // From and To are corner numbers from 1
-	BevelsDeg             [][2]float64  // per edge: least and most over the parts
-	PartBevels            []PartBevelsRow
+	Diagonals             []report.DiagonalRow // From and To are corner numbers from 1
+	BevelsDeg             [][2]float64         // per edge: least and most over the parts
+	PartBevels            []report.PartBevelsRow
 	BevelledEdges         bool // the bevels are part of the type
-	Spec                  PanelSpec
+	Spec                  report.PanelSpec
 	DevMM, DevDeg         float64
 	Warnings              []string
 }
@@ -94,7 +95,7 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 		add(func() error {
 			mid, ang, out := edgeSpot(p.Cut, j, -2.2*h)
 			away := unit2(out[0]-mid[0], out[1]-mid[1])
-			if err := clear(fmt.Sprintf("%s%d %s", panelEdgeText, j+1, fixed(p.EdgesMM[j], lenDigits)), out[0], out[1], h, ang, away); err != nil {
+			if err := clear(fmt.Sprintf("%s%d %s", panelEdgeText, j+1, fixed(p.EdgesMM[j], report.LenDigits)), out[0], out[1], h, ang, away); err != nil {
 				return err
 			}
 			_, _, in := edgeSpot(p.Cut, j, 1.6*h)
@@ -105,7 +106,7 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 			}
 			c := inward(p.Cut, j, 5*h)
 			dir := unit2(c[0]-p.Cut[j][0], c[1]-p.Cut[j][1])
-			return clear(fmt.Sprintf("%s%d %s°", panelAngleText, j+1, fixed(p.AnglesDeg[j], angleDigits)), c[0], c[1], 0.8*h, 0, dir)
+			return clear(fmt.Sprintf("%s%d %s°", panelAngleText, j+1, fixed(p.AnglesDeg[j], report.AngleDigits)), c[0], c[1], 0.8*h, 0, dir)
 		})
 	}
 	for n, dg := range p.Diagonals {
@@ -132,7 +133,7 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 			if t > 0.5 {
 				dir = [2]float64{-dir[0], -dir[1]}
 			}
-			return clear(fmt.Sprintf("%s%d-%d %s", panelDiagonalText, i, j, fixed(dg.MM, lenDigits)), mx, my+0.8*h, 0.8*h, ang, dir)
+			return clear(fmt.Sprintf("%s%d-%d %s", panelDiagonalText, i, j, fixed(dg.MM, report.LenDigits)), mx, my+0.8*h, 0.8*h, ang, dir)
 		})
 	}
 	add(func() error {
@@ -170,7 +171,7 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 	yt := loy - (6.5+1.4*float64(len(notes)))*h
 	add(func() error { return useLayer(d, LayerTitle) })
 	add(func() error { return text(d, p.Title+" - panel type "+p.Name+", mm, 1:1", cx, yt, 0, 1.5*h, 0) })
-	add(func() error { return text(d, "CAUTION: "+Caution, cx, yt-2.2*h, 0, 0.6*h, 0) })
+	add(func() error { return text(d, "CAUTION: "+report.Caution, cx, yt-2.2*h, 0, 0.6*h, 0) })
 	for i, wl := range warningLines(p.Warnings) {
 		add(func() error { return text(d, wl, cx, yt-(3.4+1.2*float64(i))*h, 0, 0.6*h, 0) })
 	}
@@ -189,7 +190,7 @@ const PartBevelsText = "bevels of "
 
 // partBevelLines lists every part's bevels by the type's edges; a part
 // cut turned over says so (its own signs are reversed).
-func partBevelLines(parts []PartBevelsRow, turned []string, k int) []string {
+func partBevelLines(parts []report.PartBevelsRow, turned []string, k int) []string {
 	over := map[string]bool{}
 	for _, l := range turned {
 		over[l] = true
@@ -301,7 +302,7 @@ func bounds(pts [][2]float64) (lox, loy, hix, hiy float64) {
 // WritePanelTypeDXF writes panel type t of the report as a drawing
 // (panel-types/PT-NNN.dxf). Safe to call concurrently: drawings are built
 // one at a time.
-func WritePanelTypeDXF(w io.Writer, rep *Report, t int) error {
+func WritePanelTypeDXF(w io.Writer, rep *report.Report, t int) error {
 	pt := rep.PanelTypes[t]
 	thick := rep.PanelMaterial.ThicknessMM
 	if pt.Spec.ThicknessMM > 0 {

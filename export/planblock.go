@@ -8,6 +8,7 @@ import (
 	"github.com/go-pdf/fpdf"
 
 	"pqfab/geom"
+	"pqfab/internal/report"
 )
 
 // The furniture of a plan page around the drawing: bubbles, scale bar,
@@ -15,7 +16,7 @@ import (
 
 // pageBubbles returns the bay letters along the top edge of the drawing
 // area and the row numbers along its left edge, for the bays in view.
-func pageBubbles(v *pageView, g BayGrid) []bubble {
+func pageBubbles(v *pageView, g report.BayGrid) []bubble {
 	var out []bubble
 	a := v.area
 	for c := int(math.Floor((v.wx0 - g.OriginMM[0]) / g.SizeMM[0])); ; c++ {
@@ -165,7 +166,7 @@ func drawSideColumn(pdf *fpdf.Fpdf, m *siteModel, k int, b *siteBay, v *pageView
 	// Title block at the bottom: caution, files.
 	bottom := planPageH - planMarginMM - 3
 	pdf.SetFont("Helvetica", "", 6.5)
-	caution := splitLines(pdf, pdfText("CAUTION: "+Caution), iw)
+	caution := splitLines(pdf, pdfText("CAUTION: "+report.Caution), iw)
 	for _, wl := range warningLines(m.rep.Warnings) {
 		caution = append(caution, splitLines(pdf, pdfText(wl), iw)...)
 	}

@@ -8,6 +8,7 @@ import (
 	"github.com/go-pdf/fpdf"
 
 	"pqfab/geom"
+	"pqfab/internal/report"
 )
 
 // planIndexPages is how many pages come before the bay pages in
@@ -106,5 +107,5 @@ func drawPlanIndex(pdf *fpdf.Fpdf, m *siteModel, links []int) {
 	// Caution at the foot.
 	pdf.SetFont("Helvetica", "", 7)
 	pdf.SetXY(x, planPageH-planMarginMM-14)
-	pdf.MultiCell(w, 3.2, pdfText("CAUTION: "+Caution), "", "L", false)
+	pdf.MultiCell(w, 3.2, pdfText("CAUTION: "+report.Caution), "", "L", false)
 }

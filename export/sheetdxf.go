@@ -10,6 +10,7 @@ import (
 	"github.com/yofu/dxf/color"
 
 	"pqfab/geom"
+	"pqfab/internal/report"
 )
 
 // Layers of the cut sheets: one concept each, colour by layer.
@@ -46,7 +47,7 @@ const cutOrderColor = 30
 //
 // It is safe to call from several goroutines: drawings are built one at a
 // time (the DXF library keeps package-level state).
-func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
+func WriteSheetDXF(w io.Writer, rep *report.Report, sheet int) error {
 	layers := []dxfLayer{{LayerSheetEdge, color.Grey128, nil}, {LayerSheetMargin, color.Cyan, nil},
 		{LayerCut, color.Red, nil}, {LayerEngrave, color.Green, nil}, {LayerPartText, color.Grey128, nil}, {LayerPartMark, color.Magenta, nil},
 		{LayerBevel, color.Yellow, nil}, {LayerGrain, color.Blue, nil}, {LayerCutOrder, cutOrderColor, nil}, {LayerCutNumber, cutOrderColor, nil},
@@ -55,7 +56,7 @@ func WriteSheetDXF(w io.Writer, rep *Report, sheet int) error {
 }
 
 // drawSheet draws cut sheet number sheet.
-func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
+func drawSheet(d *dxfDoc, rep *report.Report, sheet int) error {
 	s := rep.Sheets[sheet]
 	grain := s.Rotation == "grain"
 	m := s.MarginMM
@@ -78,7 +79,7 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 			add(func() error {
 				cx, cy, size := labelSpot(p.Outline)
 				h := partTextHeight(size)
-				second := rep.panelRow(p.Panel).Type
+				second := rep.Panel(p.Panel).Type
 				if p.Mirrored {
 					second += " inside face up"
 				}
@@ -104,7 +105,7 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 	}
 	add(func() error { return useLayer(d, LayerBevel) })
 	for _, p := range s.Placements {
-		add(func() error { return bevelTexts(d, p, *rep.panelRow(p.Panel)) })
+		add(func() error { return bevelTexts(d, p, *rep.Panel(p.Panel)) })
 	}
 	if grain {
 		add(func() error { return useLayer(d, LayerGrain) })
@@ -121,7 +122,7 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 				h := partTextHeight(size)
 				// The panel's grain direction where the part lies: its
 				// own direction, mirrored if the part is, then turned.
-				g := rep.panelRow(p.Panel).GrainDeg
+				g := rep.Panel(p.Panel).GrainDeg
 				if p.Mirrored {
 					g = 180 - g
 				}
@@ -192,7 +193,7 @@ func drawSheet(d *dxfDoc, rep *Report, sheet int) error {
 			s.WidthMM/2, -100, 0, 14, 0)
 	})
 	add(func() error { return text(d, BevelSignNote, s.WidthMM/2, -130, 0, 14, 0) })
-	add(func() error { return text(d, "CAUTION: "+Caution, s.WidthMM/2, -150, 0, 14, 0) })
+	add(func() error { return text(d, "CAUTION: "+report.Caution, s.WidthMM/2, -150, 0, 14, 0) })
 	for i, wl := range warningLines(rep.Warnings) {
 		add(func() error { return text(d, wl, s.WidthMM/2, -190-30*float64(i), 0, 14, 0) })
 	}
@@ -258,7 +259,7 @@ func offOutlines(a, b [2]float64, segs [][2][2]float64) [][2][2]float64 {
 // the middle of its longest drawn span, else of the cut, where the circle
 // is clear of the parts; else at a quarter or three quarters along; each
 // on the cut or beside it on either side; the middle when none is clear.
-func cutNumberSpot(c SheetCutRow, spans [][2][2]float64, rad float64, segs [][2][2]float64, parts []geom.Polygon) [2]float64 {
+func cutNumberSpot(c report.SheetCutRow, spans [][2][2]float64, rad float64, segs [][2][2]float64, parts []geom.Polygon) [2]float64 {
 	a, b := c.From, c.To
 	best := -1.0
 	for _, sp := range spans {
@@ -301,7 +302,7 @@ func partTextHeight(size float64) float64 { return math.Max(10, math.Min(80, siz
 // part cut turned over (mirrored) runs corner 1, k, k−1, … of the panel,
 // which is its type's order; so the placed outline's order numbers the
 // edges as the type drawing does, for every part.
-func partMarks(d *dxfDoc, p PlacementRow) error {
+func partMarks(d *dxfDoc, p report.PlacementRow) error {
 	_, _, size := labelSpot(p.Outline)
 	h := 0.5 * partTextHeight(size)
 	k := len(p.Outline)
@@ -319,7 +320,7 @@ func partMarks(d *dxfDoc, p PlacementRow) error {
 }
 
 // bevelTexts writes each edge's bevel along it, inside the edge number.
-func bevelTexts(d *dxfDoc, p PlacementRow, panel PanelRow) error {
+func bevelTexts(d *dxfDoc, p report.PlacementRow, panel report.PanelRow) error {
 	_, _, size := labelSpot(p.Outline)
 	h := 0.4 * partTextHeight(size)
 	k := len(p.Outline)
@@ -404,15 +405,6 @@ func arrow(d *dxfDoc, x0, y0, x1, y1, h float64) error {
 		}
 	}
 	return nil
-}
-
-// panelRow returns the row of the panel with this label (indexed by
-// BuildReport), or an empty row for a label the report does not hold.
-func (rep *Report) panelRow(label string) *PanelRow {
-	if p := rep.panelOf[label]; p != nil {
-		return p
-	}
-	return &PanelRow{Label: label}
 }
 
 // labelSpot returns the centroid of an outline and its size.

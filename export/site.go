@@ -9,28 +9,8 @@ import (
 	"strings"
 
 	"pqfab/geom"
+	"pqfab/internal/report"
 	"pqfab/nodes"
-)
-
-// Output files for the site team.
-const (
-	DirSite     = "site"
-	FilePlanPDF = "site/plan.pdf"
-	FileTagsPDF = "site/tags.pdf"
-	FileView    = "view.html"
-	// SiteFiles is how many of the files above WriteBuild writes.
-	SiteFiles = 3
-)
-
-// Size limits of the site files. Beyond them the file holds one page that
-// says so (and the report carries a warning): the assembly plan DXF, the
-// schedule and view.html still hold every part.
-const (
-	// MaxPlanPages: plan.pdf has a page per bay up to this many bays.
-	MaxPlanPages = 600
-	// MaxTags: tags.pdf has a tag per part (nodes, members and panels
-	// together) up to this many parts (500 sheets of 24 labels).
-	MaxTags = 12000
 )
 
 // HubFrameNote defines the hub angles for the people who read them; it is
@@ -51,7 +31,7 @@ func azimuthZeroText(zero string) string {
 }
 
 // AxisTiltText says how a node's axis leans, for a tag.
-func AxisTiltText(n NodeRow) string {
+func AxisTiltText(n report.NodeRow) string {
 	s := fmt.Sprintf("axis tilt %.1f°", r(n.AxisTiltDeg, 1))
 	if r(n.AxisTiltDeg, 1) > 0 {
 		s += fmt.Sprintf(" toward %.0f° ccw from north", math.Mod(r(n.AxisTiltTowardDeg, 0), 360))
@@ -66,18 +46,6 @@ func AxisTiltText(n NodeRow) string {
 const NumberingNote = "Numbering in a bay: row by row from the bay's lower-left corner, by x along a row. " +
 	"Members and panels take the bay of their midpoint or centre."
 
-// BayGrid is the plan bay grid the labels use (see geom.Bays): columns
-// lettered along x, rows numbered along y.
-type BayGrid struct {
-	OriginMM [2]float64 `json:"origin_mm"` // lower-left corner of bay A1
-	SizeMM   [2]float64 `json:"size_mm"`   // bay width along x, depth along y
-}
-
-func bayGridOf(b geom.Bays) BayGrid {
-	return BayGrid{OriginMM: [2]float64{r(b.Origin.X, lenDigits), r(b.Origin.Y, lenDigits)},
-		SizeMM: [2]float64{r(b.SizeX, lenDigits), r(b.SizeY, lenDigits)}}
-}
-
 // siteBay is one bay that holds parts, with the parts' indices in the
 // report (each list in label order).
 type siteBay struct {
@@ -91,8 +59,8 @@ type siteBay struct {
 // siteModel is what the site files share: node positions by label, the
 // bays that hold parts in column-then-row order, and the plan extent.
 type siteModel struct {
-	rep     *Report
-	grid    BayGrid
+	rep     *report.Report
+	grid    report.BayGrid
 	nodeIdx map[string]int
 	bays    []*siteBay
 	bayIdx  map[[2]int]int
@@ -103,7 +71,7 @@ type siteModel struct {
 
 // newSiteModel indexes a report for the site files. Every label must
 // carry a bay (as pqfab's labels do).
-func newSiteModel(rep *Report) (*siteModel, error) {
+func newSiteModel(rep *report.Report) (*siteModel, error) {
 	g := rep.Bays
 	if !(g.SizeMM[0] > 0) || !(g.SizeMM[1] > 0) {
 		return nil, fmt.Errorf("the bay grid has no size (%g × %g mm)", g.SizeMM[0], g.SizeMM[1])
@@ -214,30 +182,3 @@ func (m *siteModel) gridRange() (cols, rows int) {
 
 // heightText is a node's height as printed: z in whole millimetres.
 func heightText(z float64) string { return fmt.Sprintf("z %.0f", r(z, 0)) }
-
-// siteWarnings says which site files are cut short by the size limits.
-func siteWarnings(rep *Report) []string {
-	var w []string
-	if n := len(rep.Nodes) + len(rep.Members) + len(rep.Panels); n > MaxTags {
-		w = append(w, fmt.Sprintf("%s holds no tags: the job has %d parts, more than the %d tags pqfab prints in one file", FileTagsPDF, n, MaxTags))
-	}
-	bays := map[string]bool{}
-	for _, n := range rep.Nodes {
-		bays[bayName(n.Label)] = true
-	}
-	for _, m := range rep.Members {
-		bays[bayName(m.Label)] = true
-	}
-	for _, p := range rep.Panels {
-		bays[bayName(p.Label)] = true
-	}
-	if len(bays) > MaxPlanPages {
-		w = append(w, fmt.Sprintf("%s holds no bay pages: the job spans %d bays, more than the %d pages pqfab prints in one file", FilePlanPDF, len(bays), MaxPlanPages))
-	}
-	return w
-}
-
-func bayName(label string) string {
-	name, _, _ := strings.Cut(label, "-")
-	return name
-}

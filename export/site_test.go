@@ -10,12 +10,13 @@ import (
 	"testing"
 
 	"pqfab/geom"
+	"pqfab/internal/report"
 )
 
 // gridReport is a report for an nx × ny grid of nodes spaced sp mm (a
 // gentle vault, z rising to the middle), members along both grid
 // directions and a quad panel in every cell, labelled with bays of bay mm.
-func gridReport(t testing.TB, nx, ny int, sp, bay float64) *Report {
+func gridReport(t testing.TB, nx, ny int, sp, bay float64) *report.Report {
 	t.Helper()
 	var pts []geom.Vec
 	for j := 0; j < ny; j++ {
@@ -73,25 +74,25 @@ func gridReport(t testing.TB, nx, ny int, sp, bay float64) *Report {
 		pkeys[k] = fmt.Sprint(k)
 	}
 	pl := b.Label(cents, pkeys, "P")
-	rep := &Report{Title: "grid", Bays: bayGridOf(b), Section: Section{WidthMM: 60, DepthMM: 120}}
-	arms := map[int][]ArmRow{}
+	rep := &report.Report{Title: "grid", Bays: report.BayGridOf(b), Section: report.Section{WidthMM: 60, DepthMM: 120}}
+	arms := map[int][]report.ArmRow{}
 	for k, e := range edges {
 		pa, pb := pts[e.a], pts[e.b]
 		l := math.Sqrt((pb.X-pa.X)*(pb.X-pa.X) + (pb.Y-pa.Y)*(pb.Y-pa.Y) + (pb.Z-pa.Z)*(pb.Z-pa.Z))
-		rep.Members = append(rep.Members, MemberRow{Label: ml[k], NodeA: nl[e.a], NodeB: nl[e.b], LengthMM: l, CutLengthMM: l - 80,
-			Type: fmt.Sprintf("MT-%03d", k%7+1), Ends: [2]EndRow{{Node: nl[e.a], SetbackMM: 40}, {Node: nl[e.b], SetbackMM: 40}}})
-		arms[e.a] = append(arms[e.a], ArmRow{Member: ml[k], AzimuthDeg: float64(90 * len(arms[e.a]))})
-		arms[e.b] = append(arms[e.b], ArmRow{Member: ml[k], AzimuthDeg: float64(90 * len(arms[e.b]))})
+		rep.Members = append(rep.Members, report.MemberRow{Label: ml[k], NodeA: nl[e.a], NodeB: nl[e.b], LengthMM: l, CutLengthMM: l - 80,
+			Type: fmt.Sprintf("MT-%03d", k%7+1), Ends: [2]report.EndRow{{Node: nl[e.a], SetbackMM: 40}, {Node: nl[e.b], SetbackMM: 40}}})
+		arms[e.a] = append(arms[e.a], report.ArmRow{Member: ml[k], AzimuthDeg: float64(90 * len(arms[e.a]))})
+		arms[e.b] = append(arms[e.b], report.ArmRow{Member: ml[k], AzimuthDeg: float64(90 * len(arms[e.b]))})
 	}
 	for k := range 7 {
-		rep.MemberTypes = append(rep.MemberTypes, MemberTypeRow{Name: fmt.Sprintf("MT-%03d", k+1), CutLengthMM: sp - 80})
+		rep.MemberTypes = append(rep.MemberTypes, report.MemberTypeRow{Name: fmt.Sprintf("MT-%03d", k+1), CutLengthMM: sp - 80})
 	}
 	for i, p := range pts {
-		rep.Nodes = append(rep.Nodes, NodeRow{Label: nl[i], ID: fmt.Sprint(i + 1), Pos: [3]float64{p.X, p.Y, p.Z},
+		rep.Nodes = append(rep.Nodes, report.NodeRow{Label: nl[i], ID: fmt.Sprint(i + 1), Pos: [3]float64{p.X, p.Y, p.Z},
 			Type: fmt.Sprintf("NT-%03d", i%5+1), MembersAtNode: len(arms[i]), Arms: arms[i], MoveMM: float64(i%9) / 3})
 	}
 	for k, c := range corners {
-		row := PanelRow{Label: pl[k], ID: fmt.Sprint(k + 1), Type: fmt.Sprintf("PT-%03d", k%3+1), AreaM2: sp * sp / 1e6}
+		row := report.PanelRow{Label: pl[k], ID: fmt.Sprint(k + 1), Type: fmt.Sprintf("PT-%03d", k%3+1), AreaM2: sp * sp / 1e6}
 		for _, i := range c {
 			row.Corners = append(row.Corners, nl[i])
 		}
@@ -321,9 +322,9 @@ func TestLongTitle(t *testing.T) {
 // the report carries a warning; at the limit they hold everything.
 func TestSiteLimits(t *testing.T) {
 	// Tags: one node row per part is enough to pass the limit.
-	big := &Report{Title: "big", Bays: BayGrid{SizeMM: [2]float64{6000, 6000}}}
-	for i := range MaxTags + 1 {
-		big.Nodes = append(big.Nodes, NodeRow{Label: fmt.Sprintf("A1-%05d", i+1), Type: "NT-001"})
+	big := &report.Report{Title: "big", Bays: report.BayGrid{SizeMM: [2]float64{6000, 6000}}}
+	for i := range report.MaxTags + 1 {
+		big.Nodes = append(big.Nodes, report.NodeRow{Label: fmt.Sprintf("A1-%05d", i+1), Type: "NT-001"})
 	}
 	var buf bytes.Buffer
 	if err := WriteTagsPDF(&buf, big); err != nil {
@@ -332,17 +333,17 @@ func TestSiteLimits(t *testing.T) {
 	if got := bytes.Count(buf.Bytes(), []byte("/Type /Page\n")); got != 1 {
 		t.Errorf("tags above the limit: %d pages, want 1", got)
 	}
-	if w := siteWarnings(big); len(w) != 1 || !strings.Contains(w[0], "tags.pdf holds no tags") {
+	if w := report.SiteWarnings(big); len(w) != 1 || !strings.Contains(w[0], "tags.pdf holds no tags") {
 		t.Errorf("warnings %q", w)
 	}
-	big.Nodes = big.Nodes[:MaxTags]
-	if w := siteWarnings(big); len(w) != 0 {
+	big.Nodes = big.Nodes[:report.MaxTags]
+	if w := report.SiteWarnings(big); len(w) != 0 {
 		t.Errorf("at the limit: warnings %q", w)
 	}
 	// Plan: one node in each of MaxPlanPages+1 bays.
-	wide := &Report{Title: "wide", Bays: BayGrid{SizeMM: [2]float64{6000, 6000}}}
-	for i := range MaxPlanPages + 1 {
-		wide.Nodes = append(wide.Nodes, NodeRow{Label: geom.ColumnLetters(i%100) + fmt.Sprint(i/100+1) + "-01",
+	wide := &report.Report{Title: "wide", Bays: report.BayGrid{SizeMM: [2]float64{6000, 6000}}}
+	for i := range report.MaxPlanPages + 1 {
+		wide.Nodes = append(wide.Nodes, report.NodeRow{Label: geom.ColumnLetters(i%100) + fmt.Sprint(i/100+1) + "-01",
 			Pos: [3]float64{6000*float64(i%100) + 100, 6000*float64(i/100) + 100, 0}, Type: "NT-001"})
 	}
 	buf.Reset()
@@ -352,7 +353,7 @@ func TestSiteLimits(t *testing.T) {
 	if got := bytes.Count(buf.Bytes(), []byte("/Type /Page\n")); got != 1 {
 		t.Errorf("plan above the limit: %d pages, want 1", got)
 	}
-	if w := siteWarnings(wide); len(w) != 1 || !strings.Contains(w[0], "plan.pdf holds no bay pages") {
+	if w := report.SiteWarnings(wide); len(w) != 1 || !strings.Contains(w[0], "plan.pdf holds no bay pages") {
 		t.Errorf("warnings %q", w)
 	}
 }
@@ -402,7 +403,7 @@ func BenchmarkAssemblyLayout(b *testing.B) {
 
 // Benchmarks of the site PDFs and the 3D view on a 40 × 40 grid (1600
 // nodes, 3120 members, 1521 panels: 6241 tags, 100 bay pages).
-func benchSite(b *testing.B, write func(io.Writer, *Report) error) {
+func benchSite(b *testing.B, write func(io.Writer, *report.Report) error) {
 	rep := gridReport(b, 40, 40, 1500, 6000)
 	var buf bytes.Buffer
 	for b.Loop() {
@@ -422,9 +423,9 @@ func BenchmarkView1600(b *testing.B)    { benchSite(b, WriteView) }
 // second tag: both carry the label with "(k/n)", the second repeats the
 // table's header, and every arm is on one of them, in order.
 func TestTagContinues(t *testing.T) {
-	n := NodeRow{Label: "C3-07", Type: "NT-001", Pos: [3]float64{0, 0, 3000}, AxisTiltDeg: 2, AxisTiltTowardDeg: 45}
+	n := report.NodeRow{Label: "C3-07", Type: "NT-001", Pos: [3]float64{0, 0, 3000}, AxisTiltDeg: 2, AxisTiltTowardDeg: 45}
 	for k := range 14 {
-		n.Arms = append(n.Arms, ArmRow{Member: fmt.Sprintf("C3-M%02d", k+1), AzimuthDeg: float64(25 * k)})
+		n.Arms = append(n.Arms, report.ArmRow{Member: fmt.Sprintf("C3-M%02d", k+1), AzimuthDeg: float64(25 * k)})
 	}
 	pdf := newPDF("P", "A4", "t", "t")
 	for _, lay := range []TagLayout{TagOffice, TagOutdoor} {

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"pqfab/internal/report"
 	"slices"
 
 	"github.com/go-pdf/fpdf"
@@ -54,17 +55,17 @@ var planDraw = struct{ x0, y0, x1, y1 float64 }{planMarginMM, planMarginMM,
 // right), a scale bar, a key plan with the bay marked, the legend and the
 // title block with the caution. Above MaxPlanPages bays it writes one page
 // that says so. Safe to call concurrently.
-func WritePlanPDF(w io.Writer, rep *Report) error {
+func WritePlanPDF(w io.Writer, rep *report.Report) error {
 	m, err := newSiteModel(rep)
 	if err != nil {
 		return err
 	}
 	pdf := newPDF("L", "A3", rep.Title, "assembly plan, a page per bay")
-	if len(m.bays) > MaxPlanPages {
+	if len(m.bays) > report.MaxPlanPages {
 		pdf.AddPage()
 		limitPage(pdf, planPageW, rep.Title, fmt.Sprintf("This job spans %d bays, more than the %d bay pages pqfab prints in one file, "+
 			"so this file holds no bay pages. assembly-plan.dxf shows every bay, node, member and panel with its label; "+
-			"view.html finds any label in 3D; schedule.xlsx lists every part.", len(m.bays), MaxPlanPages))
+			"view.html finds any label in 3D; schedule.xlsx lists every part.", len(m.bays), report.MaxPlanPages))
 		return writePDF(w, pdf)
 	}
 	members := m.membersByBay()
@@ -94,7 +95,7 @@ func limitPage(pdf *fpdf.Fpdf, pageW float64, title, msg string) {
 	pdf.MultiCell(pageW-40, 6, pdfText(msg), "", "L", false)
 	pdf.SetXY(20, pdf.GetY()+6)
 	pdf.SetFont("Helvetica", "", 8)
-	pdf.MultiCell(pageW-40, 4, pdfText("CAUTION: "+Caution), "", "L", false)
+	pdf.MultiCell(pageW-40, 4, pdfText("CAUTION: "+report.Caution), "", "L", false)
 }
 
 // membersByBay lists, per bay, the members whose plan line may enter the

@@ -3,6 +3,7 @@ package export
 import (
 	"fmt"
 	"io"
+	"pqfab/internal/report"
 	"strings"
 
 	"github.com/go-pdf/fpdf"
@@ -84,18 +85,18 @@ type tag struct {
 // its corners, sheet and diagonals. A part whose rows do not fit goes on
 // as many tags as it needs, "(2/2)" after the label. Above MaxTags parts
 // it writes one page that says so. Safe to call concurrently.
-func WriteTagsPDF(w io.Writer, rep *Report) error {
+func WriteTagsPDF(w io.Writer, rep *report.Report) error {
 	lay, ok := TagSizes[rep.TagSize]
 	if !ok {
 		lay = TagOffice
 	}
 	pdf := newPDF("P", "A4", rep.Title, "part tags, "+lay.Describe)
 	total := len(rep.Nodes) + len(rep.Members) + len(rep.Panels)
-	if total > MaxTags {
+	if total > report.MaxTags {
 		pdf.AddPage()
 		limitPage(pdf, lay.SheetW, rep.Title, fmt.Sprintf("This job has %d parts (%d nodes, %d members, %d panels), more than the %d tags "+
 			"pqfab prints in one file, so this file holds no tags. Every part's label is in schedule.xlsx and report.json; "+
-			"print tags from those in batches.", total, len(rep.Nodes), len(rep.Members), len(rep.Panels), MaxTags))
+			"print tags from those in batches.", total, len(rep.Nodes), len(rep.Members), len(rep.Panels), report.MaxTags))
 		return writePDF(w, pdf)
 	}
 	if len(rep.Warnings) > 0 {
@@ -150,8 +151,8 @@ func textRows(lines ...string) []tagRow {
 	return out
 }
 
-func nodeTag(n NodeRow) tag {
-	t := tag{label: n.Label, aside: []string{"NODE", n.Type, "bay " + bayName(n.Label)}}
+func nodeTag(n report.NodeRow) tag {
+	t := tag{label: n.Label, aside: []string{"NODE", n.Type, "bay " + report.BayName(n.Label)}}
 	sup := ""
 	if n.Support {
 		sup = ", support"
@@ -169,20 +170,20 @@ func nodeTag(n NodeRow) tag {
 // memberEnds returns a member's ends read from its type's end A (its tag
 // end): the ends in that order, with the bevels turned when the member is
 // read from its end B (as in the types; nodes.MemberType).
-func memberEnds(mb MemberRow) [2]EndRow {
+func memberEnds(mb report.MemberRow) [2]report.EndRow {
 	if mb.TagEnd != "B" {
 		return mb.Ends
 	}
 	a, b := mb.Ends[1], mb.Ends[0]
 	a.BevelDeg, b.BevelDeg = -a.BevelDeg, -b.BevelDeg
-	return [2]EndRow{a, b}
+	return [2]report.EndRow{a, b}
 }
 
-func memberTag(mb MemberRow, mt MemberTypeRow) tag {
+func memberTag(mb report.MemberRow, mt report.MemberTypeRow) tag {
 	e := memberEnds(mb)
 	f1 := func(v float64) string { return fmt.Sprintf("%.1f", r(v, 1)) }
 	f2 := func(v float64) string { return fmt.Sprintf("%.2f", r(v, 2)) }
-	t := tag{label: mb.Label, aside: []string{"MEMBER", mt.Name, "bay " + bayName(mb.Label)}}
+	t := tag{label: mb.Label, aside: []string{"MEMBER", mt.Name, "bay " + report.BayName(mb.Label)}}
 	t.rows = []tagRow{
 		{text: fmt.Sprintf("TAG END (type end A) to node %s", e[0].Node), bold: true},
 		{text: fmt.Sprintf("other end (type end B) to node %s", e[1].Node)},
@@ -197,8 +198,8 @@ func memberTag(mb MemberRow, mt MemberTypeRow) tag {
 	return t
 }
 
-func panelTag(p PanelRow) tag {
-	t := tag{label: p.Label, aside: []string{"PANEL", p.Type, "bay " + bayName(p.Label)}}
+func panelTag(p report.PanelRow) tag {
+	t := tag{label: p.Label, aside: []string{"PANEL", p.Type, "bay " + report.BayName(p.Label)}}
 	t.rows = textRows("corners 1-" + fmt.Sprint(len(p.Corners)) + ": " + strings.Join(p.Corners, " "))
 	if p.Sheet != "" {
 		t.rows = append(t.rows, textRows("sheet "+p.Sheet)...)
@@ -233,7 +234,7 @@ const (
 
 // diagonalText lists diagonals by corner numbers: "1-3 2528.3, 2-4
 // 2160.2". corners are the panel's corner labels from corner 1.
-func diagonalText(ds []DiagonalRow, corners []string) string {
+func diagonalText(ds []report.DiagonalRow, corners []string) string {
 	at := make(map[string]int, len(corners))
 	for i, c := range corners {
 		at[c] = i + 1

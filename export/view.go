@@ -8,6 +8,7 @@ import (
 	"html"
 	"io"
 	"math"
+	"pqfab/internal/report"
 	"strings"
 )
 
@@ -74,8 +75,8 @@ type viewPanels struct {
 	AreaM2 []float64 `json:"area"`
 }
 
-func newViewData(rep *Report) (*viewData, error) {
-	d := &viewData{Members: viewMembers{TagB: []int{}}, Nodes: viewNodes{Support: []int{}}, Title: rep.Title, Caution: Caution, Warnings: warningLines(rep.Warnings), Hub: HubFrameNote, Numbering: NumberingNote}
+func newViewData(rep *report.Report) (*viewData, error) {
+	d := &viewData{Members: viewMembers{TagB: []int{}}, Nodes: viewNodes{Support: []int{}}, Title: rep.Title, Caution: report.Caution, Warnings: warningLines(rep.Warnings), Hub: HubFrameNote, Numbering: NumberingNote}
 	nodeIdx := make(map[string]int, len(rep.Nodes))
 	lo, hi := [3]float64{math.Inf(1), math.Inf(1), math.Inf(1)}, [3]float64{math.Inf(-1), math.Inf(-1), math.Inf(-1)}
 	for i, n := range rep.Nodes {
@@ -186,7 +187,7 @@ func rawTextSafe(s string) bool {
 // WebGL the page says so and the search and the data still work. Data is
 // JSON in parallel arrays, so the page grows linearly with the net. Safe
 // to call concurrently.
-func WriteView(w io.Writer, rep *Report) error {
+func WriteView(w io.Writer, rep *report.Report) error {
 	d, err := newViewData(rep)
 	if err != nil {
 		return err

@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"pqfab/internal/report"
 	"strings"
 
 	"github.com/xuri/excelize/v2"
@@ -30,7 +31,7 @@ const (
 // the cautions and costs, then one table per part kind with a frozen
 // header row, filters, units in the headers and numbers as numbers. Rows
 // are streamed, so big nets need little memory.
-func WriteSchedule(w io.Writer, rep *Report) (err error) {
+func WriteSchedule(w io.Writer, rep *report.Report) (err error) {
 	f := excelize.NewFile()
 	// The fastest deflate level: a schedule of a large net is mostly
 	// numbers, and compressing it harder costs more time than it saves
@@ -150,9 +151,9 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 				}
 				return nil
 			}},
-		{SheetGlossary, []string{"Term", "Meaning"}, len(Glossary),
+		{SheetGlossary, []string{"Term", "Meaning"}, len(report.Glossary),
 			func(add func(row ...any) error) error {
-				for _, g := range Glossary {
+				for _, g := range report.Glossary {
 					if err := add(g.Term, g.Meaning); err != nil {
 						return err
 					}
@@ -181,7 +182,7 @@ func WriteSchedule(w io.Writer, rep *Report) (err error) {
 
 // nodeHead returns the Nodes sheet's header: a member, azimuth and
 // elevation column per arm, as many as the most members at a node.
-func nodeHead(rep *Report) []string {
+func nodeHead(rep *report.Report) []string {
 	head := []string{"Label", "Id", "Type", "Members at node", "X (mm)", "Y (mm)", "Z (mm)", "Axis x", "Axis y", "Axis z",
 		"Axis tilt (°)", "Tilt toward (° counter-clockwise from grid north)", "Azimuth 0",
 		"Support", "Move (mm)", "Move x (mm)", "Move y (mm)", "Move z (mm)"}
@@ -195,7 +196,7 @@ func nodeHead(rep *Report) []string {
 
 // barHead returns the Bars sheet's header: a member and blank length
 // column per piece in cutting order, as many as the fullest bar holds.
-func barHead(rep *Report) []string {
+func barHead(rep *report.Report) []string {
 	head := []string{"Bar", "Stock", "Stock length (mm)", "Members", "Used (mm)", "Offcut (mm)", "Waste (mm)"}
 	k := 0
 	for _, b := range rep.Bars {
@@ -307,7 +308,7 @@ func writeTable(f *excelize.File, sheet, table string, header []string, n int, b
 }
 
 // writeSummary writes the cautions, the job, the counts and the costs.
-func writeSummary(f *excelize.File, rep *Report, bold int) error {
+func writeSummary(f *excelize.File, rep *report.Report, bold int) error {
 	sh := SheetSummary
 	row, cols := 0, 1
 	put := func(vals ...any) error {
@@ -417,7 +418,7 @@ func writeSummary(f *excelize.File, rep *Report, bold int) error {
 		func() error { return put("Total (kg)", rep.Weights.TotalKg) })
 	if rep.Cost != nil {
 		steps = append(steps, func() error { return head("Cost estimate (" + rep.Cost.Currency + ")") },
-			func() error { return put(CostNote) },
+			func() error { return put(report.CostNote) },
 			func() error { return put("Item", "Quantity", "Unit", "Rate", "Amount", "Kind") })
 		for _, l := range rep.Cost.Lines {
 			l := l

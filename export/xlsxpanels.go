@@ -2,6 +2,7 @@ package export
 
 import (
 	"fmt"
+	"pqfab/internal/report"
 	"strings"
 )
 
@@ -14,7 +15,7 @@ import (
 // run to the largest corner count in the net, so 5- and 6-corner panels
 // keep every edge. A column says which panels are cut from their type's
 // shape turned over (inside face up).
-func panelsTable(rep *Report) ([]string, func(add func(row ...any) error) error) {
+func panelsTable(rep *report.Report) ([]string, func(add func(row ...any) error) error) {
 	k := 3
 	for _, p := range rep.Panels {
 		k = max(k, len(p.Corners))
@@ -40,7 +41,7 @@ func panelsTable(rep *Report) ([]string, func(add func(row ...any) error) error)
 	}
 	head = outline(append(head, "Build-up", "Edge work", "Coating", "Heat treatment", "Grade"), "Set-out")
 	head = append(head, "Corner nodes", "Id", "Grain direction (°)", "Flatness before (mm)", "Flatness after (mm)")
-	spec := map[string]*PanelSpec{}
+	spec := map[string]*report.PanelSpec{}
 	turned := map[string]bool{}
 	for i := range rep.PanelTypes {
 		spec[rep.PanelTypes[i].Name] = &rep.PanelTypes[i].Spec
@@ -67,7 +68,7 @@ func panelsTable(rep *Report) ([]string, func(add func(row ...any) error) error)
 			row = appendN(row, bevels, k)
 			s := spec[p.Type]
 			if s == nil {
-				s = &PanelSpec{}
+				s = &report.PanelSpec{}
 			}
 			row = append(row, s.BuildUp, s.EdgeWork, s.Coating, s.HeatTreatment, s.Grade)
 			row = appendN(row, setout, k)
@@ -118,7 +119,7 @@ func appendN(row []any, vs []float64, n int) []any {
 
 // appendDiagonals appends a panel's diagonals in the columns of pairs,
 // finding each diagonal's corners by their node labels.
-func appendDiagonals(row []any, ds []DiagonalRow, corners []string, pairs [][2]int) []any {
+func appendDiagonals(row []any, ds []report.DiagonalRow, corners []string, pairs [][2]int) []any {
 	at := map[string]int{}
 	for i, c := range corners {
 		at[c] = i

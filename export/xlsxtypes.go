@@ -2,6 +2,7 @@ package export
 
 import (
 	"fmt"
+	"pqfab/internal/report"
 )
 
 // The type sheets list what the workshop makes: each type's nominal part
@@ -14,7 +15,7 @@ var memberTypeHead = []string{"Type", "Count", "Cut length (mm)", "Blank length 
 	"Largest difference from type (mm)", "Largest difference from type (°)", "Total cut length (m)", "Total weight (kg)",
 	"Members", "Members whose end B is the type's end A (the tag end)"}
 
-func memberTypeRows(rep *Report) func(add func(row ...any) error) error {
+func memberTypeRows(rep *report.Report) func(add func(row ...any) error) error {
 	return func(add func(row ...any) error) error {
 		for _, t := range rep.MemberTypes {
 			a, b := t.Ends[0], t.Ends[1]
@@ -31,7 +32,7 @@ func memberTypeRows(rep *Report) func(add func(row ...any) error) error {
 // nodeTypeHead returns the Node types sheet's header: an azimuth (from
 // arm 1) and an elevation column per arm, as many as the most members at
 // a node.
-func nodeTypeHead(rep *Report) []string {
+func nodeTypeHead(rep *report.Report) []string {
 	head := []string{"Type", "Count", "Members at node", "Largest difference from type (°)", "Nodes"}
 	k := 0
 	for _, t := range rep.NodeTypes {
@@ -40,7 +41,7 @@ func nodeTypeHead(rep *Report) []string {
 	return append(head, numbered(k, "Arm %d azimuth from arm 1 (°)", "Arm %d elevation (°)")...)
 }
 
-func nodeTypeRows(rep *Report) func(add func(row ...any) error) error {
+func nodeTypeRows(rep *report.Report) func(add func(row ...any) error) error {
 	return func(add func(row ...any) error) error {
 		for _, t := range rep.NodeTypes {
 			row := []any{t.Name, t.Count, t.MembersAtNode, t.MaxDevDeg, partList(t.Parts, SheetNodes)}
@@ -57,7 +58,7 @@ func nodeTypeRows(rep *Report) func(add func(row ...any) error) error {
 
 // panelTypeHead returns the Panel types sheet's header, as wide as the
 // largest corner count.
-func panelTypeHead(rep *Report) []string {
+func panelTypeHead(rep *report.Report) []string {
 	k := typeCorners(rep)
 	head := []string{"Type", "Count", "Corners"}
 	for i := 1; i <= k; i++ {
@@ -76,7 +77,7 @@ func panelTypeHead(rep *Report) []string {
 		"Total area (m²)", "Thickness (mm)", "Total weight (kg)", "Build-up", "Edge work", "Coating", "Heat treatment", "Grade", "Panels", "Panels turned over")
 }
 
-func typeCorners(rep *Report) int {
+func typeCorners(rep *report.Report) int {
 	k := 3
 	for _, t := range rep.PanelTypes {
 		k = max(k, len(t.EdgesMM))
@@ -84,7 +85,7 @@ func typeCorners(rep *Report) int {
 	return k
 }
 
-func panelTypeRows(rep *Report) func(add func(row ...any) error) error {
+func panelTypeRows(rep *report.Report) func(add func(row ...any) error) error {
 	k := typeCorners(rep)
 	pairs := diagonalPairs(k)
 	return func(add func(row ...any) error) error {

@@ -6,10 +6,9 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"pqfab/internal/report"
 	"strings"
 	"testing"
-
-	"pqfab/export"
 )
 
 // chromium is Debian's browser; .ci/run installs it. A missing browser is
@@ -32,7 +31,7 @@ func TestReportRendersInChromium(t *testing.T) {
 		"--disable-background-networking", "--disable-component-update", "--disable-sync", "--hide-scrollbars",
 		"--user-data-dir="+filepath.Join(dir, "profile"), "--enable-logging=stderr", "--v=0",
 		"--virtual-time-budget=5000", "--window-size=1400,3000", "--screenshot="+shot,
-		"file://"+filepath.Join(out, export.FileHTML))
+		"file://"+filepath.Join(out, report.FileHTML))
 	logs, err := cmd.CombinedOutput()
 	if err != nil {
 		t.Fatalf("chromium: %v\n%s", err, tail(string(logs), 3000))

@@ -10,7 +10,7 @@ import (
 
 	"pqfab"
 	"pqfab/internal/outdir"
-	"pqfab/internal/pipeline"
+	"pqfab/internal/report"
 	"pqfab/samples"
 )
 
@@ -93,7 +93,7 @@ func build(j *pqfab.Job, open pqfab.Opener, bf buildFlags, stdout, stderr io.Wri
 		return obs.attach(err)
 	}
 	obs.finish()
-	pipeline.WriteBuildText(stdout, bf.out, rep)
+	report.WriteText(stdout, bf.out, rep)
 	obs.flush()
 	return nil
 }

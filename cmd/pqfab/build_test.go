@@ -11,8 +11,8 @@ import (
 	"strings"
 	"testing"
 
-	"pqfab/export"
 	"pqfab/geom"
+	"pqfab/internal/report"
 	"pqfab/samples"
 )
 
@@ -40,13 +40,13 @@ func tail(s string, n int) string {
 	return s
 }
 
-func loadReport(t *testing.T, dir string) *export.Report {
+func loadReport(t *testing.T, dir string) *report.Report {
 	t.Helper()
-	b, err := os.ReadFile(filepath.Join(dir, export.FileReport))
+	b, err := os.ReadFile(filepath.Join(dir, report.FileReport))
 	if err != nil {
 		t.Fatal(err)
 	}
-	var rep export.Report
+	var rep report.Report
 	if err := json.Unmarshal(b, &rep); err != nil {
 		t.Fatal(err)
 	}
@@ -130,7 +130,7 @@ func TestBevelledTypes(t *testing.T) {
 	if !rep.PanelMaterial.BevelledEdges {
 		t.Fatal("report does not say the edges are bevelled")
 	}
-	panelOf := map[string]export.PanelRow{}
+	panelOf := map[string]report.PanelRow{}
 	for _, p := range rep.Panels {
 		panelOf[p.Label] = p
 	}
@@ -178,7 +178,7 @@ func TestBevelledTypes(t *testing.T) {
 func checkAccounting(t *testing.T, dir string) {
 	t.Helper()
 	rep := loadReport(t, dir)
-	net, err := geom.ReadFile(filepath.Join(dir, export.FileNet), geom.MM)
+	net, err := geom.ReadFile(filepath.Join(dir, report.FileNet), geom.MM)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -325,7 +325,7 @@ func TestPlanarityFailure(t *testing.T) {
 func checkWarningsEverywhere(t *testing.T, out string) {
 	t.Helper()
 	const mark = "WARNING: built with panels over the flatness tolerance"
-	files := []string{export.FileNet, export.FileAssembly, filepath.Join(export.DirSheets, "sheet-01.dxf"), export.FileHTML, export.FileView, export.FileReport}
+	files := []string{report.FileNet, report.FileAssembly, filepath.Join(report.DirSheets, "sheet-01.dxf"), report.FileHTML, report.FileView, report.FileReport}
 	for _, f := range files {
 		b, err := os.ReadFile(filepath.Join(out, f))
 		if err != nil {
@@ -335,7 +335,7 @@ func checkWarningsEverywhere(t *testing.T, out string) {
 			t.Errorf("%s does not carry the warning", f)
 		}
 	}
-	for _, f := range []string{export.FilePlanPDF, export.FileTagsPDF} {
+	for _, f := range []string{report.FilePlanPDF, report.FileTagsPDF} {
 		b, err := exec.Command("pdftotext", "-l", "2", filepath.Join(out, f), "-").CombinedOutput()
 		if err != nil || !strings.Contains(strings.Join(strings.Fields(string(b)), " "), mark) {
 			t.Errorf("%s does not carry the warning (%v)", f, err)
@@ -343,7 +343,7 @@ func checkWarningsEverywhere(t *testing.T, out string) {
 	}
 	b, err := exec.Command(debianPython, "-c", `import openpyxl,sys
 ws = openpyxl.load_workbook(sys.argv[1])["Summary"]
-print(any(r[0] == "Warning" and "flatness tolerance" in (r[1] or "") for r in ws.iter_rows(values_only=True)))`, filepath.Join(out, export.FileSchedule)).CombinedOutput()
+print(any(r[0] == "Warning" and "flatness tolerance" in (r[1] or "") for r in ws.iter_rows(values_only=True)))`, filepath.Join(out, report.FileSchedule)).CombinedOutput()
 	if err != nil || strings.TrimSpace(string(b)) != "True" {
 		t.Errorf("schedule.xlsx does not carry the warning: %v %s", err, b)
 	}

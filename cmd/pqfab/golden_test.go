@@ -4,9 +4,8 @@ import (
 	"flag"
 	"os"
 	"path/filepath"
+	"pqfab/internal/report"
 	"testing"
-
-	"pqfab/export"
 )
 
 var update = flag.Bool("update", false, "rewrite golden files")
@@ -61,7 +60,7 @@ panel_per_m2 = 50
 	if _, _, err := runCmd(t, "build", "-q", "job.toml", "-o", "out"); err != nil {
 		t.Fatal(err)
 	}
-	for _, name := range []string{export.FileReport, export.FileNet, export.FileAssembly, filepath.Join(export.DirSheets, "sheet-01.dxf"), export.FileHTML} {
+	for _, name := range []string{report.FileReport, report.FileNet, report.FileAssembly, filepath.Join(report.DirSheets, "sheet-01.dxf"), report.FileHTML} {
 		got, err := os.ReadFile(filepath.Join(out, name))
 		if err != nil {
 			t.Fatal(err)
@@ -69,9 +68,9 @@ panel_per_m2 = 50
 		checkGolden(t, filepath.Join(goldenDir, filepath.Base(name)), got, name)
 	}
 	texts := []struct{ golden, file, reader string }{
-		{"schedule.txt", export.FileSchedule, "openpyxl"},
-		{"plan.txt", export.FilePlanPDF, "pdftotext"},
-		{"tags.txt", export.FileTagsPDF, "pdftotext"},
+		{"schedule.txt", report.FileSchedule, "openpyxl"},
+		{"plan.txt", report.FilePlanPDF, "pdftotext"},
+		{"tags.txt", report.FileTagsPDF, "pdftotext"},
 	}
 	for _, tx := range texts {
 		path := filepath.Join(out, filepath.FromSlash(tx.file))

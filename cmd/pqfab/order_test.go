@@ -13,10 +13,10 @@ import (
 	"strings"
 	"testing"
 
-	"pqfab/export"
 	"pqfab/geom"
 	"pqfab/internal/job"
 	"pqfab/internal/pipeline"
+	"pqfab/internal/report"
 	"pqfab/samples"
 )
 
@@ -262,5 +262,5 @@ func TestBuildNetKeepsFileOrder(t *testing.T) {
 	if _, _, err := runCmd(t, "build", "-q", filepath.Join(dir, "job.toml"), "-o", out); err != nil {
 		t.Fatal(err)
 	}
-	checkFileOrder(t, filepath.Join(out, export.FileNet), in, want)
+	checkFileOrder(t, filepath.Join(out, report.FileNet), in, want)
 }

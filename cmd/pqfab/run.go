@@ -5,8 +5,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
-
-	"pqfab/export"
+	"pqfab/internal/pipeline"
 )
 
 // usageError marks a mistake in the command line (exit code 2).
@@ -66,7 +65,7 @@ func printUsage(w io.Writer) {
 	for _, c := range commands() {
 		fmt.Fprintf(w, "  %-10s %-22s %s\n", c.name, c.args, c.help)
 	}
-	fmt.Fprint(w, "\nRun `pqfab COMMAND -h` for a command's options.\n\nCaution: "+export.Caution+"\n")
+	fmt.Fprint(w, "\nRun `pqfab COMMAND -h` for a command's options.\n\nCaution: "+pipeline.Caution+"\n")
 }
 
 // newFlags returns a flag set that reports errors instead of exiting.

@@ -13,6 +13,7 @@ import (
 
 	"pqfab/export"
 	"pqfab/geom"
+	"pqfab/internal/report"
 	"pqfab/samples"
 )
 
@@ -147,7 +148,7 @@ func TestShuffledInputSameAnswer(t *testing.T) {
 				}
 				problems, n, err := treeDiff(ref, out, func(rel string) bool {
 					p, q := filepath.Join(ref, filepath.FromSlash(rel)), filepath.Join(out, filepath.FromSlash(rel))
-					if rel == filepath.ToSlash(export.FileNet) {
+					if rel == filepath.ToSlash(report.FileNet) {
 						sameFlatNet(t, p, q, net, perm) // reports its own differences
 						return true
 					}

@@ -19,6 +19,7 @@ import (
 
 	"pqfab/export"
 	"pqfab/geom"
+	"pqfab/internal/report"
 )
 
 // Outside readers of the site files, all Debian packages that .ci/run
@@ -36,7 +37,7 @@ const siteTitle = `Café "Nord" <b>&amp; 50%% \ 日本 — hall`
 
 // buildSiteJob builds a small wave (120 panels, 3 m bays so it spans
 // several) and returns the output folder and its report.
-func buildSiteJob(t *testing.T, dir string) (string, *export.Report) {
+func buildSiteJob(t *testing.T, dir string) (string, *report.Report) {
 	t.Helper()
 	if _, _, err := runCmd(t, "sample", "wave", "--panels", "120", "-o", filepath.Join(dir, "wave.obj")); err != nil {
 		t.Fatal(err)
@@ -94,7 +95,7 @@ func tokens(s string) map[string]bool {
 }
 
 // partsByBay lists each bay's node, member and panel labels.
-func partsByBay(rep *export.Report) map[string][]string {
+func partsByBay(rep *report.Report) map[string][]string {
 	out := map[string][]string{}
 	add := func(l string) {
 		bay, _, _ := strings.Cut(l, "-")
@@ -125,7 +126,7 @@ func TestSitePlanPDF(t *testing.T) {
 	t.Parallel()
 	dir := t.TempDir()
 	out, rep := buildSiteJob(t, dir)
-	path := filepath.Join(out, export.FilePlanPDF)
+	path := filepath.Join(out, report.FilePlanPDF)
 	pages := pdfPages(t, path)
 	bays := partsByBay(rep)
 	if len(pages) != len(bays)+1 {
@@ -221,13 +222,13 @@ func TestSiteTagsPDF(t *testing.T) {
 	t.Parallel()
 	dir := t.TempDir()
 	out, rep := buildSiteJob(t, dir)
-	path := filepath.Join(out, export.FileTagsPDF)
+	path := filepath.Join(out, report.FileTagsPDF)
 	pages := pdfPages(t, path)
 	// The order of the tags: nodes, members, panels, each by label.
 	var order []string
-	for _, kind := range [][]string{labelsOf(rep.Nodes, func(n export.NodeRow) string { return n.Label }),
-		labelsOf(rep.Members, func(m export.MemberRow) string { return m.Label }),
-		labelsOf(rep.Panels, func(p export.PanelRow) string { return p.Label })} {
+	for _, kind := range [][]string{labelsOf(rep.Nodes, func(n report.NodeRow) string { return n.Label }),
+		labelsOf(rep.Members, func(m report.MemberRow) string { return m.Label }),
+		labelsOf(rep.Panels, func(p report.PanelRow) string { return p.Label })} {
 		slices.Sort(kind)
 		order = append(order, kind...)
 	}
@@ -250,7 +251,7 @@ func TestSiteTagsPDF(t *testing.T) {
 	// the same end for every member of a type. Read from there (ends
 	// swapped and bevels turned for a tag at end B), every member's end
 	// cuts lie within the type's largest deviation of the type's.
-	types := map[string]export.MemberTypeRow{}
+	types := map[string]report.MemberTypeRow{}
 	for _, mt := range rep.MemberTypes {
 		types[mt.Name] = mt
 	}
@@ -259,7 +260,7 @@ func TestSiteTagsPDF(t *testing.T) {
 		ends := m.Ends
 		if m.TagEnd == "B" {
 			tagNode, other = other, tagNode
-			ends = [2]export.EndRow{m.Ends[1], m.Ends[0]}
+			ends = [2]report.EndRow{m.Ends[1], m.Ends[0]}
 			ends[0].BevelDeg, ends[1].BevelDeg = -ends[0].BevelDeg, -ends[1].BevelDeg
 		}
 		mt := types[m.Type]
@@ -483,7 +484,7 @@ func TestSiteViewInChromium(t *testing.T) {
 	t.Parallel()
 	dir := t.TempDir()
 	out, rep := buildSiteJob(t, dir)
-	page := filepath.Join(out, export.FileView)
+	page := filepath.Join(out, report.FileView)
 	body, err := os.ReadFile(page)
 	if err != nil {
 		t.Fatal(err)
@@ -581,7 +582,7 @@ func TestSiteDeterministic(t *testing.T) {
 	t.Parallel()
 	a, _ := buildSiteJob(t, t.TempDir())
 	b, _ := buildSiteJob(t, t.TempDir())
-	for _, name := range []string{export.FilePlanPDF, export.FileTagsPDF, export.FileView, export.FileAssembly} {
+	for _, name := range []string{report.FilePlanPDF, report.FileTagsPDF, report.FileView, report.FileAssembly} {
 		x, err := os.ReadFile(filepath.Join(a, name))
 		if err != nil {
 			t.Fatal(err)

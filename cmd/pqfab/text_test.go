@@ -7,8 +7,8 @@ import (
 	"strings"
 	"testing"
 
-	"pqfab/export"
 	"pqfab/geom"
+	"pqfab/internal/report"
 )
 
 // TestTextReachesFilesSafely: a title with accents, a CJK character, a
@@ -34,7 +34,7 @@ func TestTextReachesFilesSafely(t *testing.T) {
 	if _, _, err := runCmd(t, "build", "-q", filepath.Join(dir, "job.toml"), "-o", out); err != nil {
 		t.Fatal(err)
 	}
-	net, err := geom.ReadFile(filepath.Join(out, export.FileNet), geom.MM)
+	net, err := geom.ReadFile(filepath.Join(out, report.FileNet), geom.MM)
 	if err != nil {
 		t.Fatal(err)
 	}

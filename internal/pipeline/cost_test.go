@@ -2,10 +2,9 @@ package pipeline_test
 
 import (
 	"math"
+	"pqfab/internal/report"
 	"strings"
 	"testing"
-
-	"pqfab/export"
 )
 
 // TestCostChargesEachQuantityOnce builds a two-panel job with priced and
@@ -58,7 +57,7 @@ sheet_per_m2 = 17
 		if err != nil {
 			t.Fatal(err)
 		}
-		c := res.Cost
+		c := report.New(res).Cost
 		var cents int64
 		material := map[string]int{}
 		var cutM, areaM2 float64
@@ -75,7 +74,7 @@ sheet_per_m2 = 17
 				t.Errorf("%s: %s: amount %g, quantity × rate %g", tc.name, l.Item, l.Amount, want)
 			}
 			switch {
-			case l.Kind == export.CostMaterial && strings.Contains(l.Item, "sheets board"):
+			case l.Kind == report.CostMaterial && strings.Contains(l.Item, "sheets board"):
 				material["board"]++
 				q := float64(sheets)
 				if !tc.priced {
@@ -84,7 +83,7 @@ sheet_per_m2 = 17
 				if l.Unit != tc.sheetUnit || l.Rate != tc.sheetRate || math.Abs(l.Quantity-q) > 1e-3 {
 					t.Errorf("%s: %s: %g %s at %g, want %g %s at %g", tc.name, l.Item, l.Quantity, l.Unit, l.Rate, q, tc.sheetUnit, tc.sheetRate)
 				}
-			case l.Kind == export.CostMaterial && strings.Contains(l.Item, "bars 6 m"):
+			case l.Kind == report.CostMaterial && strings.Contains(l.Item, "bars 6 m"):
 				material["6 m"]++
 				q := float64(len(res.BarPlan.Bars))
 				if !tc.priced {
@@ -93,17 +92,17 @@ sheet_per_m2 = 17
 				if l.Unit != tc.barUnit || l.Rate != tc.barRateWant || math.Abs(l.Quantity-q) > 1e-3 {
 					t.Errorf("%s: %s: %g %s at %g, want %g %s at %g", tc.name, l.Item, l.Quantity, l.Unit, l.Rate, q, tc.barUnit, tc.barRateWant)
 				}
-			case l.Kind == export.CostMaterial:
+			case l.Kind == report.CostMaterial:
 				t.Errorf("%s: a material line for no stock: %s", tc.name, l.Item)
-			case l.Kind == export.CostMaking && strings.HasPrefix(l.Item, "Member making"):
+			case l.Kind == report.CostMaking && strings.HasPrefix(l.Item, "Member making"):
 				if l.Unit != "m" || math.Abs(l.Quantity-cutM) > 1e-3 {
 					t.Errorf("%s: %s: %g %s, want %g m", tc.name, l.Item, l.Quantity, l.Unit, cutM)
 				}
-			case l.Kind == export.CostMaking && strings.HasPrefix(l.Item, "Panel making"):
+			case l.Kind == report.CostMaking && strings.HasPrefix(l.Item, "Panel making"):
 				if l.Unit != "m²" || math.Abs(l.Quantity-areaM2) > 1e-3 {
 					t.Errorf("%s: %s: %g %s, want %g m²", tc.name, l.Item, l.Quantity, l.Unit, areaM2)
 				}
-			case l.Kind == export.CostSetup:
+			case l.Kind == report.CostSetup:
 				want := map[string]int{"Member types": len(res.Structure.MemberTypes), "Node types": len(res.Structure.NodeTypes), "Panel types": len(res.PanelTypes)}
 				n, ok := want[strings.SplitN(l.Item, ":", 2)[0]]
 				if !ok || l.Unit != "type" || l.Quantity != float64(n) {

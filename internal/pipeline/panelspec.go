@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"strings"
 
-	"pqfab/export"
 	"pqfab/internal/job"
 	"pqfab/panels"
 )
@@ -69,7 +68,7 @@ func panelMaterial(j *job.Job, pick int) panels.Material {
 // [panel]'s, then the table that picked its panels by label or bay, then
 // the table that names the type. It sets the weights of the panels of a
 // named type with another thickness or density, and the type's totals.
-func typeSpecs(j *job.Job, types []panels.Type, flats []panels.Flat, pick []int) (map[string]export.PanelSpec, error) {
+func typeSpecs(j *job.Job, types []panels.Type, flats []panels.Flat, pick []int) (map[string]PanelSpec, error) {
 	named := map[string]job.PanelTypeSpec{}
 	have := map[string]bool{}
 	for _, t := range types {
@@ -84,7 +83,7 @@ func typeSpecs(j *job.Job, types []panels.Type, flats []panels.Flat, pick []int)
 		}
 		named[t.Type] = t
 	}
-	out := make(map[string]export.PanelSpec, len(types))
+	out := make(map[string]PanelSpec, len(types))
 	for ti := range types {
 		t := &types[ti]
 		s, m := j.Panel.PanelSpec, j.Material()
@@ -98,9 +97,28 @@ func typeSpecs(j *job.Job, types []panels.Type, flats []panels.Flat, pick []int)
 			}
 			t.Retotal(flats)
 		}
-		es := spec(s)
+		es := Spec(s)
 		es.ThicknessMM, es.DensityKgM3 = m.ThicknessMM, m.DensityKgM3
 		out[t.Name] = es
 	}
 	return out, nil
+}
+
+// PanelSpec is a panel's plain-text specification, as the job gives it,
+// with the panel's thickness and density.
+type PanelSpec struct {
+	BuildUp       string `json:"build_up,omitempty"`
+	EdgeWork      string `json:"edge_work,omitempty"`
+	Coating       string `json:"coating,omitempty"`
+	HeatTreatment string `json:"heat_treatment,omitempty"`
+	Grade         string `json:"grade,omitempty"`
+	// Thickness and density of a panel type's panels (0: the job's).
+	ThicknessMM float64 `json:"thickness_mm,omitempty"`
+	DensityKgM3 float64 `json:"density_kg_m3,omitempty"`
+}
+
+// Spec turns a job's panel specification into a PanelSpec (without
+// thickness and density).
+func Spec(s job.PanelSpec) PanelSpec {
+	return PanelSpec{BuildUp: s.BuildUp, EdgeWork: s.EdgeWork, Coating: s.Coating, HeatTreatment: s.HeatTreatment, Grade: s.Grade}
 }

@@ -5,8 +5,8 @@ import (
 	"strings"
 	"testing"
 
-	"pqfab/export"
 	"pqfab/internal/pipeline"
+	"pqfab/internal/report"
 )
 
 // runDome runs a job on a sample dome of 120 panels; extra is appended to
@@ -77,7 +77,7 @@ func TestPanelTypeOverrides(t *testing.T) {
 	var named string
 	for _, ty := range res.PanelTypes {
 		s := res.TypeSpecs[ty.Name]
-		want := export.PanelSpec{BuildUp: "10 mm toughened", EdgeWork: "flat ground", Coating: "none", ThicknessMM: 10, DensityKgM3: 2500}
+		want := report.PanelSpec{BuildUp: "10 mm toughened", EdgeWork: "flat ground", Coating: "none", ThicknessMM: 10, DensityKgM3: 2500}
 		if typeInBay[res.Flats[ty.Panels[0]].Type] {
 			want.BuildUp, want.ThicknessMM = "laminated 10 + 10", 20.76
 			named = ty.Name
@@ -97,7 +97,7 @@ func TestPanelTypeOverrides(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	want := export.PanelSpec{BuildUp: "laminated 10 + 10", EdgeWork: "flat ground", Coating: "low-e face 2", ThicknessMM: 20.76, DensityKgM3: 2500}
+	want := report.PanelSpec{BuildUp: "laminated 10 + 10", EdgeWork: "flat ground", Coating: "low-e face 2", ThicknessMM: 20.76, DensityKgM3: 2500}
 	if got := res2.TypeSpecs[named]; got != want {
 		t.Errorf("%s named: spec %+v, want %+v", named, got, want)
 	}

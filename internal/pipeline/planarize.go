@@ -5,8 +5,8 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
-	"pqfab/export"
 	"pqfab/geom"
+	"pqfab/internal/num"
 	"pqfab/panels"
 )
 
@@ -73,10 +73,10 @@ type PanelFlatness struct {
 // NewPlanarizeReport builds the report of a planarization.
 func NewPlanarizeReport(net *geom.Net, opt panels.PlanarizeOptions, res *panels.PlanarizeResult) *PlanarizeReport {
 	r := &PlanarizeReport{WrittenBy: "pqfab", Net: net.Source, TolMM: opt.TolMM, Converged: res.Converged, Iterations: res.Iterations,
-		MaxMoveMM: export.Round(res.MaxMoveMM, 3), RMSMoveMM: export.Round(res.RMSMoveMM, 3),
-		FlatBefore: export.RoundSpread(panels.SpreadOf(res.Before), 3), FlatAfter: export.RoundSpread(panels.SpreadOf(res.After), 4),
-		NeededMoveMM: export.Round(res.NeedMoveMM, 1),
-		Caution:      "Caution: " + export.Caution}
+		MaxMoveMM: num.Round(res.MaxMoveMM, 3), RMSMoveMM: num.Round(res.RMSMoveMM, 3),
+		FlatBefore: num.RoundSpread(panels.SpreadOf(res.Before), 3), FlatAfter: num.RoundSpread(panels.SpreadOf(res.After), 4),
+		NeededMoveMM: num.Round(res.NeedMoveMM, 1),
+		Caution:      "Caution: " + Caution}
 	if res.Stop != panels.StopNone {
 		r.StoppedBy = res.Stop.String()
 	}
@@ -90,11 +90,11 @@ func NewPlanarizeReport(net *geom.Net, opt panels.PlanarizeOptions, res *panels.
 			r.Supports++
 		}
 		m := res.Moves[i]
-		r.Nodes = append(r.Nodes, NodeMoveRow{ID: nd.ID, Support: opt.Fixed != nil && opt.Fixed[i], MoveMM: export.Round(r3.Norm(m), 3),
-			Vector: [3]float64{export.Round(m.X, 3), export.Round(m.Y, 3), export.Round(m.Z, 3)}})
+		r.Nodes = append(r.Nodes, NodeMoveRow{ID: nd.ID, Support: opt.Fixed != nil && opt.Fixed[i], MoveMM: num.Round(r3.Norm(m), 3),
+			Vector: [3]float64{num.Round(m.X, 3), num.Round(m.Y, 3), num.Round(m.Z, 3)}})
 	}
 	for f, face := range net.Faces {
-		r.Panels = append(r.Panels, PanelFlatness{ID: face.ID, BeforeMM: export.Round(res.Before[f], 3), AfterMM: export.Round(res.After[f], 4)})
+		r.Panels = append(r.Panels, PanelFlatness{ID: face.ID, BeforeMM: num.Round(res.Before[f], 3), AfterMM: num.Round(res.After[f], 4)})
 	}
 	return r
 }

@@ -4,13 +4,10 @@ import (
 	"context"
 	"errors"
 	"fmt"
-	"math"
 	"time"
 
-	"pqfab/export"
 	"pqfab/geom"
 	"pqfab/internal/job"
-	"pqfab/internal/outdir"
 	"pqfab/nodes"
 	"pqfab/nodes/bars"
 	"pqfab/panels"
@@ -46,7 +43,7 @@ type Result struct {
 	PanelTypeSetOut []geom.Polygon
 	// TypeSpecs is every panel type's specification (with its thickness
 	// and density), by type name.
-	TypeSpecs map[string]export.PanelSpec
+	TypeSpecs map[string]PanelSpec
 
 	Stocks  []nest.Stock
 	Nesting *nest.Result
@@ -56,8 +53,6 @@ type Result struct {
 	Blanks    []bars.Piece
 	BarStocks []bars.Stock
 	BarPlan   *bars.Plan
-
-	Cost *export.Cost // nil without rates
 }
 
 // PlanarityFailure is returned by Run when the flatness tolerance cannot be
@@ -174,7 +169,6 @@ func Run(ctx context.Context, j *job.Job, open Opener, obs Observer, pol Policy)
 			warn(fmt.Sprintf("panel %s is on no sheet: %s", res.Flats[u.Part].Label, u.Reason))
 		}
 	}
-	res.Cost = cost(j, st, res.Flats, res.Nesting, res.Stocks, res.BarPlan, res.BarStocks, res.Blanks, len(res.PanelTypes))
 	return res, nil
 }
 
@@ -326,160 +320,4 @@ func (r *Result) FileNet() *geom.Net {
 		return r.Net
 	}
 	return r.Order.Apply(r.Net)
-}
-
-// Bundle returns what the writers need.
-func (r *Result) Bundle() *export.Bundle {
-	return &export.Bundle{Title: r.Job.Title, JobFile: r.Job.File, NetFile: r.NetPath, Settings: settings(r.Job), Warnings: r.Warnings,
-		Net: r.Net, Bays: r.Bays, Supports: r.Supports, Planarize: r.Planarize, TolMM: r.Job.Flatness.TolMM,
-		Structure: r.Structure, Flats: r.Flats, PanelTypes: r.PanelTypes, PanelTypeBound: r.PanelTypeBound, Stocks: r.Stocks, Nesting: r.Nesting, Cost: r.Cost,
-		BarStocks: r.BarStocks, Blanks: r.Blanks, BarPlan: r.BarPlan, HubRadiusMM: r.Job.Nodes.HubRadiusMM, PanelTypeSetOut: r.PanelTypeSetOut,
-		MemberMaterial: r.Job.Member.Material, MemberDensityKgM3: r.Job.Member.DensityKgM3,
-		MemberSection: r.Job.Member.Section, MemberKgPerM: r.Job.Member.KgPerM(), TagSize: r.Job.Site.TagSize,
-		PanelMaterial: r.Job.Material(), PanelSpec: spec(r.Job.Panel.PanelSpec), TypeSpecs: r.TypeSpecs}
-}
-
-// write writes every output of the result into the folder dir, atomically
-// and only where opt allows (outdir.WriteFolder), reporting each file to obs as stage
-// "write", and returns the report. The planarized net (net-flat.obj) is
-// written in the net file's order (FileNet).
-func write(dir string, r *Result, opt outdir.Options, obs Observer) (*export.Report, error) {
-	b := r.Bundle()
-	rep := export.BuildReport(b)
-	err := export.WriteBuild(dir, opt, r.FileNet(), b.Warnings, rep, func(done, total int, what string) { obs.Step("write", done, total, "write "+what) })
-	if err != nil {
-		return nil, err
-	}
-	return rep, nil
-}
-
-// spec turns a job's panel specification into the report's.
-func spec(s job.PanelSpec) export.PanelSpec {
-	return export.PanelSpec{BuildUp: s.BuildUp, EdgeWork: s.EdgeWork, Coating: s.Coating, HeatTreatment: s.HeatTreatment, Grade: s.Grade}
-}
-
-// settings lists the job's settings for the summary sheet: numbers as
-// numbers, units in the names. The stock sizes are in the report's stock
-// rows.
-func settings(j *job.Job) []export.Setting {
-	yes := func(b bool) string {
-		if b {
-			return "yes"
-		}
-		return "no"
-	}
-	return []export.Setting{
-		{Name: "Geometry unit", Value: j.Net.Unit},
-		{Name: "Supports", Value: j.Supports.Mode},
-		{Name: "Flatness tolerance (mm)", Value: j.Flatness.TolMM},
-		{Name: "Allowed node move (mm)", Value: j.Flatness.MaxMoveMM},
-		{Name: "Smooth moves against small moves (fairness)", Value: j.Flatness.Fairness},
-		{Name: "Node axes", Value: j.Nodes.Axis},
-		{Name: "Hub radius (mm)", Value: j.Nodes.HubRadiusMM},
-		{Name: "Member section", Value: j.Member.Section},
-		{Name: "Member width (mm)", Value: j.Member.WidthMM},
-		{Name: "Member depth (mm)", Value: j.Member.DepthMM},
-		{Name: "Member wall (mm, hollow sections)", Value: j.Member.WallMM},
-		{Name: "Member mass (kg/m)", Value: export.Round(j.Member.KgPerM(), 3)},
-		{Name: "Panel material", Value: j.Panel.Material},
-		{Name: "Panel thickness (mm)", Value: j.Panel.ThicknessMM},
-		{Name: "Panel edge inset (mm)", Value: j.Panel.EdgeInsetMM},
-		{Name: "Mirrored panels allowed", Value: yes(j.Panel.Mirror)},
-		{Name: "Panel edges bevelled (bevels part of each panel type)", Value: yes(j.Panel.BevelledEdges)},
-		{Name: "Bay size (mm)", Value: j.Nodes.BayMM},
-		{Name: "Type tolerance, member cut length (mm)", Value: j.Types.LengthTolMM},
-		{Name: "Type tolerance, angles (°)", Value: j.Types.AngleTolDeg},
-		{Name: "Type tolerance, panel edges and diagonals (mm)", Value: j.Types.PanelTolMM},
-		{Name: "Nesting search steps", Value: j.NestOptions().Steps},
-		{Name: "Nesting time limit (s, 0: none)", Value: j.Nesting.Seconds},
-	}
-}
-
-// cost turns the job's rates into a cost summary (nil without rates).
-// Each quantity is charged once: making rates cover processing only, the
-// material comes from the bar and sheet prices (or, for a stock without a
-// price, from the material rates), a node is one charge, and the type
-// rates are a setup charge per distinct type. Amounts are rounded to the
-// cent and the total is their sum.
-func cost(j *job.Job, st *nodes.Structure, flats []panels.Flat, nres *nest.Result, stocks []nest.Stock, plan *bars.Plan, barStocks []bars.Stock, blanks []bars.Piece, panelTypes int) *export.Cost {
-	rt := j.Rates
-	if rt == nil {
-		return nil
-	}
-	c := &export.Cost{Currency: rt.Currency}
-	var cents int64
-	add := func(kind, item string, q float64, unit string, rate float64) {
-		q = math.Round(q*1000) / 1000 // the quantity shown is the one charged
-		ct := int64(math.Round(q * rate * 100))
-		c.Lines = append(c.Lines, export.CostLine{Kind: kind, Item: item, Quantity: q, Unit: unit, Rate: rate, Amount: float64(ct) / 100})
-		cents += ct
-	}
-	// Members: material from the bars, making by cut length, setup by type.
-	var metres float64
-	for _, m := range st.Members {
-		metres += m.CutLengthMM / 1000
-	}
-	onBar := make([]bool, len(blanks))
-	if plan != nil {
-		for _, u := range plan.Stocks {
-			if u.Bars == 0 {
-				continue
-			}
-			s := barStocks[u.Stock]
-			switch {
-			case s.Price > 0 || rt.BarPerM == 0:
-				add(export.CostMaterial, fmt.Sprintf("Member material: bars %s (%g mm), at the bar price", s.Name, s.LengthMM), float64(u.Bars), "bar", s.Price)
-			default:
-				add(export.CostMaterial, fmt.Sprintf("Member material: bars %s (%g mm), no bar price: by bar length", s.Name, s.LengthMM), float64(u.Bars)*s.LengthMM/1000, "m", rt.BarPerM)
-			}
-		}
-		for _, b := range plan.Bars {
-			for _, p := range b.Pieces {
-				onBar[p] = true
-			}
-		}
-	}
-	var loose float64
-	for i, p := range blanks {
-		if !onBar[i] {
-			loose += p.LengthMM / 1000
-		}
-	}
-	if loose > 0 && rt.BarPerM > 0 {
-		add(export.CostMaterial, "Member material: members on no bar, by blank length", loose, "m", rt.BarPerM)
-	}
-	add(export.CostMaking, "Member making: cutting and end cuts, by cut length", metres, "m", rt.MemberPerM)
-	if rt.MemberTypeEach > 0 {
-		add(export.CostSetup, "Member types: setup and drawing", float64(len(st.MemberTypes)), "type", rt.MemberTypeEach)
-	}
-	// Nodes: one charge each, supplied and made.
-	add(export.CostMaking, "Nodes: supplied and made", float64(len(st.Nodes)), "each", rt.NodeEach)
-	if rt.NodeTypeEach > 0 {
-		add(export.CostSetup, "Node types: setup and drawing", float64(len(st.NodeTypes)), "type", rt.NodeTypeEach)
-	}
-	// Panels: material from the sheets, making by cut area, setup by type.
-	for _, u := range nres.Stocks {
-		if u.Sheets == 0 {
-			continue
-		}
-		s := stocks[u.Stock]
-		switch {
-		case s.Price > 0:
-			add(export.CostMaterial, "Panel material: sheets "+s.Name+", at the sheet price", float64(u.Sheets), "sheet", s.Price)
-		case rt.SheetPerM2 > 0:
-			add(export.CostMaterial, "Panel material: sheets "+s.Name+", no sheet price: by sheet area", float64(u.Sheets)*s.WidthMM*s.HeightMM/1e6, "m²", rt.SheetPerM2)
-		default:
-			add(export.CostMaterial, "Panel material: sheets "+s.Name+", no sheet price: per sheet", float64(u.Sheets), "sheet", rt.SheetEach)
-		}
-	}
-	var area float64
-	for _, f := range flats {
-		area += f.AreaM2
-	}
-	add(export.CostMaking, "Panel making: cutting and edge work, by cut area", area, "m²", rt.PanelPerM2)
-	if rt.PanelTypeEach > 0 {
-		add(export.CostSetup, "Panel types: setup and drawing", float64(panelTypes), "type", rt.PanelTypeEach)
-	}
-	c.Total = float64(cents) / 100
-	return c
 }

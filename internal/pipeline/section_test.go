@@ -4,7 +4,7 @@ import (
 	"math"
 	"testing"
 
-	"pqfab/export"
+	"pqfab/internal/report"
 )
 
 // TestMemberSectionWeights: the same net built with a solid steel bar, a
@@ -15,11 +15,11 @@ import (
 // 7850 kg/m³; EN 10219-2 lists about 10.7 kg/m for it, from memory)
 // weighs about a fifth of the solid bar (7200 mm², 56.52 kg/m).
 func TestMemberSectionWeights(t *testing.T) {
-	build := func(member string) *export.Report {
+	build := func(member string) *report.Report {
 		t.Helper()
 		text := "[net]\nfile = \"net.obj\"\n[member]\nwidth_mm = 60\ndepth_mm = 120\ndensity_kg_m3 = 7850\n" + member +
 			"[[stock]]\nwidth_mm = 6000\nheight_mm = 3210\n"
-		return export.BuildReport(runSample(t, "wave", 60, text).Bundle())
+		return report.New(runSample(t, "wave", 60, text))
 	}
 	weights := map[string]float64{}
 	for _, tc := range []struct {

@@ -8,8 +8,8 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
-	"pqfab/export"
 	"pqfab/geom"
+	"pqfab/internal/num"
 	"pqfab/nodes"
 	"pqfab/panels"
 	"pqfab/panels/nest"
@@ -62,12 +62,12 @@ func Inspect(file string, net *geom.Net, topo *geom.Topology) (*Inspection, erro
 			in.BoundaryEdges++
 		}
 	}
-	in.BoundaryLengthM = export.Round(topo.BoundaryLength(net)/1000, 3)
+	in.BoundaryLengthM = num.Round(topo.BoundaryLength(net)/1000, 3)
 	lo, hi := net.Bounds()
 	size := r3.Sub(hi, lo)
-	in.BoundsMinMM = [3]float64{export.Round(lo.X, 1), export.Round(lo.Y, 1), export.Round(lo.Z, 1)}
-	in.BoundsMaxMM = [3]float64{export.Round(hi.X, 1), export.Round(hi.Y, 1), export.Round(hi.Z, 1)}
-	in.SizeMM = [3]float64{export.Round(size.X, 1), export.Round(size.Y, 1), export.Round(size.Z, 1)}
+	in.BoundsMinMM = [3]float64{num.Round(lo.X, 1), num.Round(lo.Y, 1), num.Round(lo.Z, 1)}
+	in.BoundsMaxMM = [3]float64{num.Round(hi.X, 1), num.Round(hi.Y, 1), num.Round(hi.Z, 1)}
+	in.SizeMM = [3]float64{num.Round(size.X, 1), num.Round(size.Y, 1), num.Round(size.Z, 1)}
 	for v, c := range topo.ValenceHistogram() {
 		if c > 0 {
 			in.MembersAtNode[fmt.Sprint(v)] = c
@@ -83,11 +83,11 @@ func Inspect(file string, net *geom.Net, topo *geom.Topology) (*Inspection, erro
 		ratios[i] = p.Ratio * 100
 		flat[i] = p.Flatness
 	}
-	in.RatioPct = export.RoundSpread(panels.SpreadOf(ratios), 4)
-	in.FlatnessMM = export.RoundSpread(panels.SpreadOf(flat), 3)
+	in.RatioPct = num.RoundSpread(panels.SpreadOf(ratios), 4)
+	in.FlatnessMM = num.RoundSpread(panels.SpreadOf(flat), 3)
 	for _, f := range panels.Worst(pl, 10) {
 		in.Worst = append(in.Worst, WorstPanel{Panel: net.Faces[f].ID, Line: net.Faces[f].Line,
-			FlatnessMM: export.Round(pl[f].Flatness, 3), RatioPct: export.Round(pl[f].Ratio*100, 4), GapMM: export.Round(pl[f].DiagonalGap, 3)})
+			FlatnessMM: num.Round(pl[f].Flatness, 3), RatioPct: num.Round(pl[f].Ratio*100, 4), GapMM: num.Round(pl[f].DiagonalGap, 3)})
 	}
 	return in, nil
 }
@@ -127,7 +127,7 @@ type TypeCount struct {
 // SummarizeMembers sums up a structure.
 func SummarizeMembers(file string, axis nodes.AxisMethod, s *nodes.Structure) *MemberSummary {
 	sum := &MemberSummary{Net: file, Axis: string(axis), Members: len(s.Members), Nodes: len(s.Nodes),
-		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), TwistNormalMax: export.Round(s.TwistNormalDeg, 6)}
+		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), TwistNormalMax: num.Round(s.TwistNormalDeg, 6)}
 	tw := make([]float64, len(s.Members))
 	cut := make([]float64, len(s.Members))
 	counts := make([]int, len(TwistBins))
@@ -147,8 +147,8 @@ func SummarizeMembers(file string, axis nodes.AxisMethod, s *nodes.Structure) *M
 		}
 		sum.TwistHistogram = append(sum.TwistHistogram, BinCount{UpToDeg: up, Count: counts[b]})
 	}
-	sum.TwistDeg = export.RoundSpread(panels.SpreadOf(tw), 6)
-	sum.CutLengthMM = export.RoundSpread(panels.SpreadOf(cut), 1)
+	sum.TwistDeg = num.RoundSpread(panels.SpreadOf(tw), 6)
+	sum.CutLengthMM = num.RoundSpread(panels.SpreadOf(cut), 1)
 	order := make([]int, len(s.MemberTypes))
 	for i := range order {
 		order[i] = i
@@ -156,7 +156,7 @@ func SummarizeMembers(file string, axis nodes.AxisMethod, s *nodes.Structure) *M
 	sort.SliceStable(order, func(a, b int) bool { return len(s.MemberTypes[order[a]].Parts) > len(s.MemberTypes[order[b]].Parts) })
 	for _, t := range order[:min(10, len(order))] {
 		ty := s.MemberTypes[t]
-		sum.TopTypes = append(sum.TopTypes, TypeCount{Type: ty.Name, Count: len(ty.Parts), CutLengthMM: export.Round(ty.CutLengthMM, 1)})
+		sum.TopTypes = append(sum.TopTypes, TypeCount{Type: ty.Name, Count: len(ty.Parts), CutLengthMM: num.Round(ty.CutLengthMM, 1)})
 	}
 	return sum
 }
@@ -198,10 +198,10 @@ type NestUnplacedRow struct {
 
 // SummarizeNest sums up a nesting of parts on stocks.
 func SummarizeNest(res *nest.Result, stocks []nest.Stock, parts []nest.Part) *NestSummary {
-	s := &NestSummary{Parts: len(parts), AreaM2: export.Round(res.PartAreaMM2/1e6, 4), Ordering: res.Ordering,
+	s := &NestSummary{Parts: len(parts), AreaM2: num.Round(res.PartAreaMM2/1e6, 4), Ordering: res.Ordering,
 		Sheets: []NestSheetRow{}, Unplaced: []NestUnplacedRow{}}
 	for i, sh := range res.Sheets {
-		row := NestSheetRow{Name: export.SheetName(i, len(res.Sheets)), Stock: stocks[sh.Stock].Name, Utilization: export.Round(sh.Utilization, 4)}
+		row := NestSheetRow{Name: nest.SheetName(i, len(res.Sheets)), Stock: stocks[sh.Stock].Name, Utilization: num.Round(sh.Utilization, 4)}
 		for _, p := range sh.Placements {
 			row.Panels = append(row.Panels, parts[p.Part].Label)
 		}

@@ -511,3 +511,16 @@ func countOffLeft(r *Result) int {
 	}
 	return n
 }
+
+// TestSheetName: at least two digits, as many as the count needs, so
+// names sort in order.
+func TestSheetName(t *testing.T) {
+	for _, tc := range []struct {
+		i, n int
+		want string
+	}{{0, 1, "S-01"}, {8, 12, "S-09"}, {99, 100, "S-100"}, {4, 1000, "S-0005"}} {
+		if got := SheetName(tc.i, tc.n); got != tc.want {
+			t.Errorf("SheetName(%d, %d) = %q, want %q", tc.i, tc.n, got, tc.want)
+		}
+	}
+}

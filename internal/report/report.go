@@ -1,16 +1,24 @@
-package export
+package report
 
 import (
+	"pqfab/internal/num"
+	"pqfab/internal/pipeline"
 	"pqfab/panels"
 )
 
 // Digits of the numbers in every output: lengths to 0.01 mm, angles to
 // 0.001°, areas to 0.0001 m², weights to 0.01 kg.
 const (
-	lenDigits    = 2
-	angleDigits  = 3
-	areaDigits   = 4
-	weightDigits = 2
+	LenDigits    = 2
+	AngleDigits  = 3
+	AreaDigits   = 4
+	WeightDigits = 2
+)
+
+// r and spread are the short names used throughout this package.
+var (
+	r      = num.Round
+	spread = num.RoundSpread
 )
 
 // Report is report.json: everything, machine-readable. Lengths mm, angles
@@ -291,3 +299,15 @@ type StockRow struct {
 	Price     float64 `json:"price"` // per sheet; 0 when the job gives none
 	Cost      float64 `json:"cost"`  // sheets × price
 }
+
+// Panel returns the row of the panel with this label (indexed by New), or
+// an empty row for a label the report does not hold.
+func (rep *Report) Panel(label string) *PanelRow {
+	if p := rep.panelOf[label]; p != nil {
+		return p
+	}
+	return &PanelRow{Label: label}
+}
+
+// Caution is printed in every report, schedule, drawing and plan.
+const Caution = pipeline.Caution

@@ -1,11 +1,8 @@
-package pipeline_test
+package report
 
 import (
 	"strings"
 	"testing"
-
-	"pqfab/export"
-	"pqfab/internal/pipeline"
 )
 
 // TestBuildTextTitle: the first line names the job's title, and a job
@@ -16,7 +13,7 @@ func TestBuildTextTitle(t *testing.T) {
 		{"Larkspur vault", "built Larkspur vault into out\n"},
 	} {
 		var b strings.Builder
-		pipeline.WriteBuildText(&b, "out", &export.Report{Title: tc.title})
+		WriteText(&b, "out", &Report{Title: tc.title})
 		if got, _, _ := strings.Cut(b.String(), "\n"); got+"\n" != tc.want {
 			t.Errorf("title %q: first line %q, want %q", tc.title, got, tc.want)
 		}

@@ -1,4 +1,4 @@
-package export
+package report
 
 import (
 	"fmt"
@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"pqfab/geom"
+	"pqfab/internal/pipeline"
 	"pqfab/nodes"
 	"pqfab/nodes/bars"
 	"pqfab/panels"
@@ -65,24 +66,26 @@ func boundReason(b parttype.Bound, noun, apart string) string {
 
 // buildTypes fills the type rows: the nominal part of every type, its
 // deviation, totals and parts.
-func (rep *Report) buildTypes(b *Bundle) {
+func (rep *Report) buildTypes(b *pipeline.Result) {
 	s := b.Structure
+	hub := b.Job.Nodes.HubRadiusMM
+	kgm := b.Job.Member.KgPerM()
 	rep.MemberTypes = make([]MemberTypeRow, 0, len(s.MemberTypes))
 	for _, t := range s.MemberTypes {
-		row := MemberTypeRow{Name: t.Name, Count: len(t.Parts), CutLengthMM: r(t.CutLengthMM, lenDigits),
-			TwistDeg: r(t.TwistDeg, angleDigits), MaxDevMM: r(t.MaxDevMM, lenDigits), MaxDevDeg: r(t.MaxDevDeg, angleDigits),
-			TotalM: r(t.TotalCutLengthMM/1000, 3), WeightKg: r(b.MemberKgPerM*t.TotalCutLengthMM/1000, weightDigits),
+		row := MemberTypeRow{Name: t.Name, Count: len(t.Parts), CutLengthMM: r(t.CutLengthMM, LenDigits),
+			TwistDeg: r(t.TwistDeg, AngleDigits), MaxDevMM: r(t.MaxDevMM, LenDigits), MaxDevDeg: r(t.MaxDevDeg, AngleDigits),
+			TotalM: r(t.TotalCutLengthMM/1000, 3), WeightKg: r(kgm*t.TotalCutLengthMM/1000, WeightDigits),
 			ReadFromB: []string{}}
 		blank := t.CutLengthMM
 		for k, e := range []struct{ MitreDeg, BevelDeg float64 }{{t.A.MitreDeg, t.A.BevelDeg}, {t.B.MitreDeg, t.B.BevelDeg}} {
-			row.Ends[k] = TypeEndRow{MitreDeg: r(e.MitreDeg, angleDigits), BevelDeg: r(e.BevelDeg, angleDigits),
-				SetbackMM: r(nodes.SetbackMM(b.HubRadiusMM, e.MitreDeg, e.BevelDeg), lenDigits)}
+			row.Ends[k] = TypeEndRow{MitreDeg: r(e.MitreDeg, AngleDigits), BevelDeg: r(e.BevelDeg, AngleDigits),
+				SetbackMM: r(nodes.SetbackMM(hub, e.MitreDeg, e.BevelDeg), LenDigits)}
 			blank += bars.EndAllowanceMM(s.Section.WidthMM, s.Section.DepthMM, e.MitreDeg, e.BevelDeg)
 		}
-		row.BlankMM = r(blank, lenDigits)
-		row.SetOutMM = r(t.CutLengthMM+nodes.SetbackMM(b.HubRadiusMM, t.A.MitreDeg, t.A.BevelDeg)+nodes.SetbackMM(b.HubRadiusMM, t.B.MitreDeg, t.B.BevelDeg), lenDigits)
+		row.BlankMM = r(blank, LenDigits)
+		row.SetOutMM = r(t.CutLengthMM+nodes.SetbackMM(hub, t.A.MitreDeg, t.A.BevelDeg)+nodes.SetbackMM(hub, t.B.MitreDeg, t.B.BevelDeg), LenDigits)
 		face := func(y, z float64) float64 {
-			return r(faceLength(t.CutLengthMM, t.A.MitreDeg, t.A.BevelDeg, t.B.MitreDeg, t.B.BevelDeg, y, z), lenDigits)
+			return r(faceLength(t.CutLengthMM, t.A.MitreDeg, t.A.BevelDeg, t.B.MitreDeg, t.B.BevelDeg, y, z), LenDigits)
 		}
 		w, d := s.Section.WidthMM/2, s.Section.DepthMM/2
 		row.Faces = FaceLengthsRow{Top: face(0, d), Bottom: face(0, -d), SidePos: face(w, 0), SideNeg: face(-w, 0)}
@@ -96,9 +99,9 @@ func (rep *Report) buildTypes(b *Bundle) {
 	}
 	rep.NodeTypes = make([]NodeTypeRow, 0, len(s.NodeTypes))
 	for _, t := range s.NodeTypes {
-		row := NodeTypeRow{Name: t.Name, Count: len(t.Parts), MembersAtNode: t.MembersAtNode, MaxDevDeg: r(t.MaxDevDeg, angleDigits)}
+		row := NodeTypeRow{Name: t.Name, Count: len(t.Parts), MembersAtNode: t.MembersAtNode, MaxDevDeg: r(t.MaxDevDeg, AngleDigits)}
 		for _, a := range t.Arms {
-			row.Arms = append(row.Arms, TypeArmRow{AzimuthDeg: r(a.AzimuthDeg, angleDigits), ElevationDeg: r(a.ElevationDeg, angleDigits)})
+			row.Arms = append(row.Arms, TypeArmRow{AzimuthDeg: r(a.AzimuthDeg, AngleDigits), ElevationDeg: r(a.ElevationDeg, AngleDigits)})
 		}
 		for _, i := range t.Parts {
 			row.Parts = append(row.Parts, s.Nodes[i].Label)
@@ -112,10 +115,10 @@ func (rep *Report) buildTypes(b *Bundle) {
 		// it: the drawing and the schedule print one value, and the
 		// deviations are the panels' from those numbers.
 		edges, angles, diags := panels.OutlineNumbers(t.Outline)
-		row := PanelTypeRow{Name: t.Name, Count: len(t.Panels), EdgesMM: round(edges, lenDigits), AnglesDeg: round(angles, angleDigits),
-			AreaM2: r(t.AreaM2, areaDigits), PerimeterMM: r(t.PerimeterMM, lenDigits), MaxDevMM: r(t.OutlineDevMM, lenDigits),
-			MaxDevDeg: r(t.OutlineDevDeg, angleDigits), TotalAreaM2: r(t.TotalAreaM2, areaDigits), WeightKg: r(t.TotalWeightKg, weightDigits),
-			Spec: b.specOf(t.Name), Diagonals: cornerDiagonals(diags), Mirrored: []string{}}
+		row := PanelTypeRow{Name: t.Name, Count: len(t.Panels), EdgesMM: round(edges, LenDigits), AnglesDeg: round(angles, AngleDigits),
+			AreaM2: r(t.AreaM2, AreaDigits), PerimeterMM: r(t.PerimeterMM, LenDigits), MaxDevMM: r(t.OutlineDevMM, LenDigits),
+			MaxDevDeg: r(t.OutlineDevDeg, AngleDigits), TotalAreaM2: r(t.TotalAreaM2, AreaDigits), WeightKg: r(t.TotalWeightKg, WeightDigits),
+			Spec: specOf(b, t.Name), Diagonals: cornerDiagonals(diags), Mirrored: []string{}}
 		row.BevelsDeg = make([][2]float64, k)
 		for e := 0; e < k; e++ {
 			row.BevelsDeg[e] = [2]float64{math.Inf(1), math.Inf(-1)}
@@ -147,11 +150,27 @@ func (rep *Report) buildTypes(b *Bundle) {
 
 // faceLength is the length of a member's long line through section
 // point (y, z) between its end cuts: the cut length on the axis, with
-// each end cut's offset along the member at that point (endOffset).
+// each end cut's offset along the member at that point (TypeEndRow.Offset).
 func faceLength(cut, mA, bA, mB, bB, y, z float64) float64 {
 	a := TypeEndRow{MitreDeg: mA, BevelDeg: bA}
 	b := TypeEndRow{MitreDeg: mB, BevelDeg: bB}
-	return cut + endOffset(b, y, z) - endOffset(a, y, z)
+	return cut + b.Offset(y, z) - a.Offset(y, z)
+}
+
+// Offset returns how far along the member axis the end cut at section
+// point (y, z) lies from the cut's axis point, for a plane with the end's
+// mitre and bevel (normal oriented along +x): x = −y·tan(mitre) − z·tan(bevel).
+func (e TypeEndRow) Offset(y, z float64) float64 {
+	return -y*math.Tan(e.MitreDeg*math.Pi/180) - z*math.Tan(e.BevelDeg*math.Pi/180)
+}
+
+// specOf returns the specification of a panel type: the type's own where
+// the job gives one, else the job's.
+func specOf(b *pipeline.Result, typeName string) PanelSpec {
+	if s, ok := b.TypeSpecs[typeName]; ok {
+		return s
+	}
+	return pipeline.Spec(b.Job.Panel.PanelSpec)
 }
 
 // drawingDigits: the type drawings' outlines are given to 0.001 mm, so
@@ -171,7 +190,7 @@ func pointsTo(p geom.Polygon, d int) [][2]float64 {
 func cornerDiagonals(ds []panels.Diagonal) []DiagonalRow {
 	out := make([]DiagonalRow, len(ds))
 	for i, d := range ds {
-		out[i] = DiagonalRow{From: strconv.Itoa(d.I + 1), To: strconv.Itoa(d.J + 1), MM: r(d.MM, lenDigits)}
+		out[i] = DiagonalRow{From: strconv.Itoa(d.I + 1), To: strconv.Itoa(d.J + 1), MM: r(d.MM, LenDigits)}
 	}
 	return out
 }

@@ -1,4 +1,4 @@
-package export
+package report
 
 // Type rows: what the workshop makes and the estimator counts. A type is
 // a promise: every two parts of a type agree within every tolerance, and

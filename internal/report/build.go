@@ -1,24 +1,27 @@
-package export
+package report
 
 import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/internal/pipeline"
 	"pqfab/nodes"
 	"pqfab/panels"
+	"pqfab/panels/nest"
 )
 
 func vec(v r3.Vec, d int) [3]float64 { return [3]float64{r(v.X, d), r(v.Y, d), r(v.Z, d)} }
 
-// BuildReport turns a bundle into the report model that report.json, the
-// schedule and the HTML page share.
-func BuildReport(b *Bundle) *Report {
+// New fills the report model, that every output file is written from,
+// straight from a build's result.
+func New(b *pipeline.Result) *Report {
 	s := b.Structure
 	n := b.Net
-	rep := &Report{Title: b.Title, Caution: Caution, Job: b.JobFile, Net: b.NetFile,
+	j := b.Job
+	rep := &Report{Title: j.Title, Caution: pipeline.Caution, Job: j.File, Net: b.NetPath,
 		Units:    map[string]string{"length": "mm", "angle": "degree", "area": "m2", "weight": "kg"},
-		Settings: b.Settings, Warnings: append([]string{}, b.Warnings...),
-		Sheets: []SheetRow{}, Unplaced: []UnplacedRow{}, Stocks: []StockRow{}, TagSize: b.TagSize}
+		Settings: settingsOf(j), Warnings: append([]string{}, b.Warnings...),
+		Sheets: []SheetRow{}, Unplaced: []UnplacedRow{}, Stocks: []StockRow{}, TagSize: j.Site.TagSize}
 	nodeLabel := func(i int) string { return s.Nodes[i].Label }
 	rep.Section = Section{WidthMM: s.Section.WidthMM, DepthMM: s.Section.DepthMM, WallMM: s.Section.WallMM}
 	rep.Counts = Counts{Nodes: len(n.Nodes), Members: len(s.Members), Panels: len(n.Faces),
@@ -27,26 +30,26 @@ func BuildReport(b *Bundle) *Report {
 		NodeTypesBound:   boundRow(s.NodeTypeBound, "nodes", "nodes with different numbers of members never share a type"),
 		PanelTypesBound:  boundRow(b.PanelTypeBound, "panels", "panels with different numbers of corners never share a type")}
 	pl := b.Planarize
-	rep.Planarity = Planarity{ToleranceMM: b.TolMM, Converged: pl.Converged, Iterations: pl.Iterations,
+	rep.Planarity = Planarity{ToleranceMM: j.Flatness.TolMM, Converged: pl.Converged, Iterations: pl.Iterations,
 		MaxMoveMM: r(pl.MaxMoveMM, 3), RMSMoveMM: r(pl.RMSMoveMM, 3),
 		FlatBeforeMM: spread(panels.SpreadOf(pl.Before), 3), FlatAfterMM: spread(panels.SpreadOf(pl.After), 4),
-		MaxTwistDeg: r(nodes.MaxAbsTwist(s.Members), angleDigits), MaxTwistNormalDeg: r(s.TwistNormalDeg, angleDigits)}
+		MaxTwistDeg: r(nodes.MaxAbsTwist(s.Members), AngleDigits), MaxTwistNormalDeg: r(s.TwistNormalDeg, AngleDigits)}
 	rep.Nodes = make([]NodeRow, 0, len(s.Nodes))
 	for i, nd := range s.Nodes {
-		row := NodeRow{Label: nd.Label, ID: n.Nodes[i].ID, Pos: vec(n.Nodes[i].Pos, lenDigits), Axis: vec(nd.Axis, 6),
+		row := NodeRow{Label: nd.Label, ID: n.Nodes[i].ID, Pos: vec(n.Nodes[i].Pos, LenDigits), Axis: vec(nd.Axis, 6),
 			MembersAtNode: nd.Valence, Type: s.NodeTypes[nd.Type].Name, Support: b.Supports[i],
-			MoveMM: r(r3.Norm(pl.Moves[i]), lenDigits), Move: vec(pl.Moves[i], lenDigits),
-			AzimuthZero: nd.Zero, AxisTiltDeg: r(nd.TiltDeg, angleDigits), AxisTiltTowardDeg: r(nd.TiltTowardDeg, angleDigits)}
+			MoveMM: r(r3.Norm(pl.Moves[i]), LenDigits), Move: vec(pl.Moves[i], LenDigits),
+			AzimuthZero: nd.Zero, AxisTiltDeg: r(nd.TiltDeg, AngleDigits), AxisTiltTowardDeg: r(nd.TiltTowardDeg, AngleDigits)}
 		if len(nd.Arms) > 0 {
 			row.Arms = make([]ArmRow, 0, len(nd.Arms))
 		}
 		for _, a := range nd.Arms {
-			row.Arms = append(row.Arms, ArmRow{Member: s.Members[a.Member].Label, AzimuthDeg: r(a.AzimuthDeg, angleDigits), ElevationDeg: r(a.ElevationDeg, angleDigits)})
+			row.Arms = append(row.Arms, ArmRow{Member: s.Members[a.Member].Label, AzimuthDeg: r(a.AzimuthDeg, AngleDigits), ElevationDeg: r(a.ElevationDeg, AngleDigits)})
 		}
 		rep.Nodes = append(rep.Nodes, row)
 	}
 	barOf := rep.buildBars(b)
-	kgm := b.MemberKgPerM
+	kgm := j.Member.KgPerM()
 	rep.Members = make([]MemberRow, 0, len(s.Members))
 	fromB := make([]bool, len(s.Members))
 	for _, t := range s.MemberTypes {
@@ -56,25 +59,26 @@ func BuildReport(b *Bundle) *Report {
 	}
 	for k, m := range s.Members {
 		end := func(e nodes.End) EndRow {
-			return EndRow{Node: nodeLabel(e.Node), ElevationDeg: r(e.ElevationDeg, angleDigits), SetbackMM: r(e.SetbackMM, lenDigits), MitreDeg: r(e.MitreDeg, angleDigits), BevelDeg: r(e.BevelDeg, angleDigits)}
+			return EndRow{Node: nodeLabel(e.Node), ElevationDeg: r(e.ElevationDeg, AngleDigits), SetbackMM: r(e.SetbackMM, LenDigits), MitreDeg: r(e.MitreDeg, AngleDigits), BevelDeg: r(e.BevelDeg, AngleDigits)}
 		}
 		rep.Members = append(rep.Members, MemberRow{Label: m.Label, NodeA: nodeLabel(m.A.Node), NodeB: nodeLabel(m.B.Node),
-			LengthMM: r(m.LengthMM, lenDigits), CutLengthMM: r(m.CutLengthMM, lenDigits), TwistDeg: r(m.TwistDeg, angleDigits),
-			FoldDeg: r(memberFold(m), angleDigits), Type: s.MemberTypes[m.Type].Name,
+			LengthMM: r(m.LengthMM, LenDigits), CutLengthMM: r(m.CutLengthMM, LenDigits), TwistDeg: r(m.TwistDeg, AngleDigits),
+			FoldDeg: r(memberFold(m), AngleDigits), Type: s.MemberTypes[m.Type].Name,
 			Ends: [2]EndRow{end(m.A), end(m.B)}, TagEnd: map[bool]string{false: "A", true: "B"}[fromB[k]], FrameY: vec(m.Frame.Y, 6), FrameZ: vec(m.Frame.Z, 6),
-			BlankMM: r(blankOf(b, k), lenDigits), Bar: barOf[k], WeightKg: r(kgm*m.CutLengthMM/1000, weightDigits)})
+			BlankMM: r(blankOf(b, k), LenDigits), Bar: barOf[k], WeightKg: r(kgm*m.CutLengthMM/1000, WeightDigits)})
 		rep.Weights.MembersKg += kgm * m.CutLengthMM / 1000
 	}
-	rep.MemberMaterial = MemberMaterial{Name: b.MemberMaterial, DensityKgM3: b.MemberDensityKgM3, Section: b.MemberSection, KgPerM: r(kgm, 3)}
-	rep.PanelSpec = b.PanelSpec
-	rep.PanelMaterial = PanelMaterial{Name: b.PanelMaterial.Name, ThicknessMM: b.PanelMaterial.ThicknessMM,
-		DensityKgM3: b.PanelMaterial.DensityKgM3, EdgeInsetMM: b.PanelMaterial.EdgeInsetMM, BevelledEdges: b.PanelMaterial.BevelledEdges}
-	sheetOf := b.sheetOf()
+	rep.MemberMaterial = MemberMaterial{Name: j.Member.Material, DensityKgM3: j.Member.DensityKgM3, Section: j.Member.Section, KgPerM: r(kgm, 3)}
+	rep.PanelSpec = pipeline.Spec(j.Panel.PanelSpec)
+	pm := j.Material()
+	rep.PanelMaterial = PanelMaterial{Name: pm.Name, ThicknessMM: pm.ThicknessMM,
+		DensityKgM3: pm.DensityKgM3, EdgeInsetMM: pm.EdgeInsetMM, BevelledEdges: pm.BevelledEdges}
+	sheetOf := sheetsOf(b)
 	rep.Panels = make([]PanelRow, 0, len(b.Flats))
 	for f, fl := range b.Flats {
 		face := n.Faces[f]
-		row := PanelRow{Label: fl.Label, ID: face.ID, AreaM2: r(fl.AreaM2, areaDigits), PerimeterMM: r(fl.PerimeterMM, lenDigits),
-			WeightKg: r(fl.WeightKg, weightDigits), FlatnessBeforeMM: r(pl.Before[f], 3), FlatnessMM: r(pl.After[f], 4),
+		row := PanelRow{Label: fl.Label, ID: face.ID, AreaM2: r(fl.AreaM2, AreaDigits), PerimeterMM: r(fl.PerimeterMM, LenDigits),
+			WeightKg: r(fl.WeightKg, WeightDigits), FlatnessBeforeMM: r(pl.Before[f], 3), FlatnessMM: r(pl.After[f], 4),
 			Type: b.PanelTypes[fl.Type].Name}
 		// The flat's corner i is the face's corner Start+i (corner 1 of
 		// the panel is corner 1 of its type).
@@ -84,12 +88,12 @@ func BuildReport(b *Bundle) *Report {
 		for i := range face.Corners {
 			row.Corners[i] = corner(i)
 		}
-		row.Cut = CutRow{EdgesMM: round(fl.CutEdgeMM, lenDigits), AnglesDeg: round(fl.CutAngleDeg, angleDigits), Diagonals: []DiagonalRow{},
-			BoxMM: [2]float64{r(fl.BoxMM[0], lenDigits), r(fl.BoxMM[1], lenDigits)}}
+		row.Cut = CutRow{EdgesMM: round(fl.CutEdgeMM, LenDigits), AnglesDeg: round(fl.CutAngleDeg, AngleDigits), Diagonals: []DiagonalRow{},
+			BoxMM: [2]float64{r(fl.BoxMM[0], LenDigits), r(fl.BoxMM[1], LenDigits)}}
 		for _, d := range fl.CutDiagonals {
-			row.Cut.Diagonals = append(row.Cut.Diagonals, DiagonalRow{From: corner(d.I), To: corner(d.J), MM: r(d.MM, lenDigits)})
+			row.Cut.Diagonals = append(row.Cut.Diagonals, DiagonalRow{From: corner(d.I), To: corner(d.J), MM: r(d.MM, LenDigits)})
 		}
-		row.GrainDeg = r(fl.GrainDeg, angleDigits)
+		row.GrainDeg = r(fl.GrainDeg, AngleDigits)
 		rep.Weights.PanelsKg += fl.WeightKg
 		row.Edges, row.AnglesDeg = make([]EdgeRow, 0, kc), make([]float64, 0, kc)
 		for k := range face.Corners {
@@ -97,15 +101,15 @@ func BuildReport(b *Bundle) *Report {
 			if g := fl.Neighbour[k]; g >= 0 {
 				nb = b.Flats[g].Label
 			}
-			row.Edges = append(row.Edges, EdgeRow{LengthMM: r(fl.EdgeMM[k], lenDigits), FoldDeg: r(fl.FoldDeg[k], angleDigits), BevelDeg: r(fl.BevelDeg[k], angleDigits), Neighbour: nb})
-			row.AnglesDeg = append(row.AnglesDeg, r(fl.AngleDeg[k], angleDigits))
+			row.Edges = append(row.Edges, EdgeRow{LengthMM: r(fl.EdgeMM[k], LenDigits), FoldDeg: r(fl.FoldDeg[k], AngleDigits), BevelDeg: r(fl.BevelDeg[k], AngleDigits), Neighbour: nb})
+			row.AnglesDeg = append(row.AnglesDeg, r(fl.AngleDeg[k], AngleDigits))
 		}
 		row.Diagonals = make([]DiagonalRow, 0, len(fl.Diagonals))
 		for _, d := range fl.Diagonals {
-			row.Diagonals = append(row.Diagonals, DiagonalRow{From: corner(d.I), To: corner(d.J), MM: r(d.MM, lenDigits)})
+			row.Diagonals = append(row.Diagonals, DiagonalRow{From: corner(d.I), To: corner(d.J), MM: r(d.MM, LenDigits)})
 		}
 		if sheetOf[f] >= 0 {
-			row.Sheet = SheetName(sheetOf[f], len(b.Nesting.Sheets))
+			row.Sheet = nest.SheetName(sheetOf[f], len(b.Nesting.Sheets))
 		}
 		row.Outline = points(fl.Cut)
 		rep.Panels = append(rep.Panels, row)
@@ -115,18 +119,18 @@ func BuildReport(b *Bundle) *Report {
 		rep.Sheets = make([]SheetRow, 0, len(nr.Sheets))
 		for si, sh := range nr.Sheets {
 			st := b.Stocks[sh.Stock]
-			row := SheetRow{Name: SheetName(si, len(nr.Sheets)), Stock: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM,
+			row := SheetRow{Name: nest.SheetName(si, len(nr.Sheets)), Stock: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM,
 				MarginMM: st.MarginMM, Rotation: string(st.Rotation), Utilization: r(sh.Utilization, 4)}
 			for _, c := range sh.Cuts {
 				row.Cuts = append(row.Cuts, SheetCutRow{Piece: c.Piece, From: [2]float64{r(c.From.X, 3), r(c.From.Y, 3)}, To: [2]float64{r(c.To.X, 3), r(c.To.Y, 3)}})
 			}
-			row.CutLengthMM = r(sh.CutLengthMM, lenDigits)
+			row.CutLengthMM = r(sh.CutLengthMM, LenDigits)
 			if len(sh.Placements) > 0 {
 				row.Placements = make([]PlacementRow, 0, len(sh.Placements))
 			}
 			for _, p := range sh.Placements {
-				row.Placements = append(row.Placements, PlacementRow{Panel: b.Flats[p.Part].Label, X: r(p.X, lenDigits), Y: r(p.Y, lenDigits),
-					RotationDeg: r(p.RotationDeg, angleDigits), Mirrored: p.Mirrored, Outline: points(p.Outline)})
+				row.Placements = append(row.Placements, PlacementRow{Panel: b.Flats[p.Part].Label, X: r(p.X, LenDigits), Y: r(p.Y, LenDigits),
+					RotationDeg: r(p.RotationDeg, AngleDigits), Mirrored: p.Mirrored, Outline: points(p.Outline)})
 			}
 			rep.Sheets = append(rep.Sheets, row)
 		}
@@ -150,11 +154,11 @@ func BuildReport(b *Bundle) *Report {
 	for i := range rep.Panels {
 		rep.panelOf[rep.Panels[i].Label] = &rep.Panels[i]
 	}
-	rep.Weights = Weights{PanelsKg: r(rep.Weights.PanelsKg, weightDigits), MembersKg: r(rep.Weights.MembersKg, weightDigits),
-		TotalKg: r(rep.Weights.PanelsKg+rep.Weights.MembersKg, weightDigits)}
-	rep.Cost = b.Cost
-	rep.Bays = bayGridOf(b.Bays)
-	rep.Warnings = append(rep.Warnings, siteWarnings(rep)...)
+	rep.Weights = Weights{PanelsKg: r(rep.Weights.PanelsKg, WeightDigits), MembersKg: r(rep.Weights.MembersKg, WeightDigits),
+		TotalKg: r(rep.Weights.PanelsKg+rep.Weights.MembersKg, WeightDigits)}
+	rep.Cost = costOf(b)
+	rep.Bays = BayGridOf(b.Bays)
+	rep.Warnings = append(rep.Warnings, SiteWarnings(rep)...)
 	return rep
 }
 
@@ -168,8 +172,8 @@ func memberFold(m nodes.Member) float64 {
 }
 
 // blankOf returns member k's blank length, or its cut length when the
-// bundle has no blanks.
-func blankOf(b *Bundle, k int) float64 {
+// result has no blanks.
+func blankOf(b *pipeline.Result, k int) float64 {
 	if k < len(b.Blanks) {
 		return b.Blanks[k].LengthMM
 	}
@@ -188,7 +192,24 @@ func round(xs []float64, d int) []float64 {
 func points(p geom.Polygon) [][2]float64 {
 	out := make([][2]float64, len(p))
 	for i, v := range p {
-		out[i] = [2]float64{r(v.X, lenDigits), r(v.Y, lenDigits)}
+		out[i] = [2]float64{r(v.X, LenDigits), r(v.Y, LenDigits)}
+	}
+	return out
+}
+
+// sheetsOf returns, per face, the sheet index it lies on or -1.
+func sheetsOf(b *pipeline.Result) []int {
+	out := make([]int, len(b.Flats))
+	for i := range out {
+		out[i] = -1
+	}
+	if b.Nesting == nil {
+		return out
+	}
+	for s, sh := range b.Nesting.Sheets {
+		for _, p := range sh.Placements {
+			out[p.Part] = s
+		}
 	}
 	return out
 }

@@ -1,4 +1,4 @@
-package export
+package report
 
 // GlossaryEntry explains one word of the outputs, the job file or the
 // commands that is not plain trade language, or a sign rule.
