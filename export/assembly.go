@@ -4,8 +4,6 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"slices"
-	"strings"
 	"unicode/utf8"
 
 	"github.com/yofu/dxf/color"
@@ -57,7 +55,7 @@ type planLabel struct {
 	lines    []string
 	layers   []string  // layer of each line
 	heights  []float64 // full-size height of each line
-	at       placement
+	at       Placement
 	angleDeg float64
 	anchor   [2]float64
 }
@@ -74,7 +72,7 @@ type planLabel struct {
 // with a leader line. Every member is also drawn as a 3D line at its true
 // height. It holds the DXF lock while it works (see dxfMu).
 func WriteAssemblyDXF(w io.Writer, rep *report.Report) error {
-	m, err := newSiteModel(rep)
+	m, err := NewSite(rep)
 	if err != nil {
 		return err
 	}
@@ -84,14 +82,14 @@ func WriteAssemblyDXF(w io.Writer, rep *report.Report) error {
 		{LayerMemberLabel, color.Yellow, nil}, {LayerPanelLabel, color.Green, nil}, {LayerLeader, color.Grey128, nil},
 		{Layer3DMember, color.Blue, nil}, {LayerLegend, color.White, nil}, {LayerTitle, color.White, nil},
 		{LayerGrid, color.Grey128, table.LT_DASHDOT}}
-	ps := newPlanScale(m.spanMM, rep.Section.WidthMM)
+	ps := newPlanScale(m.SpanMM, rep.Section.WidthMM)
 	pl := newAssemblyLayout(m, ps)
 	// Dash-dot pattern of the grid lines: a dash of about two label heights.
 	return writeDXF(w, layers, r(4*ps.h, 0), func(d *dxfDoc) error { return drawAssembly(d, rep, m, ps, pl) })
 }
 
 // drawAssembly draws the assembly plan.
-func drawAssembly(d *dxfDoc, rep *report.Report, m *siteModel, ps planScale, pl *assemblyLayout) error {
+func drawAssembly(d *dxfDoc, rep *report.Report, m *Site, ps planScale, pl *assemblyLayout) error {
 	var steps []func() error
 	add := func(f func() error) { steps = append(steps, f) }
 	layer := func(name string) { add(func() error { return useLayer(d, name) }) }
@@ -126,27 +124,27 @@ func drawAssembly(d *dxfDoc, rep *report.Report, m *siteModel, ps planScale, pl 
 	}
 	layer(LayerPlanFrame)
 	for _, b := range pl.bubbles {
-		circle(b.x, b.y, ps.bubble)
+		circle(b.X, b.Y, ps.bubble)
 	}
 	for _, f := range pl.frames {
 		add(func() error { return closedPoly(d, f) })
 	}
 	layer(LayerGridText)
 	for _, b := range pl.bubbles {
-		txt(b.text, b.x, b.y, ps.bayText, 0)
+		txt(b.Text, b.X, b.Y, ps.bayText, 0)
 	}
 
 	// The structure seen from above.
 	layer(LayerPlanMember)
 	for _, mb := range rep.Members {
-		a, b := m.pos(mb.NodeA), m.pos(mb.NodeB)
+		a, b := m.Pos(mb.NodeA), m.Pos(mb.NodeB)
 		line([3]float64{a[0], a[1]}, [3]float64{b[0], b[1]})
 	}
 	layer(LayerPlanPanel)
 	for _, p := range rep.Panels {
 		pts := make([][2]float64, len(p.Corners))
 		for i, c := range p.Corners {
-			q := m.pos(c)
+			q := m.Pos(c)
 			pts[i] = [2]float64{q[0], q[1]}
 		}
 		add(func() error { return closedPoly(d, pts) })
@@ -155,7 +153,7 @@ func drawAssembly(d *dxfDoc, rep *report.Report, m *siteModel, ps planScale, pl 
 		layer(LayerPlanTop)
 		for _, mb := range rep.Members {
 			add(func() error {
-				return closedPoly(d, barOutline(mb, m.pos(mb.NodeA), m.pos(mb.NodeB), rep.Section.WidthMM))
+				return closedPoly(d, barOutline(mb, m.Pos(mb.NodeA), m.Pos(mb.NodeB), rep.Section.WidthMM))
 			})
 		}
 	}
@@ -165,14 +163,14 @@ func drawAssembly(d *dxfDoc, rep *report.Report, m *siteModel, ps planScale, pl 
 	}
 	layer(Layer3DMember)
 	for _, mb := range rep.Members {
-		line(m.pos(mb.NodeA), m.pos(mb.NodeB))
+		line(m.Pos(mb.NodeA), m.Pos(mb.NodeB))
 	}
 
 	// Labels, by layer so each layer's texts sit together.
 	layer(LayerLeader)
 	for _, l := range pl.labels {
-		if l.at.leader {
-			e := l.at.box.edgePoint(l.anchor)
+		if l.at.Leader {
+			e := l.at.Box.EdgePoint(l.anchor)
 			line([3]float64{l.anchor[0], l.anchor[1]}, [3]float64{e[0], e[1]})
 		}
 	}
@@ -184,7 +182,7 @@ func drawAssembly(d *dxfDoc, rep *report.Report, m *siteModel, ps planScale, pl 
 					continue
 				}
 				c := l.lineCentre(k, ps.pad)
-				txt(s, c[0], c[1], l.heights[k]*l.at.scale, l.angleDeg)
+				txt(s, c[0], c[1], l.heights[k]*l.at.Scale, l.angleDeg)
 			}
 		}
 	}
@@ -210,19 +208,19 @@ func drawAssembly(d *dxfDoc, rep *report.Report, m *siteModel, ps planScale, pl 
 // are stacked top to bottom inside the box with a quarter of the first
 // line's height between them.
 func (l *planLabel) lineCentre(k int, pad float64) [2]float64 {
-	b := l.at.box
-	s := l.at.scale
+	b := l.at.Box
+	s := l.at.Scale
 	if len(l.lines) == 1 {
-		return [2]float64{b.cx, b.cy}
+		return [2]float64{b.CX, b.CY}
 	}
-	top := b.hh - s*pad
+	top := b.HH - s*pad
 	y := top
 	for i := 0; i < k; i++ {
 		y -= s * (l.heights[i] + 0.25*l.heights[0])
 	}
 	y -= s * l.heights[k] / 2
-	vx, vy := -b.uy, b.ux
-	return [2]float64{b.cx + y*vx, b.cy + y*vy}
+	vx, vy := -b.UY, b.UX
+	return [2]float64{b.CX + y*vx, b.CY + y*vy}
 }
 
 // planText is a left-aligned line: (x, y) the left end of its baseline.
@@ -231,30 +229,25 @@ type planText struct {
 	x, y, h float64
 }
 
-type bubble struct {
-	x, y float64
-	text string
-}
-
 // assemblyLayout is everything placed on the assembly plan.
 type assemblyLayout struct {
 	gridLines [][2][2]float64
-	bubbles   []bubble
+	bubbles   []Bubble
 	frames    [][][2]float64
 	labels    []*planLabel
 	legend    []planText
 	title     []planText
 }
 
-func newAssemblyLayout(m *siteModel, ps planScale) *assemblyLayout {
-	rep := m.rep
-	g := m.grid
-	cols, rows := m.gridRange()
+func newAssemblyLayout(m *Site, ps planScale) *assemblyLayout {
+	rep := m.Rep
+	g := m.Grid
+	cols, rows := m.GridRange()
 	x0, y0 := g.OriginMM[0], g.OriginMM[1]
 	x1, y1 := x0+float64(cols)*g.SizeMM[0], y0+float64(rows)*g.SizeMM[1]
 	// The plan may reach past the grid's first line (nodes on the lines).
-	ex0, ey0 := math.Min(x0, m.lo[0]), math.Min(y0, m.lo[1])
-	ex1, ey1 := math.Max(x1, m.hi[0]), math.Max(y1, m.hi[1])
+	ex0, ey0 := math.Min(x0, m.Lo[0]), math.Min(y0, m.Lo[1])
+	ex1, ey1 := math.Max(x1, m.Hi[0]), math.Max(y1, m.Hi[1])
 	over := ps.gridOver
 	bx0, by0 := ex0-over-ps.bubble, ey0-over-ps.bubble // bubble centres
 	bx1, by1 := ex1+over+ps.bubble, ey1+over+ps.bubble
@@ -270,24 +263,24 @@ func newAssemblyLayout(m *siteModel, ps planScale) *assemblyLayout {
 	for i := 0; i < cols; i++ {
 		x := x0 + (float64(i)+0.5)*g.SizeMM[0]
 		name := geom.ColumnLetters(i)
-		pl.bubbles = append(pl.bubbles, bubble{x, by0, name}, bubble{x, by1, name})
+		pl.bubbles = append(pl.bubbles, Bubble{x, by0, name}, Bubble{x, by1, name})
 	}
 	for j := 0; j < rows; j++ {
 		y := y0 + (float64(j)+0.5)*g.SizeMM[1]
 		name := fmt.Sprint(j + 1)
-		pl.bubbles = append(pl.bubbles, bubble{bx0, y, name}, bubble{bx1, y, name})
+		pl.bubbles = append(pl.bubbles, Bubble{bx0, y, name}, Bubble{bx1, y, name})
 	}
 
-	ix := newBoxIndex(indexCellLabels*ps.h, [2]float64{bx0 - ps.bubble, by0 - ps.bubble}, [2]float64{bx1 + ps.bubble, by1 + ps.bubble})
+	ix := NewBoxIndex(indexCellLabels*ps.h, [2]float64{bx0 - ps.bubble, by0 - ps.bubble}, [2]float64{bx1 + ps.bubble, by1 + ps.bubble})
 	for _, b := range pl.bubbles {
-		ix.add(axisBox(b.x, b.y, 2*ps.bubble, 2*ps.bubble))
+		ix.Add(AxisBox(b.X, b.Y, 2*ps.bubble, 2*ps.bubble))
 	}
 	for _, mb := range rep.Members {
-		a, b := m.pos(mb.NodeA), m.pos(mb.NodeB)
-		ix.add(segmentBox([2]float64{a[0], a[1]}, [2]float64{b[0], b[1]}, ps.clear))
+		a, b := m.Pos(mb.NodeA), m.Pos(mb.NodeB)
+		ix.Add(SegmentBox([2]float64{a[0], a[1]}, [2]float64{b[0], b[1]}, ps.clear))
 	}
 	for _, n := range rep.Nodes {
-		ix.add(axisBox(n.Pos[0], n.Pos[1], 2*ps.markR+ps.pad, 2*ps.markR+ps.pad))
+		ix.Add(AxisBox(n.Pos[0], n.Pos[1], 2*ps.markR+ps.pad, 2*ps.markR+ps.pad))
 	}
 	// Legend and title block sit right of and below the grid; labels that
 	// find no room go to a column right of the legend.
@@ -299,79 +292,69 @@ func newAssemblyLayout(m *siteModel, ps planScale) *assemblyLayout {
 	pl.title = title
 	pl.frames = append(pl.frames, titleBox)
 	for _, f := range pl.frames {
-		ix.add(axisBox((f[0][0]+f[2][0])/2, (f[0][1]+f[2][1])/2, f[2][0]-f[0][0], f[2][1]-f[0][1]))
+		ix.Add(AxisBox((f[0][0]+f[2][0])/2, (f[0][1]+f[2][1])/2, f[2][0]-f[0][0], f[2][1]-f[0][1]))
 	}
-	pp := &placer{ix: ix, ring: 1.5 * ps.h, rings: 6, overflowX: legendX + legendW + 6*ps.h, overflowY: by1}
+	pp := &Placer{Index: ix, Ring: 1.5 * ps.h, Rings: 6, OverflowX: legendX + legendW + 6*ps.h, OverflowY: by1}
 
 	// Bay names first, in a corner of their bay; then nodes, members and
 	// panels, each in label order.
-	for _, b := range m.bays {
-		s := b.name
+	for _, b := range m.Bays {
+		s := b.Name
 		w, h := dxfTextWidth(s, ps.bayText)+2*ps.pad, ps.bayText+2*ps.pad
 		in := ps.h
-		cands := func(sc float64) []obox {
+		cands := func(sc float64) []Box {
 			ww, hh := sc*w, sc*h
-			return []obox{axisBox(b.lo[0]+in+ww/2, b.lo[1]+in+hh/2, ww, hh), axisBox(b.lo[0]+in+ww/2, b.hi[1]-in-hh/2, ww, hh),
-				axisBox(b.hi[0]-in-ww/2, b.lo[1]+in+hh/2, ww, hh), axisBox(b.hi[0]-in-ww/2, b.hi[1]-in-hh/2, ww, hh)}
+			return []Box{AxisBox(b.Lo[0]+in+ww/2, b.Lo[1]+in+hh/2, ww, hh), AxisBox(b.Lo[0]+in+ww/2, b.Hi[1]-in-hh/2, ww, hh),
+				AxisBox(b.Hi[0]-in-ww/2, b.Lo[1]+in+hh/2, ww, hh), AxisBox(b.Hi[0]-in-ww/2, b.Hi[1]-in-hh/2, ww, hh)}
 		}
-		anchor := [2]float64{b.lo[0] + in, b.lo[1] + in}
+		anchor := [2]float64{b.Lo[0] + in, b.Lo[1] + in}
 		pl.labels = append(pl.labels, &planLabel{lines: []string{s}, layers: []string{LayerGridText}, heights: []float64{ps.bayText},
-			at: pp.place(anchor, w, h, cands), anchor: anchor})
+			at: pp.Place(anchor, w, h, cands), anchor: anchor})
 	}
-	for _, i := range sortedBy(len(rep.Nodes), func(i int) string { return rep.Nodes[i].Label }) {
+	for _, i := range SortedBy(len(rep.Nodes), func(i int) string { return rep.Nodes[i].Label }) {
 		n := rep.Nodes[i]
-		info := n.Type + "  " + heightText(n.Pos[2])
+		info := n.Type + "  " + HeightText(n.Pos[2])
 		w := math.Max(dxfTextWidth(n.Label, ps.h), dxfTextWidth(info, ps.info)) + 2*ps.pad
 		h := ps.h + 0.25*ps.h + ps.info + 2*ps.pad
 		x, y := n.Pos[0], n.Pos[1]
 		gap := math.Max(ps.markR, ps.clear) + ps.pad/2
 		pl.labels = append(pl.labels, &planLabel{lines: []string{n.Label, info}, layers: []string{LayerNodeLabel, LayerNodeInfo},
 			heights: []float64{ps.h, ps.info}, anchor: [2]float64{x, y},
-			at: pp.place([2]float64{x, y}, w, h, func(s float64) []obox { return nodeCandidates(x, y, w, h, gap, s) })})
+			at: pp.Place([2]float64{x, y}, w, h, func(s float64) []Box { return NodeCandidates(x, y, w, h, gap, s) })})
 	}
-	for _, i := range sortedBy(len(rep.Members), func(i int) string { return rep.Members[i].Label }) {
+	for _, i := range SortedBy(len(rep.Members), func(i int) string { return rep.Members[i].Label }) {
 		mb := rep.Members[i]
-		pa, pb := m.pos(mb.NodeA), m.pos(mb.NodeB)
+		pa, pb := m.Pos(mb.NodeA), m.Pos(mb.NodeB)
 		a, b := [2]float64{pa[0], pa[1]}, [2]float64{pb[0], pb[1]}
-		ang, ux, uy := uprightAngle(b[0]-a[0], b[1]-a[1])
+		ang, ux, uy := UprightAngle(b[0]-a[0], b[1]-a[1])
 		w, h := dxfTextWidth(mb.Label, ps.member)+2*ps.pad, ps.member+2*ps.pad
 		mid := [2]float64{(a[0] + b[0]) / 2, (a[1] + b[1]) / 2}
-		at := pp.place(mid, w, h, func(s float64) []obox { return memberCandidates(a, b, w, h, ps.clear, s, ux, uy) })
-		if at.leader {
+		at := pp.Place(mid, w, h, func(s float64) []Box { return MemberCandidates(a, b, w, h, ps.clear, s, ux, uy) })
+		if at.Leader {
 			ang = 0
 		}
 		pl.labels = append(pl.labels, &planLabel{lines: []string{mb.Label}, layers: []string{LayerMemberLabel},
 			heights: []float64{ps.member}, at: at, angleDeg: r(ang, 3), anchor: mid})
 	}
-	for _, i := range sortedBy(len(rep.Panels), func(i int) string { return rep.Panels[i].Label }) {
+	for _, i := range SortedBy(len(rep.Panels), func(i int) string { return rep.Panels[i].Label }) {
 		p := rep.Panels[i]
 		pts := make([][2]float64, len(p.Corners))
 		for k, c := range p.Corners {
-			q := m.pos(c)
+			q := m.Pos(c)
 			pts[k] = [2]float64{q[0], q[1]}
 		}
-		cx, cy, size := labelSpot(pts)
+		cx, cy, size := LabelSpot(pts)
 		w, h := dxfTextWidth(p.Label, ps.panel)+2*ps.pad, ps.panel+2*ps.pad
 		pl.labels = append(pl.labels, &planLabel{lines: []string{p.Label}, layers: []string{LayerPanelLabel},
 			heights: []float64{ps.panel}, anchor: [2]float64{cx, cy},
-			at: pp.place([2]float64{cx, cy}, w, h, func(s float64) []obox { return panelCandidates(cx, cy, size, w, h, s) })})
+			at: pp.Place([2]float64{cx, cy}, w, h, func(s float64) []Box { return PanelCandidates(cx, cy, size, w, h, s) })})
 	}
 	return pl
 }
 
-// sortedBy returns 0 … n-1 ordered by key.
-func sortedBy(n int, key func(int) string) []int {
-	idx := make([]int, n)
-	for i := range idx {
-		idx[i] = i
-	}
-	slices.SortFunc(idx, func(a, b int) int { return strings.Compare(key(a), key(b)) })
-	return idx
-}
-
 // legendLines is the legend of the assembly plan, after a heading.
-func legendLines(m *siteModel) []string {
-	g := m.grid
+func legendLines(m *Site) []string {
+	g := m.Grid
 	return []string{
 		"C3-07      node label (large): bay C3, node 07. The small circle is the node.",
 		"NT-012  z 7362      under it: node type, and node height z in mm (the net's datum).",
@@ -388,7 +371,7 @@ func legendLines(m *siteModel) []string {
 
 // legendBlock lays out the legend with its top-left corner at (x, top);
 // it returns the texts, the block's width and height.
-func legendBlock(m *siteModel, ps planScale, x, top float64) ([]planText, float64, float64) {
+func legendBlock(m *Site, ps planScale, x, top float64) ([]planText, float64, float64) {
 	const chars = 70
 	h := 1.6 * ps.h
 	var out []planText
@@ -398,7 +381,7 @@ func legendBlock(m *siteModel, ps planScale, x, top float64) ([]planText, float6
 	y -= 2.5 * h
 	w := float64(chars) * DXFCharWidth * h
 	for _, para := range legendLines(m) {
-		for _, l := range wrapWords(para, chars) {
+		for _, l := range WrapWords(para, chars) {
 			out = append(out, planText{l, x, y, h})
 			y -= 1.6 * h
 		}
@@ -428,8 +411,8 @@ func titleBlock(rep *report.Report, ps planScale, x, top, width float64) ([]plan
 	y -= 3.5 * ps.h
 	ch := 1.6 * ps.h
 	chars := max(20, int((width-4*ps.h)/(DXFCharWidth*ch)))
-	for _, para := range append([]string{"CAUTION: " + report.Caution}, warningLines(rep.Warnings)...) {
-		for _, l := range wrapWords(para, chars) {
+	for _, para := range append([]string{"CAUTION: " + report.Caution}, WarningLines(rep.Warnings)...) {
+		for _, l := range WrapWords(para, chars) {
 			out = append(out, planText{l, left, y, ch})
 			y -= 2.6 * ps.h
 		}

@@ -16,11 +16,11 @@ const (
 	BevelSignHead = "°, + outside face larger"
 )
 
-// signedFixed formats x with d decimals and its sign: "+2.1", "-5.7",
+// SignedFixed formats x with d decimals and its sign: "+2.1", "-5.7",
 // "0.0" (never "-0.0" nor "+0.0").
-func signedFixed(x float64, d int) string {
-	s := fixed(x, d)
-	if s[0] != '-' && fixed(-x, d)[0] == '-' {
+func SignedFixed(x float64, d int) string {
+	s := Fixed(x, d)
+	if s[0] != '-' && Fixed(-x, d)[0] == '-' {
 		return "+" + s
 	}
 	return s

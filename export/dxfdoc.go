@@ -8,12 +8,15 @@ import (
 	"io"
 	"math"
 	"strconv"
+	"strings"
 	"sync"
+	"unicode/utf8"
 
 	"github.com/yofu/dxf"
 	"github.com/yofu/dxf/color"
 	"github.com/yofu/dxf/insunit"
 	"github.com/yofu/dxf/table"
+	"golang.org/x/text/encoding/charmap"
 )
 
 // DXF drawings are written in two parts. The document's structure (header,
@@ -376,4 +379,41 @@ func closedPoly(d *dxfDoc, pts [][2]float64) error { return d.poly(pts) }
 
 func rectPts(x0, y0, x1, y1 float64) [][2]float64 {
 	return [][2]float64{{x0, y0}, {x1, y0}, {x1, y1}, {x0, y1}}
+}
+
+// dxfText makes s safe for a DXF TEXT value in an AC1015 file, which
+// declares no code page and which readers therefore take as code page 1252
+// (ANSI_1252): control characters (a newline would end the group value
+// and break the file's structure) become spaces; a character of code page
+// 1252 outside ASCII (such as ° or é) is written as its one byte there;
+// every other character, and the backslash, is written as a \U+XXXX escape
+// (the DXF notation for Unicode in files before AC1021; characters outside
+// the Basic Multilingual Plane, which it cannot hold, and bytes that are
+// not UTF-8 become "?"); and a percent sign next to another (a TEXT
+// control code) is written as "%%%", which readers show as one percent
+// sign. The result is meant for the DXF writer, not for Go: it need not be
+// UTF-8.
+func dxfText(s string) string {
+	var b strings.Builder
+	for i, r := range s {
+		switch {
+		case r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0):
+			b.WriteByte(' ')
+		case r == utf8.RuneError || r > 0xffff:
+			b.WriteByte('?')
+		case r >= 0x80:
+			if c, ok := charmap.Windows1252.EncodeRune(r); ok {
+				b.WriteByte(c)
+			} else {
+				fmt.Fprintf(&b, `\U+%04X`, r)
+			}
+		case r == '\\' || r == '^': // the escape's own sign, and the caret of TEXT control codes
+			fmt.Fprintf(&b, `\U+%04X`, r)
+		case r == '%' && (strings.HasPrefix(s[i:], "%%") || (i > 0 && s[i-1] == '%')):
+			b.WriteString("%%%")
+		default:
+			b.WriteRune(r)
+		}
+	}
+	return b.String()
 }

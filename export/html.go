@@ -197,7 +197,7 @@ func sheetSVG(rep *report.Report, s report.SheetRow) string {
 			fmt.Fprintf(&b, "%.1f,%.1f", v[0]*scale, h-v[1]*scale)
 		}
 		fmt.Fprintf(&b, `" fill="%s" stroke="#222" stroke-width="0.6"/>`, typeColour(index[rep.Panel(p.Panel).Type]))
-		cx, cy, _ := labelSpot(p.Outline)
+		cx, cy, _ := LabelSpot(p.Outline)
 		fmt.Fprintf(&b, `<text x="%.1f" y="%.1f" font-size="9" text-anchor="middle">%s</text>`, cx*scale, h-cy*scale, template.HTMLEscapeString(p.Panel))
 	}
 	fmt.Fprintf(&b, `</svg><figcaption>%s · %s %g × %g mm · %d parts · %.1f %%</figcaption></figure>`,

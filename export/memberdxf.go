@@ -147,16 +147,16 @@ func drawMember(d *dxfDoc, m memberDrawing) error {
 		return pts[0][0], pts[1][0]
 	}
 	tx0, tx1 := edge(dp/2, true, true)
-	dim(tx0, tx1, elevY+dp/2+row, memberTopText+fixed(f.Top, 2)+" mm"+top)
-	dim(0, L, elevY+dp/2+2*row, memberCutText+fixed(L, 2)+" mm (on the axis)")
-	dim(lo, hi, elevY+dp/2+3*row, memberBlankText+fixed(m.BlankMM, 2)+" mm")
+	dim(tx0, tx1, elevY+dp/2+row, memberTopText+Fixed(f.Top, 2)+" mm"+top)
+	dim(0, L, elevY+dp/2+2*row, memberCutText+Fixed(L, 2)+" mm (on the axis)")
+	dim(lo, hi, elevY+dp/2+3*row, memberBlankText+Fixed(m.BlankMM, 2)+" mm")
 	bx0, bx1 := edge(dp/2, true, false)
-	dim(bx0, bx1, elevY-dp/2-row, memberBottomText+fixed(f.Bottom, 2)+" mm"+bottom)
-	dim(nodeA, nodeB, elevY-dp/2-2*row, memberSetOutText+fixed(m.SetOutMM, 2)+" mm (set-out line, node to node)")
+	dim(bx0, bx1, elevY-dp/2-row, memberBottomText+Fixed(f.Bottom, 2)+" mm"+bottom)
+	dim(nodeA, nodeB, elevY-dp/2-2*row, memberSetOutText+Fixed(m.SetOutMM, 2)+" mm (set-out line, node to node)")
 	px0, px1 := edge(wd/2, false, true)
-	dim(px0, px1, planY+wd/2+row, memberSideText+"+y "+fixed(f.SidePos, 2)+" mm"+pos)
+	dim(px0, px1, planY+wd/2+row, memberSideText+"+y "+Fixed(f.SidePos, 2)+" mm"+pos)
 	nx0, nx1 := edge(wd/2, false, false)
-	dim(nx0, nx1, planY-wd/2-row, memberSideText+"-y "+fixed(f.SideNeg, 2)+" mm"+neg)
+	dim(nx0, nx1, planY-wd/2-row, memberSideText+"-y "+Fixed(f.SideNeg, 2)+" mm"+neg)
 	for i, e := range m.Ends {
 		x, anchor := 0.0, -1.0
 		if i == 1 {
@@ -165,9 +165,9 @@ func drawMember(d *dxfDoc, m memberDrawing) error {
 		name := []string{"A", "B"}[i]
 		lines := []string{
 			[]string{"end A: the tag end", "end B: the other end"}[i],
-			fmt.Sprintf("end %s: mitre %s°", name, fixed(e.MitreDeg, 3)),
-			fmt.Sprintf("end %s: bevel %s°", name, fixed(e.BevelDeg, 3)),
-			fmt.Sprintf("end %s: setback %s mm", name, fixed(e.SetbackMM, 2)),
+			fmt.Sprintf("end %s: mitre %s°", name, Fixed(e.MitreDeg, 3)),
+			fmt.Sprintf("end %s: bevel %s°", name, Fixed(e.BevelDeg, 3)),
+			fmt.Sprintf("end %s: setback %s mm", name, Fixed(e.SetbackMM, 2)),
 		}
 		for k, s := range lines {
 			add(func() error { return text(d, s, x+anchor*12*h, planY-wd/2-2*row-1.6*float64(k)*h, 0, h, 0) })
@@ -175,11 +175,11 @@ func drawMember(d *dxfDoc, m memberDrawing) error {
 	}
 	yTwist := planY - wd/2 - 2*row - 1.6*3*h - row
 	add(func() error {
-		return text(d, memberTwistText+fixed(m.TwistDeg, 3)+"° (the top face turns from end A to end B, right-handed about the axis from A to B)", L/2, yTwist, 0, h, 0)
+		return text(d, memberTwistText+Fixed(m.TwistDeg, 3)+"° (the top face turns from end A to end B, right-handed about the axis from A to B)", L/2, yTwist, 0, h, 0)
 	})
-	sec := fmt.Sprintf("section %s x %s mm (width x depth)", fixed(wd, 1), fixed(dp, 1))
+	sec := fmt.Sprintf("section %s x %s mm (width x depth)", Fixed(wd, 1), Fixed(dp, 1))
 	if m.WallMM > 0 {
-		sec = fmt.Sprintf("hollow section %s x %s mm (width x depth), wall %s mm", fixed(wd, 1), fixed(dp, 1), fixed(m.WallMM, 1))
+		sec = fmt.Sprintf("hollow section %s x %s mm (width x depth), wall %s mm", Fixed(wd, 1), Fixed(dp, 1), Fixed(m.WallMM, 1))
 	}
 	add(func() error { return text(d, sec, sx, elevY+dp/2+row, 0, 0.8*h, 0) })
 	add(func() error { return useLayer(d, LayerNote) })
@@ -188,7 +188,7 @@ func drawMember(d *dxfDoc, m memberDrawing) error {
 	})
 	add(func() error { return text(d, "PLAN (seen from the top, y across)", L/2, planY+wd/2+2*row, 0, 0.8*h, 0) })
 	notes := []string{fmt.Sprintf("%s: %d members, %s; largest deviation of a member from these values %s mm, %s°",
-		m.Name, m.Count, m.Material, fixed(m.DevMM, 2), fixed(m.DevDeg, 3)),
+		m.Name, m.Count, m.Material, Fixed(m.DevMM, 2), Fixed(m.DevDeg, 3)),
 		"End A is the tag end: every member of " + m.Name + " carries its tag at this drawing's end A."}
 	notes = append(notes, wrapLabels("members: ", m.Parts, 12)...)
 	if len(m.ReadFromB) > 0 {
@@ -201,7 +201,7 @@ func drawMember(d *dxfDoc, m memberDrawing) error {
 	add(func() error { return useLayer(d, LayerTitle) })
 	add(func() error { return text(d, m.Title+" - member type "+m.Name+", mm, 1:1", L/2, yt, 0, 1.5*h, 0) })
 	add(func() error { return text(d, "CAUTION: "+report.Caution, L/2, yt-2.2*h, 0, 0.6*h, 0) })
-	for i, wl := range warningLines(m.Warnings) {
+	for i, wl := range WarningLines(m.Warnings) {
 		add(func() error { return text(d, wl, L/2, yt-(3.4+1.2*float64(i))*h, 0, 0.6*h, 0) })
 	}
 	for _, s := range steps {

@@ -25,10 +25,10 @@ func WriteOBJ(w io.Writer, n *geom.Net, title string, warnings ...string) error 
 	bw := bufio.NewWriterSize(w, 1<<16)
 	buf := make([]byte, 0, 128)
 	buf = append(buf, "# "...)
-	buf = append(buf, oneLine(title)...)
+	buf = append(buf, OneLine(title)...)
 	buf = append(buf, '\n')
 	for _, wn := range warnings {
-		buf = append(append(append(buf, "# WARNING: "...), oneLine(wn)...), '\n')
+		buf = append(append(append(buf, "# WARNING: "...), OneLine(wn)...), '\n')
 	}
 	buf = append(buf, "# units: mm, z up; written by pqfab\n"...)
 	buf = strconv.AppendInt(append(buf, "# nodes: "...), int64(len(n.Nodes)), 10)
@@ -41,7 +41,7 @@ func WriteOBJ(w io.Writer, n *geom.Net, title string, warnings ...string) error 
 		buf = buf[:0]
 		if nd.ID != strconv.Itoa(i+1) {
 			buf = append(buf, "# node "...)
-			buf = append(buf, oneLine(nd.ID)...)
+			buf = append(buf, OneLine(nd.ID)...)
 			buf = append(buf, '\n')
 		}
 		buf = append(buf, "v "...)
@@ -59,7 +59,7 @@ func WriteOBJ(w io.Writer, n *geom.Net, title string, warnings ...string) error 
 		buf = buf[:0]
 		if f.ID != strconv.Itoa(i+1) {
 			buf = append(buf, "# panel "...)
-			buf = append(buf, oneLine(f.ID)...)
+			buf = append(buf, OneLine(f.ID)...)
 			buf = append(buf, '\n')
 		}
 		buf = append(buf, 'f')
@@ -72,25 +72,4 @@ func WriteOBJ(w io.Writer, n *geom.Net, title string, warnings ...string) error 
 		}
 	}
 	return bw.Flush()
-}
-
-// AppendFixed appends x with d decimals, writing values that round to zero
-// as an unsigned zero so that the sign of a tiny residue never changes the
-// output bytes.
-func AppendFixed(buf []byte, x float64, d int) []byte {
-	n := len(buf)
-	buf = strconv.AppendFloat(buf, x, 'f', d, 64)
-	if buf[n] == '-' {
-		zero := true
-		for _, c := range buf[n+1:] {
-			if c != '0' && c != '.' {
-				zero = false
-				break
-			}
-		}
-		if zero {
-			buf = append(buf[:n], buf[n+1:]...)
-		}
-	}
-	return buf
 }

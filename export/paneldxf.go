@@ -64,16 +64,16 @@ func writePanelDXF(w io.Writer, p panelDrawing) error {
 // bevelRange is an edge's bevel range as a drawing prints it: "+2.12°",
 // or "-5.65° to +5.66°".
 func bevelRange(bv [2]float64) string {
-	s := signedFixed(bv[0], 2) + "°"
-	if fixed(bv[0], 2) != fixed(bv[1], 2) {
-		s += " to " + signedFixed(bv[1], 2) + "°"
+	s := SignedFixed(bv[0], 2) + "°"
+	if Fixed(bv[0], 2) != Fixed(bv[1], 2) {
+		s += " to " + SignedFixed(bv[1], 2) + "°"
 	}
 	return s
 }
 
 // drawPanel draws a panel type.
 func drawPanel(d *dxfDoc, p panelDrawing) error {
-	_, _, size := labelSpot(p.Cut)
+	_, _, size := LabelSpot(p.Cut)
 	h := math.Max(12, math.Min(50, size/40))
 	k := len(p.Cut)
 	lox, loy, hix, _ := bounds(p.SetOut)
@@ -95,7 +95,7 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 		add(func() error {
 			mid, ang, out := edgeSpot(p.Cut, j, -2.2*h)
 			away := unit2(out[0]-mid[0], out[1]-mid[1])
-			if err := clear(fmt.Sprintf("%s%d %s", panelEdgeText, j+1, fixed(p.EdgesMM[j], report.LenDigits)), out[0], out[1], h, ang, away); err != nil {
+			if err := clear(fmt.Sprintf("%s%d %s", panelEdgeText, j+1, Fixed(p.EdgesMM[j], report.LenDigits)), out[0], out[1], h, ang, away); err != nil {
 				return err
 			}
 			_, _, in := edgeSpot(p.Cut, j, 1.6*h)
@@ -106,7 +106,7 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 			}
 			c := inward(p.Cut, j, 5*h)
 			dir := unit2(c[0]-p.Cut[j][0], c[1]-p.Cut[j][1])
-			return clear(fmt.Sprintf("%s%d %s°", panelAngleText, j+1, fixed(p.AnglesDeg[j], report.AngleDigits)), c[0], c[1], 0.8*h, 0, dir)
+			return clear(fmt.Sprintf("%s%d %s°", panelAngleText, j+1, Fixed(p.AnglesDeg[j], report.AngleDigits)), c[0], c[1], 0.8*h, 0, dir)
 		})
 	}
 	for n, dg := range p.Diagonals {
@@ -133,7 +133,7 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 			if t > 0.5 {
 				dir = [2]float64{-dir[0], -dir[1]}
 			}
-			return clear(fmt.Sprintf("%s%d-%d %s", panelDiagonalText, i, j, fixed(dg.MM, report.LenDigits)), mx, my+0.8*h, 0.8*h, ang, dir)
+			return clear(fmt.Sprintf("%s%d-%d %s", panelDiagonalText, i, j, Fixed(dg.MM, report.LenDigits)), mx, my+0.8*h, 0.8*h, ang, dir)
 		})
 	}
 	add(func() error {
@@ -146,7 +146,7 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 	add(func() error { return useLayer(d, LayerNote) })
 	cx := (lox + hix) / 2
 	notes := []string{
-		fmt.Sprintf("%s: %d panels, %s %s mm; largest deviation of a panel from this drawing %s mm, %s°", p.Name, p.Count, p.Material, fixed(p.ThicknessMM, 2), fixed(p.DevMM, 2), fixed(p.DevDeg, 3)),
+		fmt.Sprintf("%s: %d panels, %s %s mm; largest deviation of a panel from this drawing %s mm, %s°", p.Name, p.Count, p.Material, Fixed(p.ThicknessMM, 2), Fixed(p.DevMM, 2), Fixed(p.DevDeg, 3)),
 		"seen from outside: the face the net's normals point to (up, or out of a closed net); edge k runs from corner k to k+1, corner 1 ringed",
 		"dark red: cut outline (what is cut; its diagonals are the pane's own); grey: set-out outline (member centre lines)",
 		BevelSignNote,
@@ -172,7 +172,7 @@ func drawPanel(d *dxfDoc, p panelDrawing) error {
 	add(func() error { return useLayer(d, LayerTitle) })
 	add(func() error { return text(d, p.Title+" - panel type "+p.Name+", mm, 1:1", cx, yt, 0, 1.5*h, 0) })
 	add(func() error { return text(d, "CAUTION: "+report.Caution, cx, yt-2.2*h, 0, 0.6*h, 0) })
-	for i, wl := range warningLines(p.Warnings) {
+	for i, wl := range WarningLines(p.Warnings) {
 		add(func() error { return text(d, wl, cx, yt-(3.4+1.2*float64(i))*h, 0, 0.6*h, 0) })
 	}
 	for _, s := range steps {
@@ -199,7 +199,7 @@ func partBevelLines(parts []report.PartBevelsRow, turned []string, k int) []stri
 	for _, pb := range parts {
 		bs := make([]string, len(pb.BevelsDeg))
 		for i, b := range pb.BevelsDeg {
-			bs[i] = signedFixed(b, 2)
+			bs[i] = SignedFixed(b, 2)
 		}
 		s := fmt.Sprintf("%s%s (edges 1-%d): %s", PartBevelsText, pb.Panel, k, strings.Join(bs, " "))
 		if over[pb.Panel] {

@@ -3,9 +3,7 @@ package export
 import (
 	"bytes"
 	"io"
-	"strings"
 	"time"
-	"unicode/utf8"
 
 	"github.com/go-pdf/fpdf"
 )
@@ -33,7 +31,7 @@ func newPDF(orientation string, size string, title, subject string) *fpdf.Fpdf {
 	pdf.SetMargins(0, 0, 0)
 	pdf.SetCreator("pqfab", false)
 	pdf.SetProducer("pqfab", false)
-	pdf.SetTitle(noControls(title), true)
+	pdf.SetTitle(NoControls(title), true)
 	pdf.SetSubject(subject, false)
 	return pdf
 }
@@ -79,17 +77,6 @@ func pdfText(s string) string {
 	return string(b)
 }
 
-// noControls is s with control characters and invalid bytes replaced by
-// spaces, for the document information (which fpdf writes as UTF-16).
-func noControls(s string) string {
-	return strings.Map(func(c rune) rune {
-		if c < 0x20 || c == 0x7f || (c >= 0x80 && c < 0xa0) || c == utf8.RuneError {
-			return ' '
-		}
-		return c
-	}, s)
-}
-
 // fitText shortens already translated text with an ellipsis until it is at
 // most w mm wide in the current font.
 func fitText(pdf *fpdf.Fpdf, s string, w float64) string {
@@ -107,5 +94,5 @@ func fitText(pdf *fpdf.Fpdf, s string, w float64) string {
 // current font, at spaces (a longer word stands alone). fpdf's SplitText
 // reads its input as UTF-8, so it cannot take code page 1252 bytes.
 func splitLines(pdf *fpdf.Fpdf, s string, w float64) []string {
-	return wrapFields(s, func(line string) bool { return pdf.GetStringWidth(line) <= w })
+	return WrapFields(s, func(line string) bool { return pdf.GetStringWidth(line) <= w })
 }

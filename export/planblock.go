@@ -16,8 +16,8 @@ import (
 
 // pageBubbles returns the bay letters along the top edge of the drawing
 // area and the row numbers along its left edge, for the bays in view.
-func pageBubbles(v *pageView, g report.BayGrid) []bubble {
-	var out []bubble
+func pageBubbles(v *pageView, g report.BayGrid) []Bubble {
+	var out []Bubble
 	a := v.area
 	for c := int(math.Floor((v.wx0 - g.OriginMM[0]) / g.SizeMM[0])); ; c++ {
 		x := v.up(g.OriginMM[0]+(float64(c)+0.5)*g.SizeMM[0], 0)[0]
@@ -25,7 +25,7 @@ func pageBubbles(v *pageView, g report.BayGrid) []bubble {
 			break
 		}
 		if c >= 0 && x > a[0]+12 {
-			out = append(out, bubble{x, a[3] - 6, geom.ColumnLetters(c)})
+			out = append(out, Bubble{x, a[3] - 6, geom.ColumnLetters(c)})
 		}
 	}
 	for r := int(math.Floor((v.wy0 - g.OriginMM[1]) / g.SizeMM[1])); ; r++ {
@@ -34,7 +34,7 @@ func pageBubbles(v *pageView, g report.BayGrid) []bubble {
 			break
 		}
 		if r >= 0 && y > a[1]+20 {
-			out = append(out, bubble{a[0] + 6, y, fmt.Sprint(r + 1)})
+			out = append(out, Bubble{a[0] + 6, y, fmt.Sprint(r + 1)})
 		}
 	}
 	return out
@@ -99,8 +99,8 @@ func drawScaleBar(pdf *fpdf.Fpdf, sb scaleBarSpec) {
 
 // drawSideColumn writes the right-hand column: title, bay, scale and page,
 // the key plan, the legend and the title block with the caution.
-func drawSideColumn(pdf *fpdf.Fpdf, m *siteModel, k int, b *siteBay, v *pageView) {
-	rep := m.rep
+func drawSideColumn(pdf *fpdf.Fpdf, m *Site, k int, b *Bay, v *pageView) {
+	rep := m.Rep
 	x0 := planPageW - planMarginMM - planSideW
 	w := planSideW
 	y := planMarginMM
@@ -123,13 +123,13 @@ func drawSideColumn(pdf *fpdf.Fpdf, m *siteModel, k int, b *siteBay, v *pageView
 	}
 	y += 1.5
 	pdf.SetFont("Helvetica", "B", 20)
-	pdf.Text(in, y+7, pdfText("Bay "+b.name))
+	pdf.Text(in, y+7, pdfText("Bay "+b.Name))
 	pdf.SetFont("Helvetica", "", 8)
 	pdf.Text(in+48, y+3, "assembly plan, seen from above")
 	pdf.Text(in+48, y+7.2, pdfText(fmt.Sprintf("scale 1:%g on A3 landscape, mm", v.scale)))
 	y += 10
 	pdf.Text(in, y+3.2, pdfText(fmt.Sprintf("page %d of %d    bay %g x %g mm    %d nodes, %d members, %d panels",
-		bayPage(k), planIndexPages+len(m.bays), m.grid.SizeMM[0], m.grid.SizeMM[1], len(b.nodes), len(b.members), len(b.panels))))
+		bayPage(k), planIndexPages+len(m.Bays), m.Grid.SizeMM[0], m.Grid.SizeMM[1], len(b.Nodes), len(b.Members), len(b.Panels))))
 	y += 6
 
 	// Key plan.
@@ -167,7 +167,7 @@ func drawSideColumn(pdf *fpdf.Fpdf, m *siteModel, k int, b *siteBay, v *pageView
 	bottom := planPageH - planMarginMM - 3
 	pdf.SetFont("Helvetica", "", 6.5)
 	caution := splitLines(pdf, pdfText("CAUTION: "+report.Caution), iw)
-	for _, wl := range warningLines(m.rep.Warnings) {
+	for _, wl := range WarningLines(m.Rep.Warnings) {
 		caution = append(caution, splitLines(pdf, pdfText(wl), iw)...)
 	}
 	top := bottom - float64(len(caution))*2.9 - 9
@@ -185,8 +185,8 @@ func drawSideColumn(pdf *fpdf.Fpdf, m *siteModel, k int, b *siteBay, v *pageView
 
 // drawKeyPlan draws the bays that hold parts as grey cells in a box, the
 // page's bay red, with column letters and row numbers where they fit.
-func drawKeyPlan(pdf *fpdf.Fpdf, m *siteModel, b *siteBay, x, y, w, h float64) {
-	cols, rows := m.gridRange()
+func drawKeyPlan(pdf *fpdf.Fpdf, m *Site, b *Bay, x, y, w, h float64) {
+	cols, rows := m.GridRange()
 	pdf.SetFont("Helvetica", "", 6)
 	pdf.Text(x, y+2.2, "Key plan")
 	top := y + 4
@@ -196,13 +196,13 @@ func drawKeyPlan(pdf *fpdf.Fpdf, m *siteModel, b *siteBay, x, y, w, h float64) {
 	ox, oy := x+lab, top+lab+float64(rows)*cell // lower-left of A1 on the page
 	pdf.SetLineWidth(0.1)
 	pdf.SetDrawColor(160, 160, 160)
-	for _, bb := range m.bays {
+	for _, bb := range m.Bays {
 		if bb == b {
 			pdf.SetFillColor(220, 30, 30)
 		} else {
 			pdf.SetFillColor(215, 215, 215)
 		}
-		pdf.Rect(ox+float64(bb.col)*cell, oy-float64(bb.row+1)*cell, cell, cell, "FD")
+		pdf.Rect(ox+float64(bb.Col)*cell, oy-float64(bb.Row+1)*cell, cell, cell, "FD")
 	}
 	pdf.SetDrawColor(0, 0, 0)
 	pdf.Rect(ox, oy-float64(rows)*cell, float64(cols)*cell, float64(rows)*cell, "D")

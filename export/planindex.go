@@ -23,8 +23,8 @@ func bayPage(k int) int { return planIndexPages + k + 1 }
 // page), and the same as a list, bay by bay, with the caution. The
 // bay pages carry bookmarks; links is one link id per bay, set by the
 // bay pages.
-func drawPlanIndex(pdf *fpdf.Fpdf, m *siteModel, links []int) {
-	rep := m.rep
+func drawPlanIndex(pdf *fpdf.Fpdf, m *Site, links []int) {
+	rep := m.Rep
 	pdf.Bookmark("Index: bays and pages", 0, 0)
 	x, y := planMarginMM, planMarginMM
 	w := planPageW - 2*planMarginMM
@@ -35,13 +35,13 @@ func drawPlanIndex(pdf *fpdf.Fpdf, m *siteModel, links []int) {
 	pdf.Text(x, y+14, "Bays and pages")
 	pdf.SetFont("Helvetica", "", 10)
 	pdf.Text(x, y+20, pdfText(fmt.Sprintf("assembly plan, a page per bay; bays %g x %g mm, columns lettered along x (no I, no O), rows numbered along y; %d bays with parts on pages %d to %d",
-		m.grid.SizeMM[0], m.grid.SizeMM[1], len(m.bays), bayPage(0), bayPage(len(m.bays)-1))))
+		m.Grid.SizeMM[0], m.Grid.SizeMM[1], len(m.Bays), bayPage(0), bayPage(len(m.Bays)-1))))
 
 	// The grid, left: every bay with parts shaded, its name and page.
 	top := y + 26
 	listW := 112.0
 	gw, gh := w-listW-planGapMM, planPageH-planMarginMM-top-24
-	cols, rows := m.gridRange()
+	cols, rows := m.GridRange()
 	lab := 8.0
 	cell := math.Min((gw-lab)/float64(cols), (gh-lab)/float64(rows))
 	ox, oy := x+lab, top+lab+float64(rows)*cell // lower-left of A1
@@ -52,13 +52,13 @@ func drawPlanIndex(pdf *fpdf.Fpdf, m *siteModel, links []int) {
 	// the cells allow, smaller in a grid too large for the page (the list
 	// beside it always says it).
 	size := math.Min(minPlanPt*1.2, cell/2.6/ptMM)
-	for k, bb := range m.bays {
-		cx, cy := ox+float64(bb.col)*cell, oy-float64(bb.row+1)*cell
+	for k, bb := range m.Bays {
+		cx, cy := ox+float64(bb.Col)*cell, oy-float64(bb.Row+1)*cell
 		pdf.Rect(cx, cy, cell, cell, "FD")
 		pdf.Link(cx, cy, cell, cell, links[k])
 		if size >= 3 {
 			pdf.SetFont("Helvetica", "B", size)
-			s := pdfText(bb.name)
+			s := pdfText(bb.Name)
 			pdf.Text(cx+(cell-pdf.GetStringWidth(s))/2, cy+cell/2-0.15*size*ptMM, s)
 			pdf.SetFont("Helvetica", "", size)
 			p := "p. " + strconv.Itoa(bayPage(k))
@@ -85,19 +85,19 @@ func drawPlanIndex(pdf *fpdf.Fpdf, m *siteModel, links []int) {
 	ly0 := top + step
 	colW := listW / 2
 	perCol := int((planPageH - planMarginMM - 24 - ly0) / step)
-	if n := (len(m.bays) + perCol - 1) / perCol; n > 2 {
+	if n := (len(m.Bays) + perCol - 1) / perCol; n > 2 {
 		// More bays than two columns hold: narrower columns, smaller text
 		// (a job of hundreds of bays; the grid still links every bay).
 		colW = listW / float64(n)
-		perCol = (len(m.bays) + n - 1) / n
+		perCol = (len(m.Bays) + n - 1) / n
 		step = (planPageH - planMarginMM - 24 - ly0) / float64(perCol)
 	}
 	pt := math.Min(minPlanPt, step/1.3/ptMM)
-	for k, bb := range m.bays {
+	for k, bb := range m.Bays {
 		c, r := k/perCol, k%perCol
 		cx, cy := lx+float64(c)*colW, ly0+float64(r)*step
 		pdf.SetFont("Helvetica", "B", pt)
-		pdf.Text(cx, cy, pdfText("Bay "+bb.name))
+		pdf.Text(cx, cy, pdfText("Bay "+bb.Name))
 		pdf.SetFont("Helvetica", "", pt)
 		p := "page " + strconv.Itoa(bayPage(k))
 		pdf.Text(cx+colW-2-pdf.GetStringWidth(p), cy, p)

@@ -77,7 +77,7 @@ func drawSheet(d *dxfDoc, rep *report.Report, sheet int) error {
 		add(func() error { return useLayer(d, layer) })
 		for _, p := range s.Placements {
 			add(func() error {
-				cx, cy, size := labelSpot(p.Outline)
+				cx, cy, size := LabelSpot(p.Outline)
 				h := partTextHeight(size)
 				second := rep.Panel(p.Panel).Type
 				if p.Mirrored {
@@ -118,7 +118,7 @@ func drawSheet(d *dxfDoc, rep *report.Report, sheet int) error {
 		})
 		for _, p := range s.Placements {
 			add(func() error {
-				cx, cy, size := labelSpot(p.Outline)
+				cx, cy, size := LabelSpot(p.Outline)
 				h := partTextHeight(size)
 				// The panel's grain direction where the part lies: its
 				// own direction, mirrored if the part is, then turned.
@@ -137,7 +137,7 @@ func drawSheet(d *dxfDoc, rep *report.Report, sheet int) error {
 		nh := 0.0 // the cut numbers' height: well above the edge numbers'
 		for i, p := range s.Placements {
 			parts[i] = p.Outline
-			_, _, size := labelSpot(p.Outline)
+			_, _, size := LabelSpot(p.Outline)
 			nh = max(nh, cutNumberScale*0.5*partTextHeight(size))
 		}
 		segs := outlineSegments(parts...)
@@ -180,7 +180,7 @@ func drawSheet(d *dxfDoc, rep *report.Report, sheet int) error {
 	if len(s.Cuts) > 0 {
 		add(func() error {
 			return text(d, fmt.Sprintf("%d straight cuts edge to edge, %s m, in the circled order (layer %s; drawn only where they leave the parts' cut outlines)",
-				len(s.Cuts), fixed(s.CutLengthMM/1000, 3), LayerCutOrder),
+				len(s.Cuts), Fixed(s.CutLengthMM/1000, 3), LayerCutOrder),
 				s.WidthMM/2, -240, 0, 20, 0)
 		})
 	}
@@ -194,7 +194,7 @@ func drawSheet(d *dxfDoc, rep *report.Report, sheet int) error {
 	})
 	add(func() error { return text(d, BevelSignNote, s.WidthMM/2, -130, 0, 14, 0) })
 	add(func() error { return text(d, "CAUTION: "+report.Caution, s.WidthMM/2, -150, 0, 14, 0) })
-	for i, wl := range warningLines(rep.Warnings) {
+	for i, wl := range WarningLines(rep.Warnings) {
 		add(func() error { return text(d, wl, s.WidthMM/2, -190-30*float64(i), 0, 14, 0) })
 	}
 	for _, st := range steps {
@@ -291,9 +291,6 @@ func cutNumberSpot(c report.SheetCutRow, spans [][2][2]float64, rad float64, seg
 	return [2]float64{(a[0] + b[0]) / 2, (a[1] + b[1]) / 2}
 }
 
-// fixed formats x with d decimals, never as a negative zero.
-func fixed(x float64, d int) string { return string(AppendFixed(nil, x, d)) }
-
 // partTextHeight is the label height on a part of the given size (mm).
 func partTextHeight(size float64) float64 { return math.Max(10, math.Min(80, size/12)) }
 
@@ -303,7 +300,7 @@ func partTextHeight(size float64) float64 { return math.Max(10, math.Min(80, siz
 // which is its type's order; so the placed outline's order numbers the
 // edges as the type drawing does, for every part.
 func partMarks(d *dxfDoc, p report.PlacementRow) error {
-	_, _, size := labelSpot(p.Outline)
+	_, _, size := LabelSpot(p.Outline)
 	h := 0.5 * partTextHeight(size)
 	k := len(p.Outline)
 	c := inward(p.Outline, 0, 1.6*h)
@@ -321,7 +318,7 @@ func partMarks(d *dxfDoc, p report.PlacementRow) error {
 
 // bevelTexts writes each edge's bevel along it, inside the edge number.
 func bevelTexts(d *dxfDoc, p report.PlacementRow, panel report.PanelRow) error {
-	_, _, size := labelSpot(p.Outline)
+	_, _, size := LabelSpot(p.Outline)
 	h := 0.4 * partTextHeight(size)
 	k := len(p.Outline)
 	for j := 0; j < k; j++ {
@@ -330,7 +327,7 @@ func bevelTexts(d *dxfDoc, p report.PlacementRow, panel report.PanelRow) error {
 			continue
 		}
 		_, ang, at := edgeSpot(p.Outline, j, 3.2*h)
-		if err := text(d, "bevel "+signedFixed(panel.Edges[e].BevelDeg, 2)+"°", at[0], at[1], 0, h, ang); err != nil {
+		if err := text(d, "bevel "+SignedFixed(panel.Edges[e].BevelDeg, 2)+"°", at[0], at[1], 0, h, ang); err != nil {
 			return err
 		}
 	}
@@ -405,23 +402,4 @@ func arrow(d *dxfDoc, x0, y0, x1, y1, h float64) error {
 		}
 	}
 	return nil
-}
-
-// labelSpot returns the centroid of an outline and its size.
-func labelSpot(pts [][2]float64) (x, y, size float64) {
-	var a, cx, cy float64
-	lox, loy, hix, hiy := math.Inf(1), math.Inf(1), math.Inf(-1), math.Inf(-1)
-	for i, p := range pts {
-		q := pts[(i+1)%len(pts)]
-		c := p[0]*q[1] - q[0]*p[1]
-		a += c
-		cx += (p[0] + q[0]) * c
-		cy += (p[1] + q[1]) * c
-		lox, loy = math.Min(lox, p[0]), math.Min(loy, p[1])
-		hix, hiy = math.Max(hix, p[0]), math.Max(hiy, p[1])
-	}
-	if a == 0 {
-		return (lox + hix) / 2, (loy + hiy) / 2, 0
-	}
-	return cx / (3 * a), cy / (3 * a), math.Min(hix-lox, hiy-loy)
 }

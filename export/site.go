@@ -22,8 +22,8 @@ const HubFrameNote = "Hub angles: z = node axis; azimuth 0 = grid north (+y of t
 	"below (-) the plane square to the axis. Axis tilt: the axis's angle from vertical and the plan direction it leans " +
 	"toward, counter-clockwise from grid north."
 
-// azimuthZeroText names a hub's azimuth 0 for the schedule.
-func azimuthZeroText(zero string) string {
+// AzimuthZeroText names a hub's azimuth 0 for the schedule.
+func AzimuthZeroText(zero string) string {
 	if zero == nodes.ZeroUp {
 		return "up (+z) on the plane square to the axis"
 	}
@@ -46,71 +46,71 @@ func AxisTiltText(n report.NodeRow) string {
 const NumberingNote = "Numbering in a bay: row by row from the bay's lower-left corner, by x along a row. " +
 	"Members and panels take the bay of their midpoint or centre."
 
-// siteBay is one bay that holds parts, with the parts' indices in the
+// Bay is one bay that holds parts, with the parts' indices in the
 // report (each list in label order).
-type siteBay struct {
-	col, row               int
-	name                   string
-	nodes, members, panels []int
-	lo, hi                 [2]float64 // plan rectangle (mm)
-	extLo, extHi           [2]float64 // plan extent of the bay's parts (mm)
+type Bay struct {
+	Col, Row               int
+	Name                   string
+	Nodes, Members, Panels []int
+	Lo, Hi                 [2]float64 // plan rectangle (mm)
+	ExtLo, ExtHi           [2]float64 // plan extent of the bay's parts (mm)
 }
 
-// siteModel is what the site files share: node positions by label, the
+// Site is what the site files share: node positions by label, the
 // bays that hold parts in column-then-row order, and the plan extent.
-type siteModel struct {
-	rep     *report.Report
-	grid    report.BayGrid
-	nodeIdx map[string]int
-	bays    []*siteBay
+type Site struct {
+	Rep     *report.Report
+	Grid    report.BayGrid
+	NodeIdx map[string]int
+	Bays    []*Bay
 	bayIdx  map[[2]int]int
-	lo, hi  [2]float64 // plan extent of the nodes
-	spanMM  float64    // mean member system length
+	Lo, Hi  [2]float64 // plan extent of the nodes
+	SpanMM  float64    // mean member system length
 	maxLen  float64    // longest member, plan length
 }
 
-// newSiteModel indexes a report for the site files. Every label must
+// NewSite indexes a report for the site files. Every label must
 // carry a bay (as pqfab's labels do).
-func newSiteModel(rep *report.Report) (*siteModel, error) {
+func NewSite(rep *report.Report) (*Site, error) {
 	g := rep.Bays
 	if !(g.SizeMM[0] > 0) || !(g.SizeMM[1] > 0) {
 		return nil, fmt.Errorf("the bay grid has no size (%g × %g mm)", g.SizeMM[0], g.SizeMM[1])
 	}
-	m := &siteModel{rep: rep, grid: g, nodeIdx: make(map[string]int, len(rep.Nodes)), bayIdx: map[[2]int]int{},
-		lo: [2]float64{math.Inf(1), math.Inf(1)}, hi: [2]float64{math.Inf(-1), math.Inf(-1)}}
+	m := &Site{Rep: rep, Grid: g, NodeIdx: make(map[string]int, len(rep.Nodes)), bayIdx: map[[2]int]int{},
+		Lo: [2]float64{math.Inf(1), math.Inf(1)}, Hi: [2]float64{math.Inf(-1), math.Inf(-1)}}
 	for i, n := range rep.Nodes {
-		m.nodeIdx[n.Label] = i
-		m.lo = [2]float64{math.Min(m.lo[0], n.Pos[0]), math.Min(m.lo[1], n.Pos[1])}
-		m.hi = [2]float64{math.Max(m.hi[0], n.Pos[0]), math.Max(m.hi[1], n.Pos[1])}
+		m.NodeIdx[n.Label] = i
+		m.Lo = [2]float64{math.Min(m.Lo[0], n.Pos[0]), math.Min(m.Lo[1], n.Pos[1])}
+		m.Hi = [2]float64{math.Max(m.Hi[0], n.Pos[0]), math.Max(m.Hi[1], n.Pos[1])}
 	}
 	if len(rep.Nodes) == 0 {
-		m.lo, m.hi = g.OriginMM, g.OriginMM
+		m.Lo, m.Hi = g.OriginMM, g.OriginMM
 	}
-	bay := func(label string) (*siteBay, error) {
+	bay := func(label string) (*Bay, error) {
 		c, rw, ok := geom.ParseBay(label)
 		if !ok {
 			return nil, fmt.Errorf("label %q names no bay", label)
 		}
 		k, found := m.bayIdx[[2]int{c, rw}]
 		if !found {
-			k = len(m.bays)
+			k = len(m.Bays)
 			m.bayIdx[[2]int{c, rw}] = k
 			lo := [2]float64{g.OriginMM[0] + float64(c)*g.SizeMM[0], g.OriginMM[1] + float64(rw)*g.SizeMM[1]}
-			m.bays = append(m.bays, &siteBay{col: c, row: rw, name: geom.ColumnLetters(c) + strconv.Itoa(rw+1),
-				lo: lo, hi: [2]float64{lo[0] + g.SizeMM[0], lo[1] + g.SizeMM[1]}, extLo: lo, extHi: [2]float64{lo[0] + g.SizeMM[0], lo[1] + g.SizeMM[1]}})
+			m.Bays = append(m.Bays, &Bay{Col: c, Row: rw, Name: geom.ColumnLetters(c) + strconv.Itoa(rw+1),
+				Lo: lo, Hi: [2]float64{lo[0] + g.SizeMM[0], lo[1] + g.SizeMM[1]}, ExtLo: lo, ExtHi: [2]float64{lo[0] + g.SizeMM[0], lo[1] + g.SizeMM[1]}})
 		}
-		return m.bays[k], nil
+		return m.Bays[k], nil
 	}
-	grow := func(b *siteBay, p [3]float64) {
-		b.extLo = [2]float64{math.Min(b.extLo[0], p[0]), math.Min(b.extLo[1], p[1])}
-		b.extHi = [2]float64{math.Max(b.extHi[0], p[0]), math.Max(b.extHi[1], p[1])}
+	grow := func(b *Bay, p [3]float64) {
+		b.ExtLo = [2]float64{math.Min(b.ExtLo[0], p[0]), math.Min(b.ExtLo[1], p[1])}
+		b.ExtHi = [2]float64{math.Max(b.ExtHi[0], p[0]), math.Max(b.ExtHi[1], p[1])}
 	}
 	for i, n := range rep.Nodes {
 		b, err := bay(n.Label)
 		if err != nil {
 			return nil, err
 		}
-		b.nodes = append(b.nodes, i)
+		b.Nodes = append(b.Nodes, i)
 		grow(b, n.Pos)
 	}
 	for i, mb := range rep.Members {
@@ -118,67 +118,72 @@ func newSiteModel(rep *report.Report) (*siteModel, error) {
 		if err != nil {
 			return nil, err
 		}
-		ia, oka := m.nodeIdx[mb.NodeA]
-		ib, okb := m.nodeIdx[mb.NodeB]
+		ia, oka := m.NodeIdx[mb.NodeA]
+		ib, okb := m.NodeIdx[mb.NodeB]
 		if !oka || !okb {
 			return nil, fmt.Errorf("member %s: end node %s or %s is not in the report", mb.Label, mb.NodeA, mb.NodeB)
 		}
-		b.members = append(b.members, i)
+		b.Members = append(b.Members, i)
 		pa, pb := rep.Nodes[ia].Pos, rep.Nodes[ib].Pos
 		grow(b, pa)
 		grow(b, pb)
-		m.spanMM += mb.LengthMM
+		m.SpanMM += mb.LengthMM
 		m.maxLen = math.Max(m.maxLen, math.Hypot(pb[0]-pa[0], pb[1]-pa[1]))
 	}
 	if len(rep.Members) > 0 {
-		m.spanMM /= float64(len(rep.Members))
+		m.SpanMM /= float64(len(rep.Members))
 	}
 	for i, p := range rep.Panels {
 		b, err := bay(p.Label)
 		if err != nil {
 			return nil, err
 		}
-		b.panels = append(b.panels, i)
+		b.Panels = append(b.Panels, i)
 		for _, c := range p.Corners {
-			k, ok := m.nodeIdx[c]
+			k, ok := m.NodeIdx[c]
 			if !ok {
 				return nil, fmt.Errorf("panel %s: corner %s is not in the report", p.Label, c)
 			}
 			grow(b, rep.Nodes[k].Pos)
 		}
 	}
-	slices.SortFunc(m.bays, func(a, b *siteBay) int {
-		if d := cmp.Compare(a.col, b.col); d != 0 {
+	slices.SortFunc(m.Bays, func(a, b *Bay) int {
+		if d := cmp.Compare(a.Col, b.Col); d != 0 {
 			return d
 		}
-		return cmp.Compare(a.row, b.row)
+		return cmp.Compare(a.Row, b.Row)
 	})
-	for k, b := range m.bays {
-		m.bayIdx[[2]int{b.col, b.row}] = k
+	for k, b := range m.Bays {
+		m.bayIdx[[2]int{b.Col, b.Row}] = k
 		byLabel := func(labels func(int) string) func(a, b int) int {
 			return func(a, b int) int { return strings.Compare(labels(a), labels(b)) }
 		}
-		slices.SortFunc(b.nodes, byLabel(func(i int) string { return rep.Nodes[i].Label }))
-		slices.SortFunc(b.members, byLabel(func(i int) string { return rep.Members[i].Label }))
-		slices.SortFunc(b.panels, byLabel(func(i int) string { return rep.Panels[i].Label }))
+		slices.SortFunc(b.Nodes, byLabel(func(i int) string { return rep.Nodes[i].Label }))
+		slices.SortFunc(b.Members, byLabel(func(i int) string { return rep.Members[i].Label }))
+		slices.SortFunc(b.Panels, byLabel(func(i int) string { return rep.Panels[i].Label }))
 	}
 	return m, nil
 }
 
-// pos returns a node's position by label.
-func (m *siteModel) pos(label string) [3]float64 { return m.rep.Nodes[m.nodeIdx[label]].Pos }
+// Pos returns a node's position by label.
+func (m *Site) Pos(label string) [3]float64 { return m.Rep.Nodes[m.NodeIdx[label]].Pos }
 
-// gridRange returns the columns and rows of the grid that cover the
+// GridRange returns the columns and rows of the grid that cover the
 // nodes' plan extent.
-func (m *siteModel) gridRange() (cols, rows int) {
-	g := m.grid
-	cols = max(1, int(math.Ceil((m.hi[0]-g.OriginMM[0])/g.SizeMM[0]-1e-9)))
-	rows = max(1, int(math.Ceil((m.hi[1]-g.OriginMM[1])/g.SizeMM[1]-1e-9)))
-	for _, b := range m.bays {
-		cols, rows = max(cols, b.col+1), max(rows, b.row+1)
+func (m *Site) GridRange() (cols, rows int) {
+	g := m.Grid
+	cols = max(1, int(math.Ceil((m.Hi[0]-g.OriginMM[0])/g.SizeMM[0]-1e-9)))
+	rows = max(1, int(math.Ceil((m.Hi[1]-g.OriginMM[1])/g.SizeMM[1]-1e-9)))
+	for _, b := range m.Bays {
+		cols, rows = max(cols, b.Col+1), max(rows, b.Row+1)
 	}
 	return cols, rows
 }
 
-// heightText is a node's height as printed: z in whole millimetres.
-func heightText(z float64) string { return fmt.Sprintf("z %.0f", r(z, 0)) }
+// HeightText is a node's height as printed: z in whole millimetres.
+func HeightText(z float64) string { return fmt.Sprintf("z %.0f", r(z, 0)) }
+
+type Bubble struct {
+	X, Y float64
+	Text string
+}

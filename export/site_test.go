@@ -133,7 +133,7 @@ func TestWrapWords(t *testing.T) {
 		{"", 5, nil},
 	}
 	for _, tc := range tests {
-		got := wrapWords(tc.in, tc.width)
+		got := WrapWords(tc.in, tc.width)
 		if strings.Join(got, "|") != strings.Join(tc.want, "|") || len(got) != len(tc.want) {
 			t.Errorf("wrapWords(%q, %d) = %q, want %q", tc.in, tc.width, got, tc.want)
 		}
@@ -187,10 +187,10 @@ func clipArea(a, b [4][2]float64) float64 {
 	return s / 2
 }
 
-func randomBox(rng *rand.Rand, span float64) obox {
+func randomBox(rng *rand.Rand, span float64) Box {
 	a := rng.Float64() * 2 * math.Pi
-	return obox{cx: rng.Float64() * span, cy: rng.Float64() * span, ux: math.Cos(a), uy: math.Sin(a),
-		hw: 0.5 + rng.Float64()*4, hh: 0.2 + rng.Float64()*1.5}
+	return Box{CX: rng.Float64() * span, CY: rng.Float64() * span, UX: math.Cos(a), UY: math.Sin(a),
+		HW: 0.5 + rng.Float64()*4, HH: 0.2 + rng.Float64()*1.5}
 }
 
 // TestOboxOverlaps checks the separating-axis test against polygon
@@ -219,38 +219,38 @@ func TestOboxOverlaps(t *testing.T) {
 // seed) and checks every pair of boxes by brute force, without the index.
 func TestPlacerNoOverlap(t *testing.T) {
 	rng := rand.New(rand.NewPCG(9, 2))
-	ix := newBoxIndex(3, [2]float64{-10, -10}, [2]float64{110, 110})
-	var obstacles []obox
+	ix := NewBoxIndex(3, [2]float64{-10, -10}, [2]float64{110, 110})
+	var obstacles []Box
 	for range 300 {
 		a := [2]float64{rng.Float64() * 100, rng.Float64() * 100}
 		b := [2]float64{a[0] + rng.Float64()*20 - 10, a[1] + rng.Float64()*20 - 10}
-		o := segmentBox(a, b, 0.3)
+		o := SegmentBox(a, b, 0.3)
 		obstacles = append(obstacles, o)
-		ix.add(o)
+		ix.Add(o)
 	}
 	// One very long line, filed along its axis.
-	long := segmentBox([2]float64{-50, 3}, [2]float64{5000, 40}, 0.3)
+	long := SegmentBox([2]float64{-50, 3}, [2]float64{5000, 40}, 0.3)
 	obstacles = append(obstacles, long)
-	ix.add(long)
-	p := &placer{ix: ix, ring: 2, rings: 4, overflowX: 6000, overflowY: 100}
-	var placed []placement
+	ix.Add(long)
+	p := &Placer{Index: ix, Ring: 2, Rings: 4, OverflowX: 6000, OverflowY: 100}
+	var placed []Placement
 	for range 600 {
 		x, y := rng.Float64()*100, rng.Float64()*100
 		w, h := 4+rng.Float64()*4, 1.5
-		placed = append(placed, p.place([2]float64{x, y}, w, h, func(s float64) []obox { return nodeCandidates(x, y, w, h, 0.5, s) }))
+		placed = append(placed, p.Place([2]float64{x, y}, w, h, func(s float64) []Box { return NodeCandidates(x, y, w, h, 0.5, s) }))
 	}
 	leaders := 0
 	for i, a := range placed {
-		if a.leader {
+		if a.Leader {
 			leaders++
 		}
 		for _, o := range obstacles {
-			if clipArea(a.box.corners(), o.corners()) > 1e-9 {
-				t.Fatalf("label %d at %+v overlaps an obstacle %+v", i, a.box, o)
+			if clipArea(a.Box.corners(), o.corners()) > 1e-9 {
+				t.Fatalf("label %d at %+v overlaps an obstacle %+v", i, a.Box, o)
 			}
 		}
 		for j := i + 1; j < len(placed); j++ {
-			if clipArea(a.box.corners(), placed[j].box.corners()) > 1e-9 {
+			if clipArea(a.Box.corners(), placed[j].Box.corners()) > 1e-9 {
 				t.Fatalf("labels %d and %d overlap", i, j)
 			}
 		}
@@ -363,26 +363,26 @@ func TestSiteLimits(t *testing.T) {
 // member line.
 func TestAssemblyLayoutNoOverlap(t *testing.T) {
 	rep := gridReport(t, 8, 6, 1500, 6000)
-	m, err := newSiteModel(rep)
+	m, err := NewSite(rep)
 	if err != nil {
 		t.Fatal(err)
 	}
-	ps := newPlanScale(m.spanMM, rep.Section.WidthMM)
+	ps := newPlanScale(m.SpanMM, rep.Section.WidthMM)
 	pl := newAssemblyLayout(m, ps)
-	want := len(m.bays) + len(rep.Nodes) + len(rep.Members) + len(rep.Panels)
+	want := len(m.Bays) + len(rep.Nodes) + len(rep.Members) + len(rep.Panels)
 	if len(pl.labels) != want {
 		t.Fatalf("%d labels, want %d", len(pl.labels), want)
 	}
 	for i, a := range pl.labels {
 		for j := i + 1; j < len(pl.labels); j++ {
-			if clipArea(a.at.box.corners(), pl.labels[j].at.box.corners()) > 1e-6 {
+			if clipArea(a.at.Box.corners(), pl.labels[j].at.Box.corners()) > 1e-6 {
 				t.Fatalf("labels %v and %v overlap", a.lines, pl.labels[j].lines)
 			}
 		}
 		for _, mb := range rep.Members {
-			pa, pb := m.pos(mb.NodeA), m.pos(mb.NodeB)
-			line := segmentBox([2]float64{pa[0], pa[1]}, [2]float64{pb[0], pb[1]}, 1e-3)
-			if clipArea(a.at.box.corners(), line.corners()) > 1e-6 {
+			pa, pb := m.Pos(mb.NodeA), m.Pos(mb.NodeB)
+			line := SegmentBox([2]float64{pa[0], pa[1]}, [2]float64{pb[0], pb[1]}, 1e-3)
+			if clipArea(a.at.Box.corners(), line.corners()) > 1e-6 {
 				t.Fatalf("label %v lies on member %s", a.lines, mb.Label)
 			}
 		}
@@ -391,11 +391,11 @@ func TestAssemblyLayoutNoOverlap(t *testing.T) {
 
 func BenchmarkAssemblyLayout(b *testing.B) {
 	rep := gridReport(b, 100, 100, 1500, 6000)
-	m, err := newSiteModel(rep)
+	m, err := NewSite(rep)
 	if err != nil {
 		b.Fatal(err)
 	}
-	ps := newPlanScale(m.spanMM, rep.Section.WidthMM)
+	ps := newPlanScale(m.SpanMM, rep.Section.WidthMM)
 	for b.Loop() {
 		newAssemblyLayout(m, ps)
 	}

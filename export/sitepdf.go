@@ -56,29 +56,29 @@ var planDraw = struct{ x0, y0, x1, y1 float64 }{planMarginMM, planMarginMM,
 // title block with the caution. Above MaxPlanPages bays it writes one page
 // that says so. Safe to call concurrently.
 func WritePlanPDF(w io.Writer, rep *report.Report) error {
-	m, err := newSiteModel(rep)
+	m, err := NewSite(rep)
 	if err != nil {
 		return err
 	}
 	pdf := newPDF("L", "A3", rep.Title, "assembly plan, a page per bay")
-	if len(m.bays) > report.MaxPlanPages {
+	if len(m.Bays) > report.MaxPlanPages {
 		pdf.AddPage()
 		limitPage(pdf, planPageW, rep.Title, fmt.Sprintf("This job spans %d bays, more than the %d bay pages pqfab prints in one file, "+
 			"so this file holds no bay pages. assembly-plan.dxf shows every bay, node, member and panel with its label; "+
-			"view.html finds any label in 3D; schedule.xlsx lists every part.", len(m.bays), report.MaxPlanPages))
+			"view.html finds any label in 3D; schedule.xlsx lists every part.", len(m.Bays), report.MaxPlanPages))
 		return writePDF(w, pdf)
 	}
 	members := m.membersByBay()
-	links := make([]int, len(m.bays))
+	links := make([]int, len(m.Bays))
 	for k := range links {
 		links[k] = pdf.AddLink()
 	}
 	pdf.AddPage()
 	drawPlanIndex(pdf, m, links)
-	for k, b := range m.bays {
+	for k, b := range m.Bays {
 		pdf.AddPage()
 		pdf.SetLink(links[k], 0, -1)
-		pdf.Bookmark(pdfText(fmt.Sprintf("Bay %s (page %d)", b.name, bayPage(k))), 0, 0)
+		pdf.Bookmark(pdfText(fmt.Sprintf("Bay %s (page %d)", b.Name, bayPage(k))), 0, 0)
 		drawBayPage(pdf, m, members, k, b)
 	}
 	return writePDF(w, pdf)
@@ -101,11 +101,11 @@ func limitPage(pdf *fpdf.Fpdf, pageW float64, title, msg string) {
 // membersByBay lists, per bay, the members whose plan line may enter the
 // page of a bay near it: each member under every bay its line's box
 // touches.
-func (m *siteModel) membersByBay() map[[2]int][]int {
+func (m *Site) membersByBay() map[[2]int][]int {
 	out := map[[2]int][]int{}
-	g := m.grid
-	for i, mb := range m.rep.Members {
-		a, b := m.pos(mb.NodeA), m.pos(mb.NodeB)
+	g := m.Grid
+	for i, mb := range m.Rep.Members {
+		a, b := m.Pos(mb.NodeA), m.Pos(mb.NodeB)
 		c0 := int(math.Floor((math.Min(a[0], b[0]) - g.OriginMM[0]) / g.SizeMM[0]))
 		c1 := int(math.Floor((math.Max(a[0], b[0]) - g.OriginMM[0]) / g.SizeMM[0]))
 		r0 := int(math.Floor((math.Min(a[1], b[1]) - g.OriginMM[1]) / g.SizeMM[1]))
@@ -139,10 +139,10 @@ func (v *pageView) up(x, y float64) [2]float64 {
 func page(p [2]float64) (float64, float64) { return p[0], planPageH - p[1] }
 
 // bayView chooses the scale and the window of a bay page.
-func bayView(b *siteBay) *pageView {
+func bayView(b *Bay) *pageView {
 	dw, dh := planDraw.x1-planDraw.x0, planDraw.y1-planDraw.y0
-	lo := [2]float64{math.Min(b.lo[0], b.extLo[0]), math.Min(b.lo[1], b.extLo[1])}
-	hi := [2]float64{math.Max(b.hi[0], b.extHi[0]), math.Max(b.hi[1], b.extHi[1])}
+	lo := [2]float64{math.Min(b.Lo[0], b.ExtLo[0]), math.Min(b.Lo[1], b.ExtLo[1])}
+	hi := [2]float64{math.Max(b.Hi[0], b.ExtHi[0]), math.Max(b.Hi[1], b.ExtHi[1])}
 	scale := PlanScales[len(PlanScales)-1]
 	for _, s := range PlanScales {
 		if (hi[0]-lo[0])/s+2*planRoomMM <= dw && (hi[1]-lo[1])/s+2*planRoomMM <= dh {
@@ -163,17 +163,17 @@ type pdfLabel struct {
 	styles []string // font style of each line
 	sizes  []float64
 	colour [3]int
-	at     placement
+	at     Placement
 	angle  float64 // 0 or 90
 	anchor [2]float64
 }
 
-func drawBayPage(pdf *fpdf.Fpdf, m *siteModel, members map[[2]int][]int, k int, b *siteBay) {
-	rep := m.rep
+func drawBayPage(pdf *fpdf.Fpdf, m *Site, members map[[2]int][]int, k int, b *Bay) {
+	rep := m.Rep
 	v := bayView(b)
-	g := m.grid
+	g := m.Grid
 	inBay := map[int]bool{}
-	for _, i := range b.members {
+	for _, i := range b.Members {
 		inBay[i] = true
 	}
 	// Members near the window: those filed under the bays it covers.
@@ -196,48 +196,48 @@ func drawBayPage(pdf *fpdf.Fpdf, m *siteModel, members map[[2]int][]int, k int, 
 	slices.Sort(near)
 	nearNodes := map[int]bool{}
 	for _, i := range near {
-		nearNodes[m.nodeIdx[rep.Members[i].NodeA]] = true
-		nearNodes[m.nodeIdx[rep.Members[i].NodeB]] = true
+		nearNodes[m.NodeIdx[rep.Members[i].NodeA]] = true
+		nearNodes[m.NodeIdx[rep.Members[i].NodeB]] = true
 	}
 
 	// Obstacles: everything outside the drawing area, member lines, node
 	// dots; then the labels in label order: nodes, members, panels.
 	const clear, dot = 0.7, 0.9
 	a := v.area
-	ix := newBoxIndex(8, [2]float64{0, 0}, [2]float64{planPageW, planPageH})
+	ix := NewBoxIndex(8, [2]float64{0, 0}, [2]float64{planPageW, planPageH})
 	big := 1000.0
-	ix.add(axisBox(a[0]-big/2, (a[1]+a[3])/2, big, big))
-	ix.add(axisBox(a[2]+big/2, (a[1]+a[3])/2, big, big))
-	ix.add(axisBox((a[0]+a[2])/2, a[1]-big/2, big, big))
-	ix.add(axisBox((a[0]+a[2])/2, a[3]+big/2, big, big))
+	ix.Add(AxisBox(a[0]-big/2, (a[1]+a[3])/2, big, big))
+	ix.Add(AxisBox(a[2]+big/2, (a[1]+a[3])/2, big, big))
+	ix.Add(AxisBox((a[0]+a[2])/2, a[1]-big/2, big, big))
+	ix.Add(AxisBox((a[0]+a[2])/2, a[3]+big/2, big, big))
 	bubbles := pageBubbles(v, g)
 	for _, bb := range bubbles {
-		ix.add(axisBox(bb.x, bb.y, 9, 9))
+		ix.Add(AxisBox(bb.X, bb.Y, 9, 9))
 	}
 	sb := scaleBar(v)
-	ix.add(axisBox((sb.box[0]+sb.box[2])/2, (sb.box[1]+sb.box[3])/2, sb.box[2]-sb.box[0], sb.box[3]-sb.box[1]))
+	ix.Add(AxisBox((sb.box[0]+sb.box[2])/2, (sb.box[1]+sb.box[3])/2, sb.box[2]-sb.box[0], sb.box[3]-sb.box[1]))
 	for _, i := range near {
 		mb := rep.Members[i]
-		pa, pb := m.pos(mb.NodeA), m.pos(mb.NodeB)
-		ix.add(segmentBox(v.up(pa[0], pa[1]), v.up(pb[0], pb[1]), clear))
+		pa, pb := m.Pos(mb.NodeA), m.Pos(mb.NodeB)
+		ix.Add(SegmentBox(v.up(pa[0], pa[1]), v.up(pb[0], pb[1]), clear))
 	}
 	for i := range nearNodes {
 		p := rep.Nodes[i].Pos
 		q := v.up(p[0], p[1])
-		ix.add(axisBox(q[0], q[1], 2*dot, 2*dot))
+		ix.Add(AxisBox(q[0], q[1], 2*dot, 2*dot))
 	}
 	// Labels are never shrunk below their size on paper (minPlanPt): one
 	// without room moves away on a leader.
-	pp := &placer{ix: ix, ring: 3, rings: 8, overflowX: a[2] + 100, overflowY: a[3], scales: []float64{1}}
+	pp := &Placer{Index: ix, Ring: 3, Rings: 8, OverflowX: a[2] + 100, OverflowY: a[3], Scales: []float64{1}}
 	var labels []*pdfLabel
 	width := func(s, style string, size float64) float64 {
 		pdf.SetFont("Helvetica", style, size)
 		return pdf.GetStringWidth(s)
 	}
 	const pad = 0.5
-	for _, i := range b.nodes {
+	for _, i := range b.Nodes {
 		n := rep.Nodes[i]
-		lab, info := pdfText(n.Label), pdfText(n.Type+"  "+heightText(n.Pos[2]))
+		lab, info := pdfText(n.Label), pdfText(n.Type+"  "+HeightText(n.Pos[2]))
 		hl, hi := capHeight*planNodePt*ptMM, capHeight*planInfoPt*ptMM
 		w := math.Max(width(lab, "B", planNodePt), width(info, "", planInfoPt)) + 2*pad
 		h := hl + 0.35*hl + hi + 2*pad
@@ -245,11 +245,11 @@ func drawBayPage(pdf *fpdf.Fpdf, m *siteModel, members map[[2]int][]int, k int, 
 		gap := dot + pad
 		labels = append(labels, &pdfLabel{lines: []string{lab, info}, styles: []string{"B", ""}, sizes: []float64{planNodePt, planInfoPt},
 			colour: [3]int{170, 0, 0}, anchor: q,
-			at: pp.place(q, w, h, func(s float64) []obox { return nodeCandidates(q[0], q[1], w, h, gap, s) })})
+			at: pp.Place(q, w, h, func(s float64) []Box { return NodeCandidates(q[0], q[1], w, h, gap, s) })})
 	}
-	for _, i := range b.members {
+	for _, i := range b.Members {
 		mb := rep.Members[i]
-		pa, pb := m.pos(mb.NodeA), m.pos(mb.NodeB)
+		pa, pb := m.Pos(mb.NodeA), m.Pos(mb.NodeB)
 		qa, qb := v.up(pa[0], pa[1]), v.up(pb[0], pb[1])
 		lab := pdfText(mb.Label)
 		w, h := width(lab, "", planMemberPt)+2*pad, capHeight*planMemberPt*ptMM+2*pad
@@ -259,32 +259,32 @@ func drawBayPage(pdf *fpdf.Fpdf, m *siteModel, members map[[2]int][]int, k int, 
 			angle, ux, uy = 90, 0, 1
 		}
 		mid := [2]float64{(qa[0] + qb[0]) / 2, (qa[1] + qb[1]) / 2}
-		at := pp.place(mid, w, h, func(s float64) []obox { return sideCandidates(qa, qb, w, h, clear, s, ux, uy) })
-		if at.leader {
+		at := pp.Place(mid, w, h, func(s float64) []Box { return sideCandidates(qa, qb, w, h, clear, s, ux, uy) })
+		if at.Leader {
 			angle = 0
 		}
 		labels = append(labels, &pdfLabel{lines: []string{lab}, styles: []string{""}, sizes: []float64{planMemberPt},
 			colour: [3]int{140, 90, 0}, at: at, angle: angle, anchor: mid})
 	}
-	for _, i := range b.panels {
+	for _, i := range b.Panels {
 		p := rep.Panels[i]
 		pts := make([][2]float64, len(p.Corners))
 		for k, c := range p.Corners {
-			q := m.pos(c)
+			q := m.Pos(c)
 			pts[k] = v.up(q[0], q[1])
 		}
-		cx, cy, size := labelSpot(pts)
+		cx, cy, size := LabelSpot(pts)
 		lab := pdfText(p.Label)
 		w, h := width(lab, "", planPanelPt)+2*pad, capHeight*planPanelPt*ptMM+2*pad
 		labels = append(labels, &pdfLabel{lines: []string{lab}, styles: []string{""}, sizes: []float64{planPanelPt},
 			colour: [3]int{0, 110, 0}, anchor: [2]float64{cx, cy},
-			at: pp.place([2]float64{cx, cy}, w, h, func(s float64) []obox { return panelCandidates(cx, cy, size, w, h, s) })})
+			at: pp.Place([2]float64{cx, cy}, w, h, func(s float64) []Box { return PanelCandidates(cx, cy, size, w, h, s) })})
 	}
 
 	// The drawing, clipped to its area.
 	pdf.SetLineCapStyle("round")
 	pdf.ClipRect(planDraw.x0, planDraw.y0, planDraw.x1-planDraw.x0, planDraw.y1-planDraw.y0, false)
-	lo, hi := v.up(b.lo[0], b.lo[1]), v.up(b.hi[0], b.hi[1])
+	lo, hi := v.up(b.Lo[0], b.Lo[1]), v.up(b.Hi[0], b.Hi[1])
 	pdf.SetFillColor(255, 248, 220)
 	x, y := page([2]float64{lo[0], hi[1]})
 	pdf.Rect(x, y, hi[0]-lo[0], hi[1]-lo[1], "F")
@@ -316,14 +316,14 @@ func drawBayPage(pdf *fpdf.Fpdf, m *siteModel, members map[[2]int][]int, k int, 
 				continue
 			}
 			mb := rep.Members[i]
-			pa, pb := m.pos(mb.NodeA), m.pos(mb.NodeB)
+			pa, pb := m.Pos(mb.NodeA), m.Pos(mb.NodeB)
 			x0, y0 := page(v.up(pa[0], pa[1]))
 			x1, y1 := page(v.up(pb[0], pb[1]))
 			pdf.Line(x0, y0, x1, y1)
 		}
 	}
 	inBayNode := map[int]bool{}
-	for _, i := range b.nodes {
+	for _, i := range b.Nodes {
 		inBayNode[i] = true
 	}
 	for _, i := range sortedKeys(nearNodes) {
@@ -341,8 +341,8 @@ func drawBayPage(pdf *fpdf.Fpdf, m *siteModel, members map[[2]int][]int, k int, 
 	pdf.SetDrawColor(120, 120, 120)
 	pdf.SetLineWidth(0.15)
 	for _, l := range labels {
-		if l.at.leader {
-			e := l.at.box.edgePoint(l.anchor)
+		if l.at.Leader {
+			e := l.at.Box.EdgePoint(l.anchor)
 			x0, y0 := page(l.anchor)
 			x1, y1 := page(e)
 			pdf.Line(x0, y0, x1, y1)
@@ -356,13 +356,13 @@ func drawBayPage(pdf *fpdf.Fpdf, m *siteModel, members map[[2]int][]int, k int, 
 	// Bubbles at the drawing area's edges, scale bar, frame.
 	pdf.SetLineWidth(0.25)
 	for _, bb := range bubbles {
-		x, y := page([2]float64{bb.x, bb.y})
+		x, y := page([2]float64{bb.X, bb.Y})
 		pdf.SetDrawColor(90, 90, 90)
 		pdf.SetFillColor(255, 255, 255)
 		pdf.Circle(x, y, 4, "FD")
 		pdf.SetTextColor(0, 0, 0)
 		pdf.SetFont("Helvetica", "B", planBubblePt)
-		s := pdfText(bb.text)
+		s := pdfText(bb.Text)
 		pdf.Text(x-pdf.GetStringWidth(s)/2, y+capHeight*planBubblePt*ptMM/2, s)
 	}
 	drawScaleBar(pdf, sb)
@@ -375,11 +375,11 @@ func drawBayPage(pdf *fpdf.Fpdf, m *siteModel, members map[[2]int][]int, k int, 
 // drawPDFLabel writes a placed label: its lines stacked top to bottom,
 // each centred across the box, at the label's angle.
 func drawPDFLabel(pdf *fpdf.Fpdf, l *pdfLabel, pad float64) {
-	b := l.at.box
-	s := l.at.scale
-	ux, uy := b.ux, b.uy
+	b := l.at.Box
+	s := l.at.Scale
+	ux, uy := b.UX, b.UY
 	vx, vy := -uy, ux
-	top := b.hh - s*pad
+	top := b.HH - s*pad
 	pdf.SetTextColor(l.colour[0], l.colour[1], l.colour[2])
 	for k, line := range l.lines {
 		size := s * l.sizes[k]
@@ -388,10 +388,10 @@ func drawPDFLabel(pdf *fpdf.Fpdf, l *pdfLabel, pad float64) {
 		w := pdf.GetStringWidth(line)
 		base := top - ch // baseline, measured along v from the centre
 		// Start of the baseline in paper-up mm.
-		sx := b.cx - w/2*ux + base*vx
-		sy := b.cy - w/2*uy + base*vy
+		sx := b.CX - w/2*ux + base*vx
+		sy := b.CY - w/2*uy + base*vy
 		x, y := page([2]float64{sx, sy})
-		if l.angle != 0 && !l.at.leader {
+		if l.angle != 0 && !l.at.Leader {
 			pdf.TransformBegin()
 			pdf.TransformRotate(l.angle, x, y)
 			pdf.Text(x, y, line)
@@ -407,21 +407,21 @@ func drawPDFLabel(pdf *fpdf.Fpdf, l *pdfLabel, pad float64) {
 // sideCandidates: beside a member (off its line by clear), with the text
 // along (ux, uy) (0° or 90° on the page): at its middle and further
 // along, on one side then the other.
-func sideCandidates(a, b [2]float64, w, h, clear, scale, ux, uy float64) []obox {
+func sideCandidates(a, b [2]float64, w, h, clear, scale, ux, uy float64) []Box {
 	dx, dy := b[0]-a[0], b[1]-a[1]
 	l := math.Hypot(dx, dy)
 	if l == 0 {
 		l = 1
 	}
 	nx, ny := -dy/l, dx/l // normal of the member
-	out := make([]obox, 0, 10)
+	out := make([]Box, 0, 10)
 	for _, t := range [...]float64{0.5, 0.35, 0.65, 0.22, 0.78} {
 		mx, my := a[0]+t*dx, a[1]+t*dy
-		box := obox{ux: ux, uy: uy, hw: scale * w / 2, hh: scale * h / 2}
+		box := Box{UX: ux, UY: uy, HW: scale * w / 2, HH: scale * h / 2}
 		// Reach of the box along the member's normal.
-		reach := box.hw*math.Abs(ux*nx+uy*ny) + box.hh*math.Abs(-uy*nx+ux*ny) + sideSlack*box.hh*2
+		reach := box.HW*math.Abs(ux*nx+uy*ny) + box.HH*math.Abs(-uy*nx+ux*ny) + SideSlack*box.HH*2
 		for _, side := range [...]float64{1, -1} {
-			box.cx, box.cy = mx+side*(clear+reach)*nx, my+side*(clear+reach)*ny
+			box.CX, box.CY = mx+side*(clear+reach)*nx, my+side*(clear+reach)*ny
 			out = append(out, box)
 		}
 	}

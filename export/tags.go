@@ -103,7 +103,7 @@ func WriteTagsPDF(w io.Writer, rep *report.Report) error {
 		// A plain cover sheet: warnings have no place on the labels.
 		pdf.AddPage()
 		limitPage(pdf, lay.SheetW, rep.Title, "Print this page on plain paper: the job was built with warnings, "+
-			"which every output carries:\n"+strings.Join(warningLines(rep.Warnings), "\n"))
+			"which every output carries:\n"+strings.Join(WarningLines(rep.Warnings), "\n"))
 	}
 	types := map[string]int{}
 	for i, t := range rep.MemberTypes {
@@ -123,10 +123,10 @@ func WriteTagsPDF(w io.Writer, rep *report.Report) error {
 			drawTag(pdf, part, lay, left+float64(slot%lay.Cols)*lay.W, top+float64(slot/lay.Cols)*lay.H)
 		}
 	}
-	for _, i := range sortedBy(len(rep.Nodes), func(i int) string { return rep.Nodes[i].Label }) {
+	for _, i := range SortedBy(len(rep.Nodes), func(i int) string { return rep.Nodes[i].Label }) {
 		put(nodeTag(rep.Nodes[i]))
 	}
-	for _, i := range sortedBy(len(rep.Members), func(i int) string { return rep.Members[i].Label }) {
+	for _, i := range SortedBy(len(rep.Members), func(i int) string { return rep.Members[i].Label }) {
 		m := rep.Members[i]
 		t, ok := types[m.Type]
 		if !ok {
@@ -134,7 +134,7 @@ func WriteTagsPDF(w io.Writer, rep *report.Report) error {
 		}
 		put(memberTag(m, rep.MemberTypes[t]))
 	}
-	for _, i := range sortedBy(len(rep.Panels), func(i int) string { return rep.Panels[i].Label }) {
+	for _, i := range SortedBy(len(rep.Panels), func(i int) string { return rep.Panels[i].Label }) {
 		put(panelTag(rep.Panels[i]))
 	}
 	if err := pdf.Error(); err != nil {
@@ -157,7 +157,7 @@ func nodeTag(n report.NodeRow) tag {
 	if n.Support {
 		sup = ", support"
 	}
-	t.rows = textRows(fmt.Sprintf("%s mm, %d members%s", heightText(n.Pos[2]), len(n.Arms), sup), AxisTiltText(n), HubFrameShort)
+	t.rows = textRows(fmt.Sprintf("%s mm, %d members%s", HeightText(n.Pos[2]), len(n.Arms), sup), AxisTiltText(n), HubFrameShort)
 	head := tagRow{cells: []string{"member", "az °", "el °"}, bold: true}
 	t.header = &head
 	t.rows = append(t.rows, head)
@@ -213,7 +213,7 @@ func panelTag(p report.PanelRow) tag {
 	if len(p.Edges) > 0 {
 		bs := make([]string, len(p.Edges))
 		for i, e := range p.Edges {
-			bs[i] = signedFixed(e.BevelDeg, 1)
+			bs[i] = SignedFixed(e.BevelDeg, 1)
 		}
 		t.rows = append(t.rows, textRows(fmt.Sprintf("%s1-%d (°): %s", TagBevelsText, len(p.Edges), strings.Join(bs, " ")))...)
 	}

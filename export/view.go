@@ -76,7 +76,7 @@ type viewPanels struct {
 }
 
 func newViewData(rep *report.Report) (*viewData, error) {
-	d := &viewData{Members: viewMembers{TagB: []int{}}, Nodes: viewNodes{Support: []int{}}, Title: rep.Title, Caution: report.Caution, Warnings: warningLines(rep.Warnings), Hub: HubFrameNote, Numbering: NumberingNote}
+	d := &viewData{Members: viewMembers{TagB: []int{}}, Nodes: viewNodes{Support: []int{}}, Title: rep.Title, Caution: report.Caution, Warnings: WarningLines(rep.Warnings), Hub: HubFrameNote, Numbering: NumberingNote}
 	nodeIdx := make(map[string]int, len(rep.Nodes))
 	lo, hi := [3]float64{math.Inf(1), math.Inf(1), math.Inf(1)}, [3]float64{math.Inf(-1), math.Inf(-1), math.Inf(-1)}
 	for i, n := range rep.Nodes {
@@ -201,7 +201,7 @@ func WriteView(w io.Writer, rep *report.Report) error {
 			return errors.New("view.html: " + name + " holds text that would end its script element")
 		}
 	}
-	title := html.EscapeString(noControls(rep.Title))
+	title := html.EscapeString(NoControls(rep.Title))
 	parts := []string{
 		"<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n",
 		"<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; script-src 'unsafe-inline' blob:; style-src 'unsafe-inline'; img-src data: blob:\">\n",

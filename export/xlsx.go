@@ -90,7 +90,7 @@ func WriteSchedule(w io.Writer, rep *report.Report) (err error) {
 						sup = "yes"
 					}
 					row := []any{n.Label, n.ID, n.Type, n.MembersAtNode, n.Pos[0], n.Pos[1], n.Pos[2], n.Axis[0], n.Axis[1], n.Axis[2],
-						n.AxisTiltDeg, n.AxisTiltTowardDeg, azimuthZeroText(n.AzimuthZero), sup, n.MoveMM, n.Move[0], n.Move[1], n.Move[2]}
+						n.AxisTiltDeg, n.AxisTiltTowardDeg, AzimuthZeroText(n.AzimuthZero), sup, n.MoveMM, n.Move[0], n.Move[1], n.Move[2]}
 					for _, a := range n.Arms {
 						row = append(row, a.Member, a.AzimuthDeg, a.ElevationDeg)
 					}
