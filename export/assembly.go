@@ -9,8 +9,8 @@ import (
 	"github.com/yofu/dxf/color"
 	"github.com/yofu/dxf/table"
 
-	"pqfab/geom"
 	"pqfab/internal/report"
+	"pqfab/quadnet"
 )
 
 // Layers of the assembly plan beyond the shared ones in dxf.go.
@@ -262,7 +262,7 @@ func newAssemblyLayout(m *Site, ps planScale) *assemblyLayout {
 	}
 	for i := 0; i < cols; i++ {
 		x := x0 + (float64(i)+0.5)*g.SizeMM[0]
-		name := geom.ColumnLetters(i)
+		name := quadnet.ColumnLetters(i)
 		pl.bubbles = append(pl.bubbles, Bubble{x, by0, name}, Bubble{x, by1, name})
 	}
 	for j := 0; j < rows; j++ {

@@ -6,16 +6,17 @@ import (
 
 	"pqfab/export"
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // ExampleWriteOBJ writes a one-panel net as Wavefront OBJ in millimetres.
 func ExampleWriteOBJ() {
-	net := &geom.Net{Source: "example", Nodes: []geom.Node{
+	net := &quadnet.Net{Source: "example", Nodes: []quadnet.Node{
 		{ID: "1", Pos: geom.Vec{X: 0, Y: 0, Z: 0}},
 		{ID: "2", Pos: geom.Vec{X: 1500, Y: 0, Z: 0}},
 		{ID: "3", Pos: geom.Vec{X: 1500, Y: 1200, Z: 12.5}},
 		{ID: "n4", Pos: geom.Vec{X: 0, Y: 1200, Z: 12.5}},
-	}, Faces: []geom.Face{{ID: "1", Corners: []int{0, 1, 2, 3}}}}
+	}, Faces: []quadnet.Face{{ID: "1", Corners: []int{0, 1, 2, 3}}}}
 	if err := export.WriteOBJ(os.Stdout, net, "one panel"); err != nil {
 		fmt.Println(err)
 	}

@@ -5,7 +5,7 @@ import (
 	"io"
 	"strconv"
 
-	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // OBJDigits is the number of decimals written for OBJ coordinates (mm):
@@ -21,7 +21,7 @@ const OBJDigits = 4
 // line) only where they differ from the 1-based numbers; each warning
 // becomes a comment line after the title. Text from the job and the net
 // is kept to one line (oneLine), so it cannot add statements.
-func WriteOBJ(w io.Writer, n *geom.Net, title string, warnings ...string) error {
+func WriteOBJ(w io.Writer, n *quadnet.Net, title string, warnings ...string) error {
 	bw := bufio.NewWriterSize(w, 1<<16)
 	buf := make([]byte, 0, 128)
 	buf = append(buf, "# "...)

@@ -9,17 +9,18 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 var update = flag.Bool("update", false, "rewrite golden files")
 
-func smallNet() *geom.Net {
-	return &geom.Net{Nodes: []geom.Node{
+func smallNet() *quadnet.Net {
+	return &quadnet.Net{Nodes: []quadnet.Node{
 		{ID: "1", Pos: geom.Vec{X: 0, Y: 0, Z: 0}},
 		{ID: "2", Pos: geom.Vec{X: 1500.25, Y: 0, Z: -0.00004}},
 		{ID: "N3", Pos: geom.Vec{X: 1500, Y: 1200.123456, Z: 10}},
 		{ID: "4", Pos: geom.Vec{X: 0, Y: 1200, Z: 10}},
-	}, Faces: []geom.Face{{ID: "1", Corners: []int{0, 1, 2, 3}}, {ID: "P2", Corners: []int{0, 2, 3}}}}
+	}, Faces: []quadnet.Face{{ID: "1", Corners: []int{0, 1, 2, 3}}, {ID: "P2", Corners: []int{0, 2, 3}}}}
 }
 
 func TestWriteOBJGolden(t *testing.T) {
@@ -41,7 +42,7 @@ func TestWriteOBJGolden(t *testing.T) {
 		t.Errorf("got\n%s\nwant\n%s", buf.Bytes(), want)
 	}
 	// Reads back with our own reader to the written precision.
-	n, err := geom.ReadOBJ(bytes.NewReader(buf.Bytes()), golden, geom.MM)
+	n, err := quadnet.ReadOBJ(bytes.NewReader(buf.Bytes()), golden, quadnet.MM)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -7,9 +7,9 @@ import (
 	"runtime"
 	"sync"
 
-	"pqfab/geom"
 	"pqfab/internal/outdir"
 	"pqfab/internal/report"
+	"pqfab/quadnet"
 )
 
 // Progress is told how many output files are done of how many.
@@ -21,7 +21,7 @@ type Progress func(done, total int, what string)
 // result's, before the report adds its own) in its header. The files are written side by
 // side, as many at a time as there are processors. It holds nothing else
 // of the build, so the rest can be freed while it writes.
-func WriteBuild(dir string, opt outdir.Options, net *geom.Net, warnings []string, rep *report.Report, progress Progress) error {
+func WriteBuild(dir string, opt outdir.Options, net *quadnet.Net, warnings []string, rep *report.Report, progress Progress) error {
 	return outdir.WriteFolder(dir, opt, func(tmp string) error {
 		for _, d := range []string{report.DirSheets, report.DirSite, report.DirPanelTypes, report.DirMemberTypes} {
 			if err := os.Mkdir(filepath.Join(tmp, d), 0o755); err != nil {

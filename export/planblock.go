@@ -7,8 +7,8 @@ import (
 
 	"github.com/go-pdf/fpdf"
 
-	"pqfab/geom"
 	"pqfab/internal/report"
+	"pqfab/quadnet"
 )
 
 // The furniture of a plan page around the drawing: bubbles, scale bar,
@@ -25,7 +25,7 @@ func pageBubbles(v *pageView, g report.BayGrid) []Bubble {
 			break
 		}
 		if c >= 0 && x > a[0]+12 {
-			out = append(out, Bubble{x, a[3] - 6, geom.ColumnLetters(c)})
+			out = append(out, Bubble{x, a[3] - 6, quadnet.ColumnLetters(c)})
 		}
 	}
 	for r := int(math.Floor((v.wy0 - g.OriginMM[1]) / g.SizeMM[1])); ; r++ {
@@ -210,7 +210,7 @@ func drawKeyPlan(pdf *fpdf.Fpdf, m *Site, b *Bay, x, y, w, h float64) {
 	if size >= 3.5 {
 		pdf.SetFont("Helvetica", "", size)
 		for c := 0; c < cols; c++ {
-			s := geom.ColumnLetters(c)
+			s := quadnet.ColumnLetters(c)
 			pdf.Text(ox+(float64(c)+0.5)*cell-pdf.GetStringWidth(s)/2, top+lab-1, s)
 		}
 		for r := 0; r < rows; r++ {

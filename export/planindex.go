@@ -7,8 +7,8 @@ import (
 
 	"github.com/go-pdf/fpdf"
 
-	"pqfab/geom"
 	"pqfab/internal/report"
+	"pqfab/quadnet"
 )
 
 // planIndexPages is how many pages come before the bay pages in
@@ -70,7 +70,7 @@ func drawPlanIndex(pdf *fpdf.Fpdf, m *Site, links []int) {
 	hs := math.Min(minPlanPt, cell/ptMM*0.8)
 	pdf.SetFont("Helvetica", "", hs)
 	for c := range cols {
-		s := geom.ColumnLetters(c)
+		s := quadnet.ColumnLetters(c)
 		pdf.Text(ox+(float64(c)+0.5)*cell-pdf.GetStringWidth(s)/2, top+lab-2, s)
 	}
 	for r := range rows {

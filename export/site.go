@@ -8,9 +8,9 @@ import (
 	"strconv"
 	"strings"
 
-	"pqfab/geom"
 	"pqfab/internal/report"
 	"pqfab/nodes"
+	"pqfab/quadnet"
 )
 
 // HubFrameNote defines the hub angles for the people who read them; it is
@@ -42,7 +42,7 @@ func AxisTiltText(n report.NodeRow) string {
 	return s
 }
 
-// NumberingNote says how parts are numbered inside a bay (geom.Bays.Label).
+// NumberingNote says how parts are numbered inside a bay (quadnet.Bays.Label).
 const NumberingNote = "Numbering in a bay: row by row from the bay's lower-left corner, by x along a row. " +
 	"Members and panels take the bay of their midpoint or centre."
 
@@ -87,7 +87,7 @@ func NewSite(rep *report.Report) (*Site, error) {
 		m.Lo, m.Hi = g.OriginMM, g.OriginMM
 	}
 	bay := func(label string) (*Bay, error) {
-		c, rw, ok := geom.ParseBay(label)
+		c, rw, ok := quadnet.ParseBay(label)
 		if !ok {
 			return nil, fmt.Errorf("label %q names no bay", label)
 		}
@@ -96,7 +96,7 @@ func NewSite(rep *report.Report) (*Site, error) {
 			k = len(m.Bays)
 			m.bayIdx[[2]int{c, rw}] = k
 			lo := [2]float64{g.OriginMM[0] + float64(c)*g.SizeMM[0], g.OriginMM[1] + float64(rw)*g.SizeMM[1]}
-			m.Bays = append(m.Bays, &Bay{Col: c, Row: rw, Name: geom.ColumnLetters(c) + strconv.Itoa(rw+1),
+			m.Bays = append(m.Bays, &Bay{Col: c, Row: rw, Name: quadnet.ColumnLetters(c) + strconv.Itoa(rw+1),
 				Lo: lo, Hi: [2]float64{lo[0] + g.SizeMM[0], lo[1] + g.SizeMM[1]}, ExtLo: lo, ExtHi: [2]float64{lo[0] + g.SizeMM[0], lo[1] + g.SizeMM[1]}})
 		}
 		return m.Bays[k], nil

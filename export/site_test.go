@@ -11,6 +11,7 @@ import (
 
 	"pqfab/geom"
 	"pqfab/internal/report"
+	"pqfab/quadnet"
 )
 
 // gridReport is a report for an nx × ny grid of nodes spaced sp mm (a
@@ -26,7 +27,7 @@ func gridReport(t testing.TB, nx, ny int, sp, bay float64) *report.Report {
 			pts = append(pts, geom.Vec{X: x, Y: y, Z: z})
 		}
 	}
-	b, err := geom.NewBays(pts, bay, bay)
+	b, err := quadnet.NewBays(pts, bay, bay)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -343,7 +344,7 @@ func TestSiteLimits(t *testing.T) {
 	// Plan: one node in each of MaxPlanPages+1 bays.
 	wide := &report.Report{Title: "wide", Bays: report.BayGrid{SizeMM: [2]float64{6000, 6000}}}
 	for i := range report.MaxPlanPages + 1 {
-		wide.Nodes = append(wide.Nodes, report.NodeRow{Label: geom.ColumnLetters(i%100) + fmt.Sprint(i/100+1) + "-01",
+		wide.Nodes = append(wide.Nodes, report.NodeRow{Label: quadnet.ColumnLetters(i%100) + fmt.Sprint(i/100+1) + "-01",
 			Pos: [3]float64{6000*float64(i%100) + 100, 6000*float64(i/100) + 100, 0}, Type: "NT-001"})
 	}
 	buf.Reset()

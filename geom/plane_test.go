@@ -3,6 +3,7 @@ package geom
 import (
 	"math"
 	"math/rand/v2"
+	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/spatial/r3"
@@ -70,6 +71,13 @@ func TestFitPlaneSumSq(t *testing.T) {
 	}
 	if _, err := FitPlane([]Vec{{}, {X: 1}}); err == nil {
 		t.Error("two points: want an error")
+	}
+}
+
+func TestNoPackagePrefix(t *testing.T) {
+	_, err := FitPlane(nil)
+	if err == nil || strings.Contains(err.Error(), "geom") {
+		t.Errorf("got %v", err)
 	}
 }
 

@@ -4,6 +4,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // AxisMethod chooses how node axes are found.
@@ -29,7 +30,7 @@ const (
 // NormalAxes returns for every node the normalised sum of the unit normals
 // (Newell) of the panels around it. A node on no panel, or whose panel
 // normals cancel, is an error naming it.
-func NormalAxes(n *geom.Net) ([]geom.Vec, error) {
+func NormalAxes(n *quadnet.Net) ([]geom.Vec, error) {
 	normals := faceNormals(n)
 	sum := make([]geom.Vec, len(n.Nodes))
 	for f, face := range n.Faces {
@@ -60,7 +61,7 @@ func NormalAxes(n *geom.Net) ([]geom.Vec, error) {
 // multi-layer freeform structures for architecture", SIGGRAPH 2007). The
 // quadratic is solved by conjugate gradients, then the axes are normalised
 // and the linearization renewed a few times.
-func LeastTwistAxes(n *geom.Net, topo *geom.Topology, normals []geom.Vec, stiffness float64) ([]geom.Vec, error) {
+func LeastTwistAxes(n *quadnet.Net, topo *quadnet.Topology, normals []geom.Vec, stiffness float64) ([]geom.Vec, error) {
 	if !(stiffness > 0) {
 		return nil, geom.FieldErrorf("AxisStiffness", "%g must be more than 0", stiffness)
 	}

@@ -3,15 +3,15 @@ package nodes_test
 import (
 	"fmt"
 
-	"pqfab/geom"
 	"pqfab/nodes"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
 func ExampleBuild() {
 	net, _ := samples.Make("dome", 300)
-	topo := geom.BuildTopology(net)
-	bays, _ := geom.NewBays(net.Positions(), 6000, 6000)
+	topo := quadnet.BuildTopology(net)
+	bays, _ := quadnet.NewBays(net.Positions(), 6000, 6000)
 	opt := nodes.DefaultOptions()
 	opt.Axis, opt.HubRadiusMM, opt.Bays = nodes.AxisLeastTwist, 60, bays
 	s, err := nodes.Build(net, topo, opt)

@@ -7,6 +7,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // HubArm is one member arriving at a node, seen in the node's hub frame.
@@ -53,7 +54,7 @@ type Node struct {
 
 // Hubs computes every node's hub frame, arms and axis tilt. Members must
 // carry their labels.
-func Hubs(n *geom.Net, topo *geom.Topology, axes []geom.Vec, ms []Member, labels []string) ([]Node, error) {
+func Hubs(n *quadnet.Net, topo *quadnet.Topology, axes []geom.Vec, ms []Member, labels []string) ([]Node, error) {
 	out := make([]Node, len(n.Nodes))
 	north, up := geom.Vec{Y: 1}, geom.Vec{Z: 1}
 	minProj := math.Sin(NorthLostDeg * math.Pi / 180)

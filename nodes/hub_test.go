@@ -9,6 +9,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
@@ -41,7 +42,7 @@ func rotateToZ(a, v geom.Vec) geom.Vec {
 func TestHubAzimuthFromNorth(t *testing.T) {
 	n, _ := samples.Make("wave", 300)
 	topo := topoOf(t, n)
-	bays, _ := geom.NewBays(n.Positions(), 6000, 6000)
+	bays, _ := quadnet.NewBays(n.Positions(), 6000, 6000)
 	s, err := Build(n, topo, testOptions(AxisLeastTwist, 50, bays))
 	if err != nil {
 		t.Fatal(err)
@@ -96,8 +97,8 @@ func TestHubAzimuthFromNorth(t *testing.T) {
 // sin el = d·a = sin θ), and the tilt points to 270°. An axis lying
 // along the north-south line takes up as azimuth 0.
 func TestHubTiltedAxis(t *testing.T) {
-	n := &geom.Net{Nodes: []geom.Node{{ID: "1"}, {ID: "2", Pos: geom.Vec{X: 1000}}, {ID: "3", Pos: geom.Vec{Y: 1000}}, {ID: "4", Pos: geom.Vec{X: 1000, Y: 1000}}},
-		Faces: []geom.Face{{ID: "1", Corners: []int{0, 1, 3, 2}}}}
+	n := &quadnet.Net{Nodes: []quadnet.Node{{ID: "1"}, {ID: "2", Pos: geom.Vec{X: 1000}}, {ID: "3", Pos: geom.Vec{Y: 1000}}, {ID: "4", Pos: geom.Vec{X: 1000, Y: 1000}}},
+		Faces: []quadnet.Face{{ID: "1", Corners: []int{0, 1, 3, 2}}}}
 	topo := topoOf(t, n)
 	east, north := -1, -1
 	for _, e := range topo.NodeEdges[0] {

@@ -4,11 +4,12 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // Labels names every node (C3-07) and member (C3-M12) by its plan bay
-// (see geom.Bays); members take the bay of their midpoint.
-func Labels(n *geom.Net, topo *geom.Topology, bays geom.Bays) (nodeLabels, memberLabels []string) {
+// (see quadnet.Bays); members take the bay of their midpoint.
+func Labels(n *quadnet.Net, topo *quadnet.Topology, bays quadnet.Bays) (nodeLabels, memberLabels []string) {
 	pts := n.Positions()
 	keys := make([]string, len(n.Nodes))
 	for i, nd := range n.Nodes {

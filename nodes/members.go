@@ -7,6 +7,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // Section is a member's cross-section (mm): solid, or a rectangular
@@ -77,7 +78,7 @@ func (o MemberOptions) Validate() error {
 // The cut-plane normal n is oriented along +x (from A to B) at both ends,
 // so a square cut reads mitre 0, bevel 0; mitre = atan2(n·y, n·x), bevel =
 // atan2(n·z, n·x).
-func Members(n *geom.Net, topo *geom.Topology, axes []geom.Vec, opt MemberOptions) ([]Member, error) {
+func Members(n *quadnet.Net, topo *quadnet.Topology, axes []geom.Vec, opt MemberOptions) ([]Member, error) {
 	if err := opt.Validate(); err != nil {
 		return nil, err
 	}
@@ -164,7 +165,7 @@ func endCut(node int, a, out geom.Vec, fr geom.Frame, r float64) End {
 }
 
 // faceNormals returns the unit Newell normal of every face.
-func faceNormals(n *geom.Net) []geom.Vec {
+func faceNormals(n *quadnet.Net) []geom.Vec {
 	out := make([]geom.Vec, len(n.Faces))
 	var pts []geom.Vec
 	for f := range n.Faces {
@@ -175,7 +176,7 @@ func faceNormals(n *geom.Net) []geom.Vec {
 }
 
 // edgeRunsForward reports whether face f runs from node a to node b.
-func edgeRunsForward(n *geom.Net, f, a, b int) bool {
+func edgeRunsForward(n *quadnet.Net, f, a, b int) bool {
 	c := n.Faces[f].Corners
 	for i := range c {
 		if c[i] == a && c[(i+1)%len(c)] == b {

@@ -11,12 +11,13 @@ import (
 
 	"pqfab/geom"
 	"pqfab/internal/testnets"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
-func topoOf(t testing.TB, n *geom.Net) *geom.Topology {
+func topoOf(t testing.TB, n *quadnet.Net) *quadnet.Topology {
 	t.Helper()
-	topo, fd := geom.Validate(n, geom.DefaultValidateOptions())
+	topo, fd := quadnet.Validate(n, quadnet.DefaultValidateOptions())
 	if fd.Err() != nil {
 		t.Fatal(fd.Err())
 	}
@@ -70,7 +71,7 @@ func TestPolyhedraDihedral(t *testing.T) {
 		{"rhombic dodecahedron", testnets.RhombicDodecahedron(500), 120},
 		{"rhombic triacontahedron", testnets.RhombicTriacontahedron(500), 144},
 	} {
-		n, err := geom.ReadOBJ(strings.NewReader(tc.p.OBJ()), tc.name, geom.MM)
+		n, err := quadnet.ReadOBJ(strings.NewReader(tc.p.OBJ()), tc.name, quadnet.MM)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -111,7 +112,7 @@ func TestHyparTwist(t *testing.T) {
 			for _, x0 := range []float64{0, 3000, -4500} {
 				y0, y1 := 1000.0, 2500.0
 				z := func(x, y float64) float64 { return x * y / c }
-				n := &geom.Net{Source: "hypar"}
+				n := &quadnet.Net{Source: "hypar"}
 				corners := [][2]float64{{x0, y0}, {x0 + 1500, y0}, {x0 + 1500, y1}, {x0, y1}}
 				face := []int{0, 1, 2, 3}
 				if reversed {
@@ -121,10 +122,10 @@ func TestHyparTwist(t *testing.T) {
 					face = []int{3, 2, 1, 0}
 				}
 				for _, p := range corners {
-					n.Nodes = append(n.Nodes, geom.Node{ID: "n", Pos: geom.Vec{X: p[0], Y: p[1], Z: z(p[0], p[1])}})
+					n.Nodes = append(n.Nodes, quadnet.Node{ID: "n", Pos: geom.Vec{X: p[0], Y: p[1], Z: z(p[0], p[1])}})
 				}
-				n.Faces = []geom.Face{{ID: "f", Corners: face}}
-				topo := geom.BuildTopology(n)
+				n.Faces = []quadnet.Face{{ID: "f", Corners: face}}
+				topo := quadnet.BuildTopology(n)
 				axes := make([]geom.Vec, 4)
 				for i, nd := range n.Nodes {
 					axes[i] = r3.Unit(geom.Vec{X: -nd.Pos.Y / c, Y: -nd.Pos.X / c, Z: 1})
@@ -160,12 +161,12 @@ func TestHubSetback(t *testing.T) {
 	for _, elev := range []float64{0, 10, 25, -30} {
 		el := elev * math.Pi / 180
 		L := 2000.0
-		n := &geom.Net{Source: "bar", Nodes: []geom.Node{
+		n := &quadnet.Net{Source: "bar", Nodes: []quadnet.Node{
 			{ID: "a", Pos: geom.Vec{}},
 			{ID: "b", Pos: geom.Vec{X: L * math.Cos(el), Z: L * math.Sin(el)}},
 			{ID: "c", Pos: geom.Vec{X: 0, Y: 1000}},
-		}, Faces: []geom.Face{{ID: "f", Corners: []int{0, 1, 2}}}}
-		topo := geom.BuildTopology(n)
+		}, Faces: []quadnet.Face{{ID: "f", Corners: []int{0, 1, 2}}}}
+		topo := quadnet.BuildTopology(n)
 		up := geom.Vec{Z: 1}
 		ms, err := Members(n, topo, []geom.Vec{up, up, up}, MemberOptions{HubRadiusMM: 60})
 		if err != nil {
@@ -194,7 +195,7 @@ func TestHubSetback(t *testing.T) {
 // of the input come in another order.
 func TestLabelsStable(t *testing.T) {
 	n, _ := samples.Make("wave", 800)
-	bays, _ := geom.NewBays(n.Positions(), 6000, 6000)
+	bays, _ := quadnet.NewBays(n.Positions(), 6000, 6000)
 	s1, err := Build(n, topoOf(t, n), testOptions(AxisNormal, 0, bays))
 	if err != nil {
 		t.Fatal(err)
@@ -214,7 +215,7 @@ func TestLabelsStable(t *testing.T) {
 		}
 		labels[s1.Nodes[i].Label] = true
 	}
-	byEnds := func(s *Structure, topo *geom.Topology) map[[2]int]string {
+	byEnds := func(s *Structure, topo *quadnet.Topology) map[[2]int]string {
 		out := map[[2]int]string{}
 		for _, mb := range s.Members {
 			e := topo.Edges[mb.Edge]
@@ -222,7 +223,7 @@ func TestLabelsStable(t *testing.T) {
 		}
 		return out
 	}
-	l1, l3 := byEnds(s1, geom.BuildTopology(n)), byEnds(s3, geom.BuildTopology(m))
+	l1, l3 := byEnds(s1, quadnet.BuildTopology(n)), byEnds(s3, quadnet.BuildTopology(m))
 	for k, v := range l1 {
 		if l3[k] != v {
 			t.Fatalf("member %v: %s vs %s", k, v, l3[k])
@@ -236,8 +237,8 @@ func TestLabelsStable(t *testing.T) {
 
 func benchBuild(b *testing.B, axis AxisMethod) {
 	n, _ := samples.Make("wave", 100000)
-	topo := geom.BuildTopology(n)
-	bays, _ := geom.NewBays(n.Positions(), 6000, 6000)
+	topo := quadnet.BuildTopology(n)
+	bays, _ := quadnet.NewBays(n.Positions(), 6000, 6000)
 	b.ReportAllocs()
 	for b.Loop() {
 		if _, err := Build(n, topo, testOptions(axis, 50, bays)); err != nil {
@@ -252,7 +253,7 @@ func BenchmarkStructure100kNormal(b *testing.B)     { benchBuild(b, AxisNormal) 
 func BenchmarkStructure100kLeastTwist(b *testing.B) { benchBuild(b, AxisLeastTwist) }
 
 // testOptions returns the default options with the given axes, hub and bays.
-func testOptions(axis AxisMethod, hubMM float64, bays geom.Bays) Options {
+func testOptions(axis AxisMethod, hubMM float64, bays quadnet.Bays) Options {
 	o := DefaultOptions()
 	o.Axis, o.HubRadiusMM, o.Bays = axis, hubMM, bays
 	return o
@@ -263,7 +264,7 @@ func testOptions(axis AxisMethod, hubMM float64, bays geom.Bays) Options {
 // hub cut), on the least-twist wave where every end has both angles.
 func TestSetbackFromEndAngles(t *testing.T) {
 	n, _ := samples.Make("wave", 300)
-	bays, _ := geom.NewBays(n.Positions(), 6000, 6000)
+	bays, _ := quadnet.NewBays(n.Positions(), 6000, 6000)
 	s, err := Build(n, topoOf(t, n), testOptions(AxisLeastTwist, 55, bays))
 	if err != nil {
 		t.Fatal(err)

@@ -5,6 +5,7 @@ import (
 
 	"pqfab/geom"
 	"pqfab/parttype"
+	"pqfab/quadnet"
 )
 
 // Options sets up the whole node and member computation.
@@ -13,7 +14,7 @@ type Options struct {
 	AxisStiffness float64 // least-twist only; DefaultAxisStiffness if 0
 	HubRadiusMM   float64
 	Section       Section
-	Bays          geom.Bays
+	Bays          quadnet.Bays
 	Types         TypeOptions
 }
 
@@ -108,7 +109,7 @@ func quote(s string) string {
 
 // Build computes axes, members, hubs, labels and types for a net. It
 // checks opt first (Options.Validate).
-func Build(n *geom.Net, topo *geom.Topology, opt Options) (*Structure, error) {
+func Build(n *quadnet.Net, topo *quadnet.Topology, opt Options) (*Structure, error) {
 	if err := opt.Validate(); err != nil {
 		return nil, err
 	}

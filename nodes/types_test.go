@@ -12,6 +12,7 @@ import (
 	"pqfab/geom"
 	"pqfab/internal/typenets"
 	"pqfab/parttype"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
@@ -51,7 +52,7 @@ func TestMemberReadFromOtherEnd(t *testing.T) {
 			m.Faces[f].Corners[c] = N - 1 - i
 		}
 	}
-	compute := func(n *geom.Net) ([]Member, *geom.Topology) {
+	compute := func(n *quadnet.Net) ([]Member, *quadnet.Topology) {
 		topo := topoOf(t, n)
 		axes, err := NormalAxes(n)
 		if err != nil {
@@ -101,7 +102,7 @@ func TestMemberReadFromOtherEnd(t *testing.T) {
 // domeGeometry recovers a dome of revolution's rings, segments, radius
 // and latitudes from its net (nodes on rings + 1 parallels, segments
 // nodes each; the sphere's centre at the origin).
-func domeGeometry(n *geom.Net) (rings, segs int, radius float64, lat []float64) {
+func domeGeometry(n *quadnet.Net) (rings, segs int, radius float64, lat []float64) {
 	segs = len(n.Nodes) - len(n.Faces)
 	rings = len(n.Faces) / segs
 	radius = r3.Norm(n.Nodes[0].Pos)
@@ -189,7 +190,7 @@ func TestDomeTypes(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		nodeLabels, memberLabels := Labels(n, topo, geom.Bays{})
+		nodeLabels, memberLabels := Labels(n, topo, quadnet.Bays{})
 		for k := range ms {
 			ms[k].Label = memberLabels[k]
 		}
@@ -253,7 +254,7 @@ func TestDomeTypes(t *testing.T) {
 // its bound.
 func TestTypes(t *testing.T) {
 	n, _ := samples.Make("canopy", 96) // 12 × 8 panels
-	bays, _ := geom.NewBays(n.Positions(), 6000, 6000)
+	bays, _ := quadnet.NewBays(n.Positions(), 6000, 6000)
 	topo := topoOf(t, n)
 	s, err := Build(n, topo, testOptions(AxisLeastTwist, 50, bays))
 	if err != nil {
@@ -337,7 +338,7 @@ func TestTypePromise(t *testing.T) {
 	nets := typenets.Nets(400, 300, 3, 2)
 	for _, nt := range nets {
 		for _, tol := range []TypeOptions{defaultTol, {LengthTolMM: 3, AngleTolDeg: 1.5}} {
-			o := testOptions(AxisLeastTwist, 50, geom.Bays{})
+			o := testOptions(AxisLeastTwist, 50, quadnet.Bays{})
 			o.Types = tol
 			s, err := Build(nt.Net, topoOf(t, nt.Net), o)
 			if err != nil {
@@ -594,7 +595,7 @@ func checkNodeTypes(t *testing.T, name string, nds []Node, types []NodeType, tol
 // values.
 func TestTypesOrderIndependent(t *testing.T) {
 	n, _ := samples.Make("wave", 600)
-	s, err := Build(n, topoOf(t, n), testOptions(AxisLeastTwist, 50, geom.Bays{}))
+	s, err := Build(n, topoOf(t, n), testOptions(AxisLeastTwist, 50, quadnet.Bays{}))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -638,7 +639,7 @@ func TestTypesOrderIndependent(t *testing.T) {
 // wave (normal axes, hub 50 mm). Target ≤ 1 s.
 func BenchmarkMemberTypes100k(b *testing.B) {
 	n, _ := samples.Make("wave", 50000)
-	topo := geom.BuildTopology(n)
+	topo := quadnet.BuildTopology(n)
 	axes, _ := NormalAxes(n)
 	ms, err := Members(n, topo, axes, MemberOptions{HubRadiusMM: 50})
 	if err != nil {
@@ -659,13 +660,13 @@ func BenchmarkMemberTypes100k(b *testing.B) {
 // BenchmarkNodeTypes50k groups the 50,826 nodes of the same wave.
 func BenchmarkNodeTypes50k(b *testing.B) {
 	n, _ := samples.Make("wave", 50000)
-	topo := geom.BuildTopology(n)
+	topo := quadnet.BuildTopology(n)
 	axes, _ := NormalAxes(n)
 	ms, err := Members(n, topo, axes, MemberOptions{HubRadiusMM: 50})
 	if err != nil {
 		b.Fatal(err)
 	}
-	nl, ml := Labels(n, topo, geom.Bays{})
+	nl, ml := Labels(n, topo, quadnet.Bays{})
 	for k := range ms {
 		ms[k].Label = ml[k]
 	}

@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // squareFlat is a 1000 mm square panel with the given edge bevels.
@@ -75,13 +76,13 @@ func TestBevelSignRidge(t *testing.T) {
 	s, c := math.Sincos(15 * math.Pi / 180)
 	// Ridge along y at height 0; panel A on −x, panel B on +x, sloping
 	// down at 15°, 1000 mm wide each way.
-	n := &geom.Net{Source: "ridge"}
+	n := &quadnet.Net{Source: "ridge"}
 	for _, p := range []geom.Vec{{X: -1000 * c, Y: 0, Z: -1000 * s}, {X: 0, Y: 0, Z: 0}, {X: 0, Y: 1000, Z: 0}, {X: -1000 * c, Y: 1000, Z: -1000 * s},
 		{X: 1000 * c, Y: 0, Z: -1000 * s}, {X: 1000 * c, Y: 1000, Z: -1000 * s}} {
-		n.Nodes = append(n.Nodes, geom.Node{Pos: p})
+		n.Nodes = append(n.Nodes, quadnet.Node{Pos: p})
 	}
-	n.Faces = []geom.Face{{ID: "A", Corners: []int{0, 1, 2, 3}}, {ID: "B", Corners: []int{1, 4, 5, 2}}}
-	topo := geom.BuildTopology(n)
+	n.Faces = []quadnet.Face{{ID: "A", Corners: []int{0, 1, 2, 3}}, {ID: "B", Corners: []int{1, 4, 5, 2}}}
+	topo := quadnet.BuildTopology(n)
 	flats, err := Flatten(n, topo, Material{ThicknessMM: 20, DensityKgM3: 0}, []string{"A", "B"})
 	if err != nil {
 		t.Fatal(err)

@@ -3,14 +3,14 @@ package panels_test
 import (
 	"fmt"
 
-	"pqfab/geom"
 	"pqfab/panels"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
 func ExamplePlanarize() {
 	net, _ := samples.Make("wave", 200)
-	topo := geom.BuildTopology(net)
+	topo := quadnet.BuildTopology(net)
 	opt := panels.DefaultPlanarizeOptions()
 	opt.TolMM = 0.1
 	res, err := panels.Planarize(net, topo, opt)

@@ -8,6 +8,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // Flat is one panel laid flat: its plane, outlines and the numbers a
@@ -67,7 +68,7 @@ type Diagonal struct {
 
 // Flatten lays every panel of n flat. labels gives each panel's label
 // (see Labels).
-func Flatten(n *geom.Net, topo *geom.Topology, mat Material, labels []string) ([]Flat, error) {
+func Flatten(n *quadnet.Net, topo *quadnet.Topology, mat Material, labels []string) ([]Flat, error) {
 	if err := mat.Validate(); err != nil {
 		return nil, err
 	}
@@ -113,7 +114,7 @@ func Flatten(n *geom.Net, topo *geom.Topology, mat Material, labels []string) ([
 
 // layFlat lays the panel with corners pts (face f of n, from its corner
 // 1) flat in material mat: plane, frame, outlines and their numbers.
-func layFlat(n *geom.Net, f int, pts []geom.Vec, mat Material) (Flat, error) {
+func layFlat(n *quadnet.Net, f int, pts []geom.Vec, mat Material) (Flat, error) {
 	fl, err := flatten(pts)
 	if err != nil {
 		return Flat{}, faceErr(n, f, nil, "%v", err)
@@ -140,7 +141,7 @@ func layFlat(n *geom.Net, f int, pts []geom.Vec, mat Material) (Flat, error) {
 // with its corner start as corner 1, so that a panel's corner 1 can be its
 // type's corner 1 on every drawing: the frame, outlines and every per-corner
 // and per-edge number follow (edge i of the result is edge start+i).
-func StartAt(n *geom.Net, mat Material, fl *Flat, start int) error {
+func StartAt(n *quadnet.Net, mat Material, fl *Flat, start int) error {
 	k := len(fl.Outline)
 	start = ((start % k) + k) % k
 	if start == 0 {
@@ -174,8 +175,8 @@ func StartAt(n *geom.Net, mat Material, fl *Flat, start int) error {
 
 // faceErr names panel f of n by file, line and id, wrapping cause (may be
 // nil).
-func faceErr(n *geom.Net, f int, cause error, format string, args ...any) *geom.InputError {
-	return &geom.InputError{File: n.Source, Line: n.Faces[f].Line, Elem: "panel " + n.Faces[f].ID, Msg: fmt.Sprintf(format, args...), Err: cause}
+func faceErr(n *quadnet.Net, f int, cause error, format string, args ...any) *quadnet.InputError {
+	return &quadnet.InputError{File: n.Source, Line: n.Faces[f].Line, Elem: "panel " + n.Faces[f].ID, Msg: fmt.Sprintf(format, args...), Err: cause}
 }
 
 // flatten projects a panel's corners on their least-squares plane and

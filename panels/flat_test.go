@@ -10,12 +10,13 @@ import (
 
 	"pqfab/geom"
 	"pqfab/internal/testnets"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
-func flatsOf(t *testing.T, n *geom.Net, mat Material) []Flat {
+func flatsOf(t *testing.T, n *quadnet.Net, mat Material) []Flat {
 	t.Helper()
-	topo, fd := geom.Validate(n, geom.DefaultValidateOptions())
+	topo, fd := quadnet.Validate(n, quadnet.DefaultValidateOptions())
 	if fd.Err() != nil {
 		t.Fatal(fd.Err())
 	}
@@ -61,7 +62,7 @@ func TestFlattenIsometry(t *testing.T) {
 // (arccos(∓1/3)), diagonal ratio √2, dihedral 120° so fold 60° and bevel
 // 30° (handbook values for the rhombic dodecahedron).
 func TestRhombicDodecahedronFaces(t *testing.T) {
-	n, err := geom.ReadOBJ(strings.NewReader(testnets.RhombicDodecahedron(500).OBJ()), "rd.obj", geom.MM)
+	n, err := quadnet.ReadOBJ(strings.NewReader(testnets.RhombicDodecahedron(500).OBJ()), "rd.obj", quadnet.MM)
 	if err != nil {
 		t.Fatal(err)
 	}

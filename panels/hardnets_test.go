@@ -12,6 +12,7 @@ import (
 
 	"pqfab/geom"
 	"pqfab/internal/testnets"
+	"pqfab/quadnet"
 )
 
 // hardNet is a generated net whose quads are 1–10 mm off flat at 1 m
@@ -53,8 +54,8 @@ func remeshLevels(panels int) int {
 	return l
 }
 
-func (h hardNet) net(t testing.TB) *geom.Net {
-	n, err := geom.ReadOBJ(strings.NewReader(h.poly.OBJ()), h.name+".obj", geom.MM)
+func (h hardNet) net(t testing.TB) *quadnet.Net {
+	n, err := quadnet.ReadOBJ(strings.NewReader(h.poly.OBJ()), h.name+".obj", quadnet.MM)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -70,7 +71,7 @@ func (h hardNet) net(t testing.TB) *geom.Net {
 // of a quad is the distance between the lines of its diagonals, signed
 // (Liu et al. 2006); its gradient comes from central differences, not
 // from the solver's formula. It stops when every quad is within tol.
-func refPlanarize(n *geom.Net, tol float64) (pos []r3.Vec, rounds int) {
+func refPlanarize(n *quadnet.Net, tol float64) (pos []r3.Vec, rounds int) {
 	x0 := make([]r3.Vec, len(n.Nodes))
 	for i, nd := range n.Nodes {
 		x0[i] = nd.Pos
@@ -187,7 +188,7 @@ func refPlanarize(n *geom.Net, tol float64) (pos []r3.Vec, rounds int) {
 }
 
 // moveStats returns the largest and the RMS node move from n to pos.
-func moveStats(n *geom.Net, pos []r3.Vec) (maxMove, rms float64) {
+func moveStats(n *quadnet.Net, pos []r3.Vec) (maxMove, rms float64) {
 	var s float64
 	for i, nd := range n.Nodes {
 		d := r3.Norm(r3.Sub(pos[i], nd.Pos))
@@ -207,7 +208,7 @@ func moveStats(n *geom.Net, pos []r3.Vec) (maxMove, rms float64) {
 func TestHardNetsAgainstReference(t *testing.T) {
 	for _, h := range hardNets(400) {
 		n := h.net(t)
-		topo := geom.BuildTopology(n)
+		topo := quadnet.BuildTopology(n)
 		refPos, rounds := refPlanarize(n, DefaultFlatTolMM)
 		refMax, refRMS := moveStats(n, refPos)
 		for _, tc := range []struct {
@@ -243,7 +244,7 @@ func TestHardNetsAgainstReference(t *testing.T) {
 func TestNeverWorseThanInput(t *testing.T) {
 	for _, h := range hardNets(400) {
 		n := h.net(t)
-		topo := geom.BuildTopology(n)
+		topo := quadnet.BuildTopology(n)
 		fixed := make([]bool, len(n.Nodes))
 		for i, b := range topo.BoundaryNodes(len(n.Nodes)) {
 			fixed[i] = b
@@ -283,7 +284,7 @@ func benchHard(b *testing.B, fairness float64) {
 	for _, h := range hardNets(1800) {
 		b.Run(h.name, func(b *testing.B) {
 			n := h.net(b)
-			topo := geom.BuildTopology(n)
+			topo := quadnet.BuildTopology(n)
 			opt := DefaultPlanarizeOptions()
 			opt.MaxMoveMM = 1000
 			opt.Fairness = fairness

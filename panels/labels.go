@@ -1,10 +1,13 @@
 package panels
 
-import "pqfab/geom"
+import (
+	"pqfab/geom"
+	"pqfab/quadnet"
+)
 
 // Labels names every panel by the bay of its centroid (C3-P05), using the
 // same bays as nodes and members.
-func Labels(n *geom.Net, bays geom.Bays, nodeLabels []string) []string {
+func Labels(n *quadnet.Net, bays quadnet.Bays, nodeLabels []string) []string {
 	cents := make([]geom.Vec, len(n.Faces))
 	keys := make([]string, len(n.Faces))
 	var pts []geom.Vec

@@ -6,6 +6,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // Planarity holds the planarity measures of one panel.
@@ -64,7 +65,7 @@ func LineDistance(a, b, c, d geom.Vec) float64 {
 }
 
 // MeasureNet returns the planarity of every face of n.
-func MeasureNet(n *geom.Net) ([]Planarity, error) {
+func MeasureNet(n *quadnet.Net) ([]Planarity, error) {
 	out := make([]Planarity, len(n.Faces))
 	var pts []geom.Vec
 	for f := range n.Faces {

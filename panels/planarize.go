@@ -9,6 +9,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // Planarization defaults.
@@ -222,7 +223,7 @@ func (e *PlanarizeError) Error() string {
 // met, a *PlanarizeError beside it. When the allowed move stopped it, a
 // second run without the limit says how large a move the tolerance needs
 // (PlanarizeError.NeedMoveMM).
-func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*PlanarizeResult, error) {
+func Planarize(n *quadnet.Net, topo *quadnet.Topology, opt PlanarizeOptions) (*PlanarizeResult, error) {
 	if err := opt.Validate(); err != nil {
 		return nil, err
 	}
@@ -257,7 +258,7 @@ func Planarize(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) (*Planari
 }
 
 // result turns positions x into a PlanarizeResult.
-func (s *solver) result(n *geom.Net, x, before []float64, iter int, tol float64) *PlanarizeResult {
+func (s *solver) result(n *quadnet.Net, x, before []float64, iter int, tol float64) *PlanarizeResult {
 	res := &PlanarizeResult{Before: before, Iterations: iter}
 	res.Positions = make([]geom.Vec, len(n.Nodes))
 	res.Moves = make([]geom.Vec, len(n.Nodes))
@@ -393,7 +394,7 @@ func (s *solver) run(before []float64, opt PlanarizeOptions) ([]float64, int) {
 // failure explains a planarization that stopped short: which limit
 // stopped it (the allowed move when any step was held back by it), and the panels still over the tolerance with the move each
 // needs.
-func failure(n *geom.Net, res *PlanarizeResult, opt PlanarizeOptions, iter int, clamped bool) *PlanarizeError {
+func failure(n *quadnet.Net, res *PlanarizeResult, opt PlanarizeOptions, iter int, clamped bool) *PlanarizeError {
 	pe := &PlanarizeError{Source: n.Source, Count: countOver(res.After, opt.TolMM), TolMM: opt.TolMM, MaxMoveMM: opt.MaxMoveMM,
 		MaxIter: opt.MaxIter, BestMM: maxOf(res.After), InputMM: maxOf(res.Before)}
 	var fails []PanelFailure

@@ -11,15 +11,16 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
-func quadNet(pts ...geom.Vec) *geom.Net {
-	n := &geom.Net{Source: "quad"}
+func quadNet(pts ...geom.Vec) *quadnet.Net {
+	n := &quadnet.Net{Source: "quad"}
 	for i, p := range pts {
-		n.Nodes = append(n.Nodes, geom.Node{ID: string(rune('A' + i)), Pos: p})
+		n.Nodes = append(n.Nodes, quadnet.Node{ID: string(rune('A' + i)), Pos: p})
 	}
-	n.Faces = []geom.Face{{ID: "Q", Corners: []int{0, 1, 2, 3}}}
+	n.Faces = []quadnet.Face{{ID: "Q", Corners: []int{0, 1, 2, 3}}}
 	return n
 }
 
@@ -39,7 +40,7 @@ func TestSingleQuadTLS(t *testing.T) {
 		opt := DefaultPlanarizeOptions()
 		opt.Fairness = 0
 		opt.TolMM = 1e-7
-		res, err := Planarize(n, geom.BuildTopology(n), opt)
+		res, err := Planarize(n, quadnet.BuildTopology(n), opt)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -77,7 +78,7 @@ func TestPlanarNetsUnchanged(t *testing.T) {
 		n, _ := samples.Make(name, 2000)
 		opt := DefaultPlanarizeOptions()
 		opt.TolMM = 0.01
-		res, err := Planarize(n, geom.BuildTopology(n), opt)
+		res, err := Planarize(n, quadnet.BuildTopology(n), opt)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -108,7 +109,7 @@ func TestPerturbedNet(t *testing.T) {
 	opt := DefaultPlanarizeOptions()
 	opt.TolMM = 0.1
 	opt.Fixed = fixed
-	res, err := Planarize(n, geom.BuildTopology(n), opt)
+	res, err := Planarize(n, quadnet.BuildTopology(n), opt)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -139,7 +140,7 @@ func TestWaveTight(t *testing.T) {
 		opt.Vertical = vertical
 		calls := 0
 		opt.Progress = func(Progress) { calls++ }
-		res, err := Planarize(n, geom.BuildTopology(n), opt)
+		res, err := Planarize(n, quadnet.BuildTopology(n), opt)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -164,7 +165,7 @@ func TestPlanarizeFailures(t *testing.T) {
 	n := quadNet(geom.Vec{}, geom.Vec{X: 1000, Z: 10}, geom.Vec{X: 1000, Y: 1000}, geom.Vec{Y: 1000, Z: 10})
 	opt := DefaultPlanarizeOptions()
 	opt.Fixed = []bool{true, true, true, true}
-	_, err := Planarize(n, geom.BuildTopology(n), opt)
+	_, err := Planarize(n, quadnet.BuildTopology(n), opt)
 	var pe *PlanarizeError
 	if !errors.As(err, &pe) || pe.Count != 1 || pe.Stop != StopSupports ||
 		!strings.Contains(err.Error(), "panel Q 5.000 mm off flat (input 5.000 mm; cannot be flattened: its fixed corners are not in one plane)") {
@@ -174,25 +175,25 @@ func TestPlanarizeFailures(t *testing.T) {
 	w, _ := samples.Make("wave", 200)
 	opt = DefaultPlanarizeOptions()
 	opt.MaxMoveMM = 2
-	_, err = Planarize(w, geom.BuildTopology(w), opt)
+	_, err = Planarize(w, quadnet.BuildTopology(w), opt)
 	if !errors.As(err, &pe) || pe.Stop != StopMoveLimit || !strings.Contains(err.Error(), "stopped by the allowed node move of 2 mm") {
 		t.Errorf("move limit: %v", err)
 	}
 	// An iteration budget of one step is not enough for 0.01 mm.
 	opt = DefaultPlanarizeOptions()
 	opt.TolMM, opt.MaxIter = 0.01, 1
-	_, err = Planarize(w, geom.BuildTopology(w), opt)
+	_, err = Planarize(w, quadnet.BuildTopology(w), opt)
 	if err == nil || !strings.Contains(err.Error(), "stopped by the iteration budget of 1 steps") {
 		t.Errorf("budget: %v", err)
 	}
-	if _, err := Planarize(w, geom.BuildTopology(w), PlanarizeOptions{}); err == nil {
+	if _, err := Planarize(w, quadnet.BuildTopology(w), PlanarizeOptions{}); err == nil {
 		t.Error("zero options: want an error")
 	}
 }
 
 func benchPlanarize(b *testing.B, size int) {
 	n, _ := samples.Make("wave", size)
-	topo := geom.BuildTopology(n)
+	topo := quadnet.BuildTopology(n)
 	opt := DefaultPlanarizeOptions()
 	opt.TolMM = 0.1
 	b.ReportAllocs()

@@ -6,6 +6,7 @@ import (
 	"gonum.org/v1/gonum/spatial/r3"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // Solver constants.
@@ -43,7 +44,7 @@ type conCorner struct{ k, j int32 }
 
 // solver holds the state of one planarization.
 type solver struct {
-	net  *geom.Net
+	net  *quadnet.Net
 	x0   []float64 // initial positions, 3 per node
 	free []float64 // 1 for a coordinate that may move, else 0
 	cons []gapCon
@@ -61,7 +62,7 @@ type solver struct {
 	pts      []geom.Vec
 }
 
-func newSolver(n *geom.Net, topo *geom.Topology, opt PlanarizeOptions) *solver {
+func newSolver(n *quadnet.Net, topo *quadnet.Topology, opt PlanarizeOptions) *solver {
 	s := &solver{net: n, fair: opt.Fairness}
 	s.x0 = make([]float64, 3*len(n.Nodes))
 	s.free = make([]float64, 3*len(n.Nodes))

@@ -10,6 +10,7 @@ import (
 	"pqfab/geom"
 	"pqfab/internal/typenets"
 	"pqfab/parttype"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
@@ -379,7 +380,7 @@ func TestPanelTypesOrderIndependent(t *testing.T) {
 
 func benchPanelTypes(b *testing.B, panels int) {
 	n, _ := samples.Make("wave", panels)
-	topo := geom.BuildTopology(n)
+	topo := quadnet.BuildTopology(n)
 	flats, err := Flatten(n, topo, glass, make([]string, len(n.Faces)))
 	if err != nil {
 		b.Fatal(err)

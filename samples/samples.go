@@ -7,6 +7,7 @@ import (
 	"strconv"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // PanelPitchMM is the nominal panel size of every sample (invented).
@@ -21,7 +22,7 @@ const (
 )
 
 // Generator makes a sample net of about the given number of panels.
-type Generator func(panels int) *geom.Net
+type Generator func(panels int) *quadnet.Net
 
 // Catalogue lists the samples by name.
 var catalogue = map[string]struct {
@@ -47,7 +48,7 @@ func Names() []string {
 func Describe(name string) string { return catalogue[name].desc }
 
 // Make returns the named sample with about the given number of panels.
-func Make(name string, panels int) (*geom.Net, error) {
+func Make(name string, panels int) (*quadnet.Net, error) {
 	c, ok := catalogue[name]
 	if !ok {
 		return nil, fmt.Errorf("unknown sample %q (have %v)", name, Names())
@@ -61,17 +62,17 @@ func Make(name string, panels int) (*geom.Net, error) {
 // grid makes a net from an (nu+1)×(nv+1) grid of points, quads running
 // counter-clockwise when u runs along x and v along y. Nodes where
 // support(i, j) holds are supports.
-func grid(name string, nu, nv int, pt func(i, j int) geom.Vec, support func(i, j int) bool) *geom.Net {
-	n := &geom.Net{Source: name}
+func grid(name string, nu, nv int, pt func(i, j int) geom.Vec, support func(i, j int) bool) *quadnet.Net {
+	n := &quadnet.Net{Source: name}
 	id := func(i, j int) int { return j*(nu+1) + i }
 	for j := 0; j <= nv; j++ {
 		for i := 0; i <= nu; i++ {
-			n.Nodes = append(n.Nodes, geom.Node{ID: strconv.Itoa(len(n.Nodes) + 1), Pos: pt(i, j), Support: support(i, j)})
+			n.Nodes = append(n.Nodes, quadnet.Node{ID: strconv.Itoa(len(n.Nodes) + 1), Pos: pt(i, j), Support: support(i, j)})
 		}
 	}
 	for j := 0; j < nv; j++ {
 		for i := 0; i < nu; i++ {
-			n.Faces = append(n.Faces, geom.Face{ID: strconv.Itoa(len(n.Faces) + 1),
+			n.Faces = append(n.Faces, quadnet.Face{ID: strconv.Itoa(len(n.Faces) + 1),
 				Corners: []int{id(i, j), id(i+1, j), id(i+1, j+1), id(i, j+1)}})
 		}
 	}
@@ -89,7 +90,7 @@ func gridSize(panels int, aspect float64) (nu, nv int) {
 // courtyard: a parabolic arch along x plus a parabolic arch along y. Every
 // quad is a parallelogram, so exactly planar (Liu et al. 2006). Edge nodes
 // are supports.
-func Canopy(panels int) *geom.Net {
+func Canopy(panels int) *quadnet.Net {
 	nu, nv := gridSize(panels, 1.5)
 	lx, ly := float64(nu)*PanelPitchMM, float64(nv)*PanelPitchMM
 	riseX, riseY := lx/10, ly/8
@@ -105,26 +106,26 @@ func Canopy(panels int) *geom.Net {
 // every quad is an isosceles trapezoid, so exactly planar, and the node
 // axes meet the rotation axis (Liu et al. 2006; Pottmann et al. 2007). The
 // base ring is supported.
-func Dome(panels int) *geom.Net {
+func Dome(panels int) *quadnet.Net {
 	lat0, lat1 := 5*math.Pi/180, 65*math.Pi/180
 	mid := (lat0 + lat1) / 2
 	rings := max(1, int(math.Round(math.Sqrt(float64(panels)*(lat1-lat0)/(2*math.Pi*math.Cos(mid))))))
 	segs := max(3, int(math.Round(float64(panels)/float64(rings))))
 	radius := float64(rings) * PanelPitchMM / (lat1 - lat0)
-	n := &geom.Net{Source: "dome"}
+	n := &quadnet.Net{Source: "dome"}
 	for j := 0; j <= rings; j++ {
 		lat := lat0 + (lat1-lat0)*float64(j)/float64(rings)
 		for i := 0; i < segs; i++ {
 			lon := 2 * math.Pi * float64(i) / float64(segs)
 			r := radius * math.Cos(lat)
-			n.Nodes = append(n.Nodes, geom.Node{ID: strconv.Itoa(len(n.Nodes) + 1), Support: j == 0,
+			n.Nodes = append(n.Nodes, quadnet.Node{ID: strconv.Itoa(len(n.Nodes) + 1), Support: j == 0,
 				Pos: geom.Vec{X: r * math.Cos(lon), Y: r * math.Sin(lon), Z: radius * math.Sin(lat)}})
 		}
 	}
 	id := func(i, j int) int { return j*segs + i%segs }
 	for j := 0; j < rings; j++ {
 		for i := 0; i < segs; i++ {
-			n.Faces = append(n.Faces, geom.Face{ID: strconv.Itoa(len(n.Faces) + 1),
+			n.Faces = append(n.Faces, quadnet.Face{ID: strconv.Itoa(len(n.Faces) + 1),
 				Corners: []int{id(i, j), id(i+1, j), id(i+1, j+1), id(i, j+1)}})
 		}
 	}
@@ -139,7 +140,7 @@ func Dome(panels int) *geom.Net {
 // 0.3–2 % off planar — the kind of net a planarization job starts from —
 // and a planar net lies within about 20 mm of every node. The two long
 // edges are supported.
-func Wave(panels int) *geom.Net {
+func Wave(panels int) *quadnet.Net {
 	nu, nv := gridSize(panels, 1.5)
 	ly := float64(nv) * PanelPitchMM
 	const (

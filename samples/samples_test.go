@@ -4,13 +4,13 @@ import (
 	"math"
 	"testing"
 
-	"pqfab/geom"
 	"pqfab/panels"
+	"pqfab/quadnet"
 )
 
-func measure(t *testing.T, n *geom.Net) []panels.Planarity {
+func measure(t *testing.T, n *quadnet.Net) []panels.Planarity {
 	t.Helper()
-	if _, fd := geom.Validate(n, geom.DefaultValidateOptions()); fd.Err() != nil || len(fd.Misoriented) > 0 || len(fd.Warnings) > 0 {
+	if _, fd := quadnet.Validate(n, quadnet.DefaultValidateOptions()); fd.Err() != nil || len(fd.Misoriented) > 0 || len(fd.Warnings) > 0 {
 		t.Fatalf("%s: %v %v %v", n.Source, fd.Err(), fd.Misoriented, fd.Warnings)
 	}
 	p, err := panels.MeasureNet(n)
@@ -85,7 +85,7 @@ func TestDemoNetCurrent(t *testing.T) {
 		t.Fatal(err)
 	}
 	defer f.Close()
-	got, err := geom.ReadOBJ(f, "demo/wave.obj", geom.MM)
+	got, err := quadnet.ReadOBJ(f, "demo/wave.obj", quadnet.MM)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -11,8 +11,8 @@ import (
 	"strings"
 	"testing"
 
-	"pqfab/geom"
 	"pqfab/internal/report"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
@@ -178,11 +178,11 @@ func TestBevelledTypes(t *testing.T) {
 func checkAccounting(t *testing.T, dir string) {
 	t.Helper()
 	rep := loadReport(t, dir)
-	net, err := geom.ReadFile(filepath.Join(dir, report.FileNet), geom.MM)
+	net, err := quadnet.ReadFile(filepath.Join(dir, report.FileNet), quadnet.MM)
 	if err != nil {
 		t.Fatal(err)
 	}
-	topo := geom.BuildTopology(net)
+	topo := quadnet.BuildTopology(net)
 	if len(rep.Nodes) != len(net.Nodes) || len(rep.Members) != len(topo.Edges) || len(rep.Panels) != len(net.Faces) {
 		t.Fatalf("report has %d nodes, %d members, %d panels; net %d, %d, %d",
 			len(rep.Nodes), len(rep.Members), len(rep.Panels), len(net.Nodes), len(topo.Edges), len(net.Faces))

@@ -6,8 +6,8 @@ import (
 	"fmt"
 	"io"
 
-	"pqfab/geom"
 	"pqfab/internal/pipeline"
+	"pqfab/quadnet"
 )
 
 // netFlags are the options every command that reads a net takes.
@@ -18,19 +18,19 @@ type netFlags struct {
 }
 
 func (nf *netFlags) register(fs *flag.FlagSet) {
-	fs.StringVar(&nf.unit, "unit", geom.DefaultUnit.String(), "unit of the net file: mm, cm or m")
+	fs.StringVar(&nf.unit, "unit", quadnet.DefaultUnit.String(), "unit of the net file: mm, cm or m")
 	fs.BoolVar(&nf.reorient, "reorient", false, "turn flipped panels so all run counter-clockwise seen from above or outside")
-	fs.Float64Var(&nf.tol, "merge-tol", geom.DefaultCoincidentTolMM, "nodes closer than this (mm) are reported as coincident")
+	fs.Float64Var(&nf.tol, "merge-tol", quadnet.DefaultCoincidentTolMM, "nodes closer than this (mm) are reported as coincident")
 }
 
 // loadNet reads and checks a net with the build's own stage, printing
 // warnings, and the problems after the first, to stderr.
 func loadNet(path string, nf netFlags, stderr io.Writer) (*pipeline.Loaded, error) {
-	unit, err := geom.ParseUnit(nf.unit)
+	unit, err := quadnet.ParseUnit(nf.unit)
 	if err != nil {
 		return nil, usagef("--unit: %v", err)
 	}
-	opt := geom.DefaultValidateOptions()
+	opt := quadnet.DefaultValidateOptions()
 	opt.CoincidentTolMM = nf.tol
 	if err := (fieldFlags{"CoincidentTolMM": "merge-tol"}).check(opt.Validate()); err != nil {
 		return nil, err
@@ -54,7 +54,7 @@ func printOthers(stderr io.Writer, err error) {
 			fmt.Fprintln(stderr, "pqfab: warning:", w)
 		}
 	}
-	var ve *geom.ValidationError
+	var ve *quadnet.ValidationError
 	if errors.As(err, &ve) {
 		for _, p := range ve.Problems[1:min(len(ve.Problems), 21)] {
 			fmt.Fprintln(stderr, "pqfab: also:", p)

@@ -74,7 +74,7 @@ func TestCommandErrors(t *testing.T) {
 		{[]string{"inspect", "--unit", "ft", "x.obj"}, "--unit: unknown unit", 2},
 		{[]string{"sample", "dome"}, "sample needs -o FILE", 2},
 		{[]string{"sample", "castle", "-o", "x.obj"}, "unknown sample", 2},
-		{[]string{"inspect", "../../geom/testdata/bad/flipped.obj"}, "flipped panel", 1},
+		{[]string{"inspect", "../../quadnet/testdata/bad/flipped.obj"}, "flipped panel", 1},
 	}
 	for _, tc := range tests {
 		_, _, err := runCmd(t, tc.args...)
@@ -86,7 +86,7 @@ func TestCommandErrors(t *testing.T) {
 			t.Errorf("%v: exit code %d want %d", tc.args, got, tc.code)
 		}
 	}
-	if _, _, err := runCmd(t, "inspect", "--reorient", "../../geom/testdata/bad/flipped.obj"); err != nil {
+	if _, _, err := runCmd(t, "inspect", "--reorient", "../../quadnet/testdata/bad/flipped.obj"); err != nil {
 		t.Errorf("--reorient should fix the flipped panel: %v", err)
 	}
 }

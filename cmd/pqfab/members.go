@@ -3,9 +3,9 @@ package main
 import (
 	"io"
 
-	"pqfab/geom"
 	"pqfab/internal/pipeline"
 	"pqfab/nodes"
+	"pqfab/quadnet"
 )
 
 func runMembers(args []string, _ io.Reader, stdout, stderr io.Writer) error {
@@ -19,7 +19,7 @@ func runMembers(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	names.float(fs, &opt.Section.DepthMM, "depth", "Section.DepthMM", "member section depth (mm)")
 	names.float(fs, &opt.Types.LengthTolMM, "length-tol", "Types.LengthTolMM", "members whose cut lengths differ by no more are one type (mm)")
 	names.float(fs, &opt.Types.AngleTolDeg, "angle-tol", "Types.AngleTolDeg", "parts whose angles differ by no more are one type (degrees)")
-	bay := fs.Float64("bay", geom.DefaultBaySizeMM, "bay size for labels (mm)")
+	bay := fs.Float64("bay", quadnet.DefaultBaySizeMM, "bay size for labels (mm)")
 	asJSON := fs.Bool("json", false, "print JSON for machines")
 	pos, err := parseCommand(fs, args, 1, "one net file")
 	if err != nil {

@@ -7,10 +7,10 @@ import (
 	"strconv"
 	"strings"
 
-	"pqfab/geom"
 	"pqfab/internal/pipeline"
 	"pqfab/panels"
 	"pqfab/panels/nest"
+	"pqfab/quadnet"
 )
 
 // parseSheet reads a stock size "WIDTHxHEIGHT" in mm.
@@ -37,7 +37,7 @@ func runNest(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	fs.BoolVar(&stock.Mirror, "mirror", stock.Mirror, "parts may be turned over")
 	mat := panels.DefaultMaterial()
 	names.float(fs, &mat.EdgeInsetMM, "inset", "EdgeInsetMM", "edge inset of the cut outline (mm)")
-	bay := fs.Float64("bay", geom.DefaultBaySizeMM, "bay size for labels (mm)")
+	bay := fs.Float64("bay", quadnet.DefaultBaySizeMM, "bay size for labels (mm)")
 	asJSON := fs.Bool("json", false, "print JSON for machines")
 	pos, err := parseCommand(fs, args, 1, "one net file")
 	if err != nil {

@@ -17,6 +17,7 @@ import (
 	"pqfab/internal/job"
 	"pqfab/internal/pipeline"
 	"pqfab/internal/report"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
@@ -28,7 +29,7 @@ type strictOBJ struct {
 }
 
 // readStrictOBJ reads OBJ text as a strict reader does, independently of
-// geom.ReadOBJ: every line is a comment starting with '#', `v` with
+// quadnet.ReadOBJ: every line is a comment starting with '#', `v` with
 // exactly three numbers (a fourth would be a weight) or `f` with node
 // numbers from 1; a '#' after the numbers of a `v` or `f` line is an error.
 func readStrictOBJ(t *testing.T, b []byte) strictOBJ {
@@ -99,7 +100,7 @@ func readNumpyOBJ(t *testing.T, path string) ([][3]float64, [][]int) {
 // fileOrderNet returns the wave sample shuffled by seed (nodes and panels
 // in a random order, every panel starting at a random corner) with a node
 // in no panel put in the middle, and writes it as OBJ into dir.
-func fileOrderNet(t *testing.T, dir string, seed uint64) *geom.Net {
+func fileOrderNet(t *testing.T, dir string, seed uint64) *quadnet.Net {
 	t.Helper()
 	n, err := samples.Make("wave", 60)
 	if err != nil {
@@ -107,8 +108,8 @@ func fileOrderNet(t *testing.T, dir string, seed uint64) *geom.Net {
 	}
 	s, _ := shuffled(n, rand.New(rand.NewPCG(seed, 5)))
 	mid := len(s.Nodes) / 2
-	lone := geom.Node{Pos: geom.Vec{X: -5000, Y: 12345.5, Z: 7}}
-	s.Nodes = append(s.Nodes[:mid], append([]geom.Node{lone}, s.Nodes[mid:]...)...)
+	lone := quadnet.Node{Pos: geom.Vec{X: -5000, Y: 12345.5, Z: 7}}
+	s.Nodes = append(s.Nodes[:mid], append([]quadnet.Node{lone}, s.Nodes[mid:]...)...)
 	for _, f := range s.Faces {
 		for k, c := range f.Corners {
 			if c >= mid {
@@ -130,7 +131,7 @@ func fileOrderNet(t *testing.T, dir string, seed uint64) *geom.Net {
 // in: node i is at want[i] (to the 1e-4 mm written), panel j is the file's
 // panel j with the same corners from the same start corner; strict readers
 // (ours above, and numpy's text parser) read it.
-func checkFileOrder(t *testing.T, path string, in *geom.Net, want []geom.Vec) {
+func checkFileOrder(t *testing.T, path string, in *quadnet.Net, want []geom.Vec) {
 	t.Helper()
 	b, err := os.ReadFile(path)
 	if err != nil {

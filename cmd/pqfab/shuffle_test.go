@@ -12,22 +12,22 @@ import (
 	"testing"
 
 	"pqfab/export"
-	"pqfab/geom"
 	"pqfab/internal/report"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
 // shuffled returns a copy of n with its nodes and panels in a random
 // order, every panel starting at a random corner (orientation kept), and
 // perm: node k of the copy is node perm[k] of n.
-func shuffled(n *geom.Net, rng *rand.Rand) (*geom.Net, []int) {
+func shuffled(n *quadnet.Net, rng *rand.Rand) (*quadnet.Net, []int) {
 	perm := rng.Perm(len(n.Nodes)) // perm[new] = old
 	newOf := make([]int, len(n.Nodes))
-	s := &geom.Net{Source: n.Source}
+	s := &quadnet.Net{Source: n.Source}
 	for k, old := range perm {
 		newOf[old] = k
 		nd := n.Nodes[old]
-		s.Nodes = append(s.Nodes, geom.Node{ID: nd.ID, Pos: nd.Pos, Support: nd.Support})
+		s.Nodes = append(s.Nodes, quadnet.Node{ID: nd.ID, Pos: nd.Pos, Support: nd.Support})
 	}
 	for _, f := range rng.Perm(len(n.Faces)) {
 		c := n.Faces[f].Corners
@@ -36,13 +36,13 @@ func shuffled(n *geom.Net, rng *rand.Rand) (*geom.Net, []int) {
 		for i := range c {
 			corners = append(corners, newOf[c[(start+i)%len(c)]])
 		}
-		s.Faces = append(s.Faces, geom.Face{ID: n.Faces[f].ID, Corners: corners})
+		s.Faces = append(s.Faces, quadnet.Face{ID: n.Faces[f].ID, Corners: corners})
 	}
 	return s, perm
 }
 
 // writeNetOBJ writes a net as OBJ (ids become the 1-based numbers).
-func writeNetOBJ(t *testing.T, path string, n *geom.Net) {
+func writeNetOBJ(t *testing.T, path string, n *quadnet.Net) {
 	t.Helper()
 	var buf bytes.Buffer
 	if err := export.WriteOBJ(&buf, n, "shuffled"); err != nil {
@@ -170,7 +170,7 @@ func TestShuffledInputSameAnswer(t *testing.T) {
 // in the shuffled file's order, node k at exactly the position (as
 // written) of node perm[k] of ref, panel j as the file's panel j from the
 // same start corner, under the same comment lines.
-func sameFlatNet(t *testing.T, ref, got string, in *geom.Net, perm []int) {
+func sameFlatNet(t *testing.T, ref, got string, in *quadnet.Net, perm []int) {
 	t.Helper()
 	rb, err := os.ReadFile(ref)
 	if err != nil {

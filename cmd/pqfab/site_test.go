@@ -18,8 +18,8 @@ import (
 	"testing"
 
 	"pqfab/export"
-	"pqfab/geom"
 	"pqfab/internal/report"
+	"pqfab/quadnet"
 )
 
 // Outside readers of the site files, all Debian packages that .ci/run
@@ -179,7 +179,7 @@ func TestSitePlanPDF(t *testing.T) {
 	seen := map[string]bool{}
 	for i, pg := range pages[1:] {
 		for _, w := range words[i+1] {
-			if _, _, ok := geom.ParseBay(w.text); ok && strings.Contains(w.text, "-") {
+			if _, _, ok := quadnet.ParseBay(w.text); ok && strings.Contains(w.text, "-") {
 				smallest = min(smallest, w.capMM())
 				if w.capMM() < 2.5-tol {
 					t.Errorf("page %d: label %s is %.2f mm high, less than 2.5 mm", i+2, w.text, w.capMM())

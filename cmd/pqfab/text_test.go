@@ -7,8 +7,8 @@ import (
 	"strings"
 	"testing"
 
-	"pqfab/geom"
 	"pqfab/internal/report"
+	"pqfab/quadnet"
 )
 
 // TestTextReachesFilesSafely: a title with accents, a CJK character, a
@@ -34,7 +34,7 @@ func TestTextReachesFilesSafely(t *testing.T) {
 	if _, _, err := runCmd(t, "build", "-q", filepath.Join(dir, "job.toml"), "-o", out); err != nil {
 		t.Fatal(err)
 	}
-	net, err := geom.ReadFile(filepath.Join(out, report.FileNet), geom.MM)
+	net, err := quadnet.ReadFile(filepath.Join(out, report.FileNet), quadnet.MM)
 	if err != nil {
 		t.Fatal(err)
 	}

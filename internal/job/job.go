@@ -3,13 +3,14 @@ package job
 import (
 	"fmt"
 	"path/filepath"
-	"pqfab/nodes/bars"
 	"regexp"
 
 	"pqfab/geom"
 	"pqfab/nodes"
+	"pqfab/nodes/bars"
 	"pqfab/panels"
 	"pqfab/panels/nest"
+	"pqfab/quadnet"
 )
 
 // Job is a build job file (TOML). Every key is optional except net.file
@@ -328,10 +329,10 @@ func defaults(file string) *Job {
 	po, no, mat := panels.DefaultPlanarizeOptions(), nodes.DefaultOptions(), panels.DefaultMaterial()
 	return &Job{
 		File:     file,
-		Net:      Net{Unit: geom.DefaultUnit.String(), MergeTolMM: geom.DefaultCoincidentTolMM},
+		Net:      Net{Unit: quadnet.DefaultUnit.String(), MergeTolMM: quadnet.DefaultCoincidentTolMM},
 		Supports: Supports{Mode: DefaultSupportsMode},
 		Flatness: Flatness{TolMM: po.TolMM, MaxMoveMM: po.MaxMoveMM, Fairness: po.Fairness, VerticalOnly: po.Vertical, MaxIter: po.MaxIter},
-		Nodes:    Nodes{Axis: string(no.Axis), HubRadiusMM: no.HubRadiusMM, BayMM: geom.DefaultBaySizeMM},
+		Nodes:    Nodes{Axis: string(no.Axis), HubRadiusMM: no.HubRadiusMM, BayMM: quadnet.DefaultBaySizeMM},
 		Site:     Site{TagSize: TagOffice},
 		Member: Member{Material: DefaultMemberMaterial, Section: SectionSolid, WidthMM: no.Section.WidthMM, DepthMM: no.Section.DepthMM,
 			DensityKgM3: DefaultMemberDensityKgM3},
@@ -356,13 +357,13 @@ func barDefaults() Bar { return Bar{KerfMM: bars.DefaultKerfMM, TrimMM: bars.Def
 
 // Errorf returns an error naming the job file, the line of key and the key.
 func (j *Job) Errorf(key string, format string, args ...any) error {
-	return &geom.InputError{File: j.File, Line: j.lines.line(key), Elem: "key " + key, Msg: fmt.Sprintf(format, args...)}
+	return &quadnet.InputError{File: j.File, Line: j.lines.line(key), Elem: "key " + key, Msg: fmt.Sprintf(format, args...)}
 }
 
 // KeyError wraps err (a problem found while running the job) as an error
 // naming key and its line.
 func (j *Job) KeyError(key string, err error) error {
-	return &geom.InputError{File: j.File, Line: j.lines.line(key), Elem: "key " + key, Msg: err.Error(), Err: err}
+	return &quadnet.InputError{File: j.File, Line: j.lines.line(key), Elem: "key " + key, Msg: err.Error(), Err: err}
 }
 
 // NetPath returns the net file's path: net.file relative to the job file.
@@ -374,14 +375,14 @@ func (j *Job) NetPath() string {
 }
 
 // Unit returns the net file's unit.
-func (j *Job) Unit() geom.Unit {
-	u, _ := geom.ParseUnit(j.Net.Unit) // checked by Parse
+func (j *Job) Unit() quadnet.Unit {
+	u, _ := quadnet.ParseUnit(j.Net.Unit) // checked by Parse
 	return u
 }
 
 // ValidateOptions returns the net checks of the job.
-func (j *Job) ValidateOptions() geom.ValidateOptions {
-	o := geom.DefaultValidateOptions()
+func (j *Job) ValidateOptions() quadnet.ValidateOptions {
+	o := quadnet.DefaultValidateOptions()
 	o.CoincidentTolMM = j.Net.MergeTolMM
 	return o
 }
@@ -483,7 +484,7 @@ func (j *Job) check() error {
 	if j.Net.File == "" {
 		return j.Errorf("net.file", "missing: name the net file (OBJ, OFF or nodes CSV), relative to the job file")
 	}
-	if _, err := geom.ParseUnit(j.Net.Unit); err != nil {
+	if _, err := quadnet.ParseUnit(j.Net.Unit); err != nil {
 		return j.Errorf("net.unit", "%q: want mm, cm or m", short(j.Net.Unit))
 	}
 	if err := j.fieldErr(j.ValidateOptions().Validate(), validateKeys, ""); err != nil {
@@ -492,7 +493,7 @@ func (j *Job) check() error {
 	if err := j.checkSupports(); err != nil {
 		return err
 	}
-	if _, err := geom.NewBays(nil, j.Nodes.BayMM, j.Nodes.BayMM); err != nil {
+	if _, err := quadnet.NewBays(nil, j.Nodes.BayMM, j.Nodes.BayMM); err != nil {
 		return j.Errorf("nodes.bay_mm", "%g must be a positive number of millimetres", j.Nodes.BayMM)
 	}
 	texts := []struct{ key, text string }{{"title", j.Title}, {"panel.material", j.Panel.Material}, {"member.material", j.Member.Material}}

@@ -13,7 +13,7 @@ import (
 
 	"github.com/BurntSushi/toml"
 
-	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // MaxFileBytes is the largest job file read (1 MiB): a job is a page of
@@ -24,12 +24,12 @@ const MaxFileBytes = 1 << 20
 // line and the key, in plain words.
 func Parse(data []byte, file string) (*Job, error) {
 	if len(data) > MaxFileBytes {
-		return nil, &geom.InputError{File: file, Msg: fmt.Sprintf("%d bytes: a job file is at most %d bytes", len(data), MaxFileBytes)}
+		return nil, &quadnet.InputError{File: file, Msg: fmt.Sprintf("%d bytes: a job file is at most %d bytes", len(data), MaxFileBytes)}
 	}
 	j := defaults(file)
 	j.lines = indexKeys(data)
 	if len(bytes.TrimSpace(data)) == 0 {
-		return nil, &geom.InputError{File: file, Msg: "empty job file"}
+		return nil, &quadnet.InputError{File: file, Msg: "empty job file"}
 	}
 	md, err := toml.Decode(string(data), j)
 	if err != nil {
@@ -44,7 +44,7 @@ func Parse(data []byte, file string) (*Job, error) {
 		return nil, j.Errorf(k, "%s", msg)
 	}
 	if j.Stock == nil {
-		return nil, &geom.InputError{File: file, Msg: "no [[stock]] sheet given: nesting needs at least one"}
+		return nil, &quadnet.InputError{File: file, Msg: "no [[stock]] sheet given: nesting needs at least one"}
 	}
 	// The keys each [[stock]] and [[bar]] table holds: the others take
 	// their defaults (a table read into a list starts from zero values).
@@ -96,7 +96,7 @@ var tomlTypes = regexp.MustCompile(`TOML value has type (\S+); destination has t
 func decodeError(err error, file string) error {
 	var pe toml.ParseError
 	if errors.As(err, &pe) {
-		e := &geom.InputError{File: file, Line: pe.Position.Line, Msg: "TOML syntax: " + pe.Message}
+		e := &quadnet.InputError{File: file, Line: pe.Position.Line, Msg: "TOML syntax: " + pe.Message}
 		if pe.LastKey != "" {
 			e.Elem = "key " + pe.LastKey
 		}
@@ -110,9 +110,9 @@ func decodeError(err error, file string) error {
 		} else {
 			msg = "this value does not fit the key (see the README for the job file's keys)"
 		}
-		return &geom.InputError{File: file, Line: line, Elem: "key " + m[2], Msg: msg}
+		return &quadnet.InputError{File: file, Line: line, Elem: "key " + m[2], Msg: msg}
 	}
-	return &geom.InputError{File: file, Msg: "cannot read the job: its values do not fit the keys (see the README)"}
+	return &quadnet.InputError{File: file, Msg: "cannot read the job: its values do not fit the keys (see the README)"}
 }
 
 // goTypeWords names what a Go destination type wants.

@@ -5,14 +5,14 @@ import (
 	"slices"
 	"strings"
 
-	"pqfab/geom"
 	"pqfab/internal/job"
+	"pqfab/quadnet"
 )
 
 // Loaded is a net read from a file and checked.
 type Loaded struct {
-	Net      *geom.Net // in canonical order (geom.Canonical)
-	Topo     *geom.Topology
+	Net      *quadnet.Net // in canonical order (quadnet.Canonical)
+	Topo     *quadnet.Topology
 	Warnings []string   // what the checks found that the job goes on with
 	Order    *FileOrder // maps Net back to the file's order
 }
@@ -30,16 +30,16 @@ type FileOrder struct {
 	// Faces[j] is the index in the loaded net of the file's panel j, and
 	// Start[j] the corner of that panel the file's panel j starts at.
 	Faces, Start []int
-	left         map[int]geom.Node // the file's nodes in no panel, by index in the file
+	left         map[int]quadnet.Node // the file's nodes in no panel, by index in the file
 }
 
 // newFileOrder returns the order of file, the net as read (after turning
 // flipped panels, which keeps each panel's first corner), given the nodes
 // DropUnused left out of it (sorted) and c, the kept net in canonical
-// order with nodeFrom and faceFrom from geom.Canonical.
-func newFileOrder(file *geom.Net, dropped []int, c *geom.Net, nodeFrom, faceFrom []int) *FileOrder {
+// order with nodeFrom and faceFrom from quadnet.Canonical.
+func newFileOrder(file *quadnet.Net, dropped []int, c *quadnet.Net, nodeFrom, faceFrom []int) *FileOrder {
 	o := &FileOrder{Nodes: make([]int, len(file.Nodes)), Faces: make([]int, len(file.Faces)), Start: make([]int, len(file.Faces)),
-		left: make(map[int]geom.Node, len(dropped))}
+		left: make(map[int]quadnet.Node, len(dropped))}
 	canonOf := make([]int, len(nodeFrom)) // node k of the kept net is node canonOf[k] of c
 	for ci, k := range nodeFrom {
 		canonOf[k] = ci
@@ -67,8 +67,8 @@ func newFileOrder(file *geom.Net, dropped []int, c *geom.Net, nodeFrom, faceFrom
 // in the file's order: node i and panel j are the file's node i and panel
 // j, every panel starts at the file's first corner. The file's nodes in no
 // panel come back where the file has them.
-func (o *FileOrder) Apply(net *geom.Net) *geom.Net {
-	out := &geom.Net{Source: net.Source, Unit: net.Unit, Nodes: make([]geom.Node, len(o.Nodes)), Faces: make([]geom.Face, len(o.Faces))}
+func (o *FileOrder) Apply(net *quadnet.Net) *quadnet.Net {
+	out := &quadnet.Net{Source: net.Source, Unit: net.Unit, Nodes: make([]quadnet.Node, len(o.Nodes)), Faces: make([]quadnet.Face, len(o.Faces))}
 	fileOf := make([]int, len(net.Nodes))
 	for i, ci := range o.Nodes {
 		if ci < 0 {
@@ -85,33 +85,33 @@ func (o *FileOrder) Apply(net *geom.Net) *geom.Net {
 		for m := range corners {
 			corners[m] = fileOf[f.Corners[(o.Start[j]+m)%k]]
 		}
-		out.Faces[j] = geom.Face{ID: f.ID, Line: f.Line, Corners: corners}
+		out.Faces[j] = quadnet.Face{ID: f.ID, Line: f.Line, Corners: corners}
 	}
 	return out
 }
 
 // LoadNet reads the net at path (OBJ, OFF or the nodes file of a CSV pair,
-// in unit), checks it (geom.Validate with opt) and, when reorient is set,
+// in unit), checks it (quadnet.Validate with opt) and, when reorient is set,
 // turns flipped panels to a consistent orientation. Nodes that belong to no
 // panel are left out (with a warning), and the net is put in its canonical
-// order (geom.Canonical): every later stage depends only on the geometry,
+// order (quadnet.Canonical): every later stage depends only on the geometry,
 // never on the order of nodes and panels in the file or on which corner a
 // panel starts at. Order maps the net back to the file's order, which the
 // nets written back to the design team keep (Result.FileNet); every other
 // output is independent of it. On failure the error is a
-// *geom.ValidationError listing every problem found, or the reader's
-// *geom.InputError.
-func LoadNet(open Opener, path string, unit geom.Unit, opt geom.ValidateOptions, reorient bool) (*Loaded, error) {
-	net, err := geom.ReadFrom(open, path, unit)
+// *quadnet.ValidationError listing every problem found, or the reader's
+// *quadnet.InputError.
+func LoadNet(open Opener, path string, unit quadnet.Unit, opt quadnet.ValidateOptions, reorient bool) (*Loaded, error) {
+	net, err := quadnet.ReadFrom(open, path, unit)
 	if err != nil {
 		return nil, err
 	}
-	_, fd := geom.Validate(net, opt)
+	_, fd := quadnet.Validate(net, opt)
 	var warnings []string
 	if reorient && len(fd.Misoriented) > 0 {
-		geom.Reorient(net, fd.Misoriented)
+		quadnet.Reorient(net, fd.Misoriented)
 		warnings = append(warnings, fmt.Sprintf("%s: turned %d panels to a consistent orientation", net.Source, len(fd.Misoriented)))
-		_, fd = geom.Validate(net, opt)
+		_, fd = quadnet.Validate(net, opt)
 	}
 	for _, w := range fd.Warnings {
 		warnings = append(warnings, w.Error())
@@ -119,16 +119,16 @@ func LoadNet(open Opener, path string, unit geom.Unit, opt geom.ValidateOptions,
 	if err := fd.Err(); err != nil {
 		return nil, err
 	}
-	kept, dropped := geom.DropUnused(net)
-	c, nodeFrom, faceFrom := geom.Canonical(kept)
+	kept, dropped := quadnet.DropUnused(net)
+	c, nodeFrom, faceFrom := quadnet.Canonical(kept)
 	order := newFileOrder(net, dropped, c, nodeFrom, faceFrom)
-	return &Loaded{Net: c, Topo: geom.BuildTopology(c), Warnings: warnings, Order: order}, nil
+	return &Loaded{Net: c, Topo: quadnet.BuildTopology(c), Warnings: warnings, Order: order}, nil
 }
 
 // Supports returns a flag per node: true for nodes that never move. mode
 // is "boundary" (nodes on the net's boundary), "none", "file" (the support
 // column of a CSV net) or "list" with the node ids in ids.
-func Supports(mode string, ids []string, net *geom.Net, topo *geom.Topology) ([]bool, error) {
+func Supports(mode string, ids []string, net *quadnet.Net, topo *quadnet.Topology) ([]bool, error) {
 	fixed := make([]bool, len(net.Nodes))
 	switch mode {
 	case job.SupportsNone:

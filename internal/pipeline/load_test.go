@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // TestFileOrder: LoadNet's Order maps the canonical net back to the file:
@@ -53,7 +54,7 @@ func TestFileOrder(t *testing.T) {
 		want = append(want, c)
 	}
 	open := func(string) (io.ReadCloser, error) { return io.NopCloser(strings.NewReader(src.String())), nil }
-	in, err := LoadNet(open, "grid.obj", geom.MM, geom.DefaultValidateOptions(), true)
+	in, err := LoadNet(open, "grid.obj", quadnet.MM, quadnet.DefaultValidateOptions(), true)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -3,7 +3,7 @@ package pipeline
 import (
 	"io"
 
-	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // Opener opens a named input file (the net, or the panels file of a CSV
@@ -12,8 +12,8 @@ import (
 type Opener func(name string) (io.ReadCloser, error)
 
 // OpenFile opens a regular file on disk; a FIFO, device or socket is
-// refused at once (geom.OpenRegular), never waited on.
-func OpenFile(name string) (io.ReadCloser, error) { return geom.OpenRegular(name) }
+// refused at once (quadnet.OpenRegular), never waited on.
+func OpenFile(name string) (io.ReadCloser, error) { return quadnet.OpenRegular(name) }
 
 // Observer is told how a job goes. Its methods are called from the
 // goroutine that runs the job, one call at a time.

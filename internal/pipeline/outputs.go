@@ -4,8 +4,8 @@ import (
 	"path/filepath"
 	"strings"
 
-	"pqfab/geom"
 	"pqfab/internal/outdir"
+	"pqfab/quadnet"
 )
 
 // DiagnosticPath returns where a build into dir that misses the flatness
@@ -26,7 +26,7 @@ func OutputOptions(force bool, inputs ...string) outdir.Options {
 			continue
 		}
 		opt.Keep = append(opt.Keep, in)
-		if pp, err := geom.PanelsPathFor(in); err == nil && strings.EqualFold(filepath.Ext(in), ".csv") {
+		if pp, err := quadnet.PanelsPathFor(in); err == nil && strings.EqualFold(filepath.Ext(in), ".csv") {
 			opt.Keep = append(opt.Keep, pp)
 		}
 	}

@@ -5,16 +5,16 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
-	"pqfab/geom"
 	"pqfab/internal/num"
 	"pqfab/panels"
+	"pqfab/quadnet"
 )
 
 // Planarize runs the planarization of net with opt, reporting each
 // iteration to obs as stage "planarize". It returns the result (nil only
 // when opt is bad) and, when the tolerance or the move limit is not met,
 // a *panels.PlanarizeError beside it.
-func Planarize(net *geom.Net, topo *geom.Topology, opt panels.PlanarizeOptions, obs Observer) (*panels.PlanarizeResult, error) {
+func Planarize(net *quadnet.Net, topo *quadnet.Topology, opt panels.PlanarizeOptions, obs Observer) (*panels.PlanarizeResult, error) {
 	opt.Progress = func(p panels.Progress) {
 		obs.Step("planarize", p.Iter, p.MaxIter, fmt.Sprintf("planarize: worst %.3f mm, %d over by %.1f mm in all", p.MaxFlatMM, p.OverTol, p.ExcessMM))
 	}
@@ -22,7 +22,7 @@ func Planarize(net *geom.Net, topo *geom.Topology, opt panels.PlanarizeOptions, 
 }
 
 // Moved returns a copy of net with the planarized positions.
-func Moved(net *geom.Net, res *panels.PlanarizeResult) *geom.Net {
+func Moved(net *quadnet.Net, res *panels.PlanarizeResult) *quadnet.Net {
 	flat := net.Clone()
 	for i := range flat.Nodes {
 		flat.Nodes[i].Pos = res.Positions[i]
@@ -71,7 +71,7 @@ type PanelFlatness struct {
 }
 
 // NewPlanarizeReport builds the report of a planarization.
-func NewPlanarizeReport(net *geom.Net, opt panels.PlanarizeOptions, res *panels.PlanarizeResult) *PlanarizeReport {
+func NewPlanarizeReport(net *quadnet.Net, opt panels.PlanarizeOptions, res *panels.PlanarizeResult) *PlanarizeReport {
 	r := &PlanarizeReport{WrittenBy: "pqfab", Net: net.Source, TolMM: opt.TolMM, Converged: res.Converged, Iterations: res.Iterations,
 		MaxMoveMM: num.Round(res.MaxMoveMM, 3), RMSMoveMM: num.Round(res.RMSMoveMM, 3),
 		FlatBefore: num.RoundSpread(panels.SpreadOf(res.Before), 3), FlatAfter: num.RoundSpread(panels.SpreadOf(res.After), 4),

@@ -13,6 +13,7 @@ import (
 	"pqfab/panels"
 	"pqfab/panels/nest"
 	"pqfab/parttype"
+	"pqfab/quadnet"
 )
 
 // Policy says what a build does when the job cannot be met in full.
@@ -26,13 +27,13 @@ type Policy struct {
 type Result struct {
 	Job       *job.Job
 	NetPath   string
-	Net       *geom.Net  // planarized, in canonical order
-	Order     *FileOrder // maps Net back to the net file's order (nil: Net is in it)
-	Topo      *geom.Topology
+	Net       *quadnet.Net // planarized, in canonical order
+	Order     *FileOrder   // maps Net back to the net file's order (nil: Net is in it)
+	Topo      *quadnet.Topology
 	Supports  []bool
 	Warnings  []string
 	Planarize *panels.PlanarizeResult
-	Bays      geom.Bays
+	Bays      quadnet.Bays
 
 	Structure      *nodes.Structure
 	Flats          []panels.Flat
@@ -315,7 +316,7 @@ func panelsAndNest(ctx context.Context, j *job.Job, res *Result, obs Observer) e
 // FileNet returns the planarized net in the net file's order: node i and
 // panel j are the file's node i and panel j, each panel starting at the
 // file's first corner (see FileOrder).
-func (r *Result) FileNet() *geom.Net {
+func (r *Result) FileNet() *quadnet.Net {
 	if r.Order == nil {
 		return r.Net
 	}

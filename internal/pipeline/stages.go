@@ -6,16 +6,16 @@ import (
 	"math"
 	"sync"
 
-	"pqfab/geom"
 	"pqfab/nodes"
 	"pqfab/panels"
 	"pqfab/panels/nest"
+	"pqfab/quadnet"
 )
 
 // Structure cuts the plan of net into bays of bayMM and computes node
 // axes, members, hubs, labels and member and node types (nodes.Build).
-func Structure(net *geom.Net, topo *geom.Topology, opt nodes.Options, bayMM float64) (*nodes.Structure, geom.Bays, error) {
-	bays, err := geom.NewBays(net.Positions(), bayMM, bayMM)
+func Structure(net *quadnet.Net, topo *quadnet.Topology, opt nodes.Options, bayMM float64) (*nodes.Structure, quadnet.Bays, error) {
+	bays, err := quadnet.NewBays(net.Positions(), bayMM, bayMM)
 	if err != nil {
 		return nil, bays, err
 	}
@@ -35,7 +35,7 @@ func NodeLabels(st *nodes.Structure) []string {
 
 // Panels lays every panel of net flat with material mat and labels it by
 // its bay (panels.Labels, panels.Flatten).
-func Panels(net *geom.Net, topo *geom.Topology, mat panels.Material, bays geom.Bays, nodeLabels []string) ([]panels.Flat, error) {
+func Panels(net *quadnet.Net, topo *quadnet.Topology, mat panels.Material, bays quadnet.Bays, nodeLabels []string) ([]panels.Flat, error) {
 	return panels.Flatten(net, topo, mat, panels.Labels(net, bays, nodeLabels))
 }
 

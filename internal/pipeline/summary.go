@@ -8,11 +8,11 @@ import (
 
 	"gonum.org/v1/gonum/spatial/r3"
 
-	"pqfab/geom"
 	"pqfab/internal/num"
 	"pqfab/nodes"
 	"pqfab/panels"
 	"pqfab/panels/nest"
+	"pqfab/quadnet"
 )
 
 // Inspection sums up a net as read: counts, bounds, members at each node,
@@ -46,7 +46,7 @@ type WorstPanel struct {
 }
 
 // Inspect sums up a checked net.
-func Inspect(file string, net *geom.Net, topo *geom.Topology) (*Inspection, error) {
+func Inspect(file string, net *quadnet.Net, topo *quadnet.Topology) (*Inspection, error) {
 	in := &Inspection{File: file, Nodes: len(net.Nodes), Panels: len(net.Faces), Edges: len(topo.Edges),
 		BoundaryLoops: len(topo.Loops), PanelsByCorners: map[string]int{}, MembersAtNode: map[string]int{}}
 	for _, nd := range net.Nodes {
@@ -223,7 +223,7 @@ func SummarizeNest(res *nest.Result, stocks []nest.Stock, parts []nest.Part) *Ne
 // on stocks. worstMM is the panels' largest flatness deviation: above the
 // flatness tolerance the outlines are only projections of warped panels.
 func NestNet(ctx context.Context, in *Loaded, mat panels.Material, stocks []nest.Stock, bayMM float64) (sum *NestSummary, worstMM float64, err error) {
-	bays, err := geom.NewBays(in.Net.Positions(), bayMM, bayMM)
+	bays, err := quadnet.NewBays(in.Net.Positions(), bayMM, bayMM)
 	if err != nil {
 		return nil, 0, err
 	}

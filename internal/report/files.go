@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"strings"
 
-	"pqfab/geom"
+	"pqfab/quadnet"
 )
 
 // Output file names inside the build folder.
@@ -40,7 +40,7 @@ const (
 	MaxTags = 12000
 )
 
-// BayGrid is the plan bay grid the labels use (see geom.Bays): columns
+// BayGrid is the plan bay grid the labels use (see quadnet.Bays): columns
 // lettered along x, rows numbered along y.
 type BayGrid struct {
 	OriginMM [2]float64 `json:"origin_mm"` // lower-left corner of bay A1
@@ -48,7 +48,7 @@ type BayGrid struct {
 }
 
 // BayGridOf rounds a plan bay grid for the report.
-func BayGridOf(b geom.Bays) BayGrid {
+func BayGridOf(b quadnet.Bays) BayGrid {
 	return BayGrid{OriginMM: [2]float64{r(b.Origin.X, LenDigits), r(b.Origin.Y, LenDigits)},
 		SizeMM: [2]float64{r(b.SizeX, LenDigits), r(b.SizeY, LenDigits)}}
 }

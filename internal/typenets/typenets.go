@@ -6,14 +6,14 @@ import (
 	"fmt"
 	"math/rand/v2"
 
-	"pqfab/geom"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
 // Named is a net with a name for test messages.
 type Named struct {
 	Name string
-	Net  *geom.Net
+	Net  *quadnet.Net
 }
 
 // Nets returns the nets the type tests group: every sample of about

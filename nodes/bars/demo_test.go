@@ -9,6 +9,7 @@ import (
 
 	"pqfab/geom"
 	"pqfab/nodes"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
@@ -24,7 +25,7 @@ func TestDemoNetBlanks(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	topo, fd := geom.Validate(n, geom.DefaultValidateOptions())
+	topo, fd := quadnet.Validate(n, quadnet.DefaultValidateOptions())
 	if fd.Err() != nil {
 		t.Fatal(fd.Err())
 	}

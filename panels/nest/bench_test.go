@@ -7,15 +7,15 @@ import (
 	"sync"
 	"testing"
 
-	"pqfab/geom"
 	"pqfab/panels"
+	"pqfab/quadnet"
 	"pqfab/samples"
 )
 
 // waveParts returns the cut outlines of the planarized wave sample.
 func waveParts(tb testing.TB, size int) []Part {
 	n, _ := samples.Make("wave", size)
-	topo := geom.BuildTopology(n)
+	topo := quadnet.BuildTopology(n)
 	opt := panels.DefaultPlanarizeOptions()
 	opt.TolMM = 0.1
 	res, err := panels.Planarize(n, topo, opt)
