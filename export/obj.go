@@ -5,6 +5,7 @@ import (
 	"io"
 	"strconv"
 
+	"pqfab/export/internal/layout"
 	"pqfab/quadnet"
 )
 
@@ -25,10 +26,10 @@ func WriteOBJ(w io.Writer, n *quadnet.Net, title string, warnings ...string) err
 	bw := bufio.NewWriterSize(w, 1<<16)
 	buf := make([]byte, 0, 128)
 	buf = append(buf, "# "...)
-	buf = append(buf, OneLine(title)...)
+	buf = append(buf, layout.OneLine(title)...)
 	buf = append(buf, '\n')
 	for _, wn := range warnings {
-		buf = append(append(append(buf, "# WARNING: "...), OneLine(wn)...), '\n')
+		buf = append(append(append(buf, "# WARNING: "...), layout.OneLine(wn)...), '\n')
 	}
 	buf = append(buf, "# units: mm, z up; written by pqfab\n"...)
 	buf = strconv.AppendInt(append(buf, "# nodes: "...), int64(len(n.Nodes)), 10)
@@ -41,15 +42,15 @@ func WriteOBJ(w io.Writer, n *quadnet.Net, title string, warnings ...string) err
 		buf = buf[:0]
 		if nd.ID != strconv.Itoa(i+1) {
 			buf = append(buf, "# node "...)
-			buf = append(buf, OneLine(nd.ID)...)
+			buf = append(buf, layout.OneLine(nd.ID)...)
 			buf = append(buf, '\n')
 		}
 		buf = append(buf, "v "...)
-		buf = AppendFixed(buf, nd.Pos.X, OBJDigits)
+		buf = layout.AppendFixed(buf, nd.Pos.X, OBJDigits)
 		buf = append(buf, ' ')
-		buf = AppendFixed(buf, nd.Pos.Y, OBJDigits)
+		buf = layout.AppendFixed(buf, nd.Pos.Y, OBJDigits)
 		buf = append(buf, ' ')
-		buf = AppendFixed(buf, nd.Pos.Z, OBJDigits)
+		buf = layout.AppendFixed(buf, nd.Pos.Z, OBJDigits)
 		buf = append(buf, '\n')
 		if _, err := bw.Write(buf); err != nil {
 			return err
@@ -59,7 +60,7 @@ func WriteOBJ(w io.Writer, n *quadnet.Net, title string, warnings ...string) err
 		buf = buf[:0]
 		if f.ID != strconv.Itoa(i+1) {
 			buf = append(buf, "# panel "...)
-			buf = append(buf, OneLine(f.ID)...)
+			buf = append(buf, layout.OneLine(f.ID)...)
 			buf = append(buf, '\n')
 		}
 		buf = append(buf, 'f')

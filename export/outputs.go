@@ -7,6 +7,10 @@ import (
 	"runtime"
 	"sync"
 
+	"pqfab/export/dxf"
+	"pqfab/export/pdf"
+	"pqfab/export/web"
+	"pqfab/export/xlsx"
 	"pqfab/internal/outdir"
 	"pqfab/internal/report"
 	"pqfab/quadnet"
@@ -52,24 +56,24 @@ func WriteBuild(dir string, opt outdir.Options, net *quadnet.Net, warnings []str
 		// there are processors, take them in order; each file's bytes
 		// depend only on the report, never on which worker wrote it.
 		jobs := []func() error{
-			file(report.FileAssembly, func(w io.Writer) error { return WriteAssemblyDXF(w, rep) }),
-			file(report.FileSchedule, func(w io.Writer) error { return WriteSchedule(w, rep) }),
-			file(report.FileReport, func(w io.Writer) error { return WriteJSON(w, rep) }),
-			file(report.FileHTML, func(w io.Writer) error { return WriteHTML(w, rep) }),
-			file(report.FileView, func(w io.Writer) error { return WriteView(w, rep) }),
-			file(report.FilePlanPDF, func(w io.Writer) error { return WritePlanPDF(w, rep) }),
-			file(report.FileTagsPDF, func(w io.Writer) error { return WriteTagsPDF(w, rep) }),
+			file(report.FileAssembly, func(w io.Writer) error { return dxf.WriteAssemblyDXF(w, rep) }),
+			file(report.FileSchedule, func(w io.Writer) error { return xlsx.WriteSchedule(w, rep) }),
+			file(report.FileReport, func(w io.Writer) error { return report.WriteJSON(w, rep) }),
+			file(report.FileHTML, func(w io.Writer) error { return web.WriteHTML(w, rep) }),
+			file(report.FileView, func(w io.Writer) error { return web.WriteView(w, rep) }),
+			file(report.FilePlanPDF, func(w io.Writer) error { return pdf.WritePlanPDF(w, rep) }),
+			file(report.FileTagsPDF, func(w io.Writer) error { return pdf.WriteTagsPDF(w, rep) }),
 			file(report.FileNet, func(w io.Writer) error { return WriteOBJ(w, net, "pqfab planarized net: "+rep.Title, warnings...) }),
 		}
 		for i := range rep.Sheets {
 			name := filepath.Join(report.DirSheets, SheetFile(i, len(rep.Sheets)))
-			jobs = append(jobs, file(name, func(w io.Writer) error { return WriteSheetDXF(w, rep, i) }))
+			jobs = append(jobs, file(name, func(w io.Writer) error { return dxf.WriteSheetDXF(w, rep, i) }))
 		}
 		for i, t := range rep.PanelTypes {
-			jobs = append(jobs, file(filepath.Join(report.DirPanelTypes, t.Name+".dxf"), func(w io.Writer) error { return WritePanelTypeDXF(w, rep, i) }))
+			jobs = append(jobs, file(filepath.Join(report.DirPanelTypes, t.Name+".dxf"), func(w io.Writer) error { return dxf.WritePanelTypeDXF(w, rep, i) }))
 		}
 		for i, t := range rep.MemberTypes {
-			jobs = append(jobs, file(filepath.Join(report.DirMemberTypes, t.Name+".dxf"), func(w io.Writer) error { return WriteMemberTypeDXF(w, rep, i) }))
+			jobs = append(jobs, file(filepath.Join(report.DirMemberTypes, t.Name+".dxf"), func(w io.Writer) error { return dxf.WriteMemberTypeDXF(w, rep, i) }))
 		}
 		errs := make([]error, len(jobs))
 		next := make(chan int)

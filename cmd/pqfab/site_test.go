@@ -17,7 +17,7 @@ import (
 	"strings"
 	"testing"
 
-	"pqfab/export"
+	"pqfab/export/pdf"
 	"pqfab/internal/report"
 	"pqfab/quadnet"
 )
@@ -232,7 +232,7 @@ func TestSiteTagsPDF(t *testing.T) {
 		slices.Sort(kind)
 		order = append(order, kind...)
 	}
-	lay := export.TagOffice
+	lay := pdf.TagOffice
 	perSheet := lay.Cols * lay.Rows
 	if want := (len(order) + perSheet - 1) / perSheet; len(pages) != want {
 		t.Fatalf("%d sheets for %d tags, want %d", len(pages), len(order), want)
@@ -282,9 +282,9 @@ func TestSiteTagsPDF(t *testing.T) {
 
 	// Outdoor tags: the same tags twice the size, two to a sheet, every
 	// text twice as high, the QR codes still read.
-	rep.TagSize = export.TagOutdoor.Name
+	rep.TagSize = pdf.TagOutdoor.Name
 	var buf bytes.Buffer
-	if err := export.WriteTagsPDF(&buf, rep); err != nil {
+	if err := pdf.WriteTagsPDF(&buf, rep); err != nil {
 		t.Fatal(err)
 	}
 	big := filepath.Join(dir, "tags-outdoor.pdf")
@@ -295,13 +295,13 @@ func TestSiteTagsPDF(t *testing.T) {
 		t.Errorf("outdoor tags: %d sheets for %d tags, want %d", n, len(order), want)
 	}
 	checkTagTextSizes(t, big, order, 2)
-	checkTagQRs(t, dir, big, export.TagOutdoor, order, (len(order)+1)/2)
+	checkTagQRs(t, dir, big, pdf.TagOutdoor, order, (len(order)+1)/2)
 }
 
 // checkTagQRs decodes the QR code of every tag on the first sheet, a
 // middle one and the last (pdftoppm renders the sheet, zbarimg reads the
 // code): each holds exactly the label of the part in its slot.
-func checkTagQRs(t *testing.T, dir, path string, lay export.TagLayout, order []string, sheets int) int {
+func checkTagQRs(t *testing.T, dir, path string, lay pdf.TagLayout, order []string, sheets int) int {
 	t.Helper()
 	const dpi = 150
 	perSheet := lay.Cols * lay.Rows
@@ -370,8 +370,8 @@ func pdfWords(t *testing.T, path string) [][]pdfWord {
 func (w pdfWord) capMM() float64 { return (w.yMax - w.yMin) * 718 / 925 * 25.4 / 72 }
 
 // checkTagTextSizes measures the tags' text in the PDF: every word at
-// least export.TagDataCapMM high and every part's label, on its own tag,
-// at least export.TagLabelCapMM (times the tag size's scale).
+// least pdf.TagDataCapMM high and every part's label, on its own tag,
+// at least pdf.TagLabelCapMM (times the tag size's scale).
 func checkTagTextSizes(t *testing.T, path string, order []string, scale float64) {
 	t.Helper()
 	const tol = 0.01 // mm: the PDF's coordinates are rounded
@@ -379,19 +379,19 @@ func checkTagTextSizes(t *testing.T, path string, order []string, scale float64)
 	smallest, n := math.Inf(1), 0
 	for p, words := range pdfWords(t, path) {
 		for _, w := range words {
-			if w.capMM() < scale*export.TagDataCapMM-tol {
-				t.Errorf("page %d: %q is %.2f mm high, less than %g mm", p+1, w.text, w.capMM(), scale*export.TagDataCapMM)
+			if w.capMM() < scale*pdf.TagDataCapMM-tol {
+				t.Errorf("page %d: %q is %.2f mm high, less than %g mm", p+1, w.text, w.capMM(), scale*pdf.TagDataCapMM)
 			}
 			smallest = min(smallest, w.capMM())
 			n++
-			if w.capMM() >= scale*export.TagLabelCapMM-tol {
+			if w.capMM() >= scale*pdf.TagLabelCapMM-tol {
 				big[w.text] = true
 			}
 		}
 	}
 	for _, l := range order {
 		if !big[l] {
-			t.Errorf("label %s is never %g mm high", l, scale*export.TagLabelCapMM)
+			t.Errorf("label %s is never %g mm high", l, scale*pdf.TagLabelCapMM)
 		}
 	}
 	t.Logf("tags: %d words, smallest capital height %.2f mm", n, smallest)

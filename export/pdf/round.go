@@ -1,0 +1,6 @@
+package pdf
+
+import "pqfab/internal/num"
+
+// r is the rounding every number drawn or printed goes through.
+var r = num.Round
