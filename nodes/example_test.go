@@ -12,9 +12,9 @@ func ExampleBuild() {
 	net, _ := samples.Make("dome", 300)
 	topo := quadnet.BuildTopology(net)
 	bays, _ := quadnet.NewBays(net.Positions(), 6000, 6000)
-	opt := nodes.DefaultOptions()
-	opt.Axis, opt.HubRadiusMM, opt.Bays = nodes.AxisLeastTwist, 60, bays
-	s, err := nodes.Build(net, topo, opt)
+	// Least-twist axes (the default), a hub, bays; the default section
+	// and type tolerances.
+	s, err := nodes.Build(net, topo, nodes.Options{HubRadiusMM: 60, Bays: bays})
 	if err != nil {
 		fmt.Println(err)
 		return

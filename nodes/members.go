@@ -56,13 +56,23 @@ type Member struct {
 	Type        int // index into the member types
 }
 
-// MemberOptions sets up member geometry.
+// MemberOptions sets up member geometry. A zero field means its default.
 type MemberOptions struct {
-	HubRadiusMM float64 // 0: members run to the node point
+	HubRadiusMM float64 // 0: DefaultHubRadiusMM, which is no hub: members run to the node point
 }
 
-// Validate checks the hub radius's range.
+// withDefaults returns the options with every zero field set to its
+// default.
+func (o MemberOptions) withDefaults() MemberOptions {
+	if o.HubRadiusMM == 0 {
+		o.HubRadiusMM = DefaultHubRadiusMM
+	}
+	return o
+}
+
+// Validate checks the hub radius's range, zero standing for the default.
 func (o MemberOptions) Validate() error {
+	o = o.withDefaults()
 	if !(o.HubRadiusMM >= 0) || o.HubRadiusMM > MaxHubRadiusMM {
 		return geom.FieldErrorf("HubRadiusMM", "%g must be between 0 and %g mm", o.HubRadiusMM, MaxHubRadiusMM)
 	}
@@ -82,6 +92,7 @@ func Members(n *quadnet.Net, topo *quadnet.Topology, axes []geom.Vec, opt Member
 	if err := opt.Validate(); err != nil {
 		return nil, err
 	}
+	opt = opt.withDefaults()
 	normals := faceNormals(n)
 	ms := make([]Member, len(topo.Edges))
 	for k, ed := range topo.Edges {

@@ -8,14 +8,19 @@ import (
 	"pqfab/quadnet"
 )
 
-// Options sets up the whole node and member computation.
+// Options sets up the whole node and member computation. A zero field
+// means its default, so Options{HubRadiusMM: 60} is the defaults with a
+// hub; where zero is a setting of its own, a negative constant asks for
+// it (NoTypeTol).
 type Options struct {
-	Axis          AxisMethod
-	AxisStiffness float64 // least-twist only; DefaultAxisStiffness if 0
-	HubRadiusMM   float64
-	Section       Section
-	Bays          quadnet.Bays
-	Types         TypeOptions
+	Axis          AxisMethod // "": DefaultAxis
+	AxisStiffness float64    // least-twist only; 0: DefaultAxisStiffness
+	HubRadiusMM   float64    // 0: DefaultHubRadiusMM (no hub)
+	// Section: a zero WidthMM or DepthMM is DefaultSectionWidthMM or
+	// DefaultSectionDepthMM; WallMM 0 is solid.
+	Section Section
+	Bays    quadnet.Bays // zero: no bays
+	Types   TypeOptions  // zero tolerances: their defaults
 }
 
 // Member section defaults (mm): a common timber gridshell lath size,
@@ -33,7 +38,8 @@ const (
 )
 
 // DefaultOptions returns the default axes and hub, the default section,
-// no bays and the default type tolerances.
+// no bays and the default type tolerances, every field set: the zero
+// Options does the same work.
 func DefaultOptions() Options {
 	return Options{Axis: DefaultAxis, HubRadiusMM: DefaultHubRadiusMM, Section: Section{WidthMM: DefaultSectionWidthMM, DepthMM: DefaultSectionDepthMM},
 		Types: TypeOptions{LengthTolMM: DefaultTypeLengthTolMM, AngleTolDeg: DefaultTypeAngleTolDeg}}
@@ -61,11 +67,31 @@ const (
 	MaxSectionMM   = 1e4
 )
 
-// Validate checks every option's range and returns a *geom.FieldError
-// naming the first bad field.
+// withDefaults returns the options with every zero field but Types set
+// to its default (GroupMembers and GroupNodes set the tolerances').
+func (o Options) withDefaults() Options {
+	if o.Axis == "" {
+		o.Axis = DefaultAxis
+	}
+	if o.AxisStiffness == 0 {
+		o.AxisStiffness = DefaultAxisStiffness
+	}
+	o.HubRadiusMM = MemberOptions{HubRadiusMM: o.HubRadiusMM}.withDefaults().HubRadiusMM
+	if o.Section.WidthMM == 0 {
+		o.Section.WidthMM = DefaultSectionWidthMM
+	}
+	if o.Section.DepthMM == 0 {
+		o.Section.DepthMM = DefaultSectionDepthMM
+	}
+	return o
+}
+
+// Validate checks every option's range, a zero field standing for its
+// default, and returns a *geom.FieldError naming the first bad field.
 func (o Options) Validate() error {
+	o = o.withDefaults()
 	switch o.Axis {
-	case AxisNormal, AxisLeastTwist, "":
+	case AxisNormal, AxisLeastTwist:
 	default:
 		return geom.FieldErrorf("Axis", "%q: want normal or least-twist", quote(string(o.Axis)))
 	}
@@ -88,8 +114,10 @@ func (o Options) Validate() error {
 	return o.Types.Validate()
 }
 
-// Validate checks the type tolerances.
+// Validate checks the type tolerances, a zero tolerance standing for its
+// default.
 func (t TypeOptions) Validate() error {
+	t = t.withDefaults()
 	if !(t.LengthTolMM >= 0) || t.LengthTolMM > MaxTypeLengthTolMM {
 		return geom.FieldErrorf("Types.LengthTolMM", "%g must be between 0 and %g mm", t.LengthTolMM, MaxTypeLengthTolMM)
 	}
@@ -108,24 +136,20 @@ func quote(s string) string {
 }
 
 // Build computes axes, members, hubs, labels and types for a net. It
-// checks opt first (Options.Validate).
+// checks opt first (Options.Validate); a zero field of opt means its
+// default.
 func Build(n *quadnet.Net, topo *quadnet.Topology, opt Options) (*Structure, error) {
 	if err := opt.Validate(); err != nil {
 		return nil, err
 	}
+	opt = opt.withDefaults()
 	normals, err := NormalAxes(n)
 	if err != nil {
 		return nil, err
 	}
 	axes := normals
-	switch opt.Axis {
-	case AxisNormal, "":
-	case AxisLeastTwist:
-		k := opt.AxisStiffness
-		if k == 0 {
-			k = DefaultAxisStiffness
-		}
-		if axes, err = LeastTwistAxes(n, topo, normals, k); err != nil {
+	if opt.Axis == AxisLeastTwist {
+		if axes, err = LeastTwistAxes(n, topo, normals, opt.AxisStiffness); err != nil {
 			return nil, err
 		}
 	}

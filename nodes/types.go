@@ -18,10 +18,25 @@ const (
 	MaxTypeAngleTolDeg     = 45.0
 )
 
-// TypeOptions sets the tolerances for member and node types.
+// NoTypeTol, given as a tolerance of TypeOptions, asks for a tolerance of
+// zero: parts are one type only where those values are equal (the
+// field's zero value means its default).
+const NoTypeTol = parttype.NoTol
+
+// TypeOptions sets the tolerances for member and node types. A zero
+// field means its default; NoTypeTol asks for a tolerance of zero.
 type TypeOptions struct {
-	LengthTolMM float64
-	AngleTolDeg float64
+	LengthTolMM float64 // 0: DefaultTypeLengthTolMM
+	AngleTolDeg float64 // 0: DefaultTypeAngleTolDeg
+}
+
+// withDefaults returns the tolerances to compute with: every zero set to
+// its default, and NoTypeTol to 0. Its zeros mean zero, so its result
+// goes only to unexported code, never back to GroupMembers or GroupNodes.
+func (t TypeOptions) withDefaults() TypeOptions {
+	t.LengthTolMM = parttype.TolOf(t.LengthTolMM, DefaultTypeLengthTolMM)
+	t.AngleTolDeg = parttype.TolOf(t.AngleTolDeg, DefaultTypeAngleTolDeg)
+	return t
 }
 
 // EndCut is the cut at one end of a member type.
@@ -80,11 +95,13 @@ func memberCoords(m Member, reversed bool) [memberDim]float64 {
 // GroupMembers sorts members into the fewest types it finds (see
 // parttype.Solve for the method and its guarantees), sets each member's
 // Type, and returns the types numbered by nominal cut length, ties by the
-// nominal end angles and twist, with a lower bound on their number.
+// nominal end angles and twist, with a lower bound on their number. A
+// zero tolerance of tol means its default.
 func GroupMembers(ms []Member, tol TypeOptions) ([]MemberType, parttype.Bound, error) {
 	if err := tol.Validate(); err != nil {
 		return nil, parttype.Bound{}, err
 	}
+	tol = tol.withDefaults()
 	L, A := tol.LengthTolMM, tol.AngleTolDeg
 	p := &parttype.Problem{Parts: len(ms), Dim: memberDim, Tol: []float64{L, A, A, A, A, A},
 		Compose: [][]int{{0, 1}, {1, 0}}, Permutes: true, Coords: make([]float64, 0, 2*memberDim*len(ms))}
@@ -223,11 +240,13 @@ func nodeCoords(dst []float64, nd Node, sorted []int, s int) []float64 {
 // GroupNodes sorts nodes into the fewest types it finds (see
 // parttype.Solve), nodes with different numbers of members apart, sets
 // each node's Type, and returns the types numbered by members at node,
-// then by the nominal arms, with a lower bound on their number.
+// then by the nominal arms, with a lower bound on their number. A zero
+// tolerance of tol means its default.
 func GroupNodes(nds []Node, tol TypeOptions) ([]NodeType, parttype.Bound, error) {
 	if err := tol.Validate(); err != nil {
 		return nil, parttype.Bound{}, err
 	}
+	tol = tol.withDefaults()
 	A := tol.AngleTolDeg
 	byCount := map[int][]int{}
 	for i, nd := range nds {

@@ -11,9 +11,8 @@ import (
 func ExamplePlanarize() {
 	net, _ := samples.Make("wave", 200)
 	topo := quadnet.BuildTopology(net)
-	opt := panels.DefaultPlanarizeOptions()
-	opt.TolMM = 0.1
-	res, err := panels.Planarize(net, topo, opt)
+	// A finer tolerance; every other setting at its default.
+	res, err := panels.Planarize(net, topo, panels.PlanarizeOptions{TolMM: 0.1})
 	if err != nil {
 		fmt.Println(err)
 		return

@@ -213,7 +213,7 @@ func TestHardNetsAgainstReference(t *testing.T) {
 		refMax, refRMS := moveStats(n, refPos)
 		for _, tc := range []struct {
 			fairness, share float64
-		}{{0, 1.1}, {DefaultFairness, 1.25}} {
+		}{{NoFairness, 1.1}, {DefaultFairness, 1.25}} {
 			opt := DefaultPlanarizeOptions()
 			opt.MaxMoveMM = 1000
 			opt.Fairness = tc.fairness
@@ -317,5 +317,5 @@ func benchHard(b *testing.B, fairness float64) {
 // benchmarks (the reference takes minutes at 2,000 quads).
 var refMaxMove = map[string]float64{}
 
-func BenchmarkPlanarizeHard2k(b *testing.B)       { benchHard(b, 0) }
+func BenchmarkPlanarizeHard2k(b *testing.B)       { benchHard(b, NoFairness) }
 func BenchmarkPlanarizeHard2kFaired(b *testing.B) { benchHard(b, DefaultFairness) }

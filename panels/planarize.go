@@ -24,18 +24,26 @@ const (
 	DefaultMaxIter = 200
 )
 
-// PlanarizeOptions sets up a planarization.
+// NoFairness, given as PlanarizeOptions.Fairness, turns fairness off (the
+// field's zero value means DefaultFairness).
+const NoFairness = -1.0
+
+// PlanarizeOptions sets up a planarization. A zero field means its
+// default, so PlanarizeOptions{TolMM: 0.3} is the defaults with a finer
+// tolerance; where zero is a setting of its own, a negative constant asks
+// for it (NoFairness).
 type PlanarizeOptions struct {
-	TolMM     float64 // flatness deviation to reach (mm), > 0
-	MaxMoveMM float64 // largest node move allowed (mm), > 0
+	TolMM     float64 // flatness deviation to reach (mm), > 0; 0: DefaultFlatTolMM
+	MaxMoveMM float64 // largest node move allowed (mm), > 0; 0: DefaultMaxMoveMM
 	// Fairness weighs the smoothness of the moves: the squared umbrella
-	// Laplacian of the move field against the squared moves. 0 turns it off.
+	// Laplacian of the move field against the squared moves. 0:
+	// DefaultFairness; NoFairness turns it off.
 	Fairness float64
 	// Fixed marks nodes that never move (supports). Nil: none.
 	Fixed []bool
 	// Vertical keeps every node on its vertical line: only z moves.
 	Vertical bool
-	MaxIter  int
+	MaxIter  int // iteration budget, > 0; 0: DefaultMaxIter
 	// Progress, if set, is called after every iteration.
 	Progress func(Progress)
 }
@@ -48,9 +56,32 @@ const (
 	MaxIter      = 100000
 )
 
-// Validate checks every option's range and returns a *geom.FieldError
-// naming the first bad field.
+// withDefaults returns the options to compute with: every zero field set
+// to its default, and NoFairness to a fairness of 0. Its zeros mean zero,
+// so its result goes only to unexported code, never back to Planarize.
+func (o PlanarizeOptions) withDefaults() PlanarizeOptions {
+	if o.TolMM == 0 {
+		o.TolMM = DefaultFlatTolMM
+	}
+	if o.MaxMoveMM == 0 {
+		o.MaxMoveMM = DefaultMaxMoveMM
+	}
+	switch o.Fairness {
+	case 0:
+		o.Fairness = DefaultFairness
+	case NoFairness:
+		o.Fairness = 0
+	}
+	if o.MaxIter == 0 {
+		o.MaxIter = DefaultMaxIter
+	}
+	return o
+}
+
+// Validate checks every option's range, a zero field standing for its
+// default, and returns a *geom.FieldError naming the first bad field.
 func (o PlanarizeOptions) Validate() error {
+	o = o.withDefaults()
 	switch {
 	case !(o.TolMM > 0) || o.TolMM > MaxFlatTolMM:
 		return geom.FieldErrorf("TolMM", "%g must be more than 0 and at most %g mm", o.TolMM, MaxFlatTolMM)
@@ -64,7 +95,8 @@ func (o PlanarizeOptions) Validate() error {
 	return nil
 }
 
-// DefaultPlanarizeOptions returns the job defaults.
+// DefaultPlanarizeOptions returns the job defaults, every field set: the
+// zero PlanarizeOptions does the same work.
 func DefaultPlanarizeOptions() PlanarizeOptions {
 	return PlanarizeOptions{TolMM: DefaultFlatTolMM, MaxMoveMM: DefaultMaxMoveMM, Fairness: DefaultFairness, MaxIter: DefaultMaxIter}
 }
@@ -222,11 +254,12 @@ func (e *PlanarizeError) Error() string {
 // It returns the result and, when the tolerance or the move limit is not
 // met, a *PlanarizeError beside it. When the allowed move stopped it, a
 // second run without the limit says how large a move the tolerance needs
-// (PlanarizeError.NeedMoveMM).
+// (PlanarizeError.NeedMoveMM). A zero field of opt means its default.
 func Planarize(n *quadnet.Net, topo *quadnet.Topology, opt PlanarizeOptions) (*PlanarizeResult, error) {
 	if err := opt.Validate(); err != nil {
 		return nil, err
 	}
+	opt = opt.withDefaults()
 	if opt.Fixed != nil && len(opt.Fixed) != len(n.Nodes) {
 		return nil, geom.FieldErrorf("Fixed", "has %d entries for %d nodes", len(opt.Fixed), len(n.Nodes))
 	}

@@ -38,7 +38,7 @@ func TestSingleQuadTLS(t *testing.T) {
 		}
 		n := quadNet(pts...)
 		opt := DefaultPlanarizeOptions()
-		opt.Fairness = 0
+		opt.Fairness = NoFairness
 		opt.TolMM = 1e-7
 		res, err := Planarize(n, quadnet.BuildTopology(n), opt)
 		if err != nil {
@@ -186,8 +186,8 @@ func TestPlanarizeFailures(t *testing.T) {
 	if err == nil || !strings.Contains(err.Error(), "stopped by the iteration budget of 1 steps") {
 		t.Errorf("budget: %v", err)
 	}
-	if _, err := Planarize(w, quadnet.BuildTopology(w), PlanarizeOptions{}); err == nil {
-		t.Error("zero options: want an error")
+	if _, err := Planarize(w, quadnet.BuildTopology(w), PlanarizeOptions{MaxIter: -1}); err == nil {
+		t.Error("a negative budget: want an error")
 	}
 }
 

@@ -21,10 +21,16 @@ const (
 	MaxTypeAngleTolDeg     = 45.0
 )
 
-// TypeOptions says when two panels are one type.
+// NoTypeTol, given as a tolerance of TypeOptions, asks for a tolerance of
+// zero: panels are one type only where those values are equal (the
+// field's zero value means its default).
+const NoTypeTol = parttype.NoTol
+
+// TypeOptions says when two panels are one type. A zero field means its
+// default; NoTypeTol asks for a tolerance of zero.
 type TypeOptions struct {
-	TolMM       float64 // edges and diagonals agree within this (mm)
-	AngleTolDeg float64 // corner angles agree within this (degrees)
+	TolMM       float64 // edges and diagonals agree within this (mm); 0: DefaultTypeTolMM
+	AngleTolDeg float64 // corner angles agree within this (degrees); 0: DefaultTypeAngleTolDeg
 	Mirror      bool    // a panel and its mirror image may be one type
 	// Bevels: the edges are bevelled, so each edge's bevel (sign
 	// included) is part of the type and agrees within AngleTolDeg; a
@@ -32,8 +38,19 @@ type TypeOptions struct {
 	Bevels bool
 }
 
-// Validate checks the tolerances' ranges.
+// withDefaults returns the options to compute with: every zero tolerance
+// set to its default, and NoTypeTol to 0. Its zeros mean zero, so its
+// result goes only to unexported code, never back to Group.
+func (o TypeOptions) withDefaults() TypeOptions {
+	o.TolMM = parttype.TolOf(o.TolMM, DefaultTypeTolMM)
+	o.AngleTolDeg = parttype.TolOf(o.AngleTolDeg, DefaultTypeAngleTolDeg)
+	return o
+}
+
+// Validate checks the tolerances' ranges, a zero tolerance standing for
+// its default.
 func (o TypeOptions) Validate() error {
+	o = o.withDefaults()
 	if !(o.TolMM >= 0) || o.TolMM > MaxTypeTolMM {
 		return geom.FieldErrorf("TolMM", "%g must be between 0 and %g mm", o.TolMM, MaxTypeTolMM)
 	}
@@ -240,11 +257,12 @@ func cornerAngles(p geom.Polygon) []float64 {
 // outlines (see parttype.Solve for the method and its guarantees), panels
 // with different corner counts or specification groups (Flat.SpecGroup) apart, sets each panel's Type, and returns
 // the types numbered by nominal area, ties by the nominal edges, with a
-// lower bound on their number.
+// lower bound on their number. A zero tolerance of opt means its default.
 func Group(flats []Flat, opt TypeOptions) ([]Type, parttype.Bound, error) {
 	if err := opt.Validate(); err != nil {
 		return nil, parttype.Bound{}, err
 	}
+	opt = opt.withDefaults()
 	// Panels with other corner counts or in other specification groups
 	// never share a type.
 	byCount := map[[2]int][]int{}

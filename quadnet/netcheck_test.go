@@ -257,7 +257,7 @@ func TestValidateOptions(t *testing.T) {
 		mod  func(*ValidateOptions)
 		want string
 	}{
-		{func(o *ValidateOptions) { o.CoincidentTolMM = -1 }, "CoincidentTolMM: -1 must be a finite number, zero or more"},
+		{func(o *ValidateOptions) { o.CoincidentTolMM = -2 }, "CoincidentTolMM: -2 must be a finite number, zero or more"},
 		{func(o *ValidateOptions) { o.MinAreaMM2 = math.NaN() }, "MinAreaMM2: NaN must be a finite number, zero or more"},
 		{func(o *ValidateOptions) { o.MaxMedianEdgeMM = 10 }, "MaxMedianEdgeMM: 10 is below MinMedianEdgeMM 30"},
 	} {

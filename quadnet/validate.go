@@ -40,23 +40,56 @@ const MaxCoincidentTolMM = 100.0
 // Validate collects; past it, it reports that more exist and stops looking.
 const MaxReportedPairs = 100
 
-// ValidateOptions sets the tolerances of Validate.
+// NoTol and NoBound, given as fields of ValidateOptions, ask for a zero
+// setting (a field's zero value means its default): NoTol a coincidence
+// tolerance of 0 (only nodes at the very same point coincide), NoBound no
+// least panel area or no bound on the median edge.
+const (
+	NoTol   = -1.0
+	NoBound = -1.0
+)
+
+// ValidateOptions sets the tolerances of Validate. A zero field means its
+// default; NoTol and NoBound ask for zero.
 type ValidateOptions struct {
 	// CoincidentTolMM: nodes closer than this are coincident, and a node
 	// closer than this to another panel's edge lies on it (a T-junction).
+	// 0: DefaultCoincidentTolMM; NoTol: 0 mm.
 	CoincidentTolMM float64
-	// MinAreaMM2: a panel of smaller area is degenerate.
+	// MinAreaMM2: a panel of smaller area is degenerate. 0:
+	// DefaultMinAreaMM2; NoBound: no least area.
 	MinAreaMM2 float64
 	// MinMedianEdgeMM and MaxMedianEdgeMM: a net whose median edge lies
-	// outside is in the wrong unit. Zero turns a bound off.
+	// outside is in the wrong unit. 0: DefaultMinMedianEdgeMM and
+	// DefaultMaxMedianEdgeMM; NoBound turns a bound off.
 	MinMedianEdgeMM float64
 	MaxMedianEdgeMM float64
 }
 
-// Validate reports the first bad value as a *FieldError: every value must
-// be a finite number, zero or more, and MaxMedianEdgeMM, when set, at
-// least MinMedianEdgeMM.
+// withDefaults returns the options to compute with: every zero field set
+// to its default, and NoTol and NoBound to 0. Its zeros mean zero, so its
+// result goes only to unexported code, never back to Validate.
+func (o ValidateOptions) withDefaults() ValidateOptions {
+	set := func(v *float64, def, zero float64) {
+		switch *v {
+		case 0:
+			*v = def
+		case zero:
+			*v = 0
+		}
+	}
+	set(&o.CoincidentTolMM, DefaultCoincidentTolMM, NoTol)
+	set(&o.MinAreaMM2, DefaultMinAreaMM2, NoBound)
+	set(&o.MinMedianEdgeMM, DefaultMinMedianEdgeMM, NoBound)
+	set(&o.MaxMedianEdgeMM, DefaultMaxMedianEdgeMM, NoBound)
+	return o
+}
+
+// Validate reports the first bad value as a *FieldError: every value, a
+// zero standing for its default, must be a finite number, zero or more,
+// and MaxMedianEdgeMM, when set, at least MinMedianEdgeMM.
 func (o ValidateOptions) Validate() error {
+	o = o.withDefaults()
 	for _, f := range []struct {
 		name string
 		v    float64
@@ -74,7 +107,8 @@ func (o ValidateOptions) Validate() error {
 	return nil
 }
 
-// DefaultValidateOptions returns the default tolerances.
+// DefaultValidateOptions returns the default tolerances, every field set:
+// the zero ValidateOptions does the same checks.
 func DefaultValidateOptions() ValidateOptions {
 	return ValidateOptions{CoincidentTolMM: DefaultCoincidentTolMM, MinAreaMM2: DefaultMinAreaMM2,
 		MinMedianEdgeMM: DefaultMinMedianEdgeMM, MaxMedianEdgeMM: DefaultMaxMedianEdgeMM}
@@ -139,10 +173,11 @@ func (e *ValidationError) Error() string {
 //   - warnings: nodes in no panel, disconnected parts, parts facing down
 //     (V + F + E).
 //
-// A check that runs out of its budget says so in a warning. opt should
-// pass ValidateOptions.Validate; other values give no useful findings
-// but never hang or panic.
+// A check that runs out of its budget says so in a warning. A zero field
+// of opt means its default; opt should pass ValidateOptions.Validate;
+// other values give no useful findings but never hang or panic.
 func Validate(n *Net, opt ValidateOptions) (*Topology, Findings) {
+	opt = opt.withDefaults()
 	var fd Findings
 	file := n.Source
 	add := func(warn bool, line int, elem, format string, args ...any) {

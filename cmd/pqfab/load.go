@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 
+	"pqfab/internal/job"
 	"pqfab/internal/pipeline"
 	"pqfab/quadnet"
 )
@@ -32,8 +33,8 @@ func loadNet(path string, nf netFlags, stderr io.Writer) (*pipeline.Loaded, erro
 	}
 	opt := quadnet.DefaultValidateOptions()
 	opt.CoincidentTolMM = nf.tol
-	if err := (fieldFlags{"CoincidentTolMM": "merge-tol"}).check(opt.Validate()); err != nil {
-		return nil, err
+	if opt, err = job.ExplicitValidate(opt); err != nil {
+		return nil, fieldFlags{"CoincidentTolMM": "merge-tol"}.check(err)
 	}
 	in, err := pipeline.LoadNet(pipeline.OpenFile, path, unit, opt, nf.reorient)
 	if err != nil {

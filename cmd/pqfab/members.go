@@ -3,6 +3,7 @@ package main
 import (
 	"io"
 
+	"pqfab/internal/job"
 	"pqfab/internal/pipeline"
 	"pqfab/nodes"
 	"pqfab/quadnet"
@@ -25,8 +26,9 @@ func runMembers(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err // flag.ErrHelp after -h: run ends without an error
 	}
-	if err := names.check(opt.Validate()); err != nil {
-		return err
+	axis := opt.Axis // as given, for the summary
+	if opt, err = job.ExplicitNodes(opt); err != nil {
+		return names.check(err)
 	}
 	in, err := loadNet(pos[0], nf, stderr)
 	if err != nil {
@@ -36,5 +38,5 @@ func runMembers(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	return show(stdout, *asJSON, pipeline.SummarizeMembers(pos[0], opt.Axis, s))
+	return show(stdout, *asJSON, pipeline.SummarizeMembers(pos[0], axis, s))
 }

@@ -34,8 +34,8 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if *out == "" {
 		return usagef("planarize needs -o OUT.obj")
 	}
-	if err := names.check(opt.Validate()); err != nil {
-		return err
+	if opt, err = job.ExplicitPlanarize(opt); err != nil {
+		return names.check(err)
 	}
 	wopt := pipeline.OutputOptions(*force, pos[0])
 	if err := outdir.CheckFiles(wopt, *out, *report); err != nil {

@@ -4,7 +4,9 @@
 // structs and checks them with their own Validate methods, mapping each
 // bad field back to the key the user wrote; only the job's own settings
 // (net file and unit, supports, bay size, stock names, rates, text) are
-// checked here.
+// checked here. A job's 0 means 0 where the libraries read a zero field as
+// its default: the Explicit functions turn it into the library's constant
+// for 0, or report it where the library has none.
 //
 // Units are those of the keys' names: millimetres (…_mm), degrees (…_deg),
 // kilograms per cubic metre, and money per unit for rates.

@@ -3,14 +3,14 @@ package job
 import (
 	"fmt"
 	"path/filepath"
+	"pqfab/nodes/bars"
+	"pqfab/quadnet"
 	"regexp"
 
 	"pqfab/geom"
 	"pqfab/nodes"
-	"pqfab/nodes/bars"
 	"pqfab/panels"
 	"pqfab/panels/nest"
-	"pqfab/quadnet"
 )
 
 // Job is a build job file (TOML). Every key is optional except net.file
@@ -143,7 +143,7 @@ type Site struct {
 	TagSize string `toml:"tag_size"` // office or outdoor
 }
 
-// Tag sizes (site.tag_size): the names of pdf.TagSizes.
+// Tag sizes (site.tag_size): the names of export.TagSizes.
 const (
 	TagOffice  = "office"
 	TagOutdoor = "outdoor"
@@ -380,26 +380,44 @@ func (j *Job) Unit() quadnet.Unit {
 	return u
 }
 
-// ValidateOptions returns the net checks of the job.
+// ValidateOptions returns the net checks of the job, as quadnet.Validate
+// reads them (see ExplicitValidate).
 func (j *Job) ValidateOptions() quadnet.ValidateOptions {
-	o := quadnet.DefaultValidateOptions()
-	o.CoincidentTolMM = j.Net.MergeTolMM
+	o, _ := j.validateOptions() // checked by Parse
 	return o
 }
 
-// PlanarizeOptions returns the [flatness] settings (supports are set by the
-// build, once the net is read).
-func (j *Job) PlanarizeOptions() panels.PlanarizeOptions {
-	f := j.Flatness
-	return panels.PlanarizeOptions{TolMM: f.TolMM, MaxMoveMM: f.MaxMoveMM, Fairness: f.Fairness, Vertical: f.VerticalOnly, MaxIter: f.MaxIter}
+func (j *Job) validateOptions() (quadnet.ValidateOptions, error) {
+	o := quadnet.DefaultValidateOptions()
+	o.CoincidentTolMM = j.Net.MergeTolMM
+	return ExplicitValidate(o)
 }
 
-// NodeOptions returns the [nodes], [member] and [types] settings (bays are
-// set by the build from the net).
+// PlanarizeOptions returns the [flatness] settings, as panels.Planarize
+// reads them (see ExplicitPlanarize; supports are set by the build, once
+// the net is read).
+func (j *Job) PlanarizeOptions() panels.PlanarizeOptions {
+	o, _ := j.planarizeOptions() // checked by Parse
+	return o
+}
+
+func (j *Job) planarizeOptions() (panels.PlanarizeOptions, error) {
+	f := j.Flatness
+	return ExplicitPlanarize(panels.PlanarizeOptions{TolMM: f.TolMM, MaxMoveMM: f.MaxMoveMM, Fairness: f.Fairness, Vertical: f.VerticalOnly, MaxIter: f.MaxIter})
+}
+
+// NodeOptions returns the [nodes], [member] and [types] settings, as
+// nodes.Build reads them (see ExplicitNodes; bays are set by the build
+// from the net).
 func (j *Job) NodeOptions() nodes.Options {
-	return nodes.Options{Axis: nodes.AxisMethod(j.Nodes.Axis), HubRadiusMM: j.Nodes.HubRadiusMM,
+	o, _ := j.nodeOptions() // checked by Parse
+	return o
+}
+
+func (j *Job) nodeOptions() (nodes.Options, error) {
+	return ExplicitNodes(nodes.Options{Axis: nodes.AxisMethod(j.Nodes.Axis), HubRadiusMM: j.Nodes.HubRadiusMM,
 		Section: j.Member.SectionOf(),
-		Types:   nodes.TypeOptions{LengthTolMM: j.Types.LengthTolMM, AngleTolDeg: j.Types.AngleTolDeg}}
+		Types:   nodes.TypeOptions{LengthTolMM: j.Types.LengthTolMM, AngleTolDeg: j.Types.AngleTolDeg}})
 }
 
 // Material returns the [panel] material.
@@ -410,9 +428,15 @@ func (j *Job) Material() panels.Material {
 		Grain: panels.Grain{Rule: p.Grain, PlanDeg: p.GrainPlanDeg}, BevelledEdges: p.BevelledEdges}
 }
 
-// PanelTypeOptions returns when two panels are one type.
+// PanelTypeOptions returns when two panels are one type, as panels.Group
+// reads it (see ExplicitPanelTypes).
 func (j *Job) PanelTypeOptions() panels.TypeOptions {
-	return panels.TypeOptions{TolMM: j.Types.PanelTolMM, AngleTolDeg: j.Types.AngleTolDeg, Mirror: j.Panel.Mirror, Bevels: j.Panel.BevelledEdges}
+	o, _ := j.panelTypeOptions() // checked by Parse
+	return o
+}
+
+func (j *Job) panelTypeOptions() (panels.TypeOptions, error) {
+	return ExplicitPanelTypes(panels.TypeOptions{TolMM: j.Types.PanelTolMM, AngleTolDeg: j.Types.AngleTolDeg, Mirror: j.Panel.Mirror, Bevels: j.Panel.BevelledEdges})
 }
 
 // BarStocks returns the job's bar stock for the members' cutting plan.
@@ -487,8 +511,8 @@ func (j *Job) check() error {
 	if _, err := quadnet.ParseUnit(j.Net.Unit); err != nil {
 		return j.Errorf("net.unit", "%q: want mm, cm or m", short(j.Net.Unit))
 	}
-	if err := j.fieldErr(j.ValidateOptions().Validate(), validateKeys, ""); err != nil {
-		return err
+	if _, err := j.validateOptions(); err != nil {
+		return j.fieldErr(err, validateKeys, "")
 	}
 	if err := j.checkSupports(); err != nil {
 		return err
@@ -540,14 +564,14 @@ func (j *Job) check() error {
 	if d := j.Member.DensityKgM3; !(d >= 0) || d > MaxDensityKgM3 {
 		return j.Errorf("member.density_kg_m3", "%g must be between 0 and %g kg/m³", d, MaxDensityKgM3)
 	}
-	if err := j.fieldErr(j.PlanarizeOptions().Validate(), planarizeKeys, ""); err != nil {
-		return err
+	if _, err := j.planarizeOptions(); err != nil {
+		return j.fieldErr(err, planarizeKeys, "")
 	}
 	if err := j.checkSection(); err != nil {
 		return err
 	}
-	if err := j.fieldErr(j.NodeOptions().Validate(), nodeKeys, ""); err != nil {
-		return err
+	if _, err := j.nodeOptions(); err != nil {
+		return j.fieldErr(err, nodeKeys, "")
 	}
 	if t := j.Site.TagSize; t != TagOffice && t != TagOutdoor {
 		return j.Errorf("site.tag_size", "%q: want %q (A4 sheets of 8 labels 105 x 74 mm) or %q (two A5 tags to an A4 sheet, text twice as large)", short(t), TagOffice, TagOutdoor)
@@ -560,8 +584,8 @@ func (j *Job) check() error {
 			return err
 		}
 	}
-	if err := j.fieldErr(j.PanelTypeOptions().Validate(), panelTypeKeys, ""); err != nil {
-		return err
+	if _, err := j.panelTypeOptions(); err != nil {
+		return j.fieldErr(err, panelTypeKeys, "")
 	}
 	if err := j.checkStocks(); err != nil {
 		return err

@@ -19,11 +19,29 @@ import (
 // bound; on the published instances a thirtieth of it is enough.
 const DefaultEffort = 15_000_000
 
-// Options tune Solve.
+// Options tune Solve. A zero field means its default.
 type Options struct {
-	// Effort caps the search, in work units (see DefaultEffort); 0 means
+	// Effort caps the search, in work units (see DefaultEffort); 0:
 	// DefaultEffort. The same effort gives the same plan on every machine.
 	Effort int64
+}
+
+// withDefaults returns the options with every zero field set to its
+// default.
+func (o Options) withDefaults() Options {
+	if o.Effort == 0 {
+		o.Effort = DefaultEffort
+	}
+	return o
+}
+
+// Validate reports a bad option as a *geom.FieldError naming the Go
+// field, a zero field standing for its default.
+func (o Options) Validate() error {
+	if o = o.withDefaults(); o.Effort < 0 {
+		return geom.FieldErrorf("Effort", "%d must be zero (the default) or a positive number", o.Effort)
+	}
+	return nil
 }
 
 // Bar is one bar of stock with the pieces cut from it.
@@ -104,14 +122,16 @@ type problem struct {
 // price, then least total bar length, then fewest bars. With one stock
 // this is the fewest bars. The plan depends only on the multiset of
 // (label, length) pieces and on the stocks, never on the pieces' order.
+// A zero field of opt means its default.
 func Solve(pieces []Piece, stocks []Stock, opt Options) (*Plan, error) {
+	if err := opt.Validate(); err != nil {
+		return nil, err
+	}
+	opt = opt.withDefaults()
 	if len(stocks) == 0 {
 		return nil, fmt.Errorf("no bar stock given")
 	}
 	p := &problem{stocks: stocks, effort: opt.Effort}
-	if p.effort <= 0 {
-		p.effort = DefaultEffort
-	}
 	longest := 0.0
 	for k, s := range stocks {
 		if err := s.Validate(); err != nil {

@@ -137,11 +137,11 @@ type Result struct {
 	Stopped     bool   // the context ended the search before its steps were used up
 }
 
-// Options tune the search.
+// Options tune the search. A zero field means its default.
 type Options struct {
 	// Steps is the search effort: how many partial sheets the search may
 	// work out in all. The layout depends only on the parts, the stocks
-	// and Steps; 0 means DefaultSteps.
+	// and Steps; 0: DefaultSteps.
 	Steps int
 	// Progress, if set, is told how the nesting goes: after each sheet a
 	// method fills and after each change the improvement phase keeps.
@@ -183,16 +183,14 @@ func Nest(parts []Part, stocks []Stock) (*Result, error) {
 // (its deadline passes), the search stops early, finishes the layout by
 // its quickest rules and reports Stopped. The layout for a given input
 // and Options.Steps is the same every time unless the context stops it.
-// The parts and stocks are not changed.
+// The parts and stocks are not changed. A zero field of opt means its
+// default.
 func NestWith(ctx context.Context, parts []Part, stocks []Stock, opt Options) (*Result, error) {
 	if err := validate(parts, stocks, opt); err != nil {
 		return nil, err
 	}
-	steps := opt.Steps
-	if steps == 0 {
-		steps = DefaultSteps
-	}
-	j := newJob(ctx, parts, stocks, steps)
+	opt = opt.withDefaults()
+	j := newJob(ctx, parts, stocks, opt.Steps)
 	j.progress = opt.Progress
 	res := j.run()
 	var total float64

@@ -57,9 +57,19 @@ func (s Stock) Validate() error {
 	return nil
 }
 
-// Validate reports a bad option as a *geom.FieldError naming the Go field.
+// withDefaults returns the options with every zero field set to its
+// default.
+func (o Options) withDefaults() Options {
+	if o.Steps == 0 {
+		o.Steps = DefaultSteps
+	}
+	return o
+}
+
+// Validate reports a bad option as a *geom.FieldError naming the Go field,
+// a zero field standing for its default.
 func (o Options) Validate() error {
-	if o.Steps < 0 || o.Steps > maxSteps {
+	if o = o.withDefaults(); o.Steps < 0 || o.Steps > maxSteps {
 		return geom.FieldErrorf("Steps", "%d must be zero (the default) or a positive number of at most %g", o.Steps, float64(maxSteps))
 	}
 	return nil
