@@ -3,6 +3,7 @@ package parttype
 import (
 	"math"
 	"slices"
+	"strings"
 )
 
 // CoverCount returns the fewest intervals of length tol that cover the
@@ -246,4 +247,75 @@ func (g *grouper) agree(x, y int) bool {
 		}
 	}
 	return false
+}
+
+// Bound is a lower bound on the number of types: no grouping that
+// keeps the tolerances has fewer. Quantity says what gave it; Terms say
+// it term by term, one per set of parts that never share a type.
+type Bound struct {
+	Count    int
+	Quantity string
+	Terms    []BoundTerm
+}
+
+// BoundTerm is one set of parts' share of a Bound: either one
+// quantity alone spreads the parts over Count types (Key names it), or
+// Count parts differ pairwise by more than the tolerances (Key is empty),
+// so that each needs a type of its own.
+type BoundTerm struct {
+	Parts string // which parts, such as "nodes with 3 members"; empty for all
+	Count int
+	Key   string
+}
+
+// quantity names what gave the term.
+func (t BoundTerm) quantity() string {
+	switch {
+	case t.Key == "" && t.Parts == "":
+		return apartQuantity
+	case t.Key == "":
+		return t.Parts + " pairwise out of tolerance"
+	case t.Parts == "":
+		return t.Key
+	}
+	return t.Key + " of " + t.Parts
+}
+
+// Of returns the bound with its terms' parts named (where they are not
+// yet), for a set of parts that is grouped apart from others.
+func (b Bound) Of(parts string) Bound {
+	out := Bound{Count: b.Count}
+	for _, t := range b.Terms {
+		if t.Parts == "" {
+			t.Parts = parts
+		}
+		out.Terms = append(out.Terms, t)
+	}
+	out.Quantity = quantities(out.Terms)
+	return out
+}
+
+// quantities joins the terms' quantities, each once.
+func quantities(terms []BoundTerm) string {
+	var qs []string
+	for _, t := range terms {
+		if q := t.quantity(); !slices.Contains(qs, q) {
+			qs = append(qs, q)
+		}
+	}
+	return strings.Join(qs, "; ")
+}
+
+// Add returns the bound for two sets of parts that never share a type
+// (such as panels with different corner counts): the counts add, the
+// terms follow each other and the quantities are listed once each.
+func (b Bound) Add(o Bound) Bound {
+	switch {
+	case o.Count == 0:
+		return b
+	case b.Count == 0:
+		return o
+	}
+	terms := append(slices.Clone(b.Terms), o.Terms...)
+	return Bound{Count: b.Count + o.Count, Quantity: quantities(terms), Terms: terms}
 }
