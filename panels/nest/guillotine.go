@@ -196,11 +196,11 @@ func (g *gPacker) cachedMoves(pc *freePiece) []gMove {
 	return m
 }
 
-// setWindow picks the shapes the packer looks at for the next sheet: all
-// of them, or for more than allShapes the first pieceWindow with parts
-// left. The
-// moves kept for pieces are dropped when the window changes.
-func (g *gPacker) setWindow() {
+// setWindow picks the shapes the packer looks at: all of them, or for
+// more than allShapes the first pieceWindow with parts left. The moves
+// kept for pieces are dropped when the window changes; it reports whether
+// it did.
+func (g *gPacker) setWindow() bool {
 	var w []int
 	for si := range g.shapes {
 		if len(g.shapes) <= allShapes || g.left[si] > 0 {
@@ -210,10 +210,12 @@ func (g *gPacker) setWindow() {
 			break
 		}
 	}
-	if !slices.Equal(w, g.window) {
-		clear(g.cache)
-		g.window = w
+	if slices.Equal(w, g.window) {
+		return false
 	}
+	clear(g.cache)
+	g.window = w
+	return true
 }
 
 // movesInto returns the best move of every shape in the window into piece

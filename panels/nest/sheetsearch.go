@@ -78,16 +78,73 @@ type branch struct {
 // fillSheet searches a layout for one sheet and returns it with the steps
 // it took. It always finishes the path of best moves, whatever the
 // budget; when ctx ends it stops searching beyond that.
+//
+// When the packer looks at a window of the shapes (more than allShapes),
+// the sheet is filled in rounds: once the search has used up shapes of
+// the window, the window moves on to the next shapes with parts left and
+// the search goes on from the best sheet so far, its free pieces looked
+// at again, until a round places nothing more. Many small parts, each a
+// shape of its own, so fill the whole sheet and not only the window's
+// share of it.
 func (g *gPacker) fillSheet(budget, branch, look, orders int, ctx context.Context) (*gState, int) {
+	saved := slices.Clone(g.left)
+	defer copy(g.left, saved)
 	g.setWindow()
-	s := &sheetSearch{g: g, branch: branch, look: look, orders: orders, visits: visitsPerStep * budget, ctx: ctx}
+	best, used := g.searchSheet(g.emptySheet(), budget, branch, look, orders, ctx)
+	for len(g.shapes) > allShapes && ctx.Err() == nil {
+		copy(g.left, saved)
+		for _, m := range best.placed {
+			g.left[m.shape]--
+		}
+		if !g.setWindow() {
+			break
+		}
+		root := g.resume(best)
+		if root == nil {
+			break
+		}
+		st, n := g.searchSheet(root, budget-used, branch, look, orders, ctx)
+		used += n
+		if st.area <= best.area {
+			break
+		}
+		best = st
+	}
+	return best, used
+}
+
+// resume returns a fresh search node with the placements, cuts and free
+// pieces of st, each piece's moves looked up again for the shapes now in
+// the window, or nil when no piece takes a move.
+func (g *gPacker) resume(st *gState) *gState {
+	r := &gState{placed: st.placed[:len(st.placed):len(st.placed)], cuts: st.cuts[:len(st.cuts):len(st.cuts)], area: st.area}
+	r.pieces = slices.Clone(st.pieces)
+	open := false
+	for i := range r.pieces {
+		r.pieces[i].moves = g.cachedMoves(&r.pieces[i])
+		for _, m := range r.pieces[i].moves {
+			if g.left[m.shape] > 0 {
+				open = true
+				break
+			}
+		}
+	}
+	if !open {
+		return nil
+	}
+	return r
+}
+
+// searchSheet runs the search of fillSheet from root: the path of best
+// moves, then the waste steps within the budget.
+func (g *gPacker) searchSheet(root *gState, budget, branch, look, orders int, ctx context.Context) (*gState, int) {
+	s := &sheetSearch{g: g, branch: branch, look: look, orders: orders, visits: visitsPerStep * max(budget, 0), ctx: ctx}
 	for si, sh := range g.shapes {
 		if !g.convex || sh.convex {
 			s.leftArea += float64(g.left[si]) * sh.area
 		}
 	}
-	full := math.Min(g.usable, s.leftArea)
-	root := g.emptySheet()
+	full := math.Min(g.usable, root.area+s.leftArea)
 	s.best = root
 	// The path of best moves first, whatever the budget.
 	s.target = full
