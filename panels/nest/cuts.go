@@ -185,9 +185,11 @@ func permute(a []int, f func([]int)) {
 	gen(len(b))
 }
 
-// minCutAreaMM2: a cut that would take off less than this (mm²) splits
-// nothing a cutter could break out, and is not made.
-const minCutAreaMM2 = 1.0
+// minCutDepthMM: a cut that would take off nothing thicker than this (mm)
+// runs along an edge an earlier cut made, splits nothing, and is not made.
+// Anything thicker is cut, however small its area: a sliver left on a part
+// would make it larger than its outline.
+const minCutDepthMM = 2 * fitSlackMM
 
 // child returns the state after move m into piece k with the cuts in the
 // given order. Free pieces smaller than minArea are dropped as waste.
@@ -210,7 +212,7 @@ func (g *gPacker) child(st *gState, k int, m gMove, tr *turned, order []int, min
 			continue
 		}
 		farShape := clipHalf(shapeP, e.n.Scale(-1), -e.n.Dot(a))
-		if farShape == nil || farShape.Area() < minCutAreaMM2 {
+		if farShape == nil || depth(farShape, e.n, e.n.Dot(a)) <= minCutDepthMM {
 			// The edge already lies on what is left of the piece (an
 			// earlier cut made it): a cut there would split nothing.
 			continue
@@ -278,4 +280,14 @@ func (g *gPacker) canHold(p geom.Polygon, area float64) bool {
 		}
 	}
 	return false
+}
+
+// depth returns how far polygon p reaches below the line n·v = c (n a
+// unit normal): the largest c − n·v over its corners.
+func depth(p geom.Polygon, n geom.Vec2, c float64) float64 {
+	d := 0.0
+	for _, v := range p {
+		d = max(d, c-n.Dot(v))
+	}
+	return d
 }
