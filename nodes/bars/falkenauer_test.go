@@ -3,6 +3,7 @@ package bars
 import (
 	"bufio"
 	"fmt"
+	"math/rand/v2"
 	"os"
 	"strconv"
 	"strings"
@@ -149,6 +150,37 @@ func TestFalkenauerUniform(t *testing.T) {
 		}
 	}
 	t.Logf("best known reached on %d of %d instances", hit, len(probs))
+}
+
+// TestTripletsLarge: a triplet instance of 501 items made as Falkenauer
+// (1996) made his class t501 (from memory: a first item drawn from 380 to
+// 490, a second from 250 to half of what is left, the third filling the
+// bin of 1000 exactly; here to 0.1 of a bin of 100), shuffled. Its optimum
+// is n/3 = 167 bars by construction; the default effort must reach it
+// (15 million work units stopped at 169).
+func TestTripletsLarge(t *testing.T) {
+	if testing.Short() {
+		t.Skip("about a second")
+	}
+	rng := rand.New(rand.NewPCG(167, 9))
+	var ps []Piece
+	for range 167 {
+		x1 := 380 + rng.IntN(111)
+		x2 := 250 + rng.IntN((1000-x1)/2-250+1)
+		for _, v := range []int{x1, x2, 1000 - x1 - x2} {
+			ps = append(ps, Piece{Label: fmt.Sprintf("t%03d", len(ps)+1), LengthMM: float64(v) / 10})
+		}
+	}
+	rng.Shuffle(len(ps), func(i, j int) { ps[i], ps[j] = ps[j], ps[i] })
+	st := []Stock{{Name: "t501", LengthMM: 100}}
+	plan, err := Solve(ps, st, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	replay(t, ps, st, plan)
+	if len(plan.Bars) != 167 || len(plan.Unplaced) != 0 {
+		t.Errorf("%d bars (%d unplaced), want the optimum 167", len(plan.Bars), len(plan.Unplaced))
+	}
 }
 
 func benchmarkFalkenauer(b *testing.B, file string) {
