@@ -186,10 +186,11 @@ func permute(a []int, f func([]int)) {
 }
 
 // minCutDepthMM: a cut that would take off nothing thicker than this (mm)
-// runs along an edge an earlier cut made, splits nothing, and is not made.
-// Anything thicker is cut, however small its area: a sliver left on a part
-// would make it larger than its outline.
-const minCutDepthMM = 2 * fitSlackMM
+// runs along an edge an earlier cut made, within the precision of any
+// cutter and of the drawings (which give outlines to 0.01 mm); it splits
+// nothing worth a cut and is not made. A released part's piece is then its
+// outline to within this, however long the sliver.
+const minCutDepthMM = 0.01
 
 // child returns the state after move m into piece k with the cuts in the
 // given order. Free pieces smaller than minArea are dropped as waste.

@@ -31,6 +31,9 @@ TOL = 1e-3  # mm
 # Part outlines are written to 0.01 mm and a cut may run along a part's
 # edge (glass is scored on the edge): a part's inside is taken 0.02 mm in.
 PART_TOL = 0.02  # mm
+# A cut may take off a thin piece (pqfab skips only cuts that would take
+# off 0.01 mm or less): a half counts when its area is above this (mm²).
+SLIVER_AREA = 1e-5
 
 
 def fail(msg):
@@ -123,7 +126,7 @@ def main(out):
             dx, dy = b[0] - a[0], b[1] - a[1]
             n = (dx * dx + dy * dy) ** 0.5
             ext = LineString([(a[0] - dx / n * 0.01, a[1] - dy / n * 0.01), (b[0] + dx / n * 0.01, b[1] + dy / n * 0.01)])
-            halves = [g for g in split(piece, ext).geoms if g.area > TOL]
+            halves = [g for g in split(piece, ext).geoms if g.area > SLIVER_AREA]
             if len(halves) != 2:
                 fail("%s: cut %d splits piece %d into %d pieces" % (path, i + 1, k, len(halves)))
             left = [h for h in halves if (dx * (h.representative_point().y - a[1]) - dy * (h.representative_point().x - a[0])) > 0]

@@ -115,7 +115,7 @@ func BenchWrite(b *testing.B, write func(io.Writer, *report.Report) error) {
 
 // ClipArea is the area shared by two convex counter-clockwise polygons
 // (Sutherland–Hodgman clipping): an overlap test independent of the
-// separating-axis test in obox.overlaps.
+// separating-axis test of layout.Box.
 func ClipArea(a, b [4][2]float64) float64 {
 	poly := a[:]
 	for i := range b {
