@@ -395,6 +395,9 @@ func rectPts(x0, y0, x1, y1 float64) [][2]float64 {
 // sign. The result is meant for the DXF writer, not for Go: it need not be
 // UTF-8.
 func dxfText(s string) string {
+	if plainDXF(s) {
+		return s
+	}
 	var b strings.Builder
 	for i, r := range s {
 		switch {
@@ -417,4 +420,15 @@ func dxfText(s string) string {
 		}
 	}
 	return b.String()
+}
+
+// plainDXF reports whether s is printable ASCII without the characters
+// dxfText rewrites (backslash, caret, percent sign): it then stands as it is.
+func plainDXF(s string) bool {
+	for i := 0; i < len(s); i++ {
+		if c := s[i]; c < 0x20 || c >= 0x7f || c == '\\' || c == '^' || c == '%' {
+			return false
+		}
+	}
+	return true
 }
