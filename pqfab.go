@@ -18,6 +18,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"path/filepath"
 
 	"pqfab/export"
 	"pqfab/internal/job"
@@ -70,7 +71,7 @@ func ParseJob(data []byte, file string) (*Job, error) { return job.Parse(data, f
 type Options struct {
 	// Open reads the net file (and the panels file of a CSV pair). Nil
 	// reads them from disk (pipeline.OpenFile), and then the job file and the net
-	// files are inputs no output may replace (pipeline.OutputOptions).
+	// files are inputs no output may replace (outdir.ForInputs).
 	Open Opener
 	// Keep lists more files no output may replace, such as the files on
 	// disk that Open reads.
@@ -90,7 +91,7 @@ type Options struct {
 // demo call it). It checks first that dir and its diagnostic report
 // (DIR-planarity.json) may be written: an existing folder is replaced only
 // when pqfab wrote it, it is empty, or opt.Force is set, and never when it
-// holds an input (pipeline.OutputOptions). Then it runs the job
+// holds an input (outdir.ForInputs). Then it runs the job
 // (pipeline.Run), fills the report from the result (report.New) and writes
 // every file from the report (export.WriteBuild). A deadline on ctx, or the
 // job's nesting.seconds, stops the nesting's search early (with a warning).
@@ -103,8 +104,8 @@ func Build(ctx context.Context, j *Job, dir string, opt Options, obs Observer) (
 	if open == nil {
 		open, inputs = pipeline.OpenFile, append([]string{j.File, j.NetPath()}, opt.Keep...)
 	}
-	diag := pipeline.DiagnosticPath(dir)
-	diagOpt := pipeline.OutputOptions(opt.Force, inputs...)
+	diag := diagnosticPath(dir)
+	diagOpt := outdir.ForInputs(opt.Force, inputs...)
 	wopt := diagOpt
 	wopt.OnTemp = opt.OnTemp
 	if err := outdir.CheckFolder(dir, wopt); err != nil {
@@ -137,3 +138,7 @@ func Build(ctx context.Context, j *Job, dir string, opt Options, obs Observer) (
 	}
 	return rep, nil
 }
+
+// diagnosticPath returns where a build into dir that misses the flatness
+// tolerance writes its diagnostic report: DIR-planarity.json beside dir.
+func diagnosticPath(dir string) string { return filepath.Clean(dir) + "-planarity.json" }

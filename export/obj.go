@@ -4,6 +4,7 @@ import (
 	"bufio"
 	"io"
 	"strconv"
+	"strings"
 
 	"pqfab/export/internal/layout"
 	"pqfab/quadnet"
@@ -26,10 +27,10 @@ func WriteOBJ(w io.Writer, n *quadnet.Net, title string, warnings ...string) err
 	bw := bufio.NewWriterSize(w, 1<<16)
 	buf := make([]byte, 0, 128)
 	buf = append(buf, "# "...)
-	buf = append(buf, layout.OneLine(title)...)
+	buf = append(buf, oneLine(title)...)
 	buf = append(buf, '\n')
 	for _, wn := range warnings {
-		buf = append(append(append(buf, "# WARNING: "...), layout.OneLine(wn)...), '\n')
+		buf = append(append(append(buf, "# WARNING: "...), oneLine(wn)...), '\n')
 	}
 	buf = append(buf, "# units: mm, z up; written by pqfab\n"...)
 	buf = strconv.AppendInt(append(buf, "# nodes: "...), int64(len(n.Nodes)), 10)
@@ -42,7 +43,7 @@ func WriteOBJ(w io.Writer, n *quadnet.Net, title string, warnings ...string) err
 		buf = buf[:0]
 		if nd.ID != strconv.Itoa(i+1) {
 			buf = append(buf, "# node "...)
-			buf = append(buf, layout.OneLine(nd.ID)...)
+			buf = append(buf, oneLine(nd.ID)...)
 			buf = append(buf, '\n')
 		}
 		buf = append(buf, "v "...)
@@ -60,7 +61,7 @@ func WriteOBJ(w io.Writer, n *quadnet.Net, title string, warnings ...string) err
 		buf = buf[:0]
 		if f.ID != strconv.Itoa(i+1) {
 			buf = append(buf, "# panel "...)
-			buf = append(buf, layout.OneLine(f.ID)...)
+			buf = append(buf, oneLine(f.ID)...)
 			buf = append(buf, '\n')
 		}
 		buf = append(buf, 'f')
@@ -73,4 +74,16 @@ func WriteOBJ(w io.Writer, n *quadnet.Net, title string, warnings ...string) err
 		}
 	}
 	return bw.Flush()
+}
+
+// oneLine makes s safe for one line of a text format (an OBJ comment, a
+// progress message): control characters become spaces, so text from the
+// job can never start a new line and add nodes or panels to a net file.
+func oneLine(s string) string {
+	return strings.Map(func(r rune) rune {
+		if r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0) || r == '\u2028' || r == '\u2029' {
+			return ' '
+		}
+		return r
+	}, s)
 }

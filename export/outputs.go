@@ -32,7 +32,7 @@ func WriteBuild(dir string, opt outdir.Options, net *quadnet.Net, warnings []str
 				return err
 			}
 		}
-		total := 5 + report.SiteFiles + len(rep.Sheets) + len(rep.PanelTypes) + len(rep.MemberTypes)
+		total := 0 // the files: set once the list of jobs is made
 		var mu sync.Mutex
 		done := 0
 		step := func(what string) {
@@ -75,6 +75,7 @@ func WriteBuild(dir string, opt outdir.Options, net *quadnet.Net, warnings []str
 		for i, t := range rep.MemberTypes {
 			jobs = append(jobs, file(filepath.Join(report.DirMemberTypes, t.Name+".dxf"), func(w io.Writer) error { return dxf.WriteMemberTypeDXF(w, rep, i) }))
 		}
+		total = len(jobs)
 		errs := make([]error, len(jobs))
 		next := make(chan int)
 		var wg sync.WaitGroup

@@ -1,6 +1,7 @@
 package panels
 
 import (
+	"pqfab/internal/num"
 	"sort"
 )
 
@@ -9,6 +10,12 @@ type Spread struct {
 	Min    float64 `json:"min"`
 	Median float64 `json:"median"`
 	Max    float64 `json:"max"`
+}
+
+// Rounded returns the spread with its three numbers rounded to d decimals
+// (num.Round: no negative zero), as every output writes them.
+func (s Spread) Rounded(d int) Spread {
+	return Spread{Min: num.Round(s.Min, d), Median: num.Round(s.Median, d), Max: num.Round(s.Max, d)}
 }
 
 // SpreadOf returns the spread of xs (zero for none).

@@ -37,7 +37,7 @@ func runPlanarize(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if opt, err = job.ExplicitPlanarize(opt); err != nil {
 		return names.check(err)
 	}
-	wopt := pipeline.OutputOptions(*force, pos[0])
+	wopt := outdir.ForInputs(*force, pos[0])
 	if err := outdir.CheckFiles(wopt, *out, *report); err != nil {
 		return err
 	}

@@ -7,7 +7,6 @@ import (
 
 	"pqfab/export"
 	"pqfab/internal/outdir"
-	"pqfab/internal/pipeline"
 	"pqfab/samples"
 )
 
@@ -27,7 +26,7 @@ func runSample(args []string, _ io.Reader, stdout, stderr io.Writer) error {
 	if err != nil {
 		return usagef("%v", err)
 	}
-	if err := outdir.WriteFileAtomic(*out, pipeline.OutputOptions(*force), func(w io.Writer) error {
+	if err := outdir.WriteFileAtomic(*out, outdir.ForInputs(*force), func(w io.Writer) error {
 		return export.WriteOBJ(w, net, fmt.Sprintf("pqfab sample %s: %s", pos[0], samples.Describe(pos[0])))
 	}); err != nil {
 		return err

@@ -327,10 +327,10 @@ func newAssemblyLayout(m *layout.Site, ps planScale) *assemblyLayout {
 		mb := rep.Members[i]
 		pa, pb := m.Pos(mb.NodeA), m.Pos(mb.NodeB)
 		a, b := [2]float64{pa[0], pa[1]}, [2]float64{pb[0], pb[1]}
-		ang, ux, uy := layout.UprightAngle(b[0]-a[0], b[1]-a[1])
+		ang, ux, uy := uprightAngle(b[0]-a[0], b[1]-a[1])
 		w, h := dxfTextWidth(mb.Label, ps.member)+2*ps.pad, ps.member+2*ps.pad
 		mid := [2]float64{(a[0] + b[0]) / 2, (a[1] + b[1]) / 2}
-		at := pp.Place(mid, w, h, func(s float64) []layout.Box { return layout.MemberCandidates(a, b, w, h, ps.clear, s, ux, uy) })
+		at := pp.Place(mid, w, h, func(s float64) []layout.Box { return memberCandidates(a, b, w, h, ps.clear, s, ux, uy) })
 		if at.Leader {
 			ang = 0
 		}
@@ -434,4 +434,34 @@ func barOutline(m report.MemberRow, a, b [3]float64, width float64) [][2]float64
 	s0, s1 := m.Ends[0].SetbackMM, l-m.Ends[1].SetbackMM
 	h := width / 2
 	return [][2]float64{at(s0, -h), at(s1, -h), at(s1, h), at(s0, h)}
+}
+
+// uprightAngle turns a direction into a text angle in (-90°, 90°] so the
+// text reads from the left or from below; it returns the angle in
+// degrees and the matching unit vector.
+func uprightAngle(dx, dy float64) (deg, ux, uy float64) {
+	l := math.Hypot(dx, dy)
+	if l == 0 {
+		return 0, 1, 0
+	}
+	ux, uy = dx/l, dy/l
+	if ux < 0 || (ux == 0 && uy < 0) {
+		ux, uy = -ux, -uy
+	}
+	return math.Atan2(uy, ux) * 180 / math.Pi, ux, uy
+}
+
+// memberCandidates: beside the member (off its line by clear), parallel
+// to it, at the middle and then further along, above then below.
+func memberCandidates(a, b [2]float64, w, h, clear, scale float64, ux, uy float64) []layout.Box {
+	vx, vy := -uy, ux
+	out := make([]layout.Box, 0, 10)
+	for _, t := range [...]float64{0.5, 0.38, 0.62, 0.26, 0.74} {
+		mx, my := a[0]+t*(b[0]-a[0]), a[1]+t*(b[1]-a[1])
+		for _, side := range [...]float64{1, -1} {
+			off := clear + (0.5+layout.SideSlack)*scale*h
+			out = append(out, layout.Box{CX: mx + side*off*vx, CY: my + side*off*vy, UX: ux, UY: uy, HW: scale * w / 2, HH: scale * h / 2})
+		}
+	}
+	return out
 }

@@ -3,8 +3,10 @@ package pdf
 import (
 	"fmt"
 	"io"
+	"math"
 	"pqfab/export/internal/layout"
 	"pqfab/internal/report"
+	"pqfab/nodes"
 	"strings"
 
 	"github.com/go-pdf/fpdf"
@@ -158,7 +160,7 @@ func nodeTag(n report.NodeRow) tag {
 	if n.Support {
 		sup = ", support"
 	}
-	t.rows = textRows(fmt.Sprintf("%s mm, %d members%s", layout.HeightText(n.Pos[2]), len(n.Arms), sup), layout.AxisTiltText(n), HubFrameShort)
+	t.rows = textRows(fmt.Sprintf("%s mm, %d members%s", layout.HeightText(n.Pos[2]), len(n.Arms), sup), axisTiltText(n), HubFrameShort)
 	head := tagRow{cells: []string{"member", "az °", "el °"}, bold: true}
 	t.header = &head
 	t.rows = append(t.rows, head)
@@ -365,4 +367,16 @@ func drawTag(pdf *fpdf.Fpdf, t tag, lay TagLayout, x, y float64) {
 		}
 		cy += g.step
 	}
+}
+
+// axisTiltText says how a node's axis leans, for a tag.
+func axisTiltText(n report.NodeRow) string {
+	s := fmt.Sprintf("axis tilt %.1f°", r(n.AxisTiltDeg, 1))
+	if r(n.AxisTiltDeg, 1) > 0 {
+		s += fmt.Sprintf(" toward %.0f° ccw from north", math.Mod(r(n.AxisTiltTowardDeg, 0), 360))
+	}
+	if n.AzimuthZero == nodes.ZeroUp {
+		s += "; az 0 = up (+z) on the plane square to the axis"
+	}
+	return s
 }

@@ -6,8 +6,8 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"pqfab/export/internal/layout"
 	"pqfab/internal/report"
+	"pqfab/nodes"
 	"strings"
 
 	"github.com/xuri/excelize/v2"
@@ -91,7 +91,7 @@ func WriteSchedule(w io.Writer, rep *report.Report) (err error) {
 						sup = "yes"
 					}
 					row := []any{n.Label, n.ID, n.Type, n.MembersAtNode, n.Pos[0], n.Pos[1], n.Pos[2], n.Axis[0], n.Axis[1], n.Axis[2],
-						n.AxisTiltDeg, n.AxisTiltTowardDeg, layout.AzimuthZeroText(n.AzimuthZero), sup, n.MoveMM, n.Move[0], n.Move[1], n.Move[2]}
+						n.AxisTiltDeg, n.AxisTiltTowardDeg, azimuthZeroText(n.AzimuthZero), sup, n.MoveMM, n.Move[0], n.Move[1], n.Move[2]}
 					for _, a := range n.Arms {
 						row = append(row, a.Member, a.AzimuthDeg, a.ElevationDeg)
 					}
@@ -453,4 +453,12 @@ func setDimension(f *excelize.File, sheet string, cols, rows int) error {
 		return err
 	}
 	return f.SetSheetDimension(sheet, "A1:"+last)
+}
+
+// azimuthZeroText names a hub's azimuth 0 for the schedule.
+func azimuthZeroText(zero string) string {
+	if zero == nodes.ZeroUp {
+		return "up (+z) on the plane square to the axis"
+	}
+	return "grid north (+y) on the plane square to the axis"
 }

@@ -143,7 +143,7 @@ type Site struct {
 	TagSize string `toml:"tag_size"` // office or outdoor
 }
 
-// Tag sizes (site.tag_size): the names of export.TagSizes.
+// Tag sizes (site.tag_size): the names of pdf.TagSizes (export/pdf).
 const (
 	TagOffice  = "office"
 	TagOutdoor = "outdoor"

@@ -2,11 +2,7 @@
 // depend on the last bits of a float.
 package num
 
-import (
-	"math"
-
-	"pqfab/panels"
-)
+import "math"
 
 // Round rounds x to d decimals without negative zero, so output bytes do
 // not depend on the last bits of a float. Every writer and the command's
@@ -18,9 +14,4 @@ func Round(x float64, d int) float64 {
 		return 0
 	}
 	return v
-}
-
-// RoundSpread rounds a spread's three numbers to d decimals.
-func RoundSpread(s panels.Spread, d int) panels.Spread {
-	return panels.Spread{Min: Round(s.Min, d), Median: Round(s.Median, d), Max: Round(s.Max, d)}
 }

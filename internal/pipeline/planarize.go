@@ -74,7 +74,7 @@ type PanelFlatness struct {
 func NewPlanarizeReport(net *quadnet.Net, opt panels.PlanarizeOptions, res *panels.PlanarizeResult) *PlanarizeReport {
 	r := &PlanarizeReport{WrittenBy: "pqfab", Net: net.Source, TolMM: opt.TolMM, Converged: res.Converged, Iterations: res.Iterations,
 		MaxMoveMM: num.Round(res.MaxMoveMM, 3), RMSMoveMM: num.Round(res.RMSMoveMM, 3),
-		FlatBefore: num.RoundSpread(panels.SpreadOf(res.Before), 3), FlatAfter: num.RoundSpread(panels.SpreadOf(res.After), 4),
+		FlatBefore: panels.SpreadOf(res.Before).Rounded(3), FlatAfter: panels.SpreadOf(res.After).Rounded(4),
 		NeededMoveMM: num.Round(res.NeedMoveMM, 1),
 		Caution:      "Caution: " + Caution}
 	if res.Stop != panels.StopNone {

@@ -223,10 +223,10 @@ func takeCutPlan(j *job.Job, res *Result, plan *bars.Plan, err error, pol Policy
 	pieces := res.Blanks
 	if un := plan.Unplaced; len(un) > 0 {
 		if !pol.Continue {
-			return j.KeyError("bar", fmt.Errorf("%d %w; the first is %s: %s", len(un), ErrMembersUnplaced, pieces[un[0].Piece].Label, un[0].Reason))
+			return j.KeyError("bar", fmt.Errorf("%d %w; the first is %s: %s", len(un), ErrMembersUnplaced, pieces[un[0].Piece].Label, un[0].Detail))
 		}
 		for _, u := range un {
-			warn(fmt.Sprintf("member %s is on no bar: %s", pieces[u.Piece].Label, u.Reason))
+			warn(fmt.Sprintf("member %s is on no bar: %s", pieces[u.Piece].Label, u.Detail))
 		}
 	}
 	res.BarPlan = plan

@@ -83,8 +83,8 @@ func Inspect(file string, net *quadnet.Net, topo *quadnet.Topology) (*Inspection
 		ratios[i] = p.Ratio * 100
 		flat[i] = p.Flatness
 	}
-	in.RatioPct = num.RoundSpread(panels.SpreadOf(ratios), 4)
-	in.FlatnessMM = num.RoundSpread(panels.SpreadOf(flat), 3)
+	in.RatioPct = panels.SpreadOf(ratios).Rounded(4)
+	in.FlatnessMM = panels.SpreadOf(flat).Rounded(3)
 	for _, f := range panels.Worst(pl, 10) {
 		in.Worst = append(in.Worst, WorstPanel{Panel: net.Faces[f].ID, Line: net.Faces[f].Line,
 			FlatnessMM: num.Round(pl[f].Flatness, 3), RatioPct: num.Round(pl[f].Ratio*100, 4), GapMM: num.Round(pl[f].DiagonalGap, 3)})
@@ -147,8 +147,8 @@ func SummarizeMembers(file string, axis nodes.AxisMethod, s *nodes.Structure) *M
 		}
 		sum.TwistHistogram = append(sum.TwistHistogram, BinCount{UpToDeg: up, Count: counts[b]})
 	}
-	sum.TwistDeg = num.RoundSpread(panels.SpreadOf(tw), 6)
-	sum.CutLengthMM = num.RoundSpread(panels.SpreadOf(cut), 1)
+	sum.TwistDeg = panels.SpreadOf(tw).Rounded(6)
+	sum.CutLengthMM = panels.SpreadOf(cut).Rounded(1)
 	order := make([]int, len(s.MemberTypes))
 	for i := range order {
 		order[i] = i

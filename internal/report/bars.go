@@ -48,24 +48,24 @@ func BarName(i, n int, lengthMM float64) string {
 
 // buildBars fills the report's cutting plan and returns each member's bar
 // name.
-func (rep *Report) buildBars(b *pipeline.Result) []string {
-	barOf := make([]string, len(b.Blanks))
+func (rep *Report) buildBars(res *pipeline.Result) []string {
+	barOf := make([]string, len(res.Blanks))
 	rep.BarStocks, rep.Bars = []BarStockRow{}, []BarRow{}
-	plan := b.BarPlan
+	plan := res.BarPlan
 	if plan == nil {
 		return barOf
 	}
 	for _, u := range plan.Stocks {
-		s := b.BarStocks[u.Stock]
+		s := res.BarStocks[u.Stock]
 		rep.BarStocks = append(rep.BarStocks, BarStockRow{Name: s.Name, LengthMM: s.LengthMM, KerfMM: s.KerfMM, TrimMM: s.TrimMM,
 			Price: s.Price, Bars: u.Bars, FewestByLength: u.LengthBound, LowerBound: u.Bound, Cost: r(u.Cost, 2)})
 	}
 	for i, bar := range plan.Bars {
-		s := b.BarStocks[bar.Stock]
+		s := res.BarStocks[bar.Stock]
 		row := BarRow{Name: BarName(i, len(plan.Bars), s.LengthMM), Stock: s.Name, LengthMM: s.LengthMM,
 			UsedMM: r(bar.UsedMM, LenDigits), OffcutMM: r(bar.OffcutMM, LenDigits), WasteMM: r(bar.WasteMM, LenDigits)}
 		for _, p := range bar.Pieces {
-			row.Pieces = append(row.Pieces, BarPieceRow{Member: b.Blanks[p].Label, BlankMM: r(b.Blanks[p].LengthMM, LenDigits)})
+			row.Pieces = append(row.Pieces, BarPieceRow{Member: res.Blanks[p].Label, BlankMM: r(res.Blanks[p].LengthMM, LenDigits)})
 			barOf[p] = row.Name
 		}
 		rep.Bars = append(rep.Bars, row)

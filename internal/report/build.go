@@ -14,30 +14,30 @@ func vec(v r3.Vec, d int) [3]float64 { return [3]float64{r(v.X, d), r(v.Y, d), r
 
 // New fills the report model, that every output file is written from,
 // straight from a build's result.
-func New(b *pipeline.Result) *Report {
-	s := b.Structure
-	n := b.Net
-	j := b.Job
-	rep := &Report{Title: j.Title, Caution: pipeline.Caution, Job: j.File, Net: b.NetPath,
+func New(res *pipeline.Result) *Report {
+	s := res.Structure
+	n := res.Net
+	j := res.Job
+	rep := &Report{Title: j.Title, Caution: pipeline.Caution, Job: j.File, Net: res.NetPath,
 		Units:    map[string]string{"length": "mm", "angle": "degree", "area": "m2", "weight": "kg"},
-		Settings: settingsOf(j), Warnings: append([]string{}, b.Warnings...),
+		Settings: settingsOf(j), Warnings: append([]string{}, res.Warnings...),
 		Sheets: []SheetRow{}, Unplaced: []UnplacedRow{}, Stocks: []StockRow{}, TagSize: j.Site.TagSize}
 	nodeLabel := func(i int) string { return s.Nodes[i].Label }
 	rep.Section = Section{WidthMM: s.Section.WidthMM, DepthMM: s.Section.DepthMM, WallMM: s.Section.WallMM}
 	rep.Counts = Counts{Nodes: len(n.Nodes), Members: len(s.Members), Panels: len(n.Faces),
-		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), PanelTypes: len(b.PanelTypes),
+		MemberTypes: len(s.MemberTypes), NodeTypes: len(s.NodeTypes), PanelTypes: len(res.PanelTypes),
 		MemberTypesBound: boundRow(s.MemberTypeBound, "members", ""),
 		NodeTypesBound:   boundRow(s.NodeTypeBound, "nodes", "nodes with different numbers of members never share a type"),
-		PanelTypesBound:  boundRow(b.PanelTypeBound, "panels", "panels with different numbers of corners never share a type")}
-	pl := b.Planarize
+		PanelTypesBound:  boundRow(res.PanelTypeBound, "panels", "panels with different numbers of corners never share a type")}
+	pl := res.Planarize
 	rep.Planarity = Planarity{ToleranceMM: j.Flatness.TolMM, Converged: pl.Converged, Iterations: pl.Iterations,
 		MaxMoveMM: r(pl.MaxMoveMM, 3), RMSMoveMM: r(pl.RMSMoveMM, 3),
-		FlatBeforeMM: spread(panels.SpreadOf(pl.Before), 3), FlatAfterMM: spread(panels.SpreadOf(pl.After), 4),
+		FlatBeforeMM: panels.SpreadOf(pl.Before).Rounded(3), FlatAfterMM: panels.SpreadOf(pl.After).Rounded(4),
 		MaxTwistDeg: r(nodes.MaxAbsTwist(s.Members), AngleDigits), MaxTwistNormalDeg: r(s.TwistNormalDeg, AngleDigits)}
 	rep.Nodes = make([]NodeRow, 0, len(s.Nodes))
 	for i, nd := range s.Nodes {
 		row := NodeRow{Label: nd.Label, ID: n.Nodes[i].ID, Pos: vec(n.Nodes[i].Pos, LenDigits), Axis: vec(nd.Axis, 6),
-			MembersAtNode: nd.Valence, Type: s.NodeTypes[nd.Type].Name, Support: b.Supports[i],
+			MembersAtNode: nd.Valence, Type: s.NodeTypes[nd.Type].Name, Support: res.Supports[i],
 			MoveMM: r(r3.Norm(pl.Moves[i]), LenDigits), Move: vec(pl.Moves[i], LenDigits),
 			AzimuthZero: nd.Zero, AxisTiltDeg: r(nd.TiltDeg, AngleDigits), AxisTiltTowardDeg: r(nd.TiltTowardDeg, AngleDigits)}
 		if len(nd.Arms) > 0 {
@@ -48,7 +48,7 @@ func New(b *pipeline.Result) *Report {
 		}
 		rep.Nodes = append(rep.Nodes, row)
 	}
-	barOf := rep.buildBars(b)
+	barOf := rep.buildBars(res)
 	kgm := j.Member.KgPerM()
 	rep.Members = make([]MemberRow, 0, len(s.Members))
 	fromB := make([]bool, len(s.Members))
@@ -65,7 +65,7 @@ func New(b *pipeline.Result) *Report {
 			LengthMM: r(m.LengthMM, LenDigits), CutLengthMM: r(m.CutLengthMM, LenDigits), TwistDeg: r(m.TwistDeg, AngleDigits),
 			FoldDeg: r(memberFold(m), AngleDigits), Type: s.MemberTypes[m.Type].Name,
 			Ends: [2]EndRow{end(m.A), end(m.B)}, TagEnd: map[bool]string{false: "A", true: "B"}[fromB[k]], FrameY: vec(m.Frame.Y, 6), FrameZ: vec(m.Frame.Z, 6),
-			BlankMM: r(blankOf(b, k), LenDigits), Bar: barOf[k], WeightKg: r(kgm*m.CutLengthMM/1000, WeightDigits)})
+			BlankMM: r(blankOf(res, k), LenDigits), Bar: barOf[k], WeightKg: r(kgm*m.CutLengthMM/1000, WeightDigits)})
 		rep.Weights.MembersKg += kgm * m.CutLengthMM / 1000
 	}
 	rep.MemberMaterial = MemberMaterial{Name: j.Member.Material, DensityKgM3: j.Member.DensityKgM3, Section: j.Member.Section, KgPerM: r(kgm, 3)}
@@ -73,13 +73,13 @@ func New(b *pipeline.Result) *Report {
 	pm := j.Material()
 	rep.PanelMaterial = PanelMaterial{Name: pm.Name, ThicknessMM: pm.ThicknessMM,
 		DensityKgM3: pm.DensityKgM3, EdgeInsetMM: pm.EdgeInsetMM, BevelledEdges: pm.BevelledEdges}
-	sheetOf := sheetsOf(b)
-	rep.Panels = make([]PanelRow, 0, len(b.Flats))
-	for f, fl := range b.Flats {
+	sheetOf := sheetsOf(res)
+	rep.Panels = make([]PanelRow, 0, len(res.Flats))
+	for f, fl := range res.Flats {
 		face := n.Faces[f]
 		row := PanelRow{Label: fl.Label, ID: face.ID, AreaM2: r(fl.AreaM2, AreaDigits), PerimeterMM: r(fl.PerimeterMM, LenDigits),
 			WeightKg: r(fl.WeightKg, WeightDigits), FlatnessBeforeMM: r(pl.Before[f], 3), FlatnessMM: r(pl.After[f], 4),
-			Type: b.PanelTypes[fl.Type].Name}
+			Type: res.PanelTypes[fl.Type].Name}
 		// The flat's corner i is the face's corner Start+i (corner 1 of
 		// the panel is corner 1 of its type).
 		kc := len(face.Corners)
@@ -99,7 +99,7 @@ func New(b *pipeline.Result) *Report {
 		for k := range face.Corners {
 			nb := ""
 			if g := fl.Neighbour[k]; g >= 0 {
-				nb = b.Flats[g].Label
+				nb = res.Flats[g].Label
 			}
 			row.Edges = append(row.Edges, EdgeRow{LengthMM: r(fl.EdgeMM[k], LenDigits), FoldDeg: r(fl.FoldDeg[k], AngleDigits), BevelDeg: r(fl.BevelDeg[k], AngleDigits), Neighbour: nb})
 			row.AnglesDeg = append(row.AnglesDeg, r(fl.AngleDeg[k], AngleDigits))
@@ -109,16 +109,16 @@ func New(b *pipeline.Result) *Report {
 			row.Diagonals = append(row.Diagonals, DiagonalRow{From: corner(d.I), To: corner(d.J), MM: r(d.MM, LenDigits)})
 		}
 		if sheetOf[f] >= 0 {
-			row.Sheet = nest.SheetName(sheetOf[f], len(b.Nesting.Sheets))
+			row.Sheet = nest.SheetName(sheetOf[f], len(res.Nesting.Sheets))
 		}
 		row.Outline = points(fl.Cut)
 		rep.Panels = append(rep.Panels, row)
 	}
-	rep.buildTypes(b)
-	if nr := b.Nesting; nr != nil {
+	rep.buildTypes(res)
+	if nr := res.Nesting; nr != nil {
 		rep.Sheets = make([]SheetRow, 0, len(nr.Sheets))
 		for si, sh := range nr.Sheets {
-			st := b.Stocks[sh.Stock]
+			st := res.Stocks[sh.Stock]
 			row := SheetRow{Name: nest.SheetName(si, len(nr.Sheets)), Stock: st.Name, WidthMM: st.WidthMM, HeightMM: st.HeightMM,
 				MarginMM: st.MarginMM, Rotation: string(st.Rotation), Utilization: r(sh.Utilization, 4)}
 			for _, c := range sh.Cuts {
@@ -129,16 +129,16 @@ func New(b *pipeline.Result) *Report {
 				row.Placements = make([]PlacementRow, 0, len(sh.Placements))
 			}
 			for _, p := range sh.Placements {
-				row.Placements = append(row.Placements, PlacementRow{Panel: b.Flats[p.Part].Label, X: r(p.X, LenDigits), Y: r(p.Y, LenDigits),
+				row.Placements = append(row.Placements, PlacementRow{Panel: res.Flats[p.Part].Label, X: r(p.X, LenDigits), Y: r(p.Y, LenDigits),
 					RotationDeg: r(p.RotationDeg, AngleDigits), Mirrored: p.Mirrored, Outline: points(p.Outline)})
 			}
 			rep.Sheets = append(rep.Sheets, row)
 		}
 		for _, u := range nr.Unplaced {
-			rep.Unplaced = append(rep.Unplaced, UnplacedRow{Panel: b.Flats[u.Part].Label, Reason: u.Reason.String()})
+			rep.Unplaced = append(rep.Unplaced, UnplacedRow{Panel: res.Flats[u.Part].Label, Reason: u.Reason.String()})
 		}
 		for _, u := range nr.Stocks {
-			st := b.Stocks[u.Stock]
+			st := res.Stocks[u.Stock]
 			cuts := string(st.Cuts)
 			if cuts == "" {
 				cuts = "any"
@@ -156,8 +156,8 @@ func New(b *pipeline.Result) *Report {
 	}
 	rep.Weights = Weights{PanelsKg: r(rep.Weights.PanelsKg, WeightDigits), MembersKg: r(rep.Weights.MembersKg, WeightDigits),
 		TotalKg: r(rep.Weights.PanelsKg+rep.Weights.MembersKg, WeightDigits)}
-	rep.Cost = costOf(b)
-	rep.Bays = BayGridOf(b.Bays)
+	rep.Cost = costOf(res)
+	rep.Bays = BayGridOf(res.Bays)
 	rep.Warnings = append(rep.Warnings, SiteWarnings(rep)...)
 	return rep
 }
@@ -173,11 +173,11 @@ func memberFold(m nodes.Member) float64 {
 
 // blankOf returns member k's blank length, or its cut length when the
 // result has no blanks.
-func blankOf(b *pipeline.Result, k int) float64 {
-	if k < len(b.Blanks) {
-		return b.Blanks[k].LengthMM
+func blankOf(res *pipeline.Result, k int) float64 {
+	if k < len(res.Blanks) {
+		return res.Blanks[k].LengthMM
 	}
-	return b.Structure.Members[k].CutLengthMM
+	return res.Structure.Members[k].CutLengthMM
 }
 
 // round rounds every value to d decimals.
@@ -198,15 +198,15 @@ func points(p geom.Polygon) [][2]float64 {
 }
 
 // sheetsOf returns, per face, the sheet index it lies on or -1.
-func sheetsOf(b *pipeline.Result) []int {
-	out := make([]int, len(b.Flats))
+func sheetsOf(res *pipeline.Result) []int {
+	out := make([]int, len(res.Flats))
 	for i := range out {
 		out[i] = -1
 	}
-	if b.Nesting == nil {
+	if res.Nesting == nil {
 		return out
 	}
-	for s, sh := range b.Nesting.Sheets {
+	for s, sh := range res.Nesting.Sheets {
 		for _, p := range sh.Placements {
 			out[p.Part] = s
 		}

@@ -25,8 +25,6 @@ const (
 	FilePlanPDF = "site/plan.pdf"
 	FileTagsPDF = "site/tags.pdf"
 	FileView    = "view.html"
-	// SiteFiles is how many of the files above WriteBuild writes.
-	SiteFiles = 3
 )
 
 // Size limits of the site files. Beyond them the file holds one page that

@@ -15,11 +15,8 @@ const (
 	WeightDigits = 2
 )
 
-// r and spread are the short names used throughout this package.
-var (
-	r      = num.Round
-	spread = num.RoundSpread
-)
+// r is the short name of the rounding used throughout this package.
+var r = num.Round
 
 // Report is report.json: everything, machine-readable. Lengths mm, angles
 // degrees, areas m², weights kg.
@@ -54,7 +51,7 @@ type Report struct {
 	Cost           *Cost          `json:"cost,omitempty"`
 	Bays           BayGrid        `json:"bays"`
 	// TagSize is the size of the tags in site/tags.pdf (a name in
-	// TagSizes).
+	// pdf.TagSizes of export/pdf).
 	TagSize string `json:"tag_size"`
 
 	panelOf map[string]*PanelRow // panel rows by label, into Panels

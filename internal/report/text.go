@@ -3,8 +3,6 @@ package report
 import (
 	"fmt"
 	"io"
-
-	"pqfab/internal/pipeline"
 )
 
 // WriteText writes the headline numbers of a build into dir for a
@@ -43,5 +41,5 @@ func WriteText(w io.Writer, dir string, rep *Report) {
 	if rep.Cost != nil {
 		fmt.Fprintf(w, "  cost estimate %.2f %s\n", rep.Cost.Total, rep.Cost.Currency)
 	}
-	fmt.Fprintln(w, "\nCaution: "+pipeline.Caution)
+	fmt.Fprintln(w, "\nCaution: "+Caution)
 }

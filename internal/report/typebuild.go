@@ -66,10 +66,10 @@ func boundReason(b parttype.Bound, noun, apart string) string {
 
 // buildTypes fills the type rows: the nominal part of every type, its
 // deviation, totals and parts.
-func (rep *Report) buildTypes(b *pipeline.Result) {
-	s := b.Structure
-	hub := b.Job.Nodes.HubRadiusMM
-	kgm := b.Job.Member.KgPerM()
+func (rep *Report) buildTypes(res *pipeline.Result) {
+	s := res.Structure
+	hub := res.Job.Nodes.HubRadiusMM
+	kgm := res.Job.Member.KgPerM()
 	rep.MemberTypes = make([]MemberTypeRow, 0, len(s.MemberTypes))
 	for _, t := range s.MemberTypes {
 		row := MemberTypeRow{Name: t.Name, Count: len(t.Parts), CutLengthMM: r(t.CutLengthMM, LenDigits),
@@ -108,8 +108,8 @@ func (rep *Report) buildTypes(b *pipeline.Result) {
 		}
 		rep.NodeTypes = append(rep.NodeTypes, row)
 	}
-	rep.PanelTypes = make([]PanelTypeRow, 0, len(b.PanelTypes))
-	for ti, t := range b.PanelTypes {
+	rep.PanelTypes = make([]PanelTypeRow, 0, len(res.PanelTypes))
+	for ti, t := range res.PanelTypes {
 		k := len(t.EdgeMM)
 		// The numbers of a type are its nominal outline's, as measured on
 		// it: the drawing and the schedule print one value, and the
@@ -118,19 +118,19 @@ func (rep *Report) buildTypes(b *pipeline.Result) {
 		row := PanelTypeRow{Name: t.Name, Count: len(t.Panels), EdgesMM: round(edges, LenDigits), AnglesDeg: round(angles, AngleDigits),
 			AreaM2: r(t.AreaM2, AreaDigits), PerimeterMM: r(t.PerimeterMM, LenDigits), MaxDevMM: r(t.OutlineDevMM, LenDigits),
 			MaxDevDeg: r(t.OutlineDevDeg, AngleDigits), TotalAreaM2: r(t.TotalAreaM2, AreaDigits), WeightKg: r(t.TotalWeightKg, WeightDigits),
-			Spec: specOf(b, t.Name), Diagonals: cornerDiagonals(diags), Mirrored: []string{}}
+			Spec: specOf(res, t.Name), Diagonals: cornerDiagonals(diags), Mirrored: []string{}}
 		row.BevelsDeg = make([][2]float64, k)
 		for e := 0; e < k; e++ {
 			row.BevelsDeg[e] = [2]float64{math.Inf(1), math.Inf(-1)}
 		}
 		for n, f := range t.Panels {
-			fl := b.Flats[f]
+			fl := res.Flats[f]
 			row.Parts = append(row.Parts, fl.Label)
 			if t.Mirrored[n] {
 				row.Mirrored = append(row.Mirrored, fl.Label)
 			}
 			pb := PartBevelsRow{Panel: fl.Label, BevelsDeg: make([]float64, k)}
-			for e, bv := range panels.TypeBevels(&b.PanelTypes[ti], n, fl) {
+			for e, bv := range panels.TypeBevels(&res.PanelTypes[ti], n, fl) {
 				pb.BevelsDeg[e] = r(bv, 2)
 				row.BevelsDeg[e] = [2]float64{min(row.BevelsDeg[e][0], bv), max(row.BevelsDeg[e][1], bv)}
 			}
@@ -141,8 +141,8 @@ func (rep *Report) buildTypes(b *pipeline.Result) {
 		}
 		row.Drawing = PanelDrawingRow{CutMM: pointsTo(t.Outline, drawingDigits), EdgesMM: row.EdgesMM, AnglesDeg: row.AnglesDeg,
 			Diagonals: row.Diagonals}
-		if ti < len(b.PanelTypeSetOut) {
-			row.Drawing.SetOutMM = pointsTo(b.PanelTypeSetOut[ti], drawingDigits)
+		if ti < len(res.PanelTypeSetOut) {
+			row.Drawing.SetOutMM = pointsTo(res.PanelTypeSetOut[ti], drawingDigits)
 		}
 		rep.PanelTypes = append(rep.PanelTypes, row)
 	}
@@ -166,11 +166,11 @@ func (e TypeEndRow) Offset(y, z float64) float64 {
 
 // specOf returns the specification of a panel type: the type's own where
 // the job gives one, else the job's.
-func specOf(b *pipeline.Result, typeName string) PanelSpec {
-	if s, ok := b.TypeSpecs[typeName]; ok {
+func specOf(res *pipeline.Result, typeName string) PanelSpec {
+	if s, ok := res.TypeSpecs[typeName]; ok {
 		return s
 	}
-	return pipeline.Spec(b.Job.Panel.PanelSpec)
+	return pipeline.Spec(res.Job.Panel.PanelSpec)
 }
 
 // drawingDigits: the type drawings' outlines are given to 0.001 mm, so

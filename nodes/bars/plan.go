@@ -14,11 +14,12 @@ import (
 
 // DefaultEffort is the work (comparisons of piece groups and search
 // nodes) the solver may spend on one packing of the pieces into one stock,
-// and again on improving each mix: a few seconds on a current core at
-// most. It cuts the search short only where the plan has not reached its
-// lower bound; the u250 and t60 instances of Falkenauer (1996) need a
-// two-hundredth of it, a triplet instance of 501 items about 70 % of it.
-const DefaultEffort = 100_000_000
+// and again on improving each mix: under a second on a current core. It
+// cuts the search short only where the plan has not reached its lower
+// bound; on the u250 and t60 instances of Falkenauer (1996) a thirtieth of
+// it is enough. Harder instances gain from more: a triplet instance of 501
+// items reaches its optimum with about five times as much (TestTripletsLarge).
+const DefaultEffort = 15_000_000
 
 // Options tune Solve. A zero field means its default.
 type Options struct {
@@ -55,10 +56,35 @@ type Bar struct {
 	WasteMM  float64 // LengthMM − BlankMM − OffcutMM: trims, kerfs and any sliver too short to free
 }
 
-// Unplaced is a piece that is on no bar, with the reason.
+// Unplaced is a piece that is on no bar: why (Reason), and the same said
+// with the numbers for a message (Detail).
 type Unplaced struct {
 	Piece  int
-	Reason string
+	Reason Reason
+	Detail string
+}
+
+// Reason says why a piece is on no bar.
+type Reason int
+
+// Reasons a piece is on no bar.
+const (
+	// ReasonTooLong: its blank is longer than the usable length of every
+	// bar stock.
+	ReasonTooLong Reason = iota + 1
+	// ReasonNoBarLeft: every bar it fits is used (the stocks' counts).
+	ReasonNoBarLeft
+)
+
+// String names the reason in plain words.
+func (r Reason) String() string {
+	switch r {
+	case ReasonTooLong:
+		return "longer than every bar"
+	case ReasonNoBarLeft:
+		return "no bar left that it fits"
+	}
+	return "unknown reason"
 }
 
 // StockUse sums up one stock.
@@ -163,7 +189,7 @@ func Solve(pieces []Piece, stocks []Stock, opt Options) (*Plan, error) {
 			return nil, geom.FieldErrorf(fmt.Sprintf("Pieces[%d].LengthMM", i), "blank %q: length %g mm must be a number more than zero", pc.Label, pc.LengthMM)
 		}
 		if pc.LengthMM > MaxLengthMM {
-			plan.Unplaced = append(plan.Unplaced, Unplaced{i, tooLong(pc.LengthMM, longest)})
+			plan.Unplaced = append(plan.Unplaced, Unplaced{i, ReasonTooLong, tooLong(pc.LengthMM, longest)})
 			continue
 		}
 		cs = append(cs, canon{toUM(pc.LengthMM, true), pc.Label, i})
@@ -184,7 +210,7 @@ func Solve(pieces []Piece, stocks []Stock, opt Options) (*Plan, error) {
 			fits = fits || c.blank <= u.usable
 		}
 		if !fits {
-			plan.Unplaced = append(plan.Unplaced, Unplaced{c.index, tooLong(pieces[c.index].LengthMM, longest)})
+			plan.Unplaced = append(plan.Unplaced, Unplaced{c.index, ReasonTooLong, tooLong(pieces[c.index].LengthMM, longest)})
 			continue
 		}
 		items = append(items, int32(len(p.blank)))
@@ -282,7 +308,7 @@ func (p *problem) fill(plan *Plan, m mix) {
 		plan.CostBound += best
 	}
 	for _, i := range m.unplaced {
-		plan.Unplaced = append(plan.Unplaced, Unplaced{p.index[i], p.outOfStock(i)})
+		plan.Unplaced = append(plan.Unplaced, Unplaced{p.index[i], ReasonNoBarLeft, p.outOfStock(i)})
 	}
 	slices.SortFunc(plan.Unplaced, func(a, b Unplaced) int { return a.Piece - b.Piece })
 	if len(p.stocks) == 1 {

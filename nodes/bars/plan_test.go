@@ -80,11 +80,11 @@ func TestDegenerate(t *testing.T) {
 		t.Fatalf("too long: %d bars, unplaced %+v", len(plan.Bars), plan.Unplaced)
 	}
 	for _, u := range plan.Unplaced {
-		if !strings.Contains(u.Reason, "longer than the longest usable bar length, 5980 mm") {
-			t.Errorf("piece %d: reason %q", u.Piece, u.Reason)
+		if !strings.Contains(u.Detail, "longer than the longest usable bar length, 5980 mm") {
+			t.Errorf("piece %d: reason %q", u.Piece, u.Detail)
 		}
 	}
-	if got, want := plan.Unplaced[0].Reason, "blank 5981 mm is longer than the longest usable bar length, 5980 mm"; got != want {
+	if got, want := plan.Unplaced[0].Detail, "blank 5981 mm is longer than the longest usable bar length, 5980 mm"; got != want {
 		t.Errorf("reason %q, want %q", got, want)
 	}
 	// Zero kerf and zero trim: three thirds fill a bar exactly.
@@ -187,8 +187,8 @@ func TestCountLimits(t *testing.T) {
 		t.Fatalf("bars %d + %d, unplaced %d; want 2 + 1, 2", plan.Stocks[0].Bars, plan.Stocks[1].Bars, len(plan.Unplaced))
 	}
 	for _, u := range plan.Unplaced {
-		if !strings.Contains(u.Reason, "no bar left") || !strings.Contains(u.Reason, "6 m (2 bars)") {
-			t.Errorf("reason %q", u.Reason)
+		if !strings.Contains(u.Detail, "no bar left") || !strings.Contains(u.Detail, "6 m (2 bars)") {
+			t.Errorf("reason %q", u.Detail)
 		}
 	}
 	if plan.Cost != 2*40+60 {

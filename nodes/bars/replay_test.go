@@ -150,10 +150,10 @@ func replay(t testing.TB, pieces []Piece, stocks []Stock, plan *Plan) {
 		for k, st := range stocks {
 			usable := new(big.Rat).Sub(exactDecimal(t, st.LengthMM), ratMul(2, exactDecimal(t, st.TrimMM)))
 			if blank.Cmp(usable) <= 0 && (st.Count == 0 || perStock[k] < st.Count) {
-				t.Errorf("piece %s unplaced (%s), but stock %s holds it and has bars left", pieces[u.Piece].Label, u.Reason, st.Name)
+				t.Errorf("piece %s unplaced (%s), but stock %s holds it and has bars left", pieces[u.Piece].Label, u.Detail, st.Name)
 			}
 		}
-		if u.Reason == "" {
+		if u.Detail == "" || u.Reason == 0 {
 			t.Errorf("piece %s unplaced without a reason", pieces[u.Piece].Label)
 		}
 	}
@@ -194,7 +194,7 @@ func TestReplayCatches(t *testing.T) {
 		"order":    func(p *Plan) { slices.Reverse(p.Bars[0].Pieces) },
 		"count":    func(p *Plan) { p.Bars = append(p.Bars, Bar{Stock: 0, Pieces: nil}) },
 		"unplaced": func(p *Plan) {
-			p.Unplaced = append(p.Unplaced, Unplaced{p.Bars[1].Pieces[0], "x"})
+			p.Unplaced = append(p.Unplaced, Unplaced{p.Bars[1].Pieces[0], ReasonNoBarLeft, "x"})
 			p.Bars[1].Pieces = p.Bars[1].Pieces[1:]
 		},
 		"cost": func(p *Plan) { p.Cost++ },

@@ -222,7 +222,7 @@ func (g *gPacker) child(st *gState, k int, m gMove, tr *turned, order []int, min
 		c.cuts = append(c.cuts, Cut{Piece: cur, From: from, To: to})
 		cur = 2*id + 1
 		farUse := clipHalf(useP, e.n.Scale(-1), -e.n.Dot(a)+g.stock.SpacingMM)
-		if farShape != nil && farUse != nil && farUse.Area() >= minArea {
+		if farUse != nil && farUse.Area() >= minArea {
 			c.pieces = append(c.pieces, newFreePiece(2*id+2, farShape, farUse))
 		}
 		shapeP = clipHalf(shapeP, e.n, e.n.Dot(a))

@@ -85,7 +85,11 @@ type branch struct {
 // the search goes on from the best sheet so far, its free pieces looked
 // at again, until a round places nothing more. Many small parts, each a
 // shape of its own, so fill the whole sheet and not only the window's
-// share of it.
+// share of it. A piece an earlier round chose to leave empty stays empty.
+//
+// fillSheet changes g.left while it searches and sets it back before it
+// returns; the packers of all stocks share that slice, so the driver calls
+// them one after another, never side by side.
 func (g *gPacker) fillSheet(budget, branch, look, orders int, ctx context.Context) (*gState, int) {
 	saved := slices.Clone(g.left)
 	defer copy(g.left, saved)

@@ -34,10 +34,10 @@ func randomBox(rng *rand.Rand, span float64) Box {
 		HW: 0.5 + rng.Float64()*4, HH: 0.2 + rng.Float64()*1.5}
 }
 
-// TestOboxOverlaps checks the separating-axis test against polygon
+// TestBoxOverlaps checks the separating-axis test against polygon
 // clipping on random rectangles (fixed seed); pairs within a hair of
 // touching are left out, where the two methods may round either way.
-func TestOboxOverlaps(t *testing.T) {
+func TestBoxOverlaps(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 14))
 	checked := 0
 	for n := 0; n < 20000; n++ {

@@ -4,13 +4,15 @@ import "math"
 
 // Box is an oriented rectangle in the plan: centre, unit direction of
 // its width, half width and half height. Text boxes, member lines (as
-// thin boxes) and node marks are oboxes.
+// thin boxes) and node marks are Boxes.
 type Box struct {
 	CX, CY float64
 	UX, UY float64 // unit vector along the width; the height runs along (-uy, ux)
 	HW, HH float64
 }
 
+// AxisBox returns the box of width w and height h centred on (cx, cy),
+// square to the axes.
 func AxisBox(cx, cy, w, h float64) Box { return Box{CX: cx, CY: cy, UX: 1, HW: w / 2, HH: h / 2} }
 
 // SegmentBox is the segment a–b widened by half a clearance on each side.
@@ -70,13 +72,13 @@ func (b Box) EdgePoint(p [2]float64) [2]float64 {
 	return [2]float64{b.CX + k*dx, b.CY + k*dy}
 }
 
-// boxIndex holds occupied rectangles in a uniform grid of square cells
+// BoxIndex holds occupied rectangles in a uniform grid of square cells
 // over a fixed extent, so a free-space test looks only at the rectangles
 // near it. A rectangle reaching past the extent is filed under the border
 // cells, which keeps every test exact (only slower out there). Each cell
 // holds a linked list of entries in flat arrays: adding never allocates
 // per cell.
-type boxIndex struct {
+type BoxIndex struct {
 	cell      float64
 	x0, y0    float64 // lower-left corner of the extent
 	nx, ny    int32   // cells along x and y
@@ -93,12 +95,12 @@ const maxIndexCells = 1 << 24
 
 // NewBoxIndex returns an index with cells of about side cell over the
 // extent lo–hi.
-func NewBoxIndex(cell float64, lo, hi [2]float64) *boxIndex {
+func NewBoxIndex(cell float64, lo, hi [2]float64) *BoxIndex {
 	w, h := math.Max(hi[0]-lo[0], cell), math.Max(hi[1]-lo[1], cell)
 	if n := (w / cell) * (h / cell); n > maxIndexCells {
 		cell *= math.Sqrt(n / maxIndexCells)
 	}
-	ix := &boxIndex{cell: cell, x0: lo[0], y0: lo[1], nx: int32(math.Ceil(w/cell)) + 1, ny: int32(math.Ceil(h/cell)) + 1}
+	ix := &BoxIndex{cell: cell, x0: lo[0], y0: lo[1], nx: int32(math.Ceil(w/cell)) + 1, ny: int32(math.Ceil(h/cell)) + 1}
 	ix.head = make([]int32, int(ix.nx)*int(ix.ny))
 	for i := range ix.head {
 		ix.head[i] = -1
@@ -106,7 +108,7 @@ func NewBoxIndex(cell float64, lo, hi [2]float64) *boxIndex {
 	return ix
 }
 
-func (ix *boxIndex) cellRange(b Box) (i0, j0, i1, j1 int32) {
+func (ix *BoxIndex) cellRange(b Box) (i0, j0, i1, j1 int32) {
 	x0, y0, x1, y1 := b.bounds()
 	f := func(v, o float64, n int32) int32 {
 		c := math.Floor((v - o) / ix.cell)
@@ -120,7 +122,7 @@ func (ix *boxIndex) cellRange(b Box) (i0, j0, i1, j1 int32) {
 // cells along its axis only, which still covers it as long as it is thin.
 const maxCellsPerBox = 4096
 
-func (ix *boxIndex) file(i, j, k int32) {
+func (ix *BoxIndex) file(i, j, k int32) {
 	c := j*ix.nx + i
 	if h := ix.head[c]; h >= 0 && ix.box[h] == k {
 		return // filed here just before
@@ -130,7 +132,8 @@ func (ix *boxIndex) file(i, j, k int32) {
 	ix.head[c] = int32(len(ix.box) - 1)
 }
 
-func (ix *boxIndex) Add(b Box) {
+// Add files box b in the index.
+func (ix *BoxIndex) Add(b Box) {
 	k := int32(len(ix.boxes))
 	ix.boxes = append(ix.boxes, b)
 	ix.seen = append(ix.seen, 0)
@@ -163,7 +166,7 @@ func (ix *boxIndex) Add(b Box) {
 }
 
 // free reports whether b overlaps no rectangle in the index.
-func (ix *boxIndex) free(b Box) bool {
+func (ix *BoxIndex) free(b Box) bool {
 	ix.query++
 	i0, j0, i1, j1 := ix.cellRange(b)
 	for j := j0; j <= j1; j++ {
@@ -199,7 +202,7 @@ const leaderDirections = 16
 // Placer puts labels one by one where they overlap nothing placed before
 // and no obstacle (deterministic greedy: the first free candidate wins).
 type Placer struct {
-	Index *boxIndex
+	Index *BoxIndex
 	// Ring is the step between leader rings; rings is how many are
 	// tried before a label goes to the overflow column.
 	Ring  float64
@@ -249,40 +252,10 @@ func (p *Placer) Place(anchor [2]float64, w, h float64, cands func(scale float64
 	return Placement{Box: c, Scale: 1, Leader: true}
 }
 
-// UprightAngle turns a direction into a text angle in (-90°, 90°] so the
-// text reads from the left or from below; it returns the angle in
-// degrees and the matching unit vector.
-func UprightAngle(dx, dy float64) (deg, ux, uy float64) {
-	l := math.Hypot(dx, dy)
-	if l == 0 {
-		return 0, 1, 0
-	}
-	ux, uy = dx/l, dy/l
-	if ux < 0 || (ux == 0 && uy < 0) {
-		ux, uy = -ux, -uy
-	}
-	return math.Atan2(uy, ux) * 180 / math.Pi, ux, uy
-}
-
 // SideSlack is added to the distance of a label from its member line, as
 // a fraction of the label's height, so a label does not merely touch the
 // clear band along the line (where the last bits of a float decide).
 const SideSlack = 0.1
-
-// MemberCandidates: beside the member (off its line by clear), parallel
-// to it, at the middle and then further along, above then below.
-func MemberCandidates(a, b [2]float64, w, h, clear, scale float64, ux, uy float64) []Box {
-	vx, vy := -uy, ux
-	out := make([]Box, 0, 10)
-	for _, t := range [...]float64{0.5, 0.38, 0.62, 0.26, 0.74} {
-		mx, my := a[0]+t*(b[0]-a[0]), a[1]+t*(b[1]-a[1])
-		for _, side := range [...]float64{1, -1} {
-			off := clear + (0.5+SideSlack)*scale*h
-			out = append(out, Box{CX: mx + side*off*vx, CY: my + side*off*vy, UX: ux, UY: uy, HW: scale * w / 2, HH: scale * h / 2})
-		}
-	}
-	return out
-}
 
 // NodeCandidates: the label block in the four quadrants off the node
 // (the corner of the block gap away from it), then above, below, right,

@@ -9,38 +9,17 @@ import (
 	"strings"
 
 	"pqfab/internal/report"
-	"pqfab/nodes"
 	"pqfab/quadnet"
 )
 
 // HubFrameNote defines the hub angles for the people who read them; it is
-// in the legends of the plans (HubFrameShort is on every node tag).
+// in the legends of the plans (pdf.HubFrameShort is on every node tag).
 const HubFrameNote = "Hub angles: z = node axis; azimuth 0 = grid north (+y of the plan) projected on the plane square to the axis " +
 	"(the hub's face), found with the plan before any member is in and marked on the hub " +
 	"(up, +z, instead where the axis lies within 5° of the north-south line); azimuth counter-clockwise seen " +
 	"from above the hub along the axis, 0 to 360°, arms listed going round the hub; elevation above (+) or " +
 	"below (-) the plane square to the axis. Axis tilt: the axis's angle from vertical and the plan direction it leans " +
 	"toward, counter-clockwise from grid north."
-
-// AzimuthZeroText names a hub's azimuth 0 for the schedule.
-func AzimuthZeroText(zero string) string {
-	if zero == nodes.ZeroUp {
-		return "up (+z) on the plane square to the axis"
-	}
-	return "grid north (+y) on the plane square to the axis"
-}
-
-// AxisTiltText says how a node's axis leans, for a tag.
-func AxisTiltText(n report.NodeRow) string {
-	s := fmt.Sprintf("axis tilt %.1f°", r(n.AxisTiltDeg, 1))
-	if r(n.AxisTiltDeg, 1) > 0 {
-		s += fmt.Sprintf(" toward %.0f° ccw from north", math.Mod(r(n.AxisTiltTowardDeg, 0), 360))
-	}
-	if n.AzimuthZero == nodes.ZeroUp {
-		s += "; az 0 = up (+z) on the plane square to the axis"
-	}
-	return s
-}
 
 // NumberingNote says how parts are numbered inside a bay (quadnet.Bays.Label).
 const NumberingNote = "Numbering in a bay: row by row from the bay's lower-left corner, by x along a row. " +
@@ -183,6 +162,8 @@ func (m *Site) GridRange() (cols, rows int) {
 // HeightText is a node's height as printed: z in whole millimetres.
 func HeightText(z float64) string { return fmt.Sprintf("z %.0f", r(z, 0)) }
 
+// Bubble is a grid bubble of the plans: its centre and its text (a column
+// letter or a row number).
 type Bubble struct {
 	X, Y float64
 	Text string

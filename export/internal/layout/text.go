@@ -97,15 +97,3 @@ func WrapFields(s string, fits func(line string) bool) []string {
 	}
 	return lines
 }
-
-// OneLine makes s safe for one line of a text format (an OBJ comment, a
-// progress message): control characters become spaces, so text from the
-// job can never start a new line and add nodes or panels to a net file.
-func OneLine(s string) string {
-	return strings.Map(func(r rune) rune {
-		if r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0) || r == '\u2028' || r == '\u2029' {
-			return ' '
-		}
-		return r
-	}, s)
-}

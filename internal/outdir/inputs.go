@@ -1,26 +1,21 @@
-package pipeline
+package outdir
 
 import (
 	"path/filepath"
 	"strings"
 
-	"pqfab/internal/outdir"
 	"pqfab/quadnet"
 )
 
-// DiagnosticPath returns where a build into dir that misses the flatness
-// tolerance writes its diagnostic report: DIR-planarity.json beside dir.
-func DiagnosticPath(dir string) string { return filepath.Clean(dir) + "-planarity.json" }
-
-// OutputOptions returns the rules every command writes its outputs by
+// ForInputs returns the rules every command writes its outputs by
 // (build and demo, planarize -o and --report, sample -o): an existing
 // output is replaced only when pqfab wrote it, or with force; never an
 // input read from disk (each of inputs, such as the job file and the net
 // file, and the panels file of a CSV net pair), a folder holding one, the
 // current folder or the home folder or a folder above them, or the root
-// (see outdir). Empty inputs are skipped.
-func OutputOptions(force bool, inputs ...string) outdir.Options {
-	opt := outdir.Options{Force: force}
+// (see Options). Empty inputs are skipped.
+func ForInputs(force bool, inputs ...string) Options {
+	opt := Options{Force: force}
 	for _, in := range inputs {
 		if in == "" {
 			continue

@@ -1,17 +1,15 @@
-package pipeline
+package outdir
 
 import (
 	"os"
 	"path/filepath"
 	"slices"
 	"testing"
-
-	"pqfab/internal/outdir"
 )
 
-// TestOutputOptions: every command's output rules keep the inputs it read
+// TestForInputs: every command's output rules keep the inputs it read
 // from disk, the panels file of a CSV pair included, and nothing else.
-func TestOutputOptions(t *testing.T) {
+func TestForInputs(t *testing.T) {
 	for _, tc := range []struct {
 		force  bool
 		inputs []string
@@ -24,17 +22,17 @@ func TestOutputOptions(t *testing.T) {
 		{true, []string{"job.toml", "site/canopy-nodes.csv"}, []string{"job.toml", "site/canopy-nodes.csv", "site/canopy-panels.csv"}},
 		{false, []string{"net.CSV"}, []string{"net.CSV"}}, // no "nodes" in the name: the reader says so
 	} {
-		got := OutputOptions(tc.force, tc.inputs...)
+		got := ForInputs(tc.force, tc.inputs...)
 		if got.Force != tc.force || !slices.Equal(got.Keep, tc.want) || got.OnTemp != nil {
-			t.Errorf("OutputOptions(%v, %q) = {Force %v, Keep %q}, want {Force %v, Keep %q}", tc.force, tc.inputs, got.Force, got.Keep, tc.force, tc.want)
+			t.Errorf("ForInputs(%v, %q) = {Force %v, Keep %q}, want {Force %v, Keep %q}", tc.force, tc.inputs, got.Force, got.Keep, tc.force, tc.want)
 		}
 	}
 }
 
-// TestOutputOptionsKeepPanelsFile: with the rules of a build from a CSV
+// TestForInputsKeepPanelsFile: with the rules of a build from a CSV
 // pair, neither file of the pair nor their folder can be an output, not
 // even with force.
-func TestOutputOptionsKeepPanelsFile(t *testing.T) {
+func TestForInputsKeepPanelsFile(t *testing.T) {
 	dir := t.TempDir()
 	nodes, panels := filepath.Join(dir, "in", "canopy-nodes.csv"), filepath.Join(dir, "in", "canopy-panels.csv")
 	if err := os.Mkdir(filepath.Join(dir, "in"), 0o755); err != nil {
@@ -45,14 +43,14 @@ func TestOutputOptionsKeepPanelsFile(t *testing.T) {
 			t.Fatal(err)
 		}
 	}
-	opt := OutputOptions(true, filepath.Join(dir, "job.toml"), nodes)
-	if err := outdir.CheckFiles(opt, panels); err == nil {
+	opt := ForInputs(true, filepath.Join(dir, "job.toml"), nodes)
+	if err := CheckFiles(opt, panels); err == nil {
 		t.Errorf("%s may be replaced as an output", panels)
 	}
-	if err := outdir.CheckFolder(filepath.Join(dir, "in"), opt); err == nil {
+	if err := CheckFolder(filepath.Join(dir, "in"), opt); err == nil {
 		t.Errorf("the folder holding the net may be replaced")
 	}
-	if err := outdir.CheckFolder(filepath.Join(dir, "out"), opt); err != nil {
+	if err := CheckFolder(filepath.Join(dir, "out"), opt); err != nil {
 		t.Errorf("a new folder beside the inputs: %v", err)
 	}
 }
