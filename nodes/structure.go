@@ -90,6 +90,25 @@ func (o Options) withDefaults() Options {
 // default, and returns a *geom.FieldError naming the first bad field.
 func (o Options) Validate() error {
 	o = o.withDefaults()
+	if err := o.check(); err != nil {
+		return err
+	}
+	return o.Types.Validate()
+}
+
+// ValidateExact checks the options as given: a zero field means zero (an
+// error where the option has no zero setting) and the negative constants
+// are refused, as a job file or a flag means them. The errors are
+// Validate's.
+func (o Options) ValidateExact() error {
+	if err := o.check(); err != nil {
+		return err
+	}
+	return o.Types.check()
+}
+
+// check checks the ranges of every field but Types as they stand.
+func (o Options) check() error {
 	switch o.Axis {
 	case AxisNormal, AxisLeastTwist:
 	default:
@@ -111,13 +130,15 @@ func (o Options) Validate() error {
 		return geom.FieldErrorf("Section.WallMM", "%g must be more than 0 and less than half the section's width and depth (%g x %g mm)",
 			w, o.Section.WidthMM, o.Section.DepthMM)
 	}
-	return o.Types.Validate()
+	return nil
 }
 
 // Validate checks the type tolerances, a zero tolerance standing for its
 // default.
-func (t TypeOptions) Validate() error {
-	t = t.withDefaults()
+func (t TypeOptions) Validate() error { return t.withDefaults().check() }
+
+// check checks the tolerances' ranges as they stand.
+func (t TypeOptions) check() error {
 	if !(t.LengthTolMM >= 0) || t.LengthTolMM > MaxTypeLengthTolMM {
 		return geom.FieldErrorf("Types.LengthTolMM", "%g must be between 0 and %g mm", t.LengthTolMM, MaxTypeLengthTolMM)
 	}

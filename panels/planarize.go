@@ -80,8 +80,16 @@ func (o PlanarizeOptions) withDefaults() PlanarizeOptions {
 
 // Validate checks every option's range, a zero field standing for its
 // default, and returns a *geom.FieldError naming the first bad field.
-func (o PlanarizeOptions) Validate() error {
-	o = o.withDefaults()
+func (o PlanarizeOptions) Validate() error { return o.withDefaults().check() }
+
+// ValidateExact checks the options as given: a zero field means zero (an
+// error where the option has no zero setting) and the negative constants
+// are refused, as a job file or a flag means them. The errors are
+// Validate's.
+func (o PlanarizeOptions) ValidateExact() error { return o.check() }
+
+// check checks the ranges of the fields as they stand.
+func (o PlanarizeOptions) check() error {
 	switch {
 	case !(o.TolMM > 0) || o.TolMM > MaxFlatTolMM:
 		return geom.FieldErrorf("TolMM", "%g must be more than 0 and at most %g mm", o.TolMM, MaxFlatTolMM)

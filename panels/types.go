@@ -49,8 +49,16 @@ func (o TypeOptions) withDefaults() TypeOptions {
 
 // Validate checks the tolerances' ranges, a zero tolerance standing for
 // its default.
-func (o TypeOptions) Validate() error {
-	o = o.withDefaults()
+func (o TypeOptions) Validate() error { return o.withDefaults().check() }
+
+// ValidateExact checks the options as given: a zero field means zero (an
+// error where the option has no zero setting) and the negative constants
+// are refused, as a job file or a flag means them. The errors are
+// Validate's.
+func (o TypeOptions) ValidateExact() error { return o.check() }
+
+// check checks the tolerances' ranges as they stand.
+func (o TypeOptions) check() error {
 	if !(o.TolMM >= 0) || o.TolMM > MaxTypeTolMM {
 		return geom.FieldErrorf("TolMM", "%g must be between 0 and %g mm", o.TolMM, MaxTypeTolMM)
 	}

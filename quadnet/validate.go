@@ -88,8 +88,16 @@ func (o ValidateOptions) withDefaults() ValidateOptions {
 // Validate reports the first bad value as a *FieldError: every value, a
 // zero standing for its default, must be a finite number, zero or more,
 // and MaxMedianEdgeMM, when set, at least MinMedianEdgeMM.
-func (o ValidateOptions) Validate() error {
-	o = o.withDefaults()
+func (o ValidateOptions) Validate() error { return o.withDefaults().check() }
+
+// ValidateExact checks the options as given: a zero field means zero (an
+// error where the option has no zero setting) and the negative constants
+// are refused, as a job file or a flag means them. The errors are
+// Validate's.
+func (o ValidateOptions) ValidateExact() error { return o.check() }
+
+// check checks the values as they stand.
+func (o ValidateOptions) check() error {
 	for _, f := range []struct {
 		name string
 		v    float64
