@@ -246,6 +246,14 @@ func (d *dxfDoc) num(code int, x float64) {
 	d.buf = append(d.buf, '\n')
 }
 
+// point appends a 3D point as the groups code, code+10 and code+20 (x, y
+// and z).
+func (d *dxfDoc) point(code int, x, y, z float64) {
+	d.num(code, x)
+	d.num(code+10, y)
+	d.num(code+20, z)
+}
+
 // str appends a group with a text value (already safe for DXF).
 func (d *dxfDoc) str(code int, s string) {
 	d.buf = strconv.AppendInt(d.buf, int64(code), 10)
@@ -270,12 +278,8 @@ func (d *dxfDoc) Line(x0, y0, z0, x1, y1, z1 float64) (int, error) {
 	d.grow(x1, y1, z1)
 	d.start("LINE", "AcDbLine")
 	if d.w != nil {
-		d.num(10, x0)
-		d.num(20, y0)
-		d.num(30, z0)
-		d.num(11, x1)
-		d.num(21, y1)
-		d.num(31, z1)
+		d.point(10, x0, y0, z0)
+		d.point(11, x1, y1, z1)
 	}
 	d.flush()
 	return d.count, d.err
@@ -287,13 +291,9 @@ func (d *dxfDoc) Circle(x, y, z, rad float64) (int, error) {
 	d.grow(x+rad, y+rad, z)
 	d.start("CIRCLE", "AcDbCircle")
 	if d.w != nil {
-		d.num(10, x)
-		d.num(20, y)
-		d.num(30, z)
+		d.point(10, x, y, z)
 		d.num(40, rad)
-		d.num(210, 0)
-		d.num(220, 0)
-		d.num(230, 1)
+		d.point(210, 0, 0, 1) // extrusion: +z
 	}
 	d.flush()
 	return d.count, d.err
@@ -313,9 +313,7 @@ func (d *dxfDoc) text(s string, x, y, z, h, rot float64, centred bool) (int, err
 	d.grow(x+w, y+h, z)
 	d.start("TEXT", "AcDbText")
 	if d.w != nil {
-		d.num(10, x)
-		d.num(20, y)
-		d.num(30, z)
+		d.point(10, x, y, z)
 		d.num(40, h)
 		d.num(50, rot)
 		d.num(41, 1)
@@ -324,9 +322,7 @@ func (d *dxfDoc) text(s string, x, y, z, h, rot float64, centred bool) (int, err
 		d.str(7, "Standard")
 		if centred {
 			d.str(72, "1")
-			d.num(11, x)
-			d.num(21, y)
-			d.num(31, z)
+			d.point(11, x, y, z)
 		}
 		d.str(100, "AcDbText")
 		if centred {
